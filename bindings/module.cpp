@@ -1,0 +1,11 @@
+// colligate._core: the compiled module. Only calls the register_<area> functions.
+#include <pybind11/pybind11.h>
+
+#include "register.hpp"
+
+PYBIND11_MODULE(_core, m) {
+  m.doc() = "colligate compiled core: activity models, ice equilibrium, freezing points.";
+  m.attr("__version__") = COLLIGATE_VERSION;
+  colligate_bindings::register_core(m);
+  colligate_bindings::register_equilibria(m);
+}

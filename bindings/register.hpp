@@ -1,0 +1,42 @@
+#pragma once
+// Private helpers shared by the binding files. No physics here.
+#include <pybind11/pybind11.h>
+
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "colligate/core/solution.hpp"
+
+namespace colligate_bindings {
+
+namespace py = pybind11;
+
+void register_core(py::module_& m);
+void register_equilibria(py::module_& m);
+
+/// Converts any mapping with .items() (dict, pandas Series) to named amounts.
+inline std::vector<colligate::named_amount> to_named_amounts(const py::object& mapping,
+                                                             const char* argument) {
+  if (!py::hasattr(mapping, "items"))
+    throw colligate::invalid_input(std::string(argument) +
+                                   " must be a mapping of solute name to amount "
+                                   "(dict or pandas Series)");
+  std::vector<colligate::named_amount> out;
+  for (auto item : mapping.attr("items")()) {
+    auto pair = item.cast<py::tuple>();
+    std::string name = py::str(pair[0]);
+    double value;
+    try {
+      value = pair[1].cast<double>();
+    } catch (const py::cast_error&) {
+      throw colligate::invalid_input(std::string(argument) + "['" + name +
+                                     "'] must be a number, got " +
+                                     std::string(py::repr(pair[1])));
+    }
+    out.emplace_back(std::move(name), value);
+  }
+  return out;
+}
+
+}  // namespace colligate_bindings

@@ -1,0 +1,121 @@
+// Bindings for water/ and equilibria/: a_w, freezing point, ice fraction.
+// Scalar functions return (value, reason); reason is "" when every input was inside the
+// model's validated range. The Python layer turns reasons into warnings. The array loop
+// releases the GIL and touches no Python object.
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+
+#include <string>
+#include <tuple>
+
+#include "colligate/colligate.hpp"
+#include "register.hpp"
+
+namespace colligate_bindings {
+
+namespace {
+
+using colligate::solution;
+using colligate::models::model_from_string;
+
+std::tuple<double, std::string> as_tuple(const colligate::checked_value& v) {
+  return {v.value, v.check.reason};
+}
+
+}  // namespace
+
+void register_equilibria(py::module_& m) {
+  namespace eq = colligate::equilibria;
+
+  m.def("ln_water_activity_of_ice", &colligate::water::ln_water_activity_of_ice,
+        py::arg("temperature"),
+        "ln a_w of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere.");
+  m.def("enthalpy_of_fusion", &colligate::water::enthalpy_of_fusion, py::arg("temperature"),
+        "Molar enthalpy of fusion of ice at ``temperature`` (K), J/mol.");
+  m.def("ice_vapour_pressure", &colligate::water::ice_vapour_pressure, py::arg("temperature"),
+        "Vapour pressure of ice, Pa (Murphy & Koop 2005 eq. 7).");
+  m.def("liquid_vapour_pressure", &colligate::water::liquid_vapour_pressure,
+        py::arg("temperature"),
+        "Vapour pressure of liquid or supercooled water, Pa (Murphy & Koop 2005 eq. 10).");
+
+  m.def(
+      "water_activity",
+      [](const solution& s, double T, const std::string& model, const std::string& policy) {
+        return as_tuple(colligate::models::water_activity(
+            s, T, model_from_string(model), colligate::range_policy_from_string(policy)));
+      },
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("range_policy") = "extrapolate");
+  m.def(
+      "osmotic_coefficient",
+      [](const solution& s, double T, const std::string& model, const std::string& policy) {
+        return as_tuple(colligate::models::osmotic_coefficient(
+            s, T, model_from_string(model), colligate::range_policy_from_string(policy)));
+      },
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("range_policy") = "extrapolate");
+  m.def(
+      "freezing_point",
+      [](const solution& s, const std::string& model, const std::string& policy,
+         double bound_water) {
+        return as_tuple(eq::freezing_point_checked(s, model_from_string(model),
+                                                   colligate::range_policy_from_string(policy),
+                                                   bound_water));
+      },
+      py::arg("solution"), py::arg("model") = "auto", py::arg("range_policy") = "extrapolate",
+      py::arg("bound_water") = 0.0);
+  m.def(
+      "ice_fraction",
+      [](const solution& s,
+         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const std::string& model, const std::string& policy, double bound_water) {
+        const auto id = model_from_string(model);
+        const auto pol = colligate::range_policy_from_string(policy);
+        py::array_t<double> out(temperature.request().shape);
+        const double* t = temperature.data();
+        double* o = out.mutable_data();
+        const auto n = static_cast<std::size_t>(temperature.size());
+        std::string first_reason;
+        std::size_t n_out_of_range = 0;
+        {
+          py::gil_scoped_release release;
+          for (std::size_t i = 0; i < n; ++i) {
+            const auto v = eq::ice_fraction(s, t[i], id, pol, bound_water);
+            o[i] = v.value;
+            if (!v.check.in_range()) {
+              if (n_out_of_range++ == 0) first_reason = v.check.reason;
+            }
+          }
+        }
+        return std::make_tuple(out, first_reason, n_out_of_range);
+      },
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0);
+
+  py::class_<eq::unfrozen_phase>(m, "UnfrozenPhaseState",
+                                 "State of a partly frozen solution at one temperature (SI).")
+      .def_readonly("temperature", &eq::unfrozen_phase::temperature, "Temperature, K.")
+      .def_readonly("total_water", &eq::unfrozen_phase::total_water, "Water in the food, kg.")
+      .def_readonly("bound_water", &eq::unfrozen_phase::bound_water, "Unfreezable water, kg.")
+      .def_readonly("unfrozen_water", &eq::unfrozen_phase::unfrozen_water, "Liquid water, kg.")
+      .def_readonly("ice", &eq::unfrozen_phase::ice, "Ice, kg.")
+      .def_readonly("water_activity", &eq::unfrozen_phase::water_activity,
+                    "Water activity of the unfrozen phase.")
+      .def_readonly("iterations", &eq::unfrozen_phase::iterations)
+      .def_property_readonly("ice_fraction", &eq::unfrozen_phase::ice_fraction,
+                             "Ice mass / total water mass.")
+      .def_property_readonly("status", [](const eq::unfrozen_phase& u) { return eq::to_string(u.status); })
+      .def_property_readonly("success", &eq::unfrozen_phase::success)
+      .def_property_readonly("reason", [](const eq::unfrozen_phase& u) { return u.check.reason; },
+                             "Why the result is outside the validated range ('' if inside).");
+  m.def(
+      "unfrozen_phase",
+      [](const solution& s, double T, const std::string& model, double bound_water) {
+        return eq::unfrozen_phase_at(s, T, model_from_string(model), bound_water);
+      },
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("bound_water") = 0.0);
+}
+
+}  // namespace colligate_bindings

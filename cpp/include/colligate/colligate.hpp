@@ -1,0 +1,35 @@
+#pragma once
+/// \file colligate.hpp
+/// Umbrella header for the stable C++ API of colligate.
+///
+/// Layers (DESIGN.md section 3): core/ (constants, errors, validity, solution),
+/// data/ (solute records, the built-in table, citations), water/ (ice and vapour
+/// pressures), models/ (activity models), equilibria/ (freezing point, ice fraction).
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/errors.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+#include "colligate/data/builtin_solutes.hpp"
+#include "colligate/data/citation.hpp"
+#include "colligate/data/solute_record.hpp"
+#include "colligate/data/solute_table.hpp"
+#include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/equilibria/solver_status.hpp"
+#include "colligate/models/ideal.hpp"
+#include "colligate/models/model_id.hpp"
+#include "colligate/models/norrish.hpp"
+#include "colligate/models/raoult.hpp"
+#include "colligate/models/water_activity.hpp"
+#include "colligate/water/ice.hpp"
+#include "colligate/water/vapour_pressure.hpp"
+
+namespace colligate {
+using equilibria::freezing_point;
+using equilibria::ice_fraction;
+using equilibria::unfrozen_phase_at;
+using models::model_id;
+using models::water_activity;
+using models::osmotic_coefficient;
+}  // namespace colligate

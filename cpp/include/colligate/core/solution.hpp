@@ -1,0 +1,206 @@
+#pragma once
+/// \file solution.hpp
+/// The solution value type: kilograms of water plus moles of each solute.
+///
+/// Immutable and validated at construction. Factories take amounts (kg), molalities
+/// (mol per kg water), mass fractions (rest is water), mole fractions (formula units,
+/// rest is water) or Brix (mass percent sucrose). Solute names resolve through a
+/// solute_table (case-insensitive; names, formulas and aliases accepted); a solute given
+/// twice, under any of its names, is an error.
+
+#include <cmath>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/errors.hpp"
+#include "colligate/data/builtin_solutes.hpp"
+#include "colligate/data/solute_record.hpp"
+#include "colligate/data/solute_table.hpp"
+
+namespace colligate {
+
+/// A named amount given by a caller: (solute name, value in the factory's unit).
+using named_amount = std::pair<std::string, double>;
+
+class solution {
+ public:
+  /// Water plus solute masses, kg.
+  static solution from_masses(double water_kg, const std::vector<named_amount>& solute_kg,
+                              const data::solute_table& table = data::builtin_solutes()) {
+    check_amount("solution", "water", water_kg, "kg");
+    if (!(water_kg > 0.0))
+      throw invalid_input(detail::describe("solution", "water", water_kg,
+                                           "a solution needs water > 0 kg"));
+    solution s;
+    s.water_kg_ = water_kg;
+    for (const auto& [name, kg] : solute_kg) {
+      check_amount("solution", "solutes['" + name + "']", kg, "kg");
+      const auto& rec = table.find(name);
+      s.add_species(rec, kg / rec.molar_mass, name);
+    }
+    return s;
+  }
+
+  /// Molalities, mol per kg of water, with `water_kg` of water.
+  static solution from_molalities(const std::vector<named_amount>& molalities,
+                                  double water_kg = 1.0,
+                                  const data::solute_table& table = data::builtin_solutes()) {
+    check_amount("from_molalities", "water", water_kg, "kg");
+    if (!(water_kg > 0.0))
+      throw invalid_input(detail::describe("from_molalities", "water", water_kg,
+                                           "a solution needs water > 0 kg"));
+    solution s;
+    s.water_kg_ = water_kg;
+    for (const auto& [name, m] : molalities) {
+      check_amount("from_molalities", "molalities['" + name + "']", m, "mol/kg");
+      const auto& rec = table.find(name);
+      s.add_species(rec, m * water_kg, name);
+    }
+    return s;
+  }
+
+  /// Solute mass fractions; the rest of `total_kg` is water. The fractions must sum to
+  /// less than 1.
+  static solution from_mass_fractions(const std::vector<named_amount>& fractions,
+                                      double total_kg = 1.0,
+                                      const data::solute_table& table = data::builtin_solutes()) {
+    check_amount("from_mass_fractions", "total_mass", total_kg, "kg");
+    if (!(total_kg > 0.0))
+      throw invalid_input(
+          detail::describe("from_mass_fractions", "total_mass", total_kg, "must be > 0 kg"));
+    double sum = 0.0;
+    for (const auto& [name, w] : fractions) {
+      check_amount("from_mass_fractions", "fractions['" + name + "']", w, "");
+      if (w > 1.0)
+        throw invalid_input(detail::describe("from_mass_fractions", "fractions['" + name + "']",
+                                             w, "a mass fraction must lie in [0, 1)"));
+      sum += w;
+    }
+    if (!(sum < 1.0))
+      throw invalid_input(detail::describe(
+          "from_mass_fractions", "sum of solute mass fractions", sum,
+          "must be below 1 (the rest is water); give percentages as fractions (20 % -> 0.20)"));
+    std::vector<named_amount> masses;
+    for (const auto& [name, w] : fractions) masses.emplace_back(name, w * total_kg);
+    return from_masses((1.0 - sum) * total_kg, masses, table);
+  }
+
+  /// Solute mole fractions of formula units (undissociated); the rest is water.
+  /// The solution holds one mole of water plus solutes in total.
+  static solution from_mole_fractions(const std::vector<named_amount>& fractions,
+                                      const data::solute_table& table = data::builtin_solutes()) {
+    double sum = 0.0;
+    for (const auto& [name, x] : fractions) {
+      check_amount("from_mole_fractions", "fractions['" + name + "']", x, "");
+      sum += x;
+    }
+    if (!(sum < 1.0))
+      throw invalid_input(detail::describe("from_mole_fractions", "sum of solute mole fractions",
+                                           sum, "must be below 1 (the rest is water)"));
+    const double water_kg = (1.0 - sum) * constants::molar_mass_water;
+    std::vector<named_amount> molalities;
+    for (const auto& [name, x] : fractions) molalities.emplace_back(name, x / water_kg);
+    return from_molalities(molalities, water_kg, table);
+  }
+
+  /// Sucrose solution of the given Brix (mass percent sucrose), 1 kg in total.
+  static solution from_brix(double brix,
+                            const data::solute_table& table = data::builtin_solutes()) {
+    if (!std::isfinite(brix) || brix < 0.0 || brix >= 100.0)
+      throw invalid_input(detail::describe("from_brix", "brix", brix,
+                                           "must be finite and in [0, 100) mass percent"));
+    return from_mass_fractions({{"sucrose", brix / 100.0}}, 1.0, table);
+  }
+
+  // --- accessors (SI) -------------------------------------------------------------
+
+  double water_mass() const noexcept { return water_kg_; }
+  double water_moles() const noexcept { return water_kg_ / constants::molar_mass_water; }
+  std::size_t size() const noexcept { return species_.size(); }
+  const std::vector<data::solute_record>& species() const noexcept { return species_; }
+  const std::vector<double>& moles() const noexcept { return moles_; }
+
+  double solute_mass(std::size_t i) const { return moles_.at(i) * species_.at(i).molar_mass; }
+  double molality(std::size_t i) const { return moles_.at(i) / water_kg_; }
+
+  double total_solute_mass() const noexcept {
+    double m = 0.0;
+    for (std::size_t i = 0; i < species_.size(); ++i) m += moles_[i] * species_[i].molar_mass;
+    return m;
+  }
+  double total_mass() const noexcept { return water_kg_ + total_solute_mass(); }
+  double mass_fraction(std::size_t i) const { return solute_mass(i) / total_mass(); }
+  double water_mass_fraction() const noexcept { return water_kg_ / total_mass(); }
+
+  /// Mole fraction of solute i counting formula units (no dissociation).
+  double mole_fraction(std::size_t i) const { return moles_.at(i) / total_formula_moles(); }
+  double water_mole_fraction() const noexcept { return water_moles() / total_formula_moles(); }
+
+  /// Total dissolved solids as mass percent. Equals refractometric Brix only for pure
+  /// sucrose solutions.
+  double brix() const noexcept { return 100.0 * total_solute_mass() / total_mass(); }
+
+  /// Ionic strength, mol/kg, assuming complete dissociation into ions of the record's
+  /// charge pattern (1:1 -> m, 2:1 -> 3m).
+  double ionic_strength() const noexcept {
+    double I = 0.0;
+    for (std::size_t i = 0; i < species_.size(); ++i) {
+      if (species_[i].kind != data::solute_class::electrolyte) continue;
+      const double m = moles_[i] / water_kg_;
+      // nu = 2: 1:1 salt (I = m); nu = 3: 2:1 or 1:2 salt (I = 3m)
+      I += (species_[i].particles == 2 ? 1.0 : 3.0) * m;
+    }
+    return I;
+  }
+
+  /// The same solutes with a different mass of water (used by the ice curve).
+  solution with_water(double water_kg) const {
+    check_amount("with_water", "water", water_kg, "kg");
+    if (!(water_kg > 0.0))
+      throw invalid_input(detail::describe("with_water", "water", water_kg, "must be > 0 kg"));
+    solution s = *this;
+    s.water_kg_ = water_kg;
+    return s;
+  }
+
+  /// Index of a solute by any of its names, or size() if absent.
+  std::size_t index_of(const std::string& id) const {
+    for (std::size_t i = 0; i < species_.size(); ++i)
+      if (species_[i].id == id) return i;
+    return species_.size();
+  }
+
+ private:
+  solution() = default;
+
+  double total_formula_moles() const noexcept {
+    double n = water_moles();
+    for (double x : moles_) n += x;
+    return n;
+  }
+
+  static void check_amount(const char* where, const std::string& field, double value,
+                           const char* unit) {
+    if (!std::isfinite(value) || value < 0.0)
+      throw invalid_input(detail::describe(where, field, value,
+                                           std::string("must be finite and >= 0") +
+                                               (*unit ? std::string(" ") + unit : "")));
+  }
+
+  void add_species(const data::solute_record& rec, double moles, const std::string& given) {
+    for (const auto& existing : species_)
+      if (existing.id == rec.id)
+        throw invalid_input("solution: solute '" + given + "' is given twice (as '" + rec.id +
+                            "' and another name for it)");
+    species_.push_back(rec);
+    moles_.push_back(moles);
+  }
+
+  double water_kg_ = 1.0;
+  std::vector<data::solute_record> species_;
+  std::vector<double> moles_;
+};
+
+}  // namespace colligate

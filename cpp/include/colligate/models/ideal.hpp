@@ -1,0 +1,43 @@
+#pragma once
+/// \file ideal.hpp
+/// Ideal dilute (colligative) model: ln a_w = -M_w * sum_i nu_i m_i, the limit of every
+/// model as m -> 0; with the ice equilibrium linearised it gives dT = Kf sum nu_i m_i,
+/// Kf = R T0^2 M_w / dH_fus = 1.86 K kg/mol (common practice).
+/// Validity: dilute solutions; total particle molality up to 0.1 mol/kg, where it stays
+/// within about 1 % of the CRC Handbook freezing-point depressions of sugars and salts.
+
+#include <string>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+
+namespace colligate::models {
+
+struct ideal {
+  static constexpr const char* id = "ideal";
+  static constexpr double max_particle_molality = 0.1;  // mol/kg
+
+  static double particle_molality(const solution& s, double water_kg) {
+    double m = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) m += s.species()[i].particles * s.moles()[i];
+    return m / water_kg;
+  }
+
+  /// ln a_w with `water_kg` of water in place of the solution's own.
+  static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
+    return -constants::molar_mass_water * particle_molality(s, water_kg);
+  }
+
+  static validity check(const solution& s, double water_kg, double /*temperature*/) {
+    validity v;
+    const double m = particle_molality(s, water_kg);
+    if (m > max_particle_molality)
+      v.reason = colligate::detail::describe(
+          "model 'ideal'", "particle molality", m,
+          "above 0.1 mol/kg, the dilute range where the colligative law holds within about 1 %");
+    return v;
+  }
+};
+
+}  // namespace colligate::models

@@ -1,0 +1,99 @@
+#pragma once
+/// \file norrish.hpp
+/// Norrish model for non-electrolytes (sugars, polyols, glycols, ethanol, organic acids).
+///
+/// Single solute (Norrish 1966, J. Food Technol. 1, 25, eq. 7, in our sign convention,
+/// K > 0 for sugars; cubic and quartic terms K3, K4 extend it to the concentrations of the freezing curve):
+///
+///     ln a_w = ln x_w - K x_s^2 - K3 x_s^3 - K4 x_s^4
+///
+/// Several solutes (Chirife, Ferro Fontan & Benmergui 1980, J. Food Technol. 15, 59, eq. 4):
+///
+///     ln a_w = ln x_w - (sum_{K_i > 0} sqrt(K_i) x_i)^2 - sum_{K_i <= 0} K_i x_i^2
+///                     - sum_i (K3_i x_i^3 + K4_i x_i^4)
+///
+/// The published extension covers K > 0; solutes whose water activity lies above Raoult's
+/// law (K < 0, e.g. ethanol) and the higher-order terms are added per solute (colligate's
+/// choice; it reduces to the single-solute form exactly). Mole fractions count every
+/// dissolved particle: x_w = n_w / (n_w + sum nu_i n_i), so electrolytes, which have no
+/// Norrish constant, contribute their ions as ideal particles until the electrolyte model
+/// takes over.
+///
+/// Constants are at 25 C; they are used unchanged at other temperatures (the freezing
+/// data they were checked against lie between 0 and -30 C). Validity per solute: its
+/// binary-equivalent mass fraction (solute / (solute + water)) up to the record's
+/// max_mass_fraction; temperatures 233.15-323.15 K.
+
+#include <cmath>
+#include <string>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+
+namespace colligate::models {
+
+struct norrish {
+  static constexpr const char* id = "norrish";
+  static constexpr double min_temperature = 233.15;
+  static constexpr double max_temperature = 323.15;
+  static constexpr double max_electrolyte_molality = 0.3;  // counted as Raoult particles
+
+  static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
+    const double nw = water_kg / constants::molar_mass_water;
+    double n_total = nw;
+    for (std::size_t i = 0; i < s.size(); ++i) n_total += s.species()[i].particles * s.moles()[i];
+    double sqrt_sum = 0.0, extra = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& nc = s.species()[i].norrish;
+      if (!nc.available) continue;
+      const double x = s.moles()[i] / n_total;
+      if (nc.k > 0.0)
+        sqrt_sum += std::sqrt(nc.k) * x;
+      else
+        extra -= nc.k * x * x;
+      extra -= x * x * x * (nc.k3 + nc.k4 * x);
+    }
+    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
+  }
+
+  static validity check(const solution& s, double water_kg, double temperature) {
+    validity v;
+    if (temperature < min_temperature || temperature > max_temperature) {
+      v.reason = colligate::detail::describe("model 'norrish'", "temperature", temperature,
+                                             "outside 233.15-323.15 K where its constants "
+                                             "were checked");
+      return v;
+    }
+    double me = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      const double mass = s.moles()[i] * rec.molar_mass;
+      if (rec.kind == data::solute_class::electrolyte) {
+        me += s.moles()[i] / water_kg;
+        continue;
+      }
+      if (!rec.norrish.available) {
+        v.reason = "model 'norrish': solute '" + rec.id +
+                   "' has no Norrish constant; counted as an ideal (Raoult) particle";
+        return v;
+      }
+      const double w = mass / (mass + water_kg);
+      if (w > rec.norrish.max_mass_fraction) {
+        v.reason = colligate::detail::describe(
+            "model 'norrish'", "binary mass fraction of '" + rec.id + "'", w,
+            "above " + std::to_string(rec.norrish.max_mass_fraction).substr(0, 4) +
+                ", the highest concentration its constants were checked at (" +
+                rec.norrish.note + ")");
+        return v;
+      }
+    }
+    if (me > max_electrolyte_molality)
+      v.reason = colligate::detail::describe(
+          "model 'norrish'", "electrolyte molality", me,
+          "above 0.3 mol/kg; electrolytes are counted as ideal ions, which fails beyond that");
+    return v;
+  }
+};
+
+}  // namespace colligate::models

@@ -1,0 +1,44 @@
+#pragma once
+/// \file raoult.hpp
+/// Raoult's law with dissociated particles counted: a_w = x_w = n_w / (n_w + sum nu_i n_i).
+/// Validity: particle molality up to 1 mol/kg for non-electrolytes, 0.3 mol/kg for
+/// electrolytes (beyond those, ion interactions and solute hydration matter; use Norrish or
+/// the electrolyte models).
+
+#include <cmath>
+
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+
+namespace colligate::models {
+
+struct raoult {
+  static constexpr const char* id = "raoult";
+  static constexpr double max_particle_molality = 1.0;        // mol/kg
+  static constexpr double max_electrolyte_molality = 0.3;     // mol/kg of formula units
+
+  static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
+    const double nw = water_kg / constants::molar_mass_water;
+    double np = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) np += s.species()[i].particles * s.moles()[i];
+    return -std::log1p(np / nw);
+  }
+
+  static validity check(const solution& s, double water_kg, double /*temperature*/) {
+    validity v;
+    double m = 0.0, me = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      m += s.species()[i].particles * s.moles()[i] / water_kg;
+      if (s.species()[i].kind == data::solute_class::electrolyte) me += s.moles()[i] / water_kg;
+    }
+    if (me > max_electrolyte_molality)
+      v.reason = colligate::detail::describe("model 'raoult'", "electrolyte molality", me,
+                                             "above 0.3 mol/kg, where ideal ions fail");
+    else if (m > max_particle_molality)
+      v.reason = colligate::detail::describe("model 'raoult'", "particle molality", m,
+                                             "above the validated 1 mol/kg");
+    return v;
+  }
+};
+
+}  // namespace colligate::models

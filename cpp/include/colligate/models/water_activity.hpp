@@ -1,0 +1,111 @@
+#pragma once
+/// \file water_activity.hpp
+/// One entry point for every activity model: ln a_w of a solution at temperature T,
+/// chosen by model_id, with its validity. `auto` chooses the most complete model for
+/// the solutes present (today: Norrish, which also counts electrolyte ions as ideal
+/// particles) and says so in describe_model().
+
+#include <cmath>
+#include <cstdio>
+#include <string>
+
+#include "colligate/core/errors.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+#include "colligate/models/ideal.hpp"
+#include "colligate/models/model_id.hpp"
+#include "colligate/models/norrish.hpp"
+#include "colligate/models/raoult.hpp"
+
+namespace colligate::models {
+
+/// The concrete model `auto` resolves to for this solution.
+inline model_id resolve(model_id m, const solution& /*s*/) {
+  return m == model_id::automatic ? model_id::norrish : m;
+}
+
+/// ln a_w with `water_kg` of water in place of the solution's own (for the ice curve).
+inline double ln_water_activity(model_id m, const solution& s, double water_kg,
+                                double temperature) {
+  switch (resolve(m, s)) {
+    case model_id::ideal: return ideal::ln_water_activity(s, water_kg, temperature);
+    case model_id::raoult: return raoult::ln_water_activity(s, water_kg, temperature);
+    case model_id::norrish: return norrish::ln_water_activity(s, water_kg, temperature);
+    case model_id::automatic: break;
+  }
+  throw invalid_input("ln_water_activity: unresolved model");
+}
+
+inline validity check(model_id m, const solution& s, double water_kg, double temperature) {
+  switch (resolve(m, s)) {
+    case model_id::ideal: return ideal::check(s, water_kg, temperature);
+    case model_id::raoult: return raoult::check(s, water_kg, temperature);
+    case model_id::norrish: return norrish::check(s, water_kg, temperature);
+    case model_id::automatic: break;
+  }
+  throw invalid_input("check: unresolved model");
+}
+
+inline void check_temperature_argument(const char* where, double temperature) {
+  if (!std::isfinite(temperature) || !(temperature > 0.0))
+    throw invalid_input(colligate::detail::describe(where, "temperature", temperature,
+                                                    "must be finite and > 0 K"));
+}
+
+/// Water activity at temperature T with the caller's range policy.
+inline checked_value water_activity(const solution& s, double temperature,
+                                    model_id m = model_id::automatic,
+                                    range_policy policy = range_policy::extrapolate) {
+  check_temperature_argument("water_activity", temperature);
+  const double lnaw = ln_water_activity(m, s, s.water_mass(), temperature);
+  return apply_policy(std::exp(lnaw), check(m, s, s.water_mass(), temperature), policy);
+}
+
+/// Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i). For a solution without solutes, 1.
+inline checked_value osmotic_coefficient(const solution& s, double temperature,
+                                         model_id m = model_id::automatic,
+                                         range_policy policy = range_policy::extrapolate) {
+  check_temperature_argument("osmotic_coefficient", temperature);
+  const double mp = ideal::particle_molality(s, s.water_mass());
+  const double lnaw = ln_water_activity(m, s, s.water_mass(), temperature);
+  const double phi = mp > 0.0 ? -lnaw / (constants::molar_mass_water * mp) : 1.0;
+  return apply_policy(phi, check(m, s, s.water_mass(), temperature), policy);
+}
+
+/// Readable description of which model and constants a calculation uses.
+inline std::string describe_model(const solution& s, model_id m = model_id::automatic) {
+  const model_id r = resolve(m, s);
+  std::string out = std::string("model '") + to_string(r) + "'";
+  if (m == model_id::automatic) out += " (chosen by 'auto')";
+  switch (r) {
+    case model_id::ideal:
+      out += ": ideal dilute solution, ln a_w = -M_w sum nu_i m_i";
+      break;
+    case model_id::raoult:
+      out += ": Raoult's law with dissociated particles counted, a_w = x_w";
+      break;
+    case model_id::norrish:
+      out += ": Norrish (1966) with the multi-solute extension of Chirife et al. (1980)";
+      break;
+    case model_id::automatic: break;
+  }
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const auto& rec = s.species()[i];
+    out += "; " + rec.id + ": ";
+    if (r == model_id::norrish && rec.norrish.available) {
+      char buf[160];
+      std::snprintf(buf, sizeof buf, "K = %.4g [%s]", rec.norrish.k, rec.norrish.k_source.c_str());
+      out += buf;
+      if (rec.norrish.k3 != 0.0) {
+        std::snprintf(buf, sizeof buf, ", K3 = %.4g [%s]", rec.norrish.k3,
+                      rec.norrish.k3_source.c_str());
+        out += buf;
+      }
+    } else {
+      out += std::to_string(rec.particles) + " ideal particle(s) per formula unit";
+    }
+  }
+  return out;
+}
+
+}  // namespace colligate::models

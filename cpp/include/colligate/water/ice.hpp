@@ -1,0 +1,107 @@
+#pragma once
+/// \file ice.hpp
+/// Water activity of a solution in equilibrium with pure ice Ih at 101325 Pa.
+///
+/// Ice coexists with a solution when ln a_w(solution, T) = ln a_w,ice(T), where
+///
+///     ln a_w,ice(T) = (1/R) * integral from T0 to T of dH_fus(t) / t^2 dt,
+///     dH_fus(T)    = dH_fus(T0) + integral from T0 to T of dCp(t) dt,
+///     dCp(T)       = Cp,liquid(T) - Cp,ice(T) = c0 + c1 d + c2 d^2 + c3 d^3,  d = T - T0.
+///
+/// T0 = 273.15 K (the ice point at one atmosphere), dH_fus(T0) = 6007 J/mol and
+/// c0 = 38.25 J/(mol K) from constants.hpp (IAPWS-95 liquid minus IAPWS R10-06 ice at
+/// 0 C). c1..c3 describe the rising heat capacity of supercooled water; they were fitted
+/// by colligate (source key colligate_fit_mk2005) to the ratio of the Murphy & Koop
+/// (2005) vapour pressures of ice (eq. 7) and supercooled water (eq. 10), with a
+/// Poynting correction to one atmosphere, over 233.15-273.15 K. The result reproduces
+/// that ratio within 3e-5 in a_w over the range; tests/cpp/water/test_ice.cpp checks it.
+/// Validated range: 233.15 K to 273.15 K.
+
+#include <array>
+#include <cmath>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/validity.hpp"
+
+namespace colligate::water {
+
+/// Lowest temperature at which a_w,ice(T) is validated, K (-40 C).
+inline constexpr double ice_model_min_temperature = 233.15;
+/// Highest temperature at which ice can exist at one atmosphere, K.
+inline constexpr double ice_model_max_temperature = constants::ice_point;
+
+namespace detail {
+
+/// dCp polynomial coefficients in d = T - T0: J/(mol K), J/(mol K^2), ...
+inline constexpr std::array<double, 4> delta_cp_coefficients = {
+    constants::heat_capacity_water_0c - constants::heat_capacity_ice_0c,  // 38.25
+    -0.1571134, -0.01728863, -0.00096686};
+
+/// Coefficients a_j of dH_fus(T) = sum_j a_j T^j (j = 0..4), expanded from the
+/// polynomial in d = T - T0.
+inline std::array<double, 5> enthalpy_power_coefficients() {
+  // dH(d) = H0 + sum_k c_k d^(k+1)/(k+1) = sum_n b_n d^n, n = 0..4
+  const auto& c = delta_cp_coefficients;
+  const std::array<double, 5> b = {constants::enthalpy_of_fusion_ice, c[0], c[1] / 2.0,
+                                   c[2] / 3.0, c[3] / 4.0};
+  // d^n = (T - T0)^n = sum_j binom(n, j) T^j (-T0)^(n-j)
+  std::array<double, 5> a{};
+  const double T0 = constants::ice_point;
+  for (int n = 0; n < 5; ++n) {
+    double binom = 1.0;
+    for (int j = 0; j <= n; ++j) {
+      if (j > 0) binom = binom * (n - j + 1) / j;
+      a[j] += b[n] * binom * std::pow(-T0, n - j);
+    }
+  }
+  return a;
+}
+
+/// Antiderivative of dH_fus(t)/t^2.
+inline double enthalpy_over_t2_antiderivative(const std::array<double, 5>& a, double t) {
+  return -a[0] / t + a[1] * std::log(t) + a[2] * t + a[3] * t * t / 2.0 +
+         a[4] * t * t * t / 3.0;
+}
+
+}  // namespace detail
+
+/// Heat-capacity difference between liquid water and ice, J/(mol K).
+inline double delta_heat_capacity_of_fusion(double temperature) {
+  const double d = temperature - constants::ice_point;
+  const auto& c = detail::delta_cp_coefficients;
+  return c[0] + d * (c[1] + d * (c[2] + d * c[3]));
+}
+
+/// Molar enthalpy of fusion of ice at temperature T, J/mol.
+inline double enthalpy_of_fusion(double temperature) {
+  const double d = temperature - constants::ice_point;
+  const auto& c = detail::delta_cp_coefficients;
+  return constants::enthalpy_of_fusion_ice +
+         d * (c[0] + d * (c[1] / 2.0 + d * (c[2] / 3.0 + d * c[3] / 4.0)));
+}
+
+/// ln of the water activity of a solution in equilibrium with ice at T, one atmosphere.
+/// Defined for T > 0; validated 233.15-273.15 K (check with ice_temperature_validity).
+inline double ln_water_activity_of_ice(double temperature) {
+  static const std::array<double, 5> a = detail::enthalpy_power_coefficients();
+  return (detail::enthalpy_over_t2_antiderivative(a, temperature) -
+          detail::enthalpy_over_t2_antiderivative(a, constants::ice_point)) /
+         constants::gas_constant;
+}
+
+/// Water activity of a solution in equilibrium with ice at T.
+inline double water_activity_of_ice(double temperature) {
+  return std::exp(ln_water_activity_of_ice(temperature));
+}
+
+/// Range check for the ice equilibrium.
+inline validity ice_temperature_validity(double temperature) {
+  validity v;
+  if (temperature < ice_model_min_temperature)
+    v.reason = colligate::detail::describe(
+        "ice equilibrium", "temperature", temperature,
+        "below the validated range 233.15-273.15 K of a_w,ice (Murphy & Koop 2005)");
+  return v;
+}
+
+}  // namespace colligate::water

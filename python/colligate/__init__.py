@@ -1,0 +1,286 @@
+"""colligate: freezing points, water activity and ice-fraction curves of food solutions.
+
+All quantities are SI: temperatures in K, masses in kg, amounts in mol, molalities in
+mol per kg of water. The numerics live in the compiled module ``colligate._core``; this
+package adds warnings, pandas tables, reports, plots and the ``colligate`` command.
+
+Predictions are estimates: verify by measurement before relying on them for food
+safety, and defer to local codes and licensed practice.
+"""
+from __future__ import annotations
+
+import warnings
+from typing import Any, Mapping, Union
+
+import numpy as np
+
+try:
+    from . import _core
+except ImportError as exc:  # pragma: no cover - only without a build
+    raise ImportError(
+        "colligate's compiled module colligate._core is missing; install the package with "
+        "'pip install .' from the source tree (it builds the C++ core)"
+    ) from exc
+
+try:
+    from ._version import __version__
+except ImportError:  # pragma: no cover
+    __version__ = _core.__version__
+
+from ._core import (  # noqa: F401
+    ConvergenceError,
+    InvalidInputError,
+    OutOfValidityRangeError,
+    Solution,
+    UnfrozenPhaseState,
+)
+
+__all__ = [
+    "Solution",
+    "UnfrozenPhaseState",
+    "freezing_point",
+    "water_activity",
+    "osmotic_coefficient",
+    "ice_fraction",
+    "unfrozen_phase",
+    "solutes",
+    "citations",
+    "citation",
+    "models",
+    "describe_model",
+    "water_activity_of_ice",
+    "InvalidInputError",
+    "OutOfValidityRangeError",
+    "OutOfValidityRangeWarning",
+    "ConvergenceError",
+    "CAUTIONS",
+    "__version__",
+]
+
+#: Cautions shown with every report and by the command line.
+CAUTIONS = (
+    "Predictions are estimates from published models and constants; real ingredients vary.",
+    "Verify freezing behaviour and water activity by measurement before relying on them.",
+    "Do not base food-safety decisions (water activity, brines, ethanol, freezing for "
+    "safety, ice-salt baths) on these numbers alone; defer to local codes, regulations "
+    "and licensed practice.",
+)
+
+RANGE_POLICIES = ("extrapolate", "nan", "raise")
+
+
+class OutOfValidityRangeWarning(UserWarning):
+    """A result was computed outside the validated range of its model (see the message)."""
+
+
+Temperature = Union[float, "np.typing.ArrayLike"]
+
+
+def _warn(reason: str, count: int = 1) -> None:
+    if reason:
+        prefix = f"{count} value(s) outside the validated range; first: " if count > 1 else ""
+        warnings.warn(prefix + reason, OutOfValidityRangeWarning, stacklevel=3)
+
+
+def _as_solution(solution: Any) -> Solution:
+    if isinstance(solution, Solution):
+        return solution
+    raise InvalidInputError(
+        f"expected a colligate.Solution, got {type(solution).__name__}; build one with "
+        "Solution(water=..., solutes={...}) or Solution.from_mass_fractions({...})"
+    )
+
+
+def freezing_point(
+    solution: Solution,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+    range_policy: str = "extrapolate",
+) -> float:
+    """Initial freezing point of a solution.
+
+    Parameters
+    ----------
+    solution : Solution
+        The solution.
+    model : str
+        Activity model id: "auto", "ideal", "raoult" or "norrish" (see :func:`models`).
+    bound_water : float
+        Water that cannot freeze (e.g. bound to protein), kg; taken out of the solvent.
+    range_policy : str
+        Outside the model's validated range: "extrapolate" (compute and warn, default),
+        "nan" (return NaN and warn) or "raise" (:class:`OutOfValidityRangeError`).
+
+    Returns
+    -------
+    float
+        Temperature, K, at which ice starts to form. NaN if the solution does not freeze
+        above 223.15 K.
+    """
+    value, reason = _core.freezing_point(_as_solution(solution), model, range_policy, bound_water)
+    _warn(reason)
+    return value
+
+
+def water_activity(
+    solution: Solution,
+    T: float = 298.15,
+    model: str = "auto",
+    *,
+    range_policy: str = "extrapolate",
+) -> float:
+    """Water activity of a solution (no ice) at temperature ``T``.
+
+    Parameters
+    ----------
+    solution : Solution
+        The solution.
+    T : float
+        Temperature, K (default 298.15 K, 25 C).
+    model : str
+        Activity model id (see :func:`models`).
+    range_policy : str
+        "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
+
+    Returns
+    -------
+    float
+        Water activity, dimensionless, in (0, 1].
+    """
+    value, reason = _core.water_activity(_as_solution(solution), float(T), model, range_policy)
+    _warn(reason)
+    return value
+
+
+def osmotic_coefficient(
+    solution: Solution,
+    T: float = 298.15,
+    model: str = "auto",
+    *,
+    range_policy: str = "extrapolate",
+) -> float:
+    """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K)."""
+    value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy)
+    _warn(reason)
+    return value
+
+
+def ice_fraction(
+    solution: Solution,
+    T: Temperature,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+    range_policy: str = "extrapolate",
+) -> Union[float, np.ndarray]:
+    """Ice mass over total water mass at temperature(s) ``T``.
+
+    Parameters
+    ----------
+    solution : Solution
+        The solution (or food water phase).
+    T : float or array_like
+        Temperature(s), K. Above the freezing point the ice fraction is 0.
+    model : str
+        Activity model id (see :func:`models`).
+    bound_water : float
+        Water that cannot freeze, kg (neither ice nor solvent).
+    range_policy : str
+        "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
+
+    Returns
+    -------
+    float or numpy.ndarray
+        Ice fraction in [0, 1), same shape as ``T``.
+    """
+    scalar = np.ndim(T) == 0
+    temps = np.asarray(T, dtype=float)
+    values, reason, count = _core.ice_fraction(
+        _as_solution(solution), temps, model, range_policy, bound_water
+    )
+    _warn(reason, count)
+    return float(values) if scalar else values
+
+
+def unfrozen_phase(
+    solution: Solution,
+    T: float,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+) -> UnfrozenPhase:
+    """Ice, unfrozen water and the unfrozen solution at temperature ``T`` (K).
+
+    Returns an :class:`UnfrozenPhase` with ``temperature`` (K), ``ice``,
+    ``unfrozen_water``, ``bound_water``, ``total_water`` (kg), ``ice_fraction``,
+    ``water_activity`` and ``solution`` (the unfrozen liquid as a :class:`Solution`).
+    """
+    s = _as_solution(solution)
+    state = _core.unfrozen_phase(s, float(T), model, bound_water)
+    _warn(state.reason)
+    return UnfrozenPhase(state, s.with_water(state.unfrozen_water))
+
+
+class UnfrozenPhase:
+    """State of a partly frozen solution at one temperature (SI units)."""
+
+    def __init__(self, state: UnfrozenPhaseState, liquid: Solution) -> None:
+        self._state = state
+        self.solution: Solution = liquid
+        self.temperature: float = state.temperature
+        self.ice: float = state.ice
+        self.unfrozen_water: float = state.unfrozen_water
+        self.bound_water: float = state.bound_water
+        self.total_water: float = state.total_water
+        self.ice_fraction: float = state.ice_fraction
+        self.water_activity: float = state.water_activity
+        self.status: str = state.status
+        self.reason: str = state.reason
+
+    def __repr__(self) -> str:
+        return (
+            f"UnfrozenPhase(T={self.temperature:.2f} K, ice_fraction={self.ice_fraction:.4f}, "
+            f"unfrozen_water={self.unfrozen_water:.6g} kg, water_activity={self.water_activity:.4f})"
+        )
+
+
+def water_activity_of_ice(T: Temperature) -> Union[float, np.ndarray]:
+    """Water activity of a solution in equilibrium with ice at ``T`` (K), one atmosphere."""
+    f = np.vectorize(lambda t: float(np.exp(_core.ln_water_activity_of_ice(float(t)))))
+    out = f(np.asarray(T, dtype=float))
+    return float(out) if np.ndim(T) == 0 else out
+
+
+def models() -> list[str]:
+    """Ids of the available activity models ("auto" picks one per solution)."""
+    return list(_core.models())
+
+
+def describe_model(solution: Solution, model: str = "auto") -> str:
+    """Which model, constants and sources a calculation on ``solution`` uses."""
+    return _core.describe_model(_as_solution(solution), model)
+
+
+def solutes():
+    """The built-in solute table as a pandas DataFrame (SI units, source keys).
+
+    Every source key resolves with :func:`citation`.
+    """
+    import pandas as pd
+
+    df = pd.DataFrame(_core.solute_table()).set_index("id")
+    df["aliases"] = df["aliases"].map(", ".join)
+    return df
+
+
+def citations():
+    """All sources cited by the built-in data, as a pandas DataFrame indexed by key."""
+    import pandas as pd
+
+    return pd.DataFrame(_core.citation_table()).set_index("key")
+
+
+def citation(key: str) -> Mapping[str, Any]:
+    """One source of the citation table, as a dict."""
+    return dict(_core.citation(key))
