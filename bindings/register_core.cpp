@@ -106,7 +106,7 @@ Solution from solute mole fractions (formula units, undissociated); rest is wate
       .def_property_readonly("total_mass", &solution::total_mass, "Total mass, kg.")
       .def_property_readonly("brix", &solution::brix,
                              "Total dissolved solids, mass percent (equals Brix for sucrose only).")
-      .def_property_readonly("ionic_strength", &solution::ionic_strength,
+      .def_property_readonly("ionic_strength", [](const solution& s) { return s.ionic_strength(); },
                              "Ionic strength, mol/kg (complete dissociation).")
       .def_property_readonly(
           "species", [](const solution& s) {

@@ -144,11 +144,14 @@ class solution {
 
   /// Ionic strength, mol/kg, assuming complete dissociation into ions of the record's
   /// charge pattern (1:1 -> m, 2:1 -> 3m).
-  double ionic_strength() const noexcept {
+  double ionic_strength() const noexcept { return ionic_strength(water_kg_); }
+
+  /// Ionic strength with `water_kg` of water in place of the solution's own.
+  double ionic_strength(double water_kg) const noexcept {
     double I = 0.0;
     for (std::size_t i = 0; i < species_.size(); ++i) {
       if (species_[i].kind != data::solute_class::electrolyte) continue;
-      const double m = moles_[i] / water_kg_;
+      const double m = moles_[i] / water_kg;
       // nu = 2: 1:1 salt (I = m); nu = 3: 2:1 or 1:2 salt (I = 3m)
       I += (species_[i].particles == 2 ? 1.0 : 3.0) * m;
     }

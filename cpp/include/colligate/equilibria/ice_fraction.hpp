@@ -68,6 +68,15 @@ inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
     r.check = models::check(m, s, W, T);
     return r;
   }
+  double total_moles = 0.0;
+  for (double n : s.moles()) total_moles += n;
+  if (total_moles == 0.0) {  // pure water below the ice point: all freezable water is ice
+    r.unfrozen_water = 0.0;
+    r.ice = W;
+    r.water_activity = std::exp(ln_aw_ice);
+    r.check = water::ice_temperature_validity(T);
+    return r;
+  }
   // g(u) = ln a_w(W_u = exp(u)) - ln a_w,ice(T): positive at u = ln W, negative as W_u -> 0.
   auto g = [&](double u) { return models::ln_water_activity(m, s, std::exp(u), T) - ln_aw_ice; };
   const double u_hi = std::log(W);

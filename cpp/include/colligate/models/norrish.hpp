@@ -37,7 +37,7 @@ struct norrish {
   static constexpr const char* id = "norrish";
   static constexpr double min_temperature = 233.15;
   static constexpr double max_temperature = 323.15;
-  static constexpr double max_electrolyte_molality = 0.3;  // counted as Raoult particles
+  static constexpr double max_ionic_strength = 0.3;  // counted as Raoult particles
 
   static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
     const double nw = water_kg / constants::molar_mass_water;
@@ -59,20 +59,16 @@ struct norrish {
 
   static validity check(const solution& s, double water_kg, double temperature) {
     validity v;
-    if (temperature < min_temperature || temperature > max_temperature) {
+    if (temperature < min_temperature - 1e-9 || temperature > max_temperature + 1e-9) {
       v.reason = colligate::detail::describe("model 'norrish'", "temperature", temperature,
                                              "outside 233.15-323.15 K where its constants "
                                              "were checked");
       return v;
     }
-    double me = 0.0;
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
       const double mass = s.moles()[i] * rec.molar_mass;
-      if (rec.kind == data::solute_class::electrolyte) {
-        me += s.moles()[i] / water_kg;
-        continue;
-      }
+      if (rec.kind == data::solute_class::electrolyte) continue;
       if (!rec.norrish.available) {
         v.reason = "model 'norrish': solute '" + rec.id +
                    "' has no Norrish constant; counted as an ideal (Raoult) particle";
@@ -88,9 +84,10 @@ struct norrish {
         return v;
       }
     }
-    if (me > max_electrolyte_molality)
+    const double I = s.ionic_strength(water_kg);
+    if (I > max_ionic_strength)
       v.reason = colligate::detail::describe(
-          "model 'norrish'", "electrolyte molality", me,
+          "model 'norrish'", "ionic strength", I,
           "above 0.3 mol/kg; electrolytes are counted as ideal ions, which fails beyond that");
     return v;
   }

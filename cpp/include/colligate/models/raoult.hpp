@@ -1,8 +1,8 @@
 #pragma once
 /// \file raoult.hpp
 /// Raoult's law with dissociated particles counted: a_w = x_w = n_w / (n_w + sum nu_i n_i).
-/// Validity: particle molality up to 1 mol/kg for non-electrolytes, 0.3 mol/kg for
-/// electrolytes (beyond those, ion interactions and solute hydration matter; use Norrish or
+/// Validity: particle molality up to 1 mol/kg, ionic strength up to 0.3 mol/kg (beyond
+/// those, ion interactions and solute hydration matter; use Norrish or
 /// the electrolyte models).
 
 #include <cmath>
@@ -15,7 +15,7 @@ namespace colligate::models {
 struct raoult {
   static constexpr const char* id = "raoult";
   static constexpr double max_particle_molality = 1.0;        // mol/kg
-  static constexpr double max_electrolyte_molality = 0.3;     // mol/kg of formula units
+  static constexpr double max_ionic_strength = 0.3;     // mol/kg of formula units
 
   static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
     const double nw = water_kg / constants::molar_mass_water;
@@ -26,13 +26,11 @@ struct raoult {
 
   static validity check(const solution& s, double water_kg, double /*temperature*/) {
     validity v;
-    double m = 0.0, me = 0.0;
-    for (std::size_t i = 0; i < s.size(); ++i) {
-      m += s.species()[i].particles * s.moles()[i] / water_kg;
-      if (s.species()[i].kind == data::solute_class::electrolyte) me += s.moles()[i] / water_kg;
-    }
-    if (me > max_electrolyte_molality)
-      v.reason = colligate::detail::describe("model 'raoult'", "electrolyte molality", me,
+    double m = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) m += s.species()[i].particles * s.moles()[i] / water_kg;
+    const double I = s.ionic_strength(water_kg);
+    if (I > max_ionic_strength)
+      v.reason = colligate::detail::describe("model 'raoult'", "ionic strength", I,
                                              "above 0.3 mol/kg, where ideal ions fail");
     else if (m > max_particle_molality)
       v.reason = colligate::detail::describe("model 'raoult'", "particle molality", m,

@@ -97,7 +97,7 @@ inline double water_activity_of_ice(double temperature) {
 /// Range check for the ice equilibrium.
 inline validity ice_temperature_validity(double temperature) {
   validity v;
-  if (temperature < ice_model_min_temperature)
+  if (temperature < ice_model_min_temperature - 1e-9)
     v.reason = colligate::detail::describe(
         "ice equilibrium", "temperature", temperature,
         "below the validated range 233.15-273.15 K of a_w,ice (Murphy & Koop 2005)");

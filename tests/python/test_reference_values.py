@@ -1,0 +1,55 @@
+"""Published check values, computed independently of the C++ code where possible."""
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+import colligate as cg
+
+T0 = 273.15
+R = 8.314462618
+
+
+def murphy_koop_ratio(T):
+    """p_ice / p_liquid from Murphy & Koop (2005) eqs. 7 and 10, carried to one atmosphere
+    by the Poynting factor with molar volumes 1.9652e-5 (ice, Feistel & Wagner 2006) and
+    1.8018e-5 m3/mol (liquid, IAPWS-95)."""
+    ln_ice = 9.550426 - 5723.265 / T + 3.53068 * np.log(T) - 0.00728332 * T
+    ln_liq = (54.842763 - 6763.22 / T - 4.210 * np.log(T) + 0.000367 * T
+              + np.tanh(0.0415 * (T - 218.8))
+              * (53.878 - 1331.22 / T - 9.44523 * np.log(T) + 0.014025 * T))
+    return np.exp(ln_ice - ln_liq + (1.9652e-5 - 1.8018e-5) * 101325.0 / (R * T))
+
+
+def test_ice_water_activity_vs_murphy_koop_to_minus_40():
+    # Murphy & Koop (2005) Q. J. R. Meteorol. Soc. 131, 1539; required within 2e-4 in a_w.
+    T = np.linspace(T0 - 40.0, T0, 161)
+    worst = np.max(np.abs(cg.water_activity_of_ice(T) - murphy_koop_ratio(T)))
+    assert worst < 2e-4
+
+
+@pytest.mark.parametrize(
+    "solute, top, tol",
+    [("sucrose", 42, 0.2), ("glucose", 30, 0.2), ("fructose", 28, 0.2), ("maltose", 44, 0.2),
+     ("glycerol", 40, 0.5), ("ethanol", 40, 0.5)],
+)
+def test_crc_freezing_points(crc_freezing, solute, top, tol):
+    # CRC Handbook 102nd ed. (2021), concentrative properties (source_key per row).
+    rows = crc_freezing[(crc_freezing.solute == solute) & (crc_freezing.mass_percent <= top)]
+    assert len(rows) >= 15
+    assert set(rows.source_key) == {"crc_concentrative"}
+    predicted = np.array([
+        T0 - cg.freezing_point(cg.Solution.from_mass_fractions({solute: w / 100}))
+        for w in rows.mass_percent
+    ])
+    worst = np.max(np.abs(predicted - rows.depression_K.to_numpy()))
+    assert worst < tol, f"{solute}: worst deviation {worst:.3f} K"
+
+
+def test_ideal_model_cryoscopic_constant():
+    # Kf = 1.86 K kg/mol (common practice) in the dilute limit.
+    m = 0.005
+    s = cg.Solution.from_molalities({"glucose": m})
+    assert (T0 - cg.freezing_point(s, model="ideal")) / m == pytest.approx(1.86, rel=5e-3)
+    for model in ("raoult", "norrish"):
+        assert cg.freezing_point(s, model=model) == pytest.approx(cg.freezing_point(s, model="ideal"), abs=2e-5)
