@@ -67,7 +67,23 @@ def depression(m: float, constants) -> float:
     return T0 - brentq(lambda T: ln_aw - ln_aw_ice(T), 200.0, T0 - 1e-9)
 
 
+def fit_propylene_glycol() -> None:
+    """K and K3 of propylene glycol from the Melinder (2010) freezing curve in CoolProp."""
+    from CoolProp.CoolProp import PropsSI
+
+    w = np.arange(0.05, 0.401, 0.025)
+    dT = np.array([T0 - PropsSI("T_freeze", "T", 300, "P", 101325, f"INCOMP::MPG[{x:g}]") for x in w])
+    m = w / (1 - w) / 0.0760944
+    fit = least_squares(lambda p: np.array([depression(mi, list(p)) for mi in m]) - dT, np.zeros(2))
+    print(f"propylene_glycol constants={['%.6g' % c for c in fit.x]} max|dev|={np.max(np.abs(fit.fun)):.3f} K")
+
+
 if __name__ == "__main__":
+    import sys
+
+    if "--propylene-glycol" in sys.argv:
+        fit_propylene_glycol()
+        raise SystemExit
     for solute, (k_pub, wmax, n_high) in PLAN.items():
         data = list(rows(solute, wmax))
         m = np.array([d[0] for d in data])

@@ -31,7 +31,7 @@ TEST_CASE("every source key of the reference tables resolves", "[data][citations
   }
 }
 
-TEST_CASE("the issue's required solutes are present", "[data]") {
+TEST_CASE("the core solutes are present", "[data]") {
   for (const char* id : {"sucrose", "glucose", "fructose", "lactose", "maltose", "glycerol",
                          "sorbitol", "xylitol", "erythritol", "propylene_glycol", "ethanol",
                          "citric_acid", "lactic_acid", "sodium_chloride", "potassium_chloride",

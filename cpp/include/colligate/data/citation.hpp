@@ -70,6 +70,15 @@ inline const std::vector<citation>& citations() {
        "Constants fitted by colligate to the CRC Handbook freezing-point depressions",
        "colligate source tree: tools/fit_crc_norrish.py and tests/reference/crc_freezing_points.csv",
        "", "least-squares fit of Norrish constants to the rows named beside each constant"},
+      {"melinder_2010", "Melinder, A.", 2010,
+       "Properties of secondary working fluids for indirect systems",
+       "International Institute of Refrigeration, Paris", "ISBN 978-2-913149-76-3 (from memory)",
+       "freezing curve of propylene glycol-water, as fitted in CoolProp's INCOMP::MPG"},
+      {"colligate_fit_melinder", "colligate developers", 2026,
+       "Norrish constants of propylene glycol fitted by colligate to the Melinder (2010) "
+       "freezing curve (CoolProp 8.0 INCOMP::MPG T_freeze, 5-40 wt%)",
+       "colligate source tree: tools/fit_crc_norrish.py --propylene-glycol", "",
+       "least-squares fit of K and K3"},
       {"colligate_fit_mk2005", "colligate developers", 2026,
        "Heat-capacity difference of supercooled water and ice fitted by colligate to the "
        "temperature dependence of the Murphy & Koop (2005) vapour-pressure ratio, 233-273 K",
