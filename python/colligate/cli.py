@@ -136,6 +136,22 @@ def _run(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
+_MAX_WARNING_LINES = 3
+
+
+def _print_warnings(caught: Sequence[warnings.WarningMessage]) -> None:
+    """Print distinct warnings as one short stderr line each (at most a few)."""
+    lines: list[str] = []
+    for w in caught:
+        line = _short(w.message)
+        if line not in lines:
+            lines.append(line)
+    for line in lines[:_MAX_WARNING_LINES]:
+        print(f"{PROG}: warning: {line}", file=sys.stderr)
+    if len(lines) > _MAX_WARNING_LINES:
+        print(f"{PROG}: warning: ... and {len(lines) - _MAX_WARNING_LINES} more distinct warning(s)", file=sys.stderr)
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line program; returns the exit status (0 ok, 2 error)."""
     argv = list(sys.argv[1:] if argv is None else argv)
@@ -150,12 +166,7 @@ def main(argv: Sequence[str] | None = None) -> int:
             try:
                 status = _run(args)
             finally:
-                seen: set[str] = set()
-                for w in caught:
-                    line = _short(w.message)
-                    if line not in seen:
-                        seen.add(line)
-                        print(f"{PROG}: warning: {line}", file=sys.stderr)
+                _print_warnings(caught)
         return status
     except _UsageError as exc:
         print(f"{PROG}: error: {_short(exc)} (see '{PROG} --help')", file=sys.stderr)

@@ -254,8 +254,7 @@ def test_python_dash_m(tmp_path):
 
 def test_console_script_demo(tmp_path):
     exe = shutil.which("colligate")
-    if exe is None:
-        pytest.skip("console script 'colligate' is not installed (pip install -e .)")
+    assert exe is not None, "console script 'colligate' is not installed (pip install .)"
     proc = subprocess.run([exe, "demo"], cwd=tmp_path, capture_output=True, text=True, timeout=300)
     assert proc.returncode == 0, proc.stderr
     assert "INVENTED DEMO SCENARIO" in proc.stdout

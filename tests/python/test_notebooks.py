@@ -1,4 +1,4 @@
-"""Execute the worked notebooks in notebooks_examples/ (each ends with a cited assert cell)."""
+"""The worked notebooks in notebooks_examples/ are stored without outputs."""
 
 from __future__ import annotations
 
@@ -20,16 +20,7 @@ def test_notebook_is_stored_without_outputs(path):
             assert cell["execution_count"] is None
 
 
-@pytest.mark.parametrize("path", NOTEBOOKS, ids=[p.name for p in NOTEBOOKS])
-def test_notebook_runs(path, monkeypatch):
-    nbformat = pytest.importorskip("nbformat")
-    nbclient = pytest.importorskip("nbclient")
-    pytest.importorskip("ipykernel")
-    pytest.importorskip("matplotlib")
-    # use the standard platform folders (avoids a jupyter_core deprecation warning)
-    monkeypatch.setenv("JUPYTER_PLATFORM_DIRS", "1")
-    nb = nbformat.read(path, as_version=4)
-    client = nbclient.NotebookClient(
-        nb, timeout=300, kernel_name="python3", resources={"metadata": {"path": str(path.parent)}}
-    )
-    client.execute()
+def test_notebooks_exist():
+    # The notebooks themselves are executed by nbmake (scripts/test.sh runs
+    # `pytest ... notebooks_examples --nbmake`); each ends with a cited assert cell.
+    assert NOTEBOOKS

@@ -308,3 +308,8 @@ def test_input_file_is_not_modified_by_loading(tmp_path):
     before = p.read_bytes()
     load_recipe(p)
     assert p.read_bytes() == before
+
+
+def test_same_solute_under_two_names(tmp_path):
+    text = replace(GOOD, "sucrose = 0.20", "NaCl = 0.01\nsodium_chloride = 0.01")
+    expect_error(tmp_path, text, "[composition]", "sodium_chloride")

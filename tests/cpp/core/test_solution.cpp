@@ -71,3 +71,8 @@ TEST_CASE("with_water keeps the solutes", "[core][solution]") {
   CHECK_THAT(t.moles()[0], WithinRel(1.0, 1e-15));
   CHECK_THAT(t.molality(0), WithinRel(4.0, 1e-15));
 }
+
+TEST_CASE("a duplicate names both spellings", "[core][solution][errors]") {
+  CHECK_THROWS_WITH(solution::from_molalities({{"NaCl", 1.0}, {"salt", 1.0}}),
+                    Contains("'NaCl'") && Contains("'salt'"));
+}

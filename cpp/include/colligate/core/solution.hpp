@@ -193,17 +193,19 @@ class solution {
   }
 
   void add_species(const data::solute_record& rec, double moles, const std::string& given) {
-    for (const auto& existing : species_)
-      if (existing.id == rec.id)
-        throw invalid_input("solution: solute '" + given + "' is given twice (as '" + rec.id +
-                            "' and another name for it)");
+    for (std::size_t i = 0; i < species_.size(); ++i)
+      if (species_[i].id == rec.id)
+        throw invalid_input("solution: solute '" + rec.id + "' is given twice, as '" +
+                            given_names_[i] + "' and as '" + given + "'");
     species_.push_back(rec);
     moles_.push_back(moles);
+    given_names_.push_back(given);
   }
 
   double water_kg_ = 1.0;
   std::vector<data::solute_record> species_;
   std::vector<double> moles_;
+  std::vector<std::string> given_names_;  ///< names as the caller spelled them (messages)
 };
 
 }  // namespace colligate
