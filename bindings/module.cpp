@@ -8,4 +8,5 @@ PYBIND11_MODULE(_core, m) {
   m.attr("__version__") = COLLIGATE_VERSION;
   colligate_bindings::register_core(m);
   colligate_bindings::register_equilibria(m);
+  colligate_bindings::register_batch(m);
 }

@@ -22,6 +22,15 @@ except ImportError as exc:  # pragma: no cover - only without a build
         "'pip install .' from the source tree (it builds the C++ core)"
     ) from exc
 
+from .batch import (  # noqa: E402,F401
+    ROW_STATUS,
+    BatchRowWarning,
+    SolutionBatch,
+    batch_freezing_point,
+    batch_ice_fraction,
+    batch_water_activity,
+)
+
 try:
     from ._version import __version__
 except ImportError:  # pragma: no cover
@@ -37,6 +46,12 @@ from ._core import (  # noqa: F401
 
 __all__ = [
     "Solution",
+    "SolutionBatch",
+    "BatchRowWarning",
+    "ROW_STATUS",
+    "batch_freezing_point",
+    "batch_water_activity",
+    "batch_ice_fraction",
     "UnfrozenPhaseState",
     "freezing_point",
     "water_activity",
@@ -118,6 +133,8 @@ def freezing_point(
         Temperature, K, at which ice starts to form. NaN if the solution does not freeze
         above 223.15 K.
     """
+    if isinstance(solution, SolutionBatch):
+        return batch_freezing_point(solution, model, range_policy=range_policy)
     value, reason = _core.freezing_point(_as_solution(solution), model, range_policy, bound_water)
     _warn(reason)
     return value
@@ -148,6 +165,8 @@ def water_activity(
     float
         Water activity, dimensionless, in (0, 1].
     """
+    if isinstance(solution, SolutionBatch):
+        return batch_water_activity(solution, T, model, range_policy=range_policy)
     value, reason = _core.water_activity(_as_solution(solution), float(T), model, range_policy)
     _warn(reason)
     return value
@@ -194,6 +213,8 @@ def ice_fraction(
     float or numpy.ndarray
         Ice fraction in [0, 1), same shape as ``T``.
     """
+    if isinstance(solution, SolutionBatch):
+        return batch_ice_fraction(solution, T, model, range_policy=range_policy)
     scalar = np.ndim(T) == 0
     temps = np.asarray(T, dtype=float)
     values, reason, count = _core.ice_fraction(

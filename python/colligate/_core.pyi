@@ -2,10 +2,11 @@
 colligate compiled core: activity models, ice equilibrium, freezing points.
 """
 from __future__ import annotations
+import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'Solution', 'UnfrozenPhaseState', 'citation', 'citation_table', 'describe_model', 'enthalpy_of_fusion', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'models', 'osmotic_coefficient', 'solute_table', 'unfrozen_phase', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'citation', 'citation_table', 'describe_model', 'enthalpy_of_fusion', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'models', 'osmotic_coefficient', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'water_activity']
 class InvalidInputError(ValueError):
     pass
 class OutOfValidityRangeError(ValueError):
@@ -159,6 +160,28 @@ class UnfrozenPhaseState:
         """
         Water activity of the unfrozen phase.
         """
+class SolutionBatchCore:
+    """
+    Many solutions with one species list (molalities, mol/kg water).
+    """
+    @staticmethod
+    def from_mass_fractions(species: collections.abc.Sequence[str], mass_fractions: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+        ...
+    @staticmethod
+    def from_molalities(species: collections.abc.Sequence[str], molalities: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+        ...
+    @property
+    def rows(self) -> int:
+        ...
+    @property
+    def species(self) -> list[str]:
+        ...
+def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+    ...
+def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+    ...
+def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+    ...
 def citation(key: str) -> dict:
     """
     One source of the citation table by key.
@@ -197,6 +220,10 @@ def models() -> list[str]:
     """
 def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
+def row_status_reasons() -> list[str]:
+    """
+    Readable reason for each row status code (index = code).
+    """
 def solute_table() -> list:
     """
     The built-in solute table as a list of dicts (SI units, with source keys).

@@ -24,6 +24,10 @@ namespace colligate {
 /// A named amount given by a caller: (solute name, value in the factory's unit).
 using named_amount = std::pair<std::string, double>;
 
+namespace batch::detail {
+class workspace;
+}
+
 class solution {
  public:
   /// Water plus solute masses, kg.
@@ -176,6 +180,7 @@ class solution {
   }
 
  private:
+  friend class batch::detail::workspace;  // reuses one solution per thread, no allocation per row
   solution() = default;
 
   double total_formula_moles() const noexcept {

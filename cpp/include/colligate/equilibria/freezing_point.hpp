@@ -51,6 +51,13 @@ inline double ice_imbalance(models::model_id m, const solution& s, double water_
   return models::ln_water_activity(m, s, water_kg, T) - water::ln_water_activity_of_ice(T);
 }
 
+/// Models whose water activity does not depend on temperature (their constants are used
+/// unchanged at every T); the freezing point then inverts the ice equilibrium directly.
+inline bool temperature_independent(models::model_id resolved) {
+  return resolved == models::model_id::ideal || resolved == models::model_id::raoult ||
+         resolved == models::model_id::norrish;
+}
+
 }  // namespace detail
 
 /// Initial freezing point of a solution, K, with status and validity.
@@ -64,6 +71,22 @@ inline freezing_point_result freezing_point(const solution& s,
   for (double n : s.moles()) total_moles += n;
   if (total_moles == 0.0) {
     r.temperature = constants::ice_point;
+    return r;
+  }
+  if (detail::temperature_independent(models::resolve(m, s))) {
+    // a_w does not depend on T: invert the ice equilibrium directly (Newton on ice.hpp).
+    const double ln_aw = models::ln_water_activity(m, s, W, constants::ice_point);
+    const double T = water::temperature_of_ice_equilibrium(ln_aw, search_min_temperature);
+    if (std::isnan(T)) {
+      r.status = solve_status::below_search_limit;
+      r.check.reason = colligate::detail::describe(
+          "freezing_point", "lowest temperature searched", search_min_temperature,
+          "the solution does not freeze above this temperature (-50 C)");
+      return r;
+    }
+    r.temperature = T;
+    r.check = models::check(m, s, W, T);
+    r.check.merge(water::ice_temperature_validity(T));
     return r;
   }
   auto f = [&](double T) { return detail::ice_imbalance(m, s, W, T); };

@@ -19,6 +19,7 @@
 
 #include <array>
 #include <cmath>
+#include <limits>
 
 #include "colligate/core/constants.hpp"
 #include "colligate/core/validity.hpp"
@@ -92,6 +93,31 @@ inline double ln_water_activity_of_ice(double temperature) {
 /// Water activity of a solution in equilibrium with ice at T.
 inline double water_activity_of_ice(double temperature) {
   return std::exp(ln_water_activity_of_ice(temperature));
+}
+
+/// Inverse of ln_water_activity_of_ice on [t_min, T0]: the temperature at which ice is in
+/// equilibrium with water of activity exp(ln_aw). Safeguarded Newton (the function is
+/// increasing there: d ln a / dT = dH_fus / (R T^2) > 0), bisection when a step leaves the
+/// bracket. Returns NaN if ln_aw is outside [ln a_w,ice(t_min), 0].
+inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15) {
+  if (!(ln_aw <= 0.0)) return std::numeric_limits<double>::quiet_NaN();
+  if (ln_aw == 0.0) return constants::ice_point;
+  double lo = t_min, hi = constants::ice_point;
+  if (!(ln_water_activity_of_ice(lo) <= ln_aw)) return std::numeric_limits<double>::quiet_NaN();
+  // First guess from the linearised relation dT = -ln_aw R T0^2 / dH_fus.
+  const double T0 = constants::ice_point;
+  double T = T0 + ln_aw * constants::gas_constant * T0 * T0 / constants::enthalpy_of_fusion_ice;
+  if (!(T > lo && T < hi)) T = 0.5 * (lo + hi);
+  for (int i = 0; i < 60; ++i) {
+    const double f = ln_water_activity_of_ice(T) - ln_aw;
+    if (f > 0.0) hi = T; else lo = T;
+    const double slope = enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
+    double next = T - f / slope;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (std::abs(next - T) <= 4e-15 * T) return next;
+    T = next;
+  }
+  return T;
 }
 
 /// Range check for the ice equilibrium.

@@ -1,0 +1,136 @@
+// Bindings for batch/: a SolutionBatch from a 2-D float64 array and the batch kernels.
+// Shapes and species are checked and outputs allocated while holding the GIL; the C++
+// loop then runs with the GIL released and touches no Python object.
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+
+#include <string>
+#include <vector>
+
+#include "colligate/batch/kernels.hpp"
+#include "colligate/batch/solution_batch.hpp"
+#include "colligate/models/model_id.hpp"
+#include "register.hpp"
+
+namespace colligate_bindings {
+
+namespace {
+
+using colligate::batch::solution_batch;
+using array_in = py::array_t<double, py::array::c_style | py::array::forcecast>;
+
+const double* check_matrix(const array_in& a, std::size_t n_species, const char* what) {
+  if (a.ndim() != 2 || static_cast<std::size_t>(a.shape(1)) != n_species)
+    throw colligate::invalid_input(std::string(what) + " must be a 2-D array with one column per species (" +
+                                   std::to_string(n_species) + " columns)");
+  return a.data();
+}
+
+colligate::batch::options make_options(int threads, const std::string& policy, double bound) {
+  if (threads < 0) throw colligate::invalid_input("threads = " + std::to_string(threads) + ": must be >= 0 (0 = all cores)");
+  if (!(bound >= 0.0 && bound < 1.0))
+    throw colligate::invalid_input("bound_water_fraction must lie in [0, 1)");
+  colligate::batch::options o;
+  o.threads = static_cast<unsigned>(threads);
+  o.policy = colligate::range_policy_from_string(policy);
+  o.bound_water_fraction = bound;
+  return o;
+}
+
+}  // namespace
+
+void register_batch(py::module_& m) {
+  py::class_<solution_batch>(m, "SolutionBatchCore",
+                             "Many solutions with one species list (molalities, mol/kg water).")
+      .def_static(
+          "from_molalities",
+          [](const std::vector<std::string>& species, const array_in& data) {
+            const double* p = check_matrix(data, species.size(), "molalities");
+            return solution_batch::from_molalities(species, p, static_cast<std::size_t>(data.shape(0)));
+          },
+          py::arg("species"), py::arg("molalities"))
+      .def_static(
+          "from_mass_fractions",
+          [](const std::vector<std::string>& species, const array_in& data) {
+            const double* p = check_matrix(data, species.size(), "mass fractions");
+            return solution_batch::from_mass_fractions(species, p, static_cast<std::size_t>(data.shape(0)));
+          },
+          py::arg("species"), py::arg("mass_fractions"))
+      .def_property_readonly("rows", &solution_batch::rows)
+      .def_property_readonly("species", [](const solution_batch& b) {
+        std::vector<std::string> ids;
+        for (const auto& r : b.species()) ids.push_back(r.id);
+        return ids;
+      });
+
+  m.def("row_status_reasons", [] {
+    std::vector<std::string> out;
+    for (int k = 0; k <= 4; ++k)
+      out.emplace_back(colligate::batch::describe(static_cast<colligate::batch::row_status>(k)));
+    return out;
+  }, "Readable reason for each row status code (index = code).");
+
+  m.def(
+      "batch_freezing_points",
+      [](const solution_batch& b, const std::string& model, int threads, const std::string& policy,
+         double bound) {
+        const auto id = colligate::models::model_from_string(model);
+        const auto opt = make_options(threads, policy, bound);
+        py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
+        py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
+        double* o = out.mutable_data();
+        std::uint8_t* st = status.mutable_data();
+        {
+          py::gil_scoped_release release;
+          colligate::batch::freezing_points(b, id, opt, o, st);
+        }
+        return py::make_tuple(out, status);
+      },
+      py::arg("batch"), py::arg("model") = "auto", py::arg("threads") = 0,
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction") = 0.0);
+
+  m.def(
+      "batch_water_activities",
+      [](const solution_batch& b, double T, const std::string& model, int threads,
+         const std::string& policy) {
+        const auto id = colligate::models::model_from_string(model);
+        const auto opt = make_options(threads, policy, 0.0);
+        py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
+        py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
+        double* o = out.mutable_data();
+        std::uint8_t* st = status.mutable_data();
+        {
+          py::gil_scoped_release release;
+          colligate::batch::water_activities(b, T, id, opt, o, st);
+        }
+        return py::make_tuple(out, status);
+      },
+      py::arg("batch"), py::arg("temperature"), py::arg("model") = "auto", py::arg("threads") = 0,
+      py::arg("range_policy") = "extrapolate");
+
+  m.def(
+      "batch_ice_fractions",
+      [](const solution_batch& b, const array_in& temperatures, const std::string& model,
+         int threads, const std::string& policy, double bound) {
+        const auto id = colligate::models::model_from_string(model);
+        const auto opt = make_options(threads, policy, bound);
+        if (temperatures.ndim() != 1)
+          throw colligate::invalid_input("temperatures must be a 1-D array (K)");
+        const auto nT = static_cast<std::size_t>(temperatures.shape(0));
+        py::array_t<double> out({static_cast<py::ssize_t>(b.rows()), static_cast<py::ssize_t>(nT)});
+        py::array_t<std::uint8_t> status({static_cast<py::ssize_t>(b.rows()), static_cast<py::ssize_t>(nT)});
+        const double* t = temperatures.data();
+        double* o = out.mutable_data();
+        std::uint8_t* st = status.mutable_data();
+        {
+          py::gil_scoped_release release;
+          colligate::batch::ice_fractions(b, t, nT, id, opt, o, st);
+        }
+        return py::make_tuple(out, status);
+      },
+      py::arg("batch"), py::arg("temperatures"), py::arg("model") = "auto", py::arg("threads") = 0,
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction") = 0.0);
+}
+
+}  // namespace colligate_bindings

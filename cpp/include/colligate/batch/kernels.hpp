@@ -1,0 +1,156 @@
+#pragma once
+/// \file kernels.hpp
+/// Multi-threaded batch kernels over a solution_batch: freezing point, water activity and
+/// ice fraction at a list of temperatures. Each thread reuses one solution workspace (no
+/// heap allocation per row for rows inside the validated range); rows are independent and
+/// each is computed by the same scalar code as a single call, so results are bit-identical
+/// whatever the thread count. A row that fails gets NaN and a row_status; it never aborts
+/// the batch.
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+#include <limits>
+#include <thread>
+#include <vector>
+
+#include "colligate/batch/solution_batch.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+#include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/models/water_activity.hpp"
+
+namespace colligate::batch {
+
+struct options {
+  unsigned threads = 0;  ///< 0: all hardware threads
+  range_policy policy = range_policy::extrapolate;
+  double bound_water_fraction = 0.0;  ///< unfreezable water as a fraction of each row's water
+};
+
+namespace detail {
+
+/// One solution whose moles are overwritten row by row (friend of colligate::solution).
+class workspace {
+ public:
+  explicit workspace(const solution_batch& b) : s_(solution::from_molalities({}, 1.0)) {
+    s_.species_ = b.species();  // the batch's records, built-in or fitted, as given
+    s_.moles_.assign(b.n_species(), 0.0);
+  }
+  const solution& load(const double* molalities) {
+    for (std::size_t j = 0; j < s_.moles_.size(); ++j) s_.moles_[j] = molalities[j];
+    return s_;
+  }
+
+ private:
+  solution s_;
+};
+
+inline unsigned thread_count(unsigned requested, std::size_t rows) {
+  unsigned n = requested ? requested : std::max(1u, std::thread::hardware_concurrency());
+  return static_cast<unsigned>(std::min<std::size_t>(n, std::max<std::size_t>(rows, 1)));
+}
+
+/// Runs body(workspace&, row) over all rows in contiguous chunks, one chunk per thread.
+template <class Body>
+void parallel_rows(const solution_batch& b, unsigned threads, Body body) {
+  const std::size_t N = b.rows();
+  const unsigned T = thread_count(threads, N);
+  auto run = [&](std::size_t lo, std::size_t hi) {
+    workspace ws(b);
+    for (std::size_t i = lo; i < hi; ++i) body(ws, i);
+  };
+  if (T <= 1) {
+    run(0, N);
+    return;
+  }
+  std::vector<std::thread> pool;
+  const std::size_t chunk = (N + T - 1) / T;
+  for (unsigned t = 0; t < T; ++t) {
+    const std::size_t lo = t * chunk, hi = std::min(N, lo + chunk);
+    if (lo >= hi) break;
+    pool.emplace_back(run, lo, hi);
+  }
+  for (auto& th : pool) th.join();
+}
+
+constexpr double nan = std::numeric_limits<double>::quiet_NaN();
+
+inline double policy_value(double value, bool in_range, range_policy policy, row_status& st) {
+  if (in_range) return value;
+  st = row_status::out_of_range;
+  return policy == range_policy::nan ? nan : value;
+}
+
+}  // namespace detail
+
+/// Initial freezing points, K. `out` and `status` hold rows() entries.
+inline void freezing_points(const solution_batch& b, models::model_id m, const options& opt,
+                            double* out, std::uint8_t* status) {
+  if (opt.policy == range_policy::raise)
+    throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
+                        "use 'extrapolate' or 'nan' and read the row status");
+  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+    row_status st = b.input_status(i);
+    double v = detail::nan;
+    if (st == row_status::ok) {
+      const solution& s = ws.load(b.row(i));
+      const auto r = equilibria::freezing_point(s, m, opt.bound_water_fraction * s.water_mass());
+      if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
+      else if (!r.success()) st = row_status::not_converged;
+      else v = detail::policy_value(r.temperature, r.check.in_range(), opt.policy, st);
+    }
+    out[i] = v;
+    status[i] = static_cast<std::uint8_t>(st);
+  });
+}
+
+/// Water activity at temperature T (K), no ice.
+inline void water_activities(const solution_batch& b, double temperature, models::model_id m,
+                             const options& opt, double* out, std::uint8_t* status) {
+  models::check_temperature_argument("water_activities", temperature);
+  if (opt.policy == range_policy::raise)
+    throw invalid_input("batch kernels: range_policy 'raise' is not available for batches");
+  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+    row_status st = b.input_status(i);
+    double v = detail::nan;
+    if (st == row_status::ok) {
+      const solution& s = ws.load(b.row(i));
+      const double lnaw = models::ln_water_activity(m, s, s.water_mass(), temperature);
+      v = detail::policy_value(std::exp(lnaw), models::check(m, s, s.water_mass(), temperature).in_range(),
+                               opt.policy, st);
+    }
+    out[i] = v;
+    status[i] = static_cast<std::uint8_t>(st);
+  });
+}
+
+/// Ice fraction (ice / total water) at each of `n_temperatures` temperatures (K):
+/// `out` and `status` are rows() x n_temperatures, row-major.
+inline void ice_fractions(const solution_batch& b, const double* temperatures,
+                          std::size_t n_temperatures, models::model_id m, const options& opt,
+                          double* out, std::uint8_t* status) {
+  for (std::size_t k = 0; k < n_temperatures; ++k)
+    models::check_temperature_argument("ice_fractions", temperatures[k]);
+  if (opt.policy == range_policy::raise)
+    throw invalid_input("batch kernels: range_policy 'raise' is not available for batches");
+  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+    const row_status input = b.input_status(i);
+    const solution* s = input == row_status::ok ? &ws.load(b.row(i)) : nullptr;
+    for (std::size_t k = 0; k < n_temperatures; ++k) {
+      row_status st = input;
+      double v = detail::nan;
+      if (s) {
+        const auto u = equilibria::unfrozen_phase_at(*s, temperatures[k], m,
+                                                     opt.bound_water_fraction * s->water_mass());
+        if (!u.success()) st = row_status::not_converged;
+        else v = detail::policy_value(u.ice_fraction(), u.check.in_range(), opt.policy, st);
+      }
+      out[i * n_temperatures + k] = v;
+      status[i * n_temperatures + k] = static_cast<std::uint8_t>(st);
+    }
+  });
+}
+
+}  // namespace colligate::batch
