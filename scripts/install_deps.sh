@@ -17,5 +17,6 @@ fi
 python3 -m pip install -q "scikit-build-core>=0.10" "pybind11==3.1.0" "cmake>=3.20" ninja numpy pandas matplotlib
 if [ "${1:-}" = "--test" ]; then
   python3 -m pip install -q "pytest>=7" "hypothesis>=6" "nbmake>=1.4" "scipy>=1.8" \
-    "pybind11-stubgen==3.0.0" ipykernel numpy pandas matplotlib CoolProp
+    "pybind11-stubgen==3.0.0" ipykernel numpy pandas matplotlib CoolProp \
+    "dask[dataframe,distributed]" gsw
 fi
