@@ -1,0 +1,197 @@
+"""Design spaces and inverse design over solute compositions.
+
+- :func:`grid` and :func:`latin_hypercube` build candidate formulations (mass fractions,
+  one column per solute) within ranges, filtered by constraints on total solids or any
+  weighted sum (sweetness with the caller's factors, cost ...).
+- :func:`solve_formulation` finds the amounts that meet targets (initial freezing point,
+  ice fraction at a serving temperature, total solids, weighted sums) at least cost, with
+  ``scipy.optimize`` on top of the batch kernels: every objective and finite-difference
+  Jacobian is one vectorised batch call.
+
+All temperatures are in K; amounts are mass fractions of the whole mix (water is the rest).
+"""
+from __future__ import annotations
+
+import itertools
+import warnings
+from dataclasses import dataclass, field
+from typing import Callable, Mapping, Optional, Sequence, Union
+
+import numpy as np
+import pandas as pd
+
+from . import _core
+from .batch import SolutionBatch, batch_freezing_point, batch_ice_fraction
+
+Range = tuple[float, float]
+Constraint = Union[Callable[[pd.DataFrame], np.ndarray], tuple[Mapping[str, float], float, float]]
+
+
+def _check_ranges(ranges: Mapping[str, Sequence[float]]) -> None:
+    for name, r in ranges.items():
+        lo, hi = float(r[0]), float(r[1])
+        if not (0.0 <= lo <= hi < 1.0):
+            raise _core.InvalidInputError(
+                f"ranges[{name!r}] = ({lo}, {hi}): need 0 <= low <= high < 1 (mass fractions)")
+
+
+def _apply(df: pd.DataFrame, constraints: Sequence[Constraint]) -> pd.DataFrame:
+    keep = np.ones(len(df), dtype=bool)
+    total = df.sum(axis=1).to_numpy()
+    keep &= total < 1.0
+    for c in constraints:
+        if callable(c):
+            keep &= np.asarray(c(df), dtype=bool)
+        else:
+            weights, lo, hi = c
+            unknown = set(weights) - set(df.columns)
+            if unknown:
+                raise _core.InvalidInputError(f"constraint weights name unknown columns {sorted(unknown)}")
+            value = sum(df[k].to_numpy() * w for k, w in weights.items())
+            keep &= (value >= lo) & (value <= hi)
+    return df[keep].reset_index(drop=True)
+
+
+def total_solids(lo: float, hi: float) -> Constraint:
+    """Constraint: total dissolved solids (sum of all columns) within [lo, hi]."""
+    return lambda df: (df.sum(axis=1) >= lo) & (df.sum(axis=1) <= hi)
+
+
+def grid(ranges: Mapping[str, tuple[float, float, int]], constraints: Sequence[Constraint] = ()) -> pd.DataFrame:
+    """Full factorial grid: ``ranges = {solute: (low, high, points)}``."""
+    _check_ranges({k: v[:2] for k, v in ranges.items()})
+    axes = [np.linspace(lo, hi, int(n)) for lo, hi, n in ranges.values()]
+    df = pd.DataFrame(list(itertools.product(*axes)), columns=list(ranges))
+    return _apply(df, constraints)
+
+
+def latin_hypercube(ranges: Mapping[str, Range], n: int, seed: Optional[int] = None,
+                    constraints: Sequence[Constraint] = ()) -> pd.DataFrame:
+    """``n`` Latin-hypercube samples (scipy.stats.qmc) within ``ranges``, then filtered."""
+    from scipy.stats import qmc
+
+    _check_ranges(ranges)
+    lo = np.array([r[0] for r in ranges.values()], dtype=float)
+    hi = np.array([r[1] for r in ranges.values()], dtype=float)
+    unit = qmc.LatinHypercube(d=len(ranges), seed=seed).random(int(n))
+    df = pd.DataFrame(lo + unit * (hi - lo), columns=list(ranges))
+    return _apply(df, constraints)
+
+
+@dataclass
+class FormulationResult:
+    """Outcome of :func:`solve_formulation` (amounts as mass fractions)."""
+
+    amounts: dict[str, float]
+    achieved: dict[str, float]
+    targets: dict[str, float]
+    cost: float
+    success: bool
+    message: str
+    iterations: int
+    details: dict = field(default_factory=dict)
+
+    def summary(self) -> pd.DataFrame:
+        rows = [{"quantity": k, "target": self.targets.get(k, np.nan), "achieved": v}
+                for k, v in self.achieved.items()]
+        return pd.DataFrame(rows).set_index("quantity")
+
+
+def solve_formulation(
+    variables: Mapping[str, Range],
+    targets: Mapping[str, object],
+    fixed: Optional[Mapping[str, float]] = None,
+    cost: Optional[Mapping[str, float]] = None,
+    model: str = "auto",
+    tolerance: float = 1e-4,
+) -> FormulationResult:
+    """Amounts of ``variables`` (mass fractions within their ranges) that meet ``targets``
+    at the lowest ``cost`` (price per kg of each solute; 0 if omitted).
+
+    ``targets`` keys:
+      - ``"freezing_point"``: K
+      - ``"ice_fraction"``: ``(T_K, fraction)`` — ice share of the water at ``T_K``
+      - ``"total_solids"``: mass fraction of all solutes
+      - ``"weighted_sum"``: ``(weights_dict, value)`` — e.g. sweetness with relative factors
+    Solved with scipy.optimize.minimize (SLSQP) with the targets as equality constraints.
+    """
+    from scipy.optimize import minimize
+
+    _check_ranges(variables)
+    fixed = dict(fixed or {})
+    cost = dict(cost or {})
+    names = list(variables)
+    lo = np.array([variables[k][0] for k in names])
+    hi = np.array([variables[k][1] for k in names])
+    columns = names + [k for k in fixed if k not in names]
+
+    def frame(X: np.ndarray) -> pd.DataFrame:
+        X = np.atleast_2d(X)
+        df = pd.DataFrame(X, columns=names)
+        for k, v in fixed.items():
+            df[k] = v
+        return df[columns]
+
+    def quantities(X: np.ndarray) -> dict[str, np.ndarray]:
+        df = frame(X)
+        out: dict[str, np.ndarray] = {}
+        batch = SolutionBatch.from_mass_fractions(df)
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            if "freezing_point" in targets:
+                out["freezing_point"] = np.asarray(batch_freezing_point(batch, model, range_policy="extrapolate"))
+            if "ice_fraction" in targets:
+                T, _ = targets["ice_fraction"]
+                out["ice_fraction"] = np.asarray(batch_ice_fraction(batch, float(T), model))
+        if "total_solids" in targets:
+            out["total_solids"] = df.sum(axis=1).to_numpy()
+        if "weighted_sum" in targets:
+            weights, _ = targets["weighted_sum"]
+            out["weighted_sum"] = sum(df[k].to_numpy() * w for k, w in weights.items())
+        return out
+
+    def target_value(key: str) -> float:
+        t = targets[key]
+        return float(t[1]) if isinstance(t, tuple) else float(t)
+
+    scale = {"freezing_point": 1.0, "ice_fraction": 0.01, "total_solids": 0.01, "weighted_sum": 0.01}
+    keys = [k for k in ("freezing_point", "ice_fraction", "total_solids", "weighted_sum") if k in targets]
+    unknown = set(targets) - set(keys)
+    if unknown:
+        raise _core.InvalidInputError(f"unknown targets {sorted(unknown)}; valid: {keys or list(scale)}")
+
+    h = 1e-6
+
+    def residuals_and_jacobian(x: np.ndarray):
+        # one batch call: the point and one forward step per variable
+        X = np.vstack([x] + [x + h * np.eye(len(x))[j] for j in range(len(x))])
+        q = quantities(X)
+        r = np.array([(q[k][0] - target_value(k)) / scale[k] for k in keys])
+        J = np.array([[(q[k][j + 1] - q[k][0]) / (h * scale[k]) for j in range(len(x))] for k in keys])
+        return r, J
+
+    price = np.array([cost.get(k, 0.0) for k in names])
+    x0 = 0.5 * (lo + hi)
+    res = minimize(
+        lambda x: float(price @ x) + 0.0,
+        x0,
+        jac=lambda x: price,
+        method="SLSQP",
+        bounds=list(zip(lo, hi)),
+        constraints=[{"type": "eq", "fun": lambda x: residuals_and_jacobian(x)[0],
+                      "jac": lambda x: residuals_and_jacobian(x)[1]}],
+        options={"maxiter": 300, "ftol": 1e-10},
+    )
+    q = quantities(res.x)
+    achieved = {k: float(q[k][0]) for k in keys}
+    misfit = max((abs(achieved[k] - target_value(k)) / scale[k] for k in keys), default=0.0)
+    ok = bool(res.success) and misfit < tolerance / min(scale.values())
+    return FormulationResult(
+        amounts={k: float(v) for k, v in zip(names, res.x)} | fixed,
+        achieved=achieved,
+        targets={k: target_value(k) for k in keys},
+        cost=float(price @ res.x),
+        success=ok,
+        message=str(res.message) if ok else f"{res.message}; largest scaled misfit {misfit:.2e}",
+        iterations=int(res.nit),
+    )
