@@ -32,6 +32,11 @@ py::dict solute_row(const colligate::data::solute_record& r) {
   return d;
 }
 
+/// The caller's solute table (SoluteTable passed as table=), or the built-in one.
+const colligate::data::solute_table& table_or_builtin(const colligate::data::solute_table* t) {
+  return t ? *t : colligate::data::builtin_solutes();
+}
+
 py::dict citation_row(const colligate::data::citation& c) {
   py::dict d;
   d["key"] = c.key;
@@ -63,18 +68,26 @@ water : float
 solutes : mapping of str to float
     Mass of each solute, kg (>= 0). Names are case-insensitive; ids, common names,
     formulas and aliases are accepted ("sucrose", "NaCl", "dextrose").
+table : SoluteTable, optional (keyword)
+    Where solute names are looked up (default: the built-in table). Every factory takes
+    it; use ``colligate.fit.SoluteLibrary`` to add fitted solutes to the built-ins.
 )doc")
-      .def(py::init([](double water, const py::object& solutes) {
-             return solution::from_masses(water, to_named_amounts(solutes, "solutes"));
+      .def(py::init([](double water, const py::object& solutes,
+                       const colligate::data::solute_table* table) {
+             return solution::from_masses(water, to_named_amounts(solutes, "solutes"),
+                                          table_or_builtin(table));
            }),
-           py::arg("water"), py::arg("solutes") = py::dict())
+           py::arg("water"), py::arg("solutes") = py::dict(), py::kw_only(),
+           py::arg("table") = nullptr)
       .def_static(
           "from_mass_fractions",
-          [](const py::object& fractions, double total_mass) {
+          [](const py::object& fractions, double total_mass,
+             const colligate::data::solute_table* table) {
             return solution::from_mass_fractions(to_named_amounts(fractions, "fractions"),
-                                                 total_mass);
+                                                 total_mass, table_or_builtin(table));
           },
-          py::arg("fractions"), py::arg("total_mass") = 1.0, R"doc(
+          py::arg("fractions"), py::arg("total_mass") = 1.0, py::kw_only(),
+          py::arg("table") = nullptr, R"doc(
 Solution from solute mass fractions; the rest of ``total_mass`` (kg) is water.
 
 Parameters
@@ -86,18 +99,22 @@ total_mass : float
 )doc")
       .def_static(
           "from_molalities",
-          [](const py::object& molalities, double water) {
-            return solution::from_molalities(to_named_amounts(molalities, "molalities"), water);
+          [](const py::object& molalities, double water,
+             const colligate::data::solute_table* table) {
+            return solution::from_molalities(to_named_amounts(molalities, "molalities"), water,
+                                             table_or_builtin(table));
           },
-          py::arg("molalities"), py::arg("water") = 1.0, R"doc(
+          py::arg("molalities"), py::arg("water") = 1.0, py::kw_only(),
+          py::arg("table") = nullptr, R"doc(
 Solution from molalities, mol per kg of water, with ``water`` kg of water.
 )doc")
       .def_static(
           "from_mole_fractions",
-          [](const py::object& fractions) {
-            return solution::from_mole_fractions(to_named_amounts(fractions, "fractions"));
+          [](const py::object& fractions, const colligate::data::solute_table* table) {
+            return solution::from_mole_fractions(to_named_amounts(fractions, "fractions"),
+                                                 table_or_builtin(table));
           },
-          py::arg("fractions"), R"doc(
+          py::arg("fractions"), py::kw_only(), py::arg("table") = nullptr, R"doc(
 Solution from solute mole fractions (formula units, undissociated); rest is water.
 )doc")
       .def_static("from_brix", [](double brix) { return solution::from_brix(brix); },

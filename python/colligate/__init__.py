@@ -30,6 +30,7 @@ from .batch import (  # noqa: E402,F401
     batch_ice_fraction,
     batch_water_activity,
 )
+from . import fit  # noqa: E402,F401  (colligate.fit: fitting constants to your data)
 
 try:
     from ._version import __version__
@@ -46,6 +47,7 @@ from ._core import (  # noqa: F401
 
 __all__ = [
     "Solution",
+    "fit",
     "SolutionBatch",
     "BatchRowWarning",
     "ROW_STATUS",
@@ -64,6 +66,15 @@ __all__ = [
     "models",
     "describe_model",
     "water_activity_of_ice",
+    "enthalpy",
+    "apparent_specific_heat",
+    "heat_load",
+    "Ingredient",
+    "ingredients",
+    "Recipe",
+    "eutectic",
+    "mean_activity_coefficient",
+    "pitzer_parameter_sets",
     "InvalidInputError",
     "OutOfValidityRangeError",
     "OutOfValidityRangeWarning",
@@ -120,7 +131,8 @@ def freezing_point(
     solution : Solution
         The solution.
     model : str
-        Activity model id: "auto", "ideal", "raoult" or "norrish" (see :func:`models`).
+        Activity model id: "auto", "ideal", "raoult", "norrish", "pitzer" or "ross" (see
+        :func:`models`).
     bound_water : float
         Water that cannot freeze (e.g. bound to protein), kg; taken out of the solvent.
     range_policy : str
@@ -266,6 +278,77 @@ class UnfrozenPhase:
         )
 
 
+def _thermal_args(composition: Mapping[str, float], solution: Any):
+    comp = {str(k): float(v) for k, v in dict(composition).items()}
+    return comp, _as_solution(solution)
+
+
+def enthalpy(
+    composition: Mapping[str, float],
+    solution: Solution,
+    T: Temperature,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+) -> Union[float, np.ndarray]:
+    """Specific enthalpy of a food, J/kg, with H = 0 at 233.15 K (-40 C).
+
+    Parameters
+    ----------
+    composition : mapping
+        Mass fractions (kg per kg of food) of water, protein, fat, carbohydrate, fibre, ash.
+    solution : Solution
+        The aqueous phase whose ice curve applies (any scale; only its composition matters).
+    T : float or array_like
+        Temperature(s), K, 233.15-313.15.
+    model : str
+        Activity model id of the ice curve.
+    bound_water : float
+        Unfreezable water, kg per kg of food.
+    """
+    comp, s = _thermal_args(composition, solution)
+    scalar = np.ndim(T) == 0
+    values, reason, count = _core.food_enthalpy(comp, s, np.asarray(T, dtype=float), model, bound_water)
+    _warn(reason, count)
+    return float(values) if scalar else values
+
+
+def apparent_specific_heat(
+    composition: Mapping[str, float],
+    solution: Solution,
+    T: Temperature,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+) -> Union[float, np.ndarray]:
+    """Apparent specific heat dH/dT of a food, J/(kg K) (arguments as :func:`enthalpy`)."""
+    comp, s = _thermal_args(composition, solution)
+    scalar = np.ndim(T) == 0
+    values, reason, count = _core.food_apparent_specific_heat(comp, s, np.asarray(T, dtype=float), model, bound_water)
+    _warn(reason, count)
+    return float(values) if scalar else values
+
+
+def heat_load(
+    composition: Mapping[str, float],
+    solution: Solution,
+    from_T: float,
+    to_T: float,
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+) -> dict[str, float]:
+    """Heat to remove per kg of food from ``from_T`` to ``to_T`` (K).
+
+    Returns a dict with ``total``, ``sensible`` and ``latent`` (J/kg, positive when
+    cooling) and ``ice_fraction_from``, ``ice_fraction_to``.
+    """
+    comp, s = _thermal_args(composition, solution)
+    out = dict(_core.food_heat_load(comp, s, float(from_T), float(to_T), model, bound_water))
+    _warn(out.pop("reason"))
+    return out
+
+
 def water_activity_of_ice(T: Temperature) -> Union[float, np.ndarray]:
     """Water activity of a solution in equilibrium with ice at ``T`` (K), one atmosphere."""
     f = np.vectorize(lambda t: float(np.exp(_core.ln_water_activity_of_ice(float(t)))))
@@ -305,3 +388,33 @@ def citations():
 def citation(key: str) -> Mapping[str, Any]:
     """One source of the citation table, as a dict."""
     return dict(_core.citation(key))
+
+
+def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.0) -> dict:
+    """Where the ice curve of a salt solution ends because a salt crystallises.
+
+    Returns a dict with ``temperature`` (K; NaN if none found), ``found``, ``phase``
+    (mineral, e.g. "hydrohalite"), ``formula``, ``source`` (citation key) and ``reason``.
+    Brine and ice-salt-bath temperatures are model estimates: see :data:`CAUTIONS`.
+    """
+    t, found, phase, formula, source, reason = _core.eutectic(_as_solution(solution), model, bound_water)
+    return {"temperature": t, "found": found, "phase": phase, "formula": formula,
+            "source": source, "reason": reason}
+
+
+def mean_activity_coefficient(
+    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "spencer_1990"
+) -> float:
+    """Mean molal activity coefficient of electrolyte ``solute`` at ``T`` (K), Pitzer model."""
+    value, reason = _core.mean_activity_coefficient(_as_solution(solution), solute, float(T), parameter_set)
+    _warn(reason)
+    return value
+
+
+def pitzer_parameter_sets() -> list[str]:
+    """Ids of the Pitzer parameter sets (the first is the default)."""
+    return list(_core.pitzer_parameter_sets())
+
+
+from .ingredients import Ingredient, ingredients  # noqa: E402  (needs the names above)
+from .recipe import Recipe  # noqa: E402

@@ -6,7 +6,160 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'citation', 'citation_table', 'describe_model', 'enthalpy_of_fusion', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'models', 'osmotic_coefficient', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+class FitResult:
+    """
+    Result of a least-squares fit (SI units of the fitted model).
+    
+    Non-convergence is a status, not an exception: check ``success`` or ``status``.
+    """
+    def confidence_intervals(self, level: typing.SupportsFloat | typing.SupportsIndex = 0.95) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
+        """
+        (k, 2) array of lower and upper limits at ``level`` (Student t, n - k dof).
+        """
+    @property
+    def at_bound(self) -> list[bool]:
+        ...
+    @property
+    def chi_square(self) -> float:
+        """
+        Sum of weighted squared residuals.
+        """
+    @property
+    def contradictory_duplicates(self) -> list[list[int]]:
+        """
+        Groups of row indices with equal x but contradictory y.
+        """
+    @property
+    def covariance(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
+        """
+        Covariance of the parameters (NaN if singular or dof = 0).
+        """
+    @property
+    def degrees_of_freedom(self) -> int:
+        ...
+    @property
+    def fitted(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Model values at the data points.
+        """
+    @property
+    def function_evaluations(self) -> int:
+        ...
+    @property
+    def iterations(self) -> int:
+        ...
+    @property
+    def jacobian_evaluations(self) -> int:
+        ...
+    @property
+    def message(self) -> str:
+        ...
+    @property
+    def n_points(self) -> int:
+        ...
+    @property
+    def parameter_names(self) -> list[str]:
+        """
+        Parameter names (empty for curve_fit).
+        """
+    @property
+    def params(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Fitted parameters.
+        """
+    @property
+    def r_squared(self) -> float:
+        ...
+    @property
+    def reciprocal_condition(self) -> float:
+        """
+        Reciprocal condition number of the column-scaled weighted Jacobian.
+        """
+    @property
+    def residual_variance(self) -> float:
+        """
+        chi_square / dof.
+        """
+    @property
+    def residuals(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Data minus model, unweighted.
+        """
+    @property
+    def standard_errors(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        ...
+    @property
+    def status(self) -> str:
+        """
+        'converged', 'max_iterations', 'max_evaluations', 'singular' or 'non_finite'.
+        """
+    @property
+    def success(self) -> bool:
+        ...
+class SoluteRecord:
+    """
+    One solute: identity, molar mass, model constants.
+    """
+    def as_dict(self) -> dict:
+        ...
+    @property
+    def formula(self) -> str:
+        ...
+    @property
+    def id(self) -> str:
+        ...
+    @property
+    def kind(self) -> str:
+        ...
+    @property
+    def max_mass_fraction(self) -> float:
+        ...
+    @property
+    def molar_mass(self) -> float:
+        """
+        kg/mol
+        """
+    @property
+    def name(self) -> str:
+        ...
+    @property
+    def norrish_k(self) -> float:
+        ...
+    @property
+    def norrish_k3(self) -> float:
+        ...
+    @property
+    def note(self) -> str:
+        ...
+    @property
+    def pitzer(self) -> typing.Any:
+        """
+        The record's own Pitzer binary parameters (dict: values at 298.15 K, d/dT per K, max_molality mol/kg, temperature range K), or None.
+        """
+class SoluteTable:
+    """
+    A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
+    table; pass one to the ``table=`` argument of the Solution factories to use fitted solutes.
+    """
+    def __contains__(self, arg0: str) -> bool:
+        ...
+    def __init__(self, include_builtin: bool = True) -> None:
+        ...
+    def __len__(self) -> int:
+        ...
+    def add(self, record: SoluteRecord) -> None:
+        """
+        Adds a record; raises if its id or a name is already taken.
+        """
+    def find(self, name: str) -> SoluteRecord:
+        """
+        The record for a name (case-insensitive; ids, names, aliases).
+        """
+    def rows(self) -> list:
+        """
+        All records as a list of dicts.
+        """
 class InvalidInputError(ValueError):
     pass
 class OutOfValidityRangeError(ValueError):
@@ -24,6 +177,9 @@ class Solution:
     solutes : mapping of str to float
         Mass of each solute, kg (>= 0). Names are case-insensitive; ids, common names,
         formulas and aliases are accepted ("sucrose", "NaCl", "dextrose").
+    table : SoluteTable, optional (keyword)
+        Where solute names are looked up (default: the built-in table). Every factory takes
+        it; use ``colligate.fit.SoluteLibrary`` to add fitted solutes to the built-ins.
     """
     @staticmethod
     def from_brix(brix: typing.SupportsFloat | typing.SupportsIndex) -> Solution:
@@ -31,7 +187,7 @@ class Solution:
         Sucrose solution of the given Brix (mass percent sucrose), 1 kg.
         """
     @staticmethod
-    def from_mass_fractions(fractions: typing.Any, total_mass: typing.SupportsFloat | typing.SupportsIndex = 1.0) -> Solution:
+    def from_mass_fractions(fractions: typing.Any, total_mass: typing.SupportsFloat | typing.SupportsIndex = 1.0, *, table: SoluteTable = None) -> Solution:
         """
         Solution from solute mass fractions; the rest of ``total_mass`` (kg) is water.
         
@@ -43,16 +199,23 @@ class Solution:
             Total mass of the solution, kg.
         """
     @staticmethod
-    def from_molalities(molalities: typing.Any, water: typing.SupportsFloat | typing.SupportsIndex = 1.0) -> Solution:
+    def from_molalities(molalities: typing.Any, water: typing.SupportsFloat | typing.SupportsIndex = 1.0, *, table: SoluteTable = None) -> Solution:
         """
         Solution from molalities, mol per kg of water, with ``water`` kg of water.
         """
     @staticmethod
-    def from_mole_fractions(fractions: typing.Any) -> Solution:
+    def from_mole_fractions(fractions: typing.Any, *, table: SoluteTable = None) -> Solution:
         """
         Solution from solute mole fractions (formula units, undissociated); rest is water.
         """
-    def __init__(self, water: typing.SupportsFloat | typing.SupportsIndex, solutes: typing.Any = {}) -> None:
+    @staticmethod
+    def seawater(*args, **kwargs):
+        """
+        (absolute_salinity: typing.SupportsFloat | typing.SupportsIndex) -> colligate._core.Solution
+        
+        Seawater of the TEOS-10 Reference Composition (Millero et al. 2008) with absolute salinity ``absolute_salinity`` (g of sea salt per kg of seawater), 1 kg in total, written as the salts KCl, CaCl2, MgCl2, Na2SO4 and NaCl.
+        """
+    def __init__(self, water: typing.SupportsFloat | typing.SupportsIndex, solutes: typing.Any = {}, *, table: SoluteTable = None) -> None:
         ...
     def __repr__(self) -> str:
         ...
@@ -190,13 +353,70 @@ def citation_table() -> list:
     """
     All sources cited by the built-in data, as a list of dicts.
     """
+def component_specific_heat(component: str, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Specific heat of a food component (water, ice, protein, fat, carbohydrate, fibre, ash) at ``temperature`` (K), J/(kg K); Choi & Okos (1986).
+    """
+def curve_fit(model: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"]], x: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], y: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], p0: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, jacobian: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"]] | None = None, lower_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, upper_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, max_iterations: typing.SupportsInt | typing.SupportsIndex = 500, scale_covariance: bool = True) -> FitResult:
+    """
+    Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) to y.
+    ``jacobian(x, p)`` returns the (n, k) derivatives; without it, central differences.
+    """
 def describe_model(solution: Solution, model: str = 'auto') -> str:
     """
     Which model and constants a calculation on this solution uses.
     """
+def effective_solute_record(result: FitResult, id: str, name: str, note: str) -> SoluteRecord:
+    """
+    A solute record for a fitted effective solute.
+    """
 def enthalpy_of_fusion(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Molar enthalpy of fusion of ice at ``temperature`` (K), J/mol.
+    """
+def eutectic(solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
+    """
+    (temperature K, found, phase, formula, source key, reason) of the eutectic.
+    """
+def fit_effective_solute_freezing(water_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], freezing_point: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_bound_water: bool = True, molar_mass_start: typing.SupportsFloat | typing.SupportsIndex = 0.2, bound_water_start: typing.SupportsFloat | typing.SupportsIndex = 0.1) -> FitResult:
+    """
+    Effective solute (molar mass kg/mol, bound water kg/kg solids) from freezing points.
+    """
+def fit_effective_solute_ice_curve(water_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_bound_water: bool = True, molar_mass_start: typing.SupportsFloat | typing.SupportsIndex = 0.2, bound_water_start: typing.SupportsFloat | typing.SupportsIndex = 0.1) -> FitResult:
+    """
+    Effective solute from an ice-fraction curve (ice mass / total water vs T in K).
+    """
+def fit_norrish_freezing_point(molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], freezing_point: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_k3: bool = False, k_start: typing.SupportsFloat | typing.SupportsIndex = 2.0, k3_start: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> FitResult:
+    """
+    Norrish K (and K3) from (molality mol/kg, initial freezing point K).
+    """
+def fit_norrish_water_activity(molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], water_activity: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], temperature: typing.SupportsFloat | typing.SupportsIndex, weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_k3: bool = False, k_start: typing.SupportsFloat | typing.SupportsIndex = 2.0, k3_start: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> FitResult:
+    """
+    Norrish K (and K3) from (molality mol/kg, a_w) at T (K).
+    """
+def fit_pitzer_freezing_point(salt: str, molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], freezing_point: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, temperature_terms: bool = False, beta2: bool = False, table: SoluteTable = None) -> FitResult:
+    """
+    Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, initial freezing point K).
+    """
+def fit_pitzer_osmotic_coefficient(salt: str, molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], osmotic_coefficient: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, temperature_terms: bool = False, beta2: bool = False, table: SoluteTable = None) -> FitResult:
+    """
+    Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, phi) at T (K; one or per row).
+    """
+def fit_pitzer_water_activity(salt: str, molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], water_activity: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, temperature_terms: bool = False, beta2: bool = False, table: SoluteTable = None) -> FitResult:
+    """
+    Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, a_w) at T (K; one or per row).
+    """
+def food_apparent_specific_heat(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+    """
+    Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).
+    """
+def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+    """
+    Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).
+    """
+def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+    """
+    Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split into sensible and latent parts.
     """
 def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
@@ -206,6 +426,10 @@ def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex
     """
     Vapour pressure of ice, Pa (Murphy & Koop 2005 eq. 7).
     """
+def latent_heat_of_fusion(composition: typing.Any) -> float:
+    """
+    Water fraction times the heat of fusion of ice at 0 C, J/kg of food.
+    """
 def liquid_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Vapour pressure of liquid or supercooled water, Pa (Murphy & Koop 2005 eq. 10).
@@ -214,12 +438,40 @@ def ln_water_activity_of_ice(temperature: typing.SupportsFloat | typing.Supports
     """
     ln a_w of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere.
     """
+def make_pitzer_solute_record(salt: str, id: str, name: str, beta0: typing.SupportsFloat | typing.SupportsIndex, beta1: typing.SupportsFloat | typing.SupportsIndex, cphi: typing.SupportsFloat | typing.SupportsIndex, beta2: typing.SupportsFloat | typing.SupportsIndex = 0.0, dbeta0_dT: typing.SupportsFloat | typing.SupportsIndex = 0.0, dbeta1_dT: typing.SupportsFloat | typing.SupportsIndex = 0.0, dbeta2_dT: typing.SupportsFloat | typing.SupportsIndex = 0.0, dcphi_dT: typing.SupportsFloat | typing.SupportsIndex = 0.0, max_molality: typing.SupportsFloat | typing.SupportsIndex = 6.0, min_temperature: typing.SupportsFloat | typing.SupportsIndex = 293.15, max_temperature: typing.SupportsFloat | typing.SupportsIndex = 303.15, source: str = 'colligate_fit_user', note: str = '', table: SoluteTable = None) -> SoluteRecord:
+    """
+    A salt record (copy of ``salt``: molar mass, ions) with its own Pitzer parameters (kg/mol, kg^2/mol^2 for C-phi; values at 298.15 K and d/dT per K).
+    """
+def make_solute_record(id: str, name: str, molar_mass: typing.SupportsFloat | typing.SupportsIndex, norrish_k: typing.SupportsFloat | typing.SupportsIndex, norrish_k3: typing.SupportsFloat | typing.SupportsIndex = 0.0, max_mass_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.9, note: str = '') -> SoluteRecord:
+    """
+    A non-electrolyte record with user-fitted Norrish constants (molar mass in kg/mol).
+    """
+def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990') -> tuple[float, str]:
+    ...
 def models() -> list[str]:
     """
     Ids of the activity models.
     """
+def norrish_solute_record(result: FitResult, id: str, name: str, molar_mass: typing.SupportsFloat | typing.SupportsIndex, max_mass_fraction: typing.SupportsFloat | typing.SupportsIndex, note: str) -> SoluteRecord:
+    """
+    A solute record carrying fitted Norrish constants.
+    """
 def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
+def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990') -> tuple[float, str]:
+    ...
+def pitzer_parameter_set_range(parameter_set: str) -> tuple[float, float, str, str]:
+    """
+    (T min K, T max K, description, source key) of a Pitzer parameter set.
+    """
+def pitzer_parameter_sets() -> list[str]:
+    """
+    Ids of the Pitzer parameter sets; the first is the default.
+    """
+def pitzer_solute_record(result: FitResult, salt: str, id: str, name: str, max_molality: typing.SupportsFloat | typing.SupportsIndex, min_temperature: typing.SupportsFloat | typing.SupportsIndex, max_temperature: typing.SupportsFloat | typing.SupportsIndex, note: str, table: SoluteTable = None) -> SoluteRecord:
+    """
+    A salt record (copy of ``salt``, new id) carrying the Pitzer parameters of a fit.
+    """
 def row_status_reasons() -> list[str]:
     """
     Readable reason for each row status code (index = code).
@@ -230,9 +482,14 @@ def solute_table() -> list:
     """
 def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> UnfrozenPhaseState:
     ...
+def unfrozen_specific_heat(composition: typing.Any, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).
+    """
 def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
 CRYOSCOPIC_CONSTANT: float = 1.8604572278991671
+ENTHALPY_REFERENCE_TEMPERATURE: float = 233.15
 GAS_CONSTANT: float = 8.314462618
 ICE_POINT: float = 273.15
 MOLAR_MASS_WATER: float = 0.018015268

@@ -2,14 +2,21 @@
 
 Subcommands::
 
-    colligate demo   [--out DIR] [--no-plot] [--save FILE] [--json] [--fahrenheit]
-    colligate report RECIPE.toml [--plot PNG] [--save FILE] [--json] [--fahrenheit]
+    colligate demo   [--scenario ice_cream|sorbet] [--out DIR] [--no-plot] [--csv [FILE]]
+                     [--save FILE] [--json] [--fahrenheit]
+    colligate report RECIPE.toml [--plot PNG] [--enthalpy-plot PNG] [--cooling-plot PNG]
+                     [--csv FILE] [--save FILE] [--json] [--fahrenheit]
+    colligate fit DATA.csv --model norrish|effective|pitzer [--salt NaCl] [--plot PNG] [--save-solute FILE]
 
-``demo`` evaluates the built-in demo recipe (an invented demo scenario),
-prints the report and writes the ice-curve plot
-``colligate_demo_ice_curve.png`` into ``--out`` (default: the current folder).
+``demo`` evaluates a built-in demo recipe (an invented demo scenario: a
+strawberry ice cream made of library ingredients, or ``--scenario sorbet``),
+prints the report and writes three plots into ``--out`` (default: the current
+folder): ``colligate_demo_ice_curve.png``, ``colligate_demo_enthalpy.png`` and
+``colligate_demo_cooling_curve.png``; ``--csv`` also writes the ice/enthalpy
+table (default name ``colligate_demo_table.csv`` in ``--out``).
 ``report`` does the same for a recipe file (see ``docs/recipe_format.md``);
-it writes a plot only when ``--plot`` is given.
+it writes only the files asked for (``--plot``, ``--enthalpy-plot``,
+``--cooling-plot``, ``--csv``).
 
 ``--json`` prints the machine-readable report (units in the keys) instead of
 text; ``--fahrenheit`` adds degF to the text report; ``--save FILE`` also
@@ -29,10 +36,21 @@ import sys
 import warnings
 from typing import Sequence
 
-__all__ = ["main", "DEMO_PLOT_NAME", "EXIT_OK", "EXIT_ERROR"]
+__all__ = [
+    "main",
+    "DEMO_PLOT_NAME",
+    "DEMO_ENTHALPY_PLOT_NAME",
+    "DEMO_COOLING_PLOT_NAME",
+    "DEMO_CSV_NAME",
+    "EXIT_OK",
+    "EXIT_ERROR",
+]
 
 PROG = "colligate"
 DEMO_PLOT_NAME = "colligate_demo_ice_curve.png"
+DEMO_ENTHALPY_PLOT_NAME = "colligate_demo_enthalpy.png"
+DEMO_COOLING_PLOT_NAME = "colligate_demo_cooling_curve.png"
+DEMO_CSV_NAME = "colligate_demo_table.csv"
 EXIT_OK = 0
 EXIT_ERROR = 2
 
@@ -69,15 +87,41 @@ def _build_parser() -> argparse.ArgumentParser:
         p.add_argument("--fahrenheit", action="store_true", help="also show temperatures in degF in the text report")
         p.add_argument("--save", metavar="FILE", help="also write the printed report (text or JSON) to FILE")
 
-    p_demo = sub.add_parser("demo", help="evaluate the built-in demo recipe (invented demo scenario)")
-    p_demo.add_argument("--out", metavar="DIR", default=".", help="folder for the plot (default: current folder)")
-    p_demo.add_argument("--no-plot", action="store_true", help="do not write the plot")
+    from .recipe import DEFAULT_DEMO_SCENARIO, DEMO_SCENARIOS
+
+    p_demo = sub.add_parser("demo", help="evaluate a built-in demo recipe (invented demo scenario)")
+    p_demo.add_argument("--scenario", choices=list(DEMO_SCENARIOS), default=DEFAULT_DEMO_SCENARIO,
+                        help=f"which invented demo scenario (default: {DEFAULT_DEMO_SCENARIO})")
+    p_demo.add_argument("--out", metavar="DIR", default=".", help="folder for the plots (default: current folder)")
+    p_demo.add_argument("--no-plot", action="store_true", help="do not write the plots")
+    p_demo.add_argument("--csv", metavar="FILE", nargs="?", const=DEMO_CSV_NAME,
+                        help=f"also write the ice/enthalpy table as CSV (default name {DEMO_CSV_NAME} in --out)")
     common(p_demo)
 
     p_rep = sub.add_parser("report", help="evaluate a recipe file (TOML)")
     p_rep.add_argument("recipe", metavar="RECIPE.toml", help="recipe file, see docs/recipe_format.md")
     p_rep.add_argument("--plot", metavar="PNG", help="write the ice-curve plot to this PNG file")
+    p_rep.add_argument("--enthalpy-plot", metavar="PNG",
+                       help="write the enthalpy and apparent specific heat plot to this PNG file")
+    p_rep.add_argument("--cooling-plot", metavar="PNG",
+                       help="write the cooling curve (temperature vs heat removed) to this PNG file")
+    p_rep.add_argument("--csv", metavar="FILE", help="write the ice/enthalpy table to this CSV file")
     common(p_rep)
+
+    p_fit = sub.add_parser("fit", help="fit model constants to a CSV of your own data (see colligate.fit)")
+    p_fit.add_argument("data", metavar="DATA.csv", help="CSV with SI columns (molality, water_activity or "
+                       "freezing_point_K; water_fraction, freezing_point_K or temperature_K + ice_fraction)")
+    p_fit.add_argument("--model", choices=["norrish", "effective", "pitzer"], required=True, help="what to fit")
+    p_fit.add_argument("--salt", help="pitzer: the salt whose parameters are fitted (e.g. NaCl); columns "
+                       "molality + osmotic_coefficient, water_activity or freezing_point_K (+ temperature_K)")
+    p_fit.add_argument("--temperature-terms", action="store_true",
+                       help="pitzer: also fit d/dT of each parameter at 298.15 K")
+    p_fit.add_argument("--T", type=float, default=298.15, help="temperature of water-activity data, K")
+    p_fit.add_argument("--k3", action="store_true", help="norrish: also fit the cubic constant K3")
+    p_fit.add_argument("--plot", metavar="PNG", help="plot file (default: DATA_fit.png beside the data)")
+    p_fit.add_argument("--name", help="name of the fitted solute (with --save-solute)")
+    p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol")
+    p_fit.add_argument("--save-solute", metavar="FILE", help="write the fitted solute as TOML")
     return parser
 
 
@@ -88,44 +132,80 @@ def _short(message: object) -> str:
 
 def _run(args: argparse.Namespace) -> int:
     from ._files import atomic_write_text, check_output_path
-    from .plot import plot_ice_curve
+    from .plot import plot_cooling_curve, plot_enthalpy, plot_ice_curve
     from .recipe import load_demo_recipe, load_recipe
-    from .report import build_report, format_json, format_text
+    from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
 
+    if args.command == "fit":
+        from .fit import run_fit_command
+
+        sys.stdout.write(run_fit_command(args))
+        sys.stdout.flush()
+        return EXIT_OK
+    # outputs: key in the report's "files" -> (path, option name for messages)
+    outputs: dict[str, tuple[str, str]] = {}
     if args.command == "demo":
-        recipe = load_demo_recipe()
+        recipe = load_demo_recipe(args.scenario)
         inputs: list[str] = []
         out_dir = args.out
         if not os.path.isdir(out_dir):
             raise ValueError(f"--out '{out_dir}': not an existing directory")
-        plot_path = None if args.no_plot else os.path.join(out_dir, DEMO_PLOT_NAME)
+        if not args.no_plot:
+            outputs["ice_curve_png"] = (os.path.join(out_dir, DEMO_PLOT_NAME), "plot")
+            outputs["enthalpy_png"] = (os.path.join(out_dir, DEMO_ENTHALPY_PLOT_NAME), "plot")
+            outputs["cooling_curve_png"] = (os.path.join(out_dir, DEMO_COOLING_PLOT_NAME), "plot")
+        if args.csv is not None:
+            csv_path = args.csv if os.path.dirname(args.csv) else os.path.join(out_dir, args.csv)
+            outputs["table_csv"] = (csv_path, "--csv")
     else:
         recipe = load_recipe(args.recipe)
         inputs = [args.recipe]
-        plot_path = args.plot
+        for key, value, option in (
+            ("ice_curve_png", args.plot, "--plot"),
+            ("enthalpy_png", args.enthalpy_plot, "--enthalpy-plot"),
+            ("cooling_curve_png", args.cooling_plot, "--cooling-plot"),
+            ("table_csv", args.csv, "--csv"),
+        ):
+            if value is not None:
+                outputs[key] = (value, option)
 
     # Check every output path before computing, so a bad path fails fast.
-    if plot_path is not None:
-        check_output_path(plot_path, inputs, "--plot" if args.command == "report" else "plot")
-    if args.save is not None:
-        check_output_path(args.save, inputs, "--save")
-        if plot_path is not None and os.path.abspath(args.save) == os.path.abspath(plot_path):
-            raise ValueError(f"--save '{args.save}' is the same file as the plot")
+    checks = list(outputs.values()) + ([(args.save, "--save")] if args.save is not None else [])
+    seen: dict[str, str] = {}
+    for path, option in checks:
+        check_output_path(path, inputs, option)
+        full = os.path.abspath(path)
+        if full in seen:
+            raise ValueError(f"{option} '{path}' is the same file as {seen[full]}")
+        seen[full] = option
 
     report = build_report(recipe)
-    if plot_path is not None:
-        written = plot_ice_curve(
-            recipe.solution(),
-            plot_path,
-            marks=recipe.temperatures,
-            model=recipe.model,
-            bound_water=recipe.bound_water,
-            title=f"Ice curve: {recipe.name}",
-            label=recipe.label or None,
-            inputs=inputs,
-        )
+    title = recipe.name
+    label = recipe.label or None
+    written: dict[str, str] = {}
+    for key, (path, option) in outputs.items():
+        if key == "ice_curve_png":
+            done = plot_ice_curve(
+                recipe.solution(),
+                path,
+                marks=recipe.temperatures,
+                model=recipe.model,
+                bound_water=recipe.bound_water,
+                title=f"Ice curve: {title}",
+                label=label,
+                inputs=inputs,
+            )
+        elif key == "enthalpy_png":
+            done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
+                                 label=label, inputs=inputs)
+        elif key == "cooling_curve_png":
+            done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label, inputs=inputs)
+        else:
+            done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option)
+        written[key] = os.path.abspath(done)
+    if written:
         cautions = report.pop("cautions")
-        report["files"] = {"ice_curve_png": os.path.abspath(written)}
+        report["files"] = written
         report["cautions"] = cautions  # cautions stay last
 
     text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)

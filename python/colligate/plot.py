@@ -1,7 +1,15 @@
-"""Plots of the ice curve of a solution (PNG, matplotlib with the Agg backend).
+"""Plots for product developers (PNG, matplotlib with the Agg backend).
 
-matplotlib is imported inside the function, so ``import colligate`` never
-needs it. Files are written atomically and never over an input file.
+* :func:`plot_ice_curve`: ice as a share of the water against temperature;
+* :func:`plot_enthalpy`: enthalpy H(T) and apparent specific heat dH/dT (two panels);
+* :func:`plot_cooling_curve`: temperature against the heat removed per kg, from the
+  fill temperature down to storage, with the freezing point and the named
+  temperatures marked.
+
+matplotlib is imported inside the functions, so ``import colligate`` never
+needs it. Files are written atomically and never over an input file. Inside,
+everything is SI; the axes show degC, kJ/kg and kJ/(kg K). Where a salt
+eutectic lies inside the range, the curves stop there and the eutectic is marked.
 """
 
 from __future__ import annotations
@@ -16,15 +24,35 @@ import colligate as cg
 from ._files import atomic_write, check_output_path
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
-__all__ = ["plot_ice_curve", "CURVE_RANGE_C"]
+__all__ = [
+    "plot_ice_curve",
+    "plot_enthalpy",
+    "plot_cooling_curve",
+    "CURVE_RANGE_C",
+    "THERMAL_RANGE_C",
+    "FILL_TEMPERATURE_C",
+]
 
 #: Temperature span of the curve, degC (warm end, cold end).
 CURVE_RANGE_C: tuple[float, float] = (2.0, -40.0)
 
+#: Temperature span of the enthalpy plot, degC (warm end, cold end; the cold end is the
+#: -40 degC limit of the thermal model).
+THERMAL_RANGE_C: tuple[float, float] = (10.0, -40.0)
+
+#: Default fill temperature of the cooling curve, degC: the mix leaves ageing at about
+#: 5 degC (common practice); the report's heat load starts there too.
+FILL_TEMPERATURE_C = 5.0
+
+#: The curves stop this far above a salt eutectic, K, where the ice curve still solves.
+_EUTECTIC_MARGIN_K = 0.01
+
 _MARK_STYLES = ("--", "-.", ":", (0, (5, 2, 1, 2)))
 _MARK_COLOURS = ("#1b7f79", "#c4622d", "#5b4a9e", "#7a7a2e", "#9e3b63")
 _CURVE_COLOUR = "#174a7c"
+_CP_COLOUR = "#2e6b3a"
 _FREEZE_COLOUR = "#b8202a"
+_EUTECTIC_COLOUR = "#6b6b6b"
 
 
 def plot_ice_curve(
@@ -69,24 +97,24 @@ def plot_ice_curve(
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
 
-    tf = float(cg.freezing_point(solution, model=model))
+    tf = float(cg.freezing_point(solution, model=model, bound_water=bound_water))
+    t_eut = _eutectic_K(solution, model, bound_water)
     warm_c, cold_c = CURVE_RANGE_C
     temps_c = np.linspace(warm_c, cold_c, points)
     freezes = bool(np.isfinite(tf))  # NaN: no freezing point in the library's search range
     tf_c = celsius_from_kelvin(tf) if freezes else float("nan")
     if freezes and cold_c < tf_c < warm_c:
         temps_c = np.unique(np.append(temps_c, tf_c))[::-1]
+    eut_c = celsius_from_kelvin(t_eut) if np.isfinite(t_eut) else float("nan")
+    if np.isfinite(eut_c) and cold_c < eut_c < warm_c:
+        stop_c = eut_c + _EUTECTIC_MARGIN_K
+        temps_c = np.unique(np.append(temps_c[temps_c > stop_c], stop_c))[::-1]
     temps_k = temps_c + ZERO_CELSIUS_K
     frac = np.asarray(cg.ice_fraction(solution, temps_k, model=model, bound_water=bound_water), dtype=float)
     if freezes:
         frac = np.where(temps_k >= tf, 0.0, frac)
 
-    # Agg canvas on a bare Figure: no pyplot, no global backend switch, no GUI.
-    from matplotlib.backends.backend_agg import FigureCanvasAgg
-    from matplotlib.figure import Figure
-
-    fig = Figure(figsize=(8.0, 5.0), dpi=110)
-    FigureCanvasAgg(fig)
+    fig = _figure(8.0, 5.0)
     ax = fig.add_subplot(1, 1, 1)
     ax.plot(temps_c, 100.0 * frac, color=_CURVE_COLOUR, linewidth=2.0, label="ice, % of the water")
 
@@ -94,13 +122,20 @@ def plot_ice_curve(
         ax.axvline(tf_c, color=_FREEZE_COLOUR, linestyle="-", linewidth=1.0, alpha=0.8)
         ax.plot([tf_c], [0.0], marker="o", color=_FREEZE_COLOUR, zorder=5,
                 label=f"initial freezing point {tf_c:.2f} °C")
+    if np.isfinite(eut_c) and cold_c < eut_c < warm_c:
+        _mark_eutectic(ax, eut_c, vertical=True)
 
     for i, (name, t_k) in enumerate((marks or {}).items()):
         t_c = celsius_from_kelvin(float(t_k))
+        colour = _MARK_COLOURS[i % len(_MARK_COLOURS)]
+        style = _MARK_STYLES[i % len(_MARK_STYLES)]
+        if np.isfinite(t_eut) and t_k < t_eut:
+            ax.axvline(t_c, color=colour, linestyle=style, linewidth=1.3,
+                       label=f"{name} {t_c:.1f} °C: below the eutectic")
+            continue
         frozen = t_k < tf if freezes else True
         f = float(cg.ice_fraction(solution, float(t_k), model=model, bound_water=bound_water)) if frozen else 0.0
-        colour = _MARK_COLOURS[i % len(_MARK_COLOURS)]
-        ax.axvline(t_c, color=colour, linestyle=_MARK_STYLES[i % len(_MARK_STYLES)], linewidth=1.3,
+        ax.axvline(t_c, color=colour, linestyle=style, linewidth=1.3,
                    label=f"{name} {t_c:.1f} °C: {100.0 * f:.0f} % ice")
         ax.plot([t_c], [100.0 * f], marker="s", color=colour, zorder=5)
 
@@ -110,11 +145,260 @@ def plot_ice_curve(
     ax.set_ylabel("ice (% of total water)")
     ax.grid(True, color="#d9d9d9", linewidth=0.6)
     ax.set_title(title or "Ice curve")
-    ax.legend(loc="lower right", fontsize=8, framealpha=0.9)
+    ax.legend(loc="best", fontsize=8, framealpha=0.9)
+    _footer(fig, model, label)
+    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+
+
+# --------------------------------------------------------------------------- helpers
+
+
+def _figure(width: float, height: float):
+    """A bare matplotlib Figure on an Agg canvas: no pyplot, no global backend switch, no GUI."""
+    from matplotlib.backends.backend_agg import FigureCanvasAgg
+    from matplotlib.figure import Figure
+
+    fig = Figure(figsize=(width, height), dpi=110)
+    FigureCanvasAgg(fig)
+    return fig
+
+
+def _footer(fig, model: str, label: str | None) -> None:
     footer = f"colligate, model: {model}; estimates only, verify by measurement"
     if label:
         footer = f"{label.upper()}  |  " + footer
     fig.text(0.01, 0.01, footer, fontsize=7, color="#555555")
     fig.tight_layout(rect=(0, 0.03, 1, 1))
 
+
+def _log_axis_plain(ax, values: np.ndarray) -> None:
+    """Logarithmic y axis with plain-number ticks (1, 2, 5, 10, 20, ...)."""
+    from matplotlib.ticker import FixedLocator, NullFormatter, ScalarFormatter
+
+    ax.set_yscale("log")
+    finite = values[np.isfinite(values) & (values > 0)]
+    if finite.size == 0:
+        return
+    lo, hi = float(finite.min()), float(finite.max())
+    ticks = [m * 10.0 ** e for e in range(-1, 5) for m in (1, 2, 3, 5)]
+    ax.yaxis.set_major_locator(FixedLocator([t for t in ticks if lo / 1.5 <= t <= hi * 1.5]))
+    ax.yaxis.set_major_formatter(ScalarFormatter())
+    ax.yaxis.set_minor_formatter(NullFormatter())
+
+
+def _eutectic_K(solution: "cg.Solution", model: str, bound_water: float) -> float:
+    """Eutectic temperature of the solution, K; NaN when it has none (no salts)."""
+    e = cg.eutectic(solution, model=model, bound_water=bound_water)
+    t = float(e.get("temperature", float("nan")))
+    return t if e.get("found") and np.isfinite(t) else float("nan")
+
+
+def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
+    line = ax.axvline if vertical else ax.axhline
+    line(eut_c, color=_EUTECTIC_COLOUR, linestyle="-", linewidth=2.2, alpha=0.6,
+         label=f"eutectic {eut_c:.1f} °C: salt crystallises, curve stops")
+
+
+def _recipe_parts(recipe) -> tuple["cg.Solution", str, float]:
+    """Solution, model id and bound water (kg, solution scale) of a recipe."""
+    return recipe.solution(), recipe.model, float(recipe.bound_water or 0.0)
+
+
+def _thermal_grid(recipe, warm_c: float, cold_c: float, points: int) -> tuple[np.ndarray, float, float]:
+    """Temperatures (degC, warm to cold) for the thermal plots, with the freezing point as a
+    node and stopping just above a eutectic; also returns the freezing point and the
+    eutectic in K (NaN when absent)."""
+    solution, model, bound = _recipe_parts(recipe)
+    tf = float(cg.freezing_point(solution, model=model, bound_water=bound))
+    t_eut = _eutectic_K(solution, model, bound)
+    temps_c = np.linspace(warm_c, cold_c, points)
+    if np.isfinite(t_eut):
+        stop_c = celsius_from_kelvin(t_eut) + _EUTECTIC_MARGIN_K
+        if stop_c > cold_c:
+            temps_c = np.append(temps_c[temps_c > stop_c], stop_c)
+    if np.isfinite(tf):
+        tf_c = celsius_from_kelvin(tf)
+        if temps_c.min() < tf_c < temps_c.max():
+            # both sides of the kink, so the line shows the jump of the apparent specific heat
+            temps_c = np.append(temps_c, [tf_c + 1e-6, tf_c - 1e-6])
+    temps_c = np.unique(temps_c)[::-1]
+    return temps_c, tf, t_eut
+
+
+# --------------------------------------------------------------------------- enthalpy
+
+
+def plot_enthalpy(
+    recipe,
+    path: str | os.PathLike[str],
+    marks: Mapping[str, float] | None = None,
+    *,
+    title: str | None = None,
+    label: str | None = None,
+    inputs: Iterable[str | os.PathLike[str]] = (),
+    points: int = 401,
+) -> str:
+    """Write a two-panel PNG: enthalpy H(T) (kJ/kg) and apparent specific heat (kJ/(kg K)).
+
+    Parameters
+    ----------
+    recipe : colligate.Recipe
+        The product (its composition enters the thermal model: water, fat, protein,
+        carbohydrate, fibre, ash, and the ice curve of its aqueous phase).
+    path : path-like
+        Output PNG file. Written atomically; refused if it names one of ``inputs``.
+    marks : mapping of str to float, optional
+        Named temperatures in K, drawn as vertical lines (default: the recipe's).
+    title, label : str, optional
+        Plot title, and a label (e.g. "invented demo scenario") printed in the footer.
+    inputs : iterable of path-like
+        Input files that must never be overwritten.
+    points : int
+        Number of temperatures on the curves (>= 10).
+
+    Returns
+    -------
+    str
+        The path written.
+
+    Notes
+    -----
+    H = 0 at -40 degC (the reference of :func:`colligate.enthalpy`). The apparent
+    specific heat is dH/dT: sensible heat plus the latent heat of the ice forming per
+    kelvin; it jumps at the initial freezing point, and the axis is logarithmic so both
+    the frozen and the unfrozen ranges read.
+    """
+    target = check_output_path(path, inputs, "plot")
+    if points < 10:
+        raise ValueError(f"points = {points}: must be >= 10")
+    marks = dict(recipe.temperatures if marks is None else marks)
+    model = recipe.model
+    warm_c, cold_c = THERMAL_RANGE_C
+    temps_c, tf, t_eut = _thermal_grid(recipe, warm_c, cold_c, points)
+    temps_k = temps_c + ZERO_CELSIUS_K
+    h = np.asarray(recipe.enthalpy(temps_k), dtype=float) / 1e3
+    cp = np.asarray(recipe.apparent_specific_heat(temps_k), dtype=float) / 1e3
+
+    fig = _figure(8.0, 7.0)
+    ax_h = fig.add_subplot(2, 1, 1)
+    ax_c = fig.add_subplot(2, 1, 2, sharex=ax_h)
+    ax_h.plot(temps_c, h, color=_CURVE_COLOUR, linewidth=2.0, label="enthalpy H")
+    ax_c.plot(temps_c, cp, color=_CP_COLOUR, linewidth=2.0, label="apparent specific heat dH/dT")
+    _log_axis_plain(ax_c, cp)
+
+    if np.isfinite(tf):
+        tf_c = celsius_from_kelvin(tf)
+        for ax in (ax_h, ax_c):
+            ax.axvline(tf_c, color=_FREEZE_COLOUR, linestyle="-", linewidth=1.0, alpha=0.8)
+        h_tf = float(recipe.enthalpy(tf)) / 1e3
+        ax_h.plot([tf_c], [h_tf], marker="o", color=_FREEZE_COLOUR, zorder=5,
+                  label=f"initial freezing point {tf_c:.2f} °C")
+    if np.isfinite(t_eut) and celsius_from_kelvin(t_eut) > cold_c:
+        for ax in (ax_h, ax_c):
+            _mark_eutectic(ax, celsius_from_kelvin(t_eut), vertical=True)
+    for i, (name, t_k) in enumerate(marks.items()):
+        t_c = celsius_from_kelvin(float(t_k))
+        if not cold_c <= t_c <= warm_c:
+            continue
+        colour = _MARK_COLOURS[i % len(_MARK_COLOURS)]
+        style = _MARK_STYLES[i % len(_MARK_STYLES)]
+        below = np.isfinite(t_eut) and t_k < t_eut
+        text = f"{name} {t_c:.1f} °C" + (": below the eutectic" if below
+                                         else f": H = {float(recipe.enthalpy(float(t_k))) / 1e3:.0f} kJ/kg")
+        ax_h.axvline(t_c, color=colour, linestyle=style, linewidth=1.2, label=text)
+        ax_c.axvline(t_c, color=colour, linestyle=style, linewidth=1.2)
+
+    ax_h.set_xlim(warm_c, cold_c)  # warm on the left, as the product cools to the right
+    ax_h.set_ylabel("enthalpy (kJ/kg), H = 0 at -40 °C")
+    ax_c.set_ylabel("apparent specific heat (kJ/(kg·K))")
+    ax_c.set_xlabel("temperature (°C)")
+    for ax in (ax_h, ax_c):
+        ax.grid(True, color="#d9d9d9", linewidth=0.6, which="major")
+    ax_h.set_title(title or "Enthalpy and apparent specific heat")
+    ax_h.legend(loc="upper right", fontsize=8, framealpha=0.9)
+    ax_c.legend(loc="upper left", fontsize=8, framealpha=0.9)
+    _footer(fig, model, label)
+    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+
+
+# --------------------------------------------------------------------------- cooling curve
+
+
+def plot_cooling_curve(
+    recipe,
+    path: str | os.PathLike[str],
+    marks: Mapping[str, float] | None = None,
+    *,
+    from_T: float | None = None,
+    to_T: float | None = None,
+    title: str | None = None,
+    label: str | None = None,
+    inputs: Iterable[str | os.PathLike[str]] = (),
+    points: int = 401,
+) -> str:
+    """Write a PNG of temperature (degC) against the heat removed per kg (kJ/kg).
+
+    The curve runs from the fill temperature ``from_T`` (K; default
+    :data:`FILL_TEMPERATURE_C`) down to ``to_T`` (K; default the recipe's storage
+    temperature), and stops early at a salt eutectic or at -40 degC. The initial freezing
+    point and the named temperatures (``marks``, K; default the recipe's) are marked
+    with the heat removed to reach them.
+
+    Parameters are as for :func:`plot_enthalpy`. Returns the path written.
+    """
+    target = check_output_path(path, inputs, "plot")
+    if points < 10:
+        raise ValueError(f"points = {points}: must be >= 10")
+    marks = dict(recipe.temperatures if marks is None else marks)
+    model = recipe.model
+    t_from = float(FILL_TEMPERATURE_C + ZERO_CELSIUS_K if from_T is None else from_T)
+    t_to = float(marks.get("storage", ZERO_CELSIUS_K - 18.0) if to_T is None else to_T)
+    if not t_to < t_from:
+        raise ValueError(f"to_T = {t_to} K: must be below from_T = {t_from} K (a cooling curve)")
+    cold_limit_c = THERMAL_RANGE_C[1]
+    from_c, to_c = celsius_from_kelvin(t_from), max(celsius_from_kelvin(t_to), cold_limit_c)
+    temps_c, tf, t_eut = _thermal_grid(recipe, from_c, to_c, points)
+    stopped = ""
+    if np.isfinite(t_eut) and t_eut > t_to:
+        stopped = "eutectic"
+    elif celsius_from_kelvin(t_to) < cold_limit_c:
+        stopped = "model"
+    temps_k = temps_c + ZERO_CELSIUS_K
+    h_from = float(recipe.enthalpy(t_from))
+    q = (h_from - np.asarray(recipe.enthalpy(temps_k), dtype=float)) / 1e3
+
+    fig = _figure(8.0, 5.0)
+    ax = fig.add_subplot(1, 1, 1)
+    ax.plot(q, temps_c, color=_CURVE_COLOUR, linewidth=2.0, label="product temperature")
+    ax.plot([0.0], [from_c], marker="D", color=_CURVE_COLOUR, zorder=5, label=f"fill {from_c:.1f} °C")
+
+    if np.isfinite(tf) and to_c < celsius_from_kelvin(tf) < from_c:
+        tf_c = celsius_from_kelvin(tf)
+        q_tf = (h_from - float(recipe.enthalpy(tf))) / 1e3
+        ax.axhline(tf_c, color=_FREEZE_COLOUR, linestyle="-", linewidth=1.0, alpha=0.8)
+        ax.plot([q_tf], [tf_c], marker="o", color=_FREEZE_COLOUR, zorder=5,
+                label=f"initial freezing point {tf_c:.2f} °C after {q_tf:.0f} kJ/kg")
+    if stopped == "eutectic":
+        _mark_eutectic(ax, celsius_from_kelvin(t_eut), vertical=False)
+    for i, (name, t_k) in enumerate(marks.items()):
+        t_c = celsius_from_kelvin(float(t_k))
+        if not to_c - 1e-9 <= t_c <= from_c or (np.isfinite(t_eut) and t_k < t_eut):
+            continue
+        colour = _MARK_COLOURS[i % len(_MARK_COLOURS)]
+        q_t = (h_from - float(recipe.enthalpy(float(t_k)))) / 1e3
+        ax.axhline(t_c, color=colour, linestyle=_MARK_STYLES[i % len(_MARK_STYLES)], linewidth=1.2)
+        ax.plot([q_t], [t_c], marker="s", color=colour, zorder=5,
+                label=f"{name} {t_c:.1f} °C after {q_t:.0f} kJ/kg")
+
+    note = {"eutectic": "curve stops at the eutectic: below it salt and ice crystallise together",
+            "model": "curve stops at -40 °C, the cold end of the thermal model"}.get(stopped)
+    if note:
+        ax.text(0.01, 0.02, note, transform=ax.transAxes, fontsize=8, color="#555555")
+    ax.set_xlim(0.0, max(float(np.nanmax(q)), 1.0) * 1.04)
+    ax.set_xlabel("heat removed from the fill temperature (kJ per kg of product)")
+    ax.set_ylabel("temperature (°C)")
+    ax.grid(True, color="#d9d9d9", linewidth=0.6)
+    ax.set_title(title or "Cooling curve")
+    ax.legend(loc="upper right", fontsize=8, framealpha=0.9)
+    _footer(fig, model, label)
     return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")

@@ -14,11 +14,16 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
     basis = "kg"                 # optional, "kg" (default) or "percent"
     batch_kg = 1.0               # optional, percent basis only: batch mass in kg (default 1)
 
-    [composition]                # required
+    [composition]                # solute-based recipe: [composition] or [ingredients]
     water = 0.62                 # required, > 0
     sucrose = 0.22               # any solute id or alias known to colligate
     glucose = 0.06
     citric_acid = 0.005
+
+    [ingredients]                # ingredient-based recipe (instead of [composition])
+    whole_milk = 0.55            # built-in ingredient keys or names (colligate.ingredients())
+    cream_36 = 0.20              # amounts in kg, or percent with basis = "percent"
+    sucrose = 0.15
 
     [temperatures_celsius]       # optional; each key optional
     drawing = -5.5               # default -5
@@ -72,6 +77,8 @@ __all__ = [
     "parse_recipe",
     "load_demo_recipe",
     "demo_recipe_text",
+    "DEMO_SCENARIOS",
+    "DEFAULT_DEMO_SCENARIO",
     "DEFAULT_TEMPERATURES_C",
     "TEMPERATURE_RANGE_C",
     "PERCENT_TOLERANCE",
@@ -87,12 +94,19 @@ TEMPERATURE_RANGE_C: tuple[float, float] = (-60.0, 40.0)
 #: Allowed deviation of a percent-basis composition from 100 (percentage points).
 PERCENT_TOLERANCE = 0.01
 
-_DEMO_RESOURCE = "demo_sorbet.toml"
+#: Built-in demo scenarios (all invented and labelled so): id -> file in colligate/data.
+DEMO_SCENARIOS: dict[str, str] = {
+    "ice_cream": "demo_strawberry_ice_cream.toml",
+    "sorbet": "demo_sorbet.toml",
+}
+
+#: The scenario ``colligate demo`` runs without ``--scenario``.
+DEFAULT_DEMO_SCENARIO = "ice_cream"
 
 _RECIPE_KEYS = {"name", "note", "label", "basis", "batch_kg"}
 _OPTION_KEYS = {"model", "bound_water"}
-_TABLES = {"recipe", "composition", "temperatures_celsius", "options"}
-_REQUIRED_TABLES = ("recipe", "composition")
+_TABLES = {"recipe", "composition", "ingredients", "temperatures_celsius", "options"}
+_REQUIRED_TABLES = ("recipe",)
 _BASES = ("kg", "percent")
 
 
@@ -130,17 +144,131 @@ class Recipe:
         Where the recipe came from (the path, or a description).
     """
 
-    name: str
-    water: float
-    solutes: dict[str, float]
-    temperatures: dict[str, float]
+    name: str = "recipe"
+    water: float = 0.0
+    solutes: dict[str, float] = field(default_factory=dict)
+    temperatures: dict[str, float] = field(default_factory=dict)
     model: str = "auto"
-    bound_water: float = 0.0
+    bound_water: float | None = None
     note: str = ""
     label: str = ""
     basis: str = "kg"
     source: str = "<recipe>"
     path: str | None = field(default=None, compare=False)
+    ingredients: dict[str, float] | None = None
+    proximate: dict[str, float] = field(default_factory=dict, compare=False)
+
+    def __post_init__(self) -> None:
+        # Ingredient-based: Recipe(ingredients={"whole_milk": 0.6, "sucrose": 0.15}) in kg.
+        if self.ingredients is not None:
+            from .ingredients import ingredient as _lookup
+
+            if self.water or self.solutes:
+                raise RecipeError("Recipe: give either ingredients or water and solutes, not both")
+            if not isinstance(self.ingredients, Mapping) or not self.ingredients:
+                raise RecipeError("Recipe: ingredients must be a non-empty mapping of ingredient name to kg")
+            water = 0.0
+            solutes: dict[str, float] = {}
+            prox = dict.fromkeys(("water", "protein", "fat", "carbohydrate", "fibre", "ash"), 0.0)
+            kg_by_key: dict[str, float] = {}
+            for name, kg in self.ingredients.items():
+                x = _number(self.source, f"ingredients['{name}']", kg, "amount must be finite and >= 0 (kg)")
+                if x < 0.0:
+                    raise RecipeError(f"recipe '{self.source}': ingredients['{name}'] = {kg}: amount must be finite and >= 0 (kg)")
+                try:
+                    ing = _lookup(name)
+                except ValueError as exc:
+                    raise _fail(self.source, f"[ingredients].{name}", str(exc)) from None
+                kg_by_key[ing.key or ing.name] = kg_by_key.get(ing.key or ing.name, 0.0) + x
+                water += x * ing.water
+                for sid, w in ing.solutes().items():
+                    solutes[sid] = solutes.get(sid, 0.0) + x * w
+                for k, v in ing.proximate().items():
+                    prox[k] += x * v
+            total = sum(kg_by_key.values())
+            if not total > 0.0:
+                raise _fail(self.source, "[ingredients]", "the amounts add up to 0 kg; a recipe needs a positive batch")
+            if not water > 0.0:
+                raise _fail(self.source, "[ingredients]", "the ingredients carry no water; a recipe needs water > 0")
+            object.__setattr__(self, "ingredients", kg_by_key)
+            object.__setattr__(self, "water", water)
+            object.__setattr__(self, "solutes", solutes)
+            object.__setattr__(self, "proximate", {k: v / total for k, v in prox.items()})
+            if self.bound_water is None:
+                from .ingredients import BOUND_WATER_PER_PROTEIN
+
+                object.__setattr__(self, "bound_water", BOUND_WATER_PER_PROTEIN * prox["protein"])
+        else:
+            if not self.proximate:
+                tot = self.total_mass
+                if tot > 0.0:
+                    carb = ash = 0.0
+                    kinds = _solute_kinds()
+                    for sid, kg in self.solutes.items():
+                        if kinds.get(_solute_id(sid)) == "electrolyte":
+                            ash += kg
+                        else:
+                            carb += kg
+                    object.__setattr__(
+                        self,
+                        "proximate",
+                        {"water": self.water / tot, "protein": 0.0, "fat": 0.0,
+                         "carbohydrate": carb / tot, "fibre": 0.0, "ash": ash / tot},
+                    )
+        if self.bound_water is None:
+            object.__setattr__(self, "bound_water", 0.0)
+        if not self.temperatures:
+            object.__setattr__(
+                self, "temperatures", {k: kelvin_from_celsius(c) for k, c in DEFAULT_TEMPERATURES_C.items()}
+            )
+
+    @classmethod
+    def from_toml(cls, path: "str | os.PathLike[str]") -> "Recipe":
+        """Read and validate a recipe file (see :func:`load_recipe`)."""
+        return load_recipe(path)
+
+    @property
+    def ingredient_based(self) -> bool:
+        """True for a recipe made of library ingredients."""
+        return self.ingredients is not None
+
+    # ------------------------------------------------------------ evaluations (SI)
+
+    def freezing_point(self) -> float:
+        """Initial freezing point, K."""
+        return float(cg.freezing_point(self.solution(), model=self.model, bound_water=self.bound_water))
+
+    def ice_fraction(self, T):
+        """Ice mass / total water at T (K, scalar or array)."""
+        return cg.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
+
+    def water_activity(self, T: float = 298.15) -> float:
+        """Water activity of the unfrozen recipe at T (K), no ice."""
+        return float(cg.water_activity(self.solution(), T=T, model=self.model))
+
+    def enthalpy(self, T):
+        """Specific enthalpy, J/kg, with H = 0 at 233.15 K (-40 C); T in K (scalar or array)."""
+        return cg.enthalpy(self.proximate, self.solution(), T, model=self.model, bound_water=self._bound_fraction())
+
+    def apparent_specific_heat(self, T):
+        """Apparent specific heat dH/dT, J/(kg K); T in K (scalar or array)."""
+        return cg.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
+                                         bound_water=self._bound_fraction())
+
+    def heat_load(self, from_T: float, to_T: float) -> dict[str, float]:
+        """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg)."""
+        return cg.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
+                            bound_water=self._bound_fraction())
+
+    def report(self) -> dict[str, Any]:
+        """The report dict of :func:`colligate.report.build_report`."""
+        from .report import build_report
+
+        return build_report(self)
+
+    def _bound_fraction(self) -> float:
+        """Bound water per kg of batch."""
+        return float(self.bound_water or 0.0) / self.total_mass
 
     def solution(self) -> "cg.Solution":
         """Return the recipe as a :class:`colligate.Solution` (kg of water, kg of each solute)."""
@@ -149,7 +277,9 @@ class Recipe:
 
     @property
     def total_mass(self) -> float:
-        """Total batch mass (water + solutes), kg."""
+        """Total batch mass, kg: every ingredient, or water + solutes for a solute recipe."""
+        if self.ingredients is not None:
+            return float(sum(self.ingredients.values()))
         return self.water + sum(self.solutes.values())
 
     @property
@@ -259,6 +389,15 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         if not batch_kg > 0.0:
             raise _fail(source, f"[recipe].batch_kg = {_show(head['batch_kg'])}", "batch mass must be finite and > 0 (kg)")
 
+    has_comp = "composition" in doc
+    has_ing = "ingredients" in doc
+    if not has_comp and not has_ing:
+        raise _fail(source, "[composition]", "missing table (required): a recipe needs [composition] (solutes) or [ingredients] (library ingredients)")
+    if has_comp and has_ing:
+        raise _fail(source, "[ingredients]", "give either [composition] (solutes) or [ingredients] (library ingredients), not both")
+    if has_ing:
+        return _parse_ingredient_recipe(doc, source, path, name, note, label, basis, batch_kg)
+
     # [composition]
     comp = _table(source, doc, "composition", required=True)
     unit = "kg" if basis == "kg" else "% of batch"
@@ -296,36 +435,9 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
     water_kg = water_amount * scale
     solutes_kg = {k: v * scale for k, v in amounts.items()}
 
-    # [temperatures_celsius]
-    temps_c = _table(source, doc, "temperatures_celsius", required=False)
-    _unknown_keys(source, "temperatures_celsius", temps_c, set(DEFAULT_TEMPERATURES_C))
-    lo, hi = TEMPERATURE_RANGE_C
-    temperatures: dict[str, float] = {}
-    for key, default in DEFAULT_TEMPERATURES_C.items():
-        where = f"[temperatures_celsius].{key}"
-        rule = f"temperature must be finite and between {lo:g} and {hi:+g} degC"
-        c = _number(source, where, temps_c[key], rule) if key in temps_c else default
-        if not lo <= c <= hi:
-            raise _fail(source, f"{where} = {_show(temps_c[key])}", rule)
-        temperatures[key] = kelvin_from_celsius(c)
-
-    # [options]
-    opts = _table(source, doc, "options", required=False)
-    _unknown_keys(source, "options", opts, _OPTION_KEYS)
-    model = _string(source, "options", "model", opts.get("model", "auto")).strip().lower()
-    known_models = list(cg.models())
-    if model not in known_models:
-        raise _fail(source, f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
-    bound_kg = 0.0
-    if "bound_water" in opts:
-        bunit = "kg" if basis == "kg" else "% of batch"
-        rule = f"bound water must be finite, >= 0 and less than the water ({water_amount:g} {bunit})"
-        b = _number(source, "[options].bound_water", opts["bound_water"], rule)
-        if not 0.0 <= b < water_amount:
-            raise _fail(source, f"[options].bound_water = {_show(opts['bound_water'])}", rule)
-        bound_kg = b * scale
-
-    recipe = Recipe(
+    temperatures = _parse_temperatures(source, doc)
+    model, bound_kg = _parse_options(source, doc, basis, water_amount, scale)
+    return _finish(Recipe(
         name=name,
         water=water_kg,
         solutes=solutes_kg,
@@ -337,8 +449,94 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         basis=basis,
         source=source,
         path=path,
+    ))
+
+
+def _parse_temperatures(source: str, doc: Mapping[str, Any]) -> dict[str, float]:
+    temps_c = _table(source, doc, "temperatures_celsius", required=False)
+    _unknown_keys(source, "temperatures_celsius", temps_c, set(DEFAULT_TEMPERATURES_C))
+    lo, hi = TEMPERATURE_RANGE_C
+    temperatures: dict[str, float] = {}
+    for key, default in DEFAULT_TEMPERATURES_C.items():
+        where = f"[temperatures_celsius].{key}"
+        rule = f"temperature must be finite and between {lo:g} and {hi:+g} degC"
+        c = _number(source, where, temps_c[key], rule) if key in temps_c else default
+        if not lo <= c <= hi:
+            raise _fail(source, f"{where} = {_show(temps_c[key])}", rule)
+        temperatures[key] = kelvin_from_celsius(c)
+    return temperatures
+
+
+def _parse_options(source: str, doc: Mapping[str, Any], basis: str, water_amount: float | None,
+                   scale: float) -> tuple[str, float | None]:
+    """[options]: model id and bound water in kg (None: the recipe's default)."""
+    opts = _table(source, doc, "options", required=False)
+    _unknown_keys(source, "options", opts, _OPTION_KEYS)
+    model = _string(source, "options", "model", opts.get("model", "auto")).strip().lower()
+    known_models = list(cg.models())
+    if model not in known_models:
+        raise _fail(source, f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
+    bound_kg: float | None = 0.0 if water_amount is not None else None
+    if "bound_water" in opts:
+        bunit = "kg" if basis == "kg" else "% of batch"
+        limit = f"{water_amount:g} {bunit}" if water_amount is not None else "the water of the batch"
+        rule = f"bound water must be finite, >= 0 and less than the water ({limit})"
+        b = _number(source, "[options].bound_water", opts["bound_water"], rule)
+        if not (0.0 <= b and (water_amount is None or b < water_amount)):
+            raise _fail(source, f"[options].bound_water = {_show(opts['bound_water'])}", rule)
+        bound_kg = b * scale
+    return model, bound_kg
+
+
+def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | None, name: str, note: str,
+                             label: str, basis: str, batch_kg: float) -> Recipe:
+    table = _table(source, doc, "ingredients", required=True)
+    unit = "kg" if basis == "kg" else "% of batch"
+    amounts: dict[str, float] = {}
+    for key, value in table.items():
+        where = f"[ingredients].{key}"
+        if isinstance(value, dict):
+            raise _fail(source, where, f"must be a number (amount in {unit}), not a table")
+        rule = f"amount must be finite and >= 0 ({unit})"
+        x = _number(source, where, value, rule)
+        if x < 0.0:
+            raise _fail(source, f"{where} = {_show(value)}", rule)
+        amounts[key] = x
+    if not amounts:
+        raise _fail(source, "[ingredients]", "empty table: list at least one ingredient with its amount")
+    if basis == "percent":
+        total = sum(amounts.values())
+        if abs(total - 100.0) > PERCENT_TOLERANCE:
+            raise _fail(source, "[ingredients]", f"amounts add up to {total:.6g} %; with basis = \"percent\" they must add up to 100 +/- {PERCENT_TOLERANCE}")
+        scale = batch_kg / 100.0
+    else:
+        scale = 1.0
+    temperatures = _parse_temperatures(source, doc)
+    model, bound_kg = _parse_options(source, doc, basis, None, scale)
+    recipe = Recipe(
+        name=name, temperatures=temperatures, model=model, bound_water=bound_kg, note=note, label=label,
+        basis=basis, source=source, path=path,
+        ingredients={k: v * scale for k, v in amounts.items()},
     )
-    # Let the library validate solute names (its message lists the nearest names).
+    if recipe.bound_water is not None and not recipe.bound_water < recipe.water:
+        raise _fail(source, "[options].bound_water", f"bound water must be less than the water of the batch ({recipe.water:.6g} kg)")
+    return _finish(recipe)
+
+
+def _solute_kinds() -> dict[str, str]:
+    return {str(k): str(v) for k, v in cg.solutes()["kind"].items()}
+
+
+def _solute_id(name: str) -> str:
+    try:
+        sol = cg.Solution(water=1.0, solutes={name: 0.0})
+        return sol.species[0] if sol.species else name
+    except ValueError:
+        return name
+
+
+def _finish(recipe: Recipe) -> Recipe:
+    source = recipe.source
     try:
         recipe.solution()
     except ValueError as exc:
@@ -371,11 +569,28 @@ def load_recipe(path: str | os.PathLike[str]) -> Recipe:
     return parse_recipe(text, source, path=os.path.abspath(source))
 
 
-def demo_recipe_text() -> str:
-    """Return the text of the built-in demo recipe (an invented demo scenario)."""
-    return (resources.files("colligate") / "data" / _DEMO_RESOURCE).read_text(encoding="utf-8")
+def _demo_resource(scenario: str) -> str:
+    key = str(scenario).strip().lower()
+    if key not in DEMO_SCENARIOS:
+        raise RecipeError(
+            f"demo scenario '{scenario}': unknown; choose one of {', '.join(DEMO_SCENARIOS)}"
+        )
+    return DEMO_SCENARIOS[key]
 
 
-def load_demo_recipe() -> Recipe:
-    """Load the built-in demo recipe, an invented raspberry-lemon sorbet (invented demo scenario)."""
-    return parse_recipe(demo_recipe_text(), f"built-in {_DEMO_RESOURCE}")
+def demo_recipe_text(scenario: str = DEFAULT_DEMO_SCENARIO) -> str:
+    """Return the text of a built-in demo recipe (an invented demo scenario).
+
+    ``scenario`` is a key of :data:`DEMO_SCENARIOS` (default: the strawberry ice cream).
+    """
+    return (resources.files("colligate") / "data" / _demo_resource(scenario)).read_text(encoding="utf-8")
+
+
+def load_demo_recipe(scenario: str = DEFAULT_DEMO_SCENARIO) -> Recipe:
+    """Load a built-in demo recipe (invented demo scenario, labelled so).
+
+    ``"ice_cream"`` (default) is an invented strawberry ice cream made of library
+    ingredients; ``"sorbet"`` an invented raspberry-lemon sorbet given as solutes.
+    """
+    resource = _demo_resource(scenario)
+    return parse_recipe(demo_recipe_text(scenario), f"built-in {resource}")

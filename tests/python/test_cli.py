@@ -74,10 +74,37 @@ def test_demo_prints_report_and_writes_plot(tmp_path, capsys):
     assert "INVENTED DEMO SCENARIO" in out
     assert "initial freezing point" in out
     assert_ends_with_cautions(out)
-    png = tmp_path / cli.DEMO_PLOT_NAME
-    assert png.read_bytes()[:8] == PNG_MAGIC
-    assert str(png) in out
-    assert sorted(os.listdir(tmp_path)) == [cli.DEMO_PLOT_NAME]  # no temporary files left
+    assert "Heat to remove" in out and "Formulation indicators" in out
+    assert "Model: auto" in out
+    names = [cli.DEMO_PLOT_NAME, cli.DEMO_ENTHALPY_PLOT_NAME, cli.DEMO_COOLING_PLOT_NAME]
+    for name in names:
+        png = tmp_path / name
+        assert png.read_bytes()[:8] == PNG_MAGIC
+        assert str(png) in out
+    assert sorted(os.listdir(tmp_path)) == sorted(names)  # no temporary files left
+
+
+def test_demo_default_is_the_ice_cream_and_sorbet_stays_available(tmp_path, capsys):
+    code, out, err = run(capsys, "demo", "--no-plot", "--out", str(tmp_path))
+    assert code == 0, err
+    assert "Strawberry ice cream" in out and "whole_milk" in out
+    code, out, err = run(capsys, "demo", "--scenario", "sorbet", "--no-plot", "--out", str(tmp_path))
+    assert code == 0, err
+    assert "sorbet" in out.lower() and "INVENTED DEMO SCENARIO" in out
+    assert_ends_with_cautions(out)
+    assert os.listdir(tmp_path) == []
+
+
+def test_demo_csv(tmp_path, capsys):
+    code, out, err = run(capsys, "demo", "--no-plot", "--csv", "--out", str(tmp_path))
+    assert code == 0, err
+    assert os.listdir(tmp_path) == [cli.DEMO_CSV_NAME]
+    import pandas as pd
+
+    df = pd.read_csv(tmp_path / cli.DEMO_CSV_NAME, keep_default_na=False)
+    for col in ("temperature_C", "ice_fraction", "unfrozen_water_kg", "enthalpy_J_per_kg", "apparent_cp_J_per_kg_K"):
+        assert col in df.columns
+    assert {"fill", "drawing", "serving", "storage", "initial_freezing_point"} <= set(df["point"])
 
 
 def test_demo_json(tmp_path, capsys):
@@ -86,9 +113,11 @@ def test_demo_json(tmp_path, capsys):
     rep = json.loads(out)
     for key in ("freezing_point_K", "freezing_point_C", "freezing_point_F", "water_activity_25C"):
         assert isinstance(rep[key], float), key
-    assert rep["ice_table"][0]["temperature_C"] == pytest.approx(-5.5, abs=1e-9)  # the demo file's drawing temperature
+    assert rep["ice_table"][0]["temperature_C"] == pytest.approx(-6.0, abs=1e-9)  # the demo file's drawing temperature
     assert "invented demo scenario" in rep["label"].lower()
-    assert Path(rep["files"]["ice_curve_png"]).is_file()
+    for key in ("ice_curve_png", "enthalpy_png", "cooling_curve_png"):
+        assert Path(rep["files"][key]).is_file()
+    assert rep["heat_load"]["total_kJ_per_kg"] > 0 and rep["indicators"]
     assert list(rep)[-1] == "cautions" and rep["cautions"]
 
 
@@ -151,7 +180,31 @@ def test_report_json_save(tmp_path, capsys):
     assert {"temperature_C", "ice_fraction", "unfrozen_water_kg", "unfrozen_solids_mass_percent"} <= set(rep["ice_table"][0])
 
 
-@pytest.mark.parametrize("option", ["--plot", "--save"])
+def test_report_thermal_plots_and_csv(tmp_path, capsys):
+    src = recipe_file(tmp_path)
+    before = src.read_bytes()
+    code, out, err = run(capsys, "report", str(src), "--enthalpy-plot", str(tmp_path / "h.png"),
+                         "--cooling-plot", str(tmp_path / "cool.png"), "--csv", str(tmp_path / "t.csv"))
+    assert code == 0, err
+    assert (tmp_path / "h.png").read_bytes()[:8] == PNG_MAGIC
+    assert (tmp_path / "cool.png").read_bytes()[:8] == PNG_MAGIC
+    header = (tmp_path / "t.csv").read_text(encoding="utf-8").splitlines()[0].split(",")
+    assert header[:2] == ["point", "temperature_C"]
+    assert str(tmp_path / "t.csv") in out
+    assert_ends_with_cautions(out)
+    assert src.read_bytes() == before
+    assert sorted(os.listdir(tmp_path)) == ["cool.png", "h.png", "lime.toml", "t.csv"]
+
+
+def test_report_refuses_two_outputs_to_one_file(tmp_path, capsys):
+    src = recipe_file(tmp_path)
+    code, out, err = run(capsys, "report", str(src), "--plot", str(tmp_path / "x.png"),
+                         "--cooling-plot", str(tmp_path / "x.png"))
+    assert_one_line_error(code, out, err, "same file")
+    assert os.listdir(tmp_path) == ["lime.toml"]
+
+
+@pytest.mark.parametrize("option", ["--plot", "--save", "--csv", "--enthalpy-plot", "--cooling-plot"])
 def test_report_refuses_to_overwrite_input(tmp_path, capsys, option):
     src = recipe_file(tmp_path)
     before = src.read_bytes()
@@ -259,7 +312,8 @@ def test_console_script_demo(tmp_path):
     assert proc.returncode == 0, proc.stderr
     assert "INVENTED DEMO SCENARIO" in proc.stdout
     assert_ends_with_cautions(proc.stdout)
-    assert (tmp_path / cli.DEMO_PLOT_NAME).read_bytes()[:8] == PNG_MAGIC
+    for name in (cli.DEMO_PLOT_NAME, cli.DEMO_ENTHALPY_PLOT_NAME, cli.DEMO_COOLING_PLOT_NAME):
+        assert (tmp_path / name).read_bytes()[:8] == PNG_MAGIC
     # errors from the installed program: exit status 2, one line, no traceback
     bad = subprocess.run([exe, "report", "absent.toml"], cwd=tmp_path, capture_output=True, text=True, timeout=300)
     assert bad.returncode == 2

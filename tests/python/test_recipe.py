@@ -9,7 +9,9 @@ import pytest
 
 import colligate as cg
 from colligate.recipe import (
+    DEFAULT_DEMO_SCENARIO,
     DEFAULT_TEMPERATURES_C,
+    DEMO_SCENARIOS,
     Recipe,
     RecipeError,
     demo_recipe_text,
@@ -163,15 +165,33 @@ def test_formula_and_common_names_pass_through(tmp_path):
     assert set(s.solutes) == {"sodium_chloride", "glucose"}
 
 
-def test_demo_recipe_is_packaged_and_labelled():
-    text = demo_recipe_text()
+@pytest.mark.parametrize("scenario", list(DEMO_SCENARIOS))
+def test_demo_recipe_is_packaged_and_labelled(scenario):
+    text = demo_recipe_text(scenario)
     assert "invented demo scenario" in text.lower()
-    r = load_demo_recipe()
+    r = load_demo_recipe(scenario)
     assert "invented demo scenario" in r.label.lower()
     assert r.water > 0
     assert {"sucrose", "glucose", "fructose", "citric_acid"} <= set(r.solutes)
     assert set(r.temperatures) == {"drawing", "serving", "storage"}
     r.solution()
+
+
+def test_default_demo_is_an_ingredient_based_ice_cream():
+    r = load_demo_recipe()
+    assert DEFAULT_DEMO_SCENARIO == "ice_cream"
+    assert r.ingredient_based
+    # built from library ingredients: dairy, sugars, a syrup, a stabiliser and fruit
+    assert {"whole_milk", "cream_36", "skim_milk_powder", "sucrose", "dextrose",
+            "glucose_syrup_de42", "stabiliser", "strawberry_puree"} <= set(r.ingredients)
+    assert r.total_mass == pytest.approx(1.0, abs=1e-9)  # percent basis, batch_kg = 1
+    assert r.proximate["fat"] > 0 and r.proximate["protein"] > 0
+    assert load_demo_recipe("sorbet").name != r.name
+
+
+def test_unknown_demo_scenario():
+    with pytest.raises(RecipeError, match="ice_cream, sorbet"):
+        load_demo_recipe("gelato")
 
 
 def test_parse_recipe_from_text_uses_source_name():

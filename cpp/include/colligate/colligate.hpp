@@ -12,20 +12,27 @@
 #include "colligate/core/validity.hpp"
 #include "colligate/data/builtin_solutes.hpp"
 #include "colligate/data/citation.hpp"
+#include "colligate/data/pitzer_parameters.hpp"
 #include "colligate/data/solute_record.hpp"
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/ideal.hpp"
 #include "colligate/models/model_id.hpp"
+#include "colligate/models/mixing.hpp"
 #include "colligate/models/norrish.hpp"
+#include "colligate/models/pitzer.hpp"
 #include "colligate/models/raoult.hpp"
 #include "colligate/models/water_activity.hpp"
+#include "colligate/thermal/components.hpp"
+#include "colligate/thermal/enthalpy.hpp"
 #include "colligate/water/ice.hpp"
 #include "colligate/water/vapour_pressure.hpp"
 
 namespace colligate {
+using equilibria::eutectic;
 using equilibria::freezing_point;
 using equilibria::ice_fraction;
 using equilibria::unfrozen_phase_at;

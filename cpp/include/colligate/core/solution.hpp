@@ -118,6 +118,40 @@ class solution {
     return from_mass_fractions({{"sucrose", brix / 100.0}}, 1.0, table);
   }
 
+  /// Seawater of the TEOS-10 Reference Composition with absolute salinity SA, g of sea
+  /// salt per kg of seawater; 1 kg of seawater in total (water 1 - SA/1000 kg).
+  ///
+  /// Mole fractions of Millero, Feistel, Wright & McDougall (2008), Deep-Sea Res. I 55,
+  /// 50, Table 4 (mean molar mass 31.4038218 g/mol). The Pitzer tables know Na, K, Ca, Mg,
+  /// Cl and SO4, so the minor ions are lumped with a major ion of the same charge (Sr with
+  /// Ca; Br, HCO3, B(OH)4, F, OH with Cl; CO3 with SO4; 0.3 % of the ions), which keeps
+  /// the charge balance; neutral B(OH)3 and CO2 (0.03 % of the solute) are left out. The
+  /// ions are then written as the salts KCl, CaCl2, MgCl2, Na2SO4 and NaCl.
+  static solution seawater(double absolute_salinity,
+                           const data::solute_table& table = data::builtin_solutes()) {
+    if (!std::isfinite(absolute_salinity) || absolute_salinity < 0.0 ||
+        absolute_salinity >= 120.0)
+      throw invalid_input(detail::describe("seawater", "absolute_salinity", absolute_salinity,
+                                           "must be finite and in [0, 120) g/kg"));
+    // Millero et al. (2008) Table 4, mole fractions X_j.
+    const double x_na = 0.4188071, x_mg = 0.0471678, x_ca = 0.0091823, x_k = 0.0091159,
+                 x_sr = 0.0000810, x_cl = 0.4874839, x_so4 = 0.0252152, x_hco3 = 0.0015340,
+                 x_br = 0.0007520, x_co3 = 0.0002134, x_boh4 = 0.0000900, x_f = 0.0000610,
+                 x_oh = 0.0000080;
+    const double mean_molar_mass = 31.4038218e-3;  // kg/mol, Millero et al. (2008)
+    const double water_kg = 1.0 - absolute_salinity / 1000.0;
+    const double n_salt = absolute_salinity / 1000.0 / mean_molar_mass;  // mol per kg seawater
+    const double scale = n_salt / water_kg;  // mol/kg water per unit mole fraction
+    const double ca = x_ca + x_sr, so4 = x_so4 + x_co3;
+    (void)(x_cl + x_hco3 + x_br + x_boh4 + x_f + x_oh);  // lumped Cl: follows from the balance
+    return from_molalities({{"potassium_chloride", x_k * scale},
+                            {"calcium_chloride", ca * scale},
+                            {"magnesium_chloride", x_mg * scale},
+                            {"sodium_sulfate", so4 * scale},
+                            {"sodium_chloride", (x_na - 2.0 * so4) * scale}},
+                           water_kg, table);
+  }
+
   // --- accessors (SI) -------------------------------------------------------------
 
   double water_mass() const noexcept { return water_kg_; }
@@ -146,8 +180,8 @@ class solution {
   /// sucrose solutions.
   double brix() const noexcept { return 100.0 * total_solute_mass() / total_mass(); }
 
-  /// Ionic strength, mol/kg, assuming complete dissociation into ions of the record's
-  /// charge pattern (1:1 -> m, 2:1 -> 3m).
+  /// Ionic strength, mol/kg, assuming complete dissociation into the record's ions:
+  /// I = 1/2 sum_i m_i z_i^2 (1:1 -> m, 2:1 -> 3m, 2:2 -> 4m).
   double ionic_strength() const noexcept { return ionic_strength(water_kg_); }
 
   /// Ionic strength with `water_kg` of water in place of the solution's own.
@@ -156,10 +190,40 @@ class solution {
     for (std::size_t i = 0; i < species_.size(); ++i) {
       if (species_[i].kind != data::solute_class::electrolyte) continue;
       const double m = moles_[i] / water_kg;
-      // nu = 2: 1:1 salt (I = m); nu = 3: 2:1 or 1:2 salt (I = 3m)
-      I += (species_[i].particles == 2 ? 1.0 : 3.0) * m;
+      if (species_[i].ions.empty()) {  // record without ion data: 1:1 or 2:1 by particle count
+        I += (species_[i].particles == 2 ? 1.0 : 3.0) * m;
+        continue;
+      }
+      for (const auto& ion : species_[i].ions) I += 0.5 * m * ion.count * ion.charge * ion.charge;
     }
     return I;
+  }
+
+  /// True if any solute is an electrolyte.
+  bool has_electrolytes() const noexcept {
+    for (const auto& r : species_)
+      if (r.kind == data::solute_class::electrolyte) return true;
+    return false;
+  }
+
+  /// True if any solute is a non-electrolyte.
+  bool has_non_electrolytes() const noexcept {
+    for (const auto& r : species_)
+      if (r.kind == data::solute_class::non_electrolyte) return true;
+    return false;
+  }
+
+  /// The solutes of one class only (electrolytes or non-electrolytes), same water. Used
+  /// by the combining rules, which evaluate each class at the same water.
+  solution only(data::solute_class kind) const {
+    solution s;
+    s.water_kg_ = water_kg_;
+    for (std::size_t i = 0; i < species_.size(); ++i) {
+      if (species_[i].kind != kind) continue;
+      s.species_.push_back(species_[i]);
+      s.moles_.push_back(moles_[i]);
+    }
+    return s;
   }
 
   /// The same solutes with a different mass of water (used by the ice curve).

@@ -38,7 +38,9 @@ inline solute_record non_electrolyte(std::string id, std::string name, std::stri
 
 inline solute_record electrolyte(std::string id, std::string name, std::string formula,
                                  std::vector<std::string> aliases, double molar_mass_g,
-                                 int particles) {
+                                 std::vector<ion_count> ions) {
+  int particles = 0;
+  for (const auto& i : ions) particles += i.count;
   solute_record r;
   r.id = std::move(id);
   r.name = std::move(name);
@@ -49,6 +51,7 @@ inline solute_record electrolyte(std::string id, std::string name, std::string f
   r.kind = solute_class::electrolyte;
   r.particles = particles;
   r.particles_source = "common practice";  // complete dissociation of a strong electrolyte
+  r.ions = std::move(ions);
   return r;
 }
 

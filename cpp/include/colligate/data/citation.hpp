@@ -79,10 +79,141 @@ inline const std::vector<citation>& citations() {
        "freezing curve (CoolProp 8.0 INCOMP::MPG T_freeze, 5-40 wt%)",
        "colligate source tree: tools/fit_crc_norrish.py --propylene-glycol", "",
        "least-squares fit of K and K3"},
+      {"spencer_1990", "Spencer, R. J.; Moller, N.; Weare, J. H.", 1990,
+       "The prediction of mineral solubilities in natural waters: a chemical equilibrium model "
+       "for the Na-K-Ca-Mg-Cl-SO4-H2O system at temperatures below 25 C",
+       "Geochim. Cosmochim. Acta 54, 575-590", "doi:10.1016/0016-7037(90)90354-N",
+       "Pitzer parameters and solubility products below 25 C (valid to about -54 C); "
+       "coefficients read in the PHREEQC database frezchem.dat (toner_sletten_2013), MgCl2 "
+       "cross-checked against the paper's eq. 2 coefficients as transcribed in pytzer; "
+       "the A_phi(T) polynomial of the model, coefficients read in public transcriptions"},
+      {"marion_farren_1999", "Marion, G. M.; Farren, R. E.", 1999,
+       "Mineral solubilities in the Na-K-Mg-Ca-Cl-SO4-H2O system: a re-evaluation of the sulfate "
+       "chemistry in the Spencer-Moller-Weare model",
+       "Geochim. Cosmochim. Acta 63, 1305-1318", "doi:10.1016/S0016-7037(99)00102-7",
+       "sulfate Pitzer parameters and sulfate salt solubility products; read in frezchem.dat "
+       "(toner_sletten_2013)"},
+      {"toner_sletten_2013", "Toner, J. D.; Sletten, R. S.", 2013,
+       "The formation of Ca-Cl enriched groundwaters in the Dry Valleys of Antarctica by cation "
+       "exchange reactions: field measurements and modeling of reactive transport",
+       "Geochim. Cosmochim. Acta 110, 84-105", "doi:10.1016/j.gca.2013.02.013",
+       "PHREEQC database frezchem.dat: FREZCHEM (Spencer et al. 1990; Marion & Farren 1999; "
+       "Marion 2001) refitted to PHREEQC's analytic temperature form; transcribed from a public "
+       "PHREEQC source tree (database/frezchem.dat)"},
+      {"clegg_rard_pitzer_1994", "Clegg, S. L.; Rard, J. A.; Pitzer, K. S.", 1994,
+       "Thermodynamic properties of 0-6 mol kg-1 aqueous sulfuric acid from 273.15 to 328.15 K",
+       "J. Chem. Soc. Faraday Trans. 90, 1875-1894", "doi:10.1039/FT9949001875",
+       "Appendix II, eqs. AII1-AII2 and Table 11: Chebyshev series for A_phi, 234.15-373.15 K "
+       "(coefficients read in a public transcription, pytzer)"},
+      {"pitzer_1975", "Pitzer, K. S.", 1975,
+       "Thermodynamics of electrolytes. V. Effects of higher-order electrostatic terms",
+       "J. Solution Chem. 4, 249-265", "doi:10.1007/BF00646562",
+       "unsymmetrical mixing E-theta, eqs. 23-24 and the J function (eq. 47 used as a check)"},
+      {"pitzer_1991", "Pitzer, K. S.", 1991, "Ion interaction approach: theory and data correlation",
+       "in Activity Coefficients in Electrolyte Solutions, 2nd ed., CRC Press, 75-153",
+       "ISBN 0-8493-5415-3 (from memory)",
+       "osmotic and activity coefficient equations; Appendix B, eqs. B-21 to B-30 and Table B-1 "
+       "(Harvie's Chebyshev approximation of J, read in a public transcription, pytzer); "
+       "A_phi = 0.3915 at 25 C"},
+      {"harvie_1984", "Harvie, C. E.; Moller, N.; Weare, J. H.", 1984,
+       "The prediction of mineral solubilities in natural waters: the "
+       "Na-K-Mg-Ca-H-Cl-SO4-OH-HCO3-CO3-CO2-H2O system to high ionic strengths at 25 C",
+       "Geochim. Cosmochim. Acta 48, 723-751", "doi:10.1016/0016-7037(84)90098-X",
+       "Table 1 (binary parameters, read in the pytzer HMW84 transcription) and Table 2 "
+       "(theta, psi; values from memory)"},
+      {"pitzer_mayorga_1973", "Pitzer, K. S.; Mayorga, G.", 1973,
+       "Thermodynamics of electrolytes. II. Activity and osmotic coefficients for strong "
+       "electrolytes with one or both ions univalent",
+       "J. Phys. Chem. 77, 2300-2308", "doi:10.1021/j100638a009",
+       "Table II, NaCl and KCl beta0, beta1, C-phi at 25 C (values from memory, equal to the "
+       "Harvie et al. 1984 Table 1 values read in pytzer except NaCl beta1 0.2664 vs 0.2644)"},
+      {"hamer_wu_1972", "Hamer, W. J.; Wu, Y.-C.", 1972,
+       "Osmotic coefficients and mean activity coefficients of uni-univalent electrolytes in "
+       "water at 25 C", "J. Phys. Chem. Ref. Data 1, 1047-1099", "doi:10.1063/1.3253108",
+       "NaCl osmotic coefficients at 25 C (values from memory)"},
+      {"greenspan_1977", "Greenspan, L.", 1977,
+       "Humidity fixed points of binary saturated aqueous solutions",
+       "J. Res. Natl. Bur. Stand. 81A, 89-96", "doi:10.6028/jres.081A.011",
+       "Table 2: NaCl 75.29 %, KCl 84.34 % relative humidity at 25 C (values from memory)"},
+      {"millero_2008", "Millero, F. J.; Feistel, R.; Wright, D. G.; McDougall, T. J.", 2008,
+       "The composition of Standard Seawater and the definition of the Reference-Composition "
+       "Salinity Scale", "Deep-Sea Res. I 55, 50-72", "doi:10.1016/j.dsr.2007.10.001",
+       "Table 4, mole fractions of the reference composition (values from memory); "
+       "mean molar mass of sea salt 31.4038218 g/mol"},
+      {"ross_1975", "Ross, K. D.", 1975, "Estimation of water activity in intermediate moisture foods",
+       "Food Technol. 29(3), 26-34", "", "product rule a_w = prod a_w,i"},
+      {"stokes_robinson_1966", "Stokes, R. H.; Robinson, R. A.", 1966,
+       "Interactions in aqueous nonelectrolyte solutions. I. Solute-solvent equilibria",
+       "J. Phys. Chem. 70, 2126-2131", "doi:10.1021/j100879a010",
+       "ZSR (Zdanovskii-Stokes-Robinson) mixing rule (from memory)"},
+      {"archer_1992", "Archer, D. G.", 1992,
+       "Thermodynamic properties of the NaCl + H2O system. II. Thermodynamic properties of "
+       "NaCl(aq), NaCl.2H2O(cr), and phase equilibria",
+       "J. Phys. Chem. Ref. Data 21, 793-829", "doi:10.1063/1.555915",
+       "ice + NaCl.2H2O eutectic, -21.2 C near 23.3 wt% (from memory)"},
       {"colligate_fit_mk2005", "colligate developers", 2026,
        "Heat-capacity difference of supercooled water and ice fitted by colligate to the "
        "temperature dependence of the Murphy & Koop (2005) vapour-pressure ratio, 233-273 K",
        "colligate source tree, cpp/include/colligate/water/ice.hpp", "", "see ice.hpp"},
+      {"nist_strd_nls", "National Institute of Standards and Technology", 1999,
+       "Statistical Reference Datasets: nonlinear regression",
+       "https://www.itl.nist.gov/div898/strd/nls/nls_main.shtml", "",
+       "Misra1a, Thurber and MGH09: data, starting values, certified values and standard "
+       "deviations; transcribed in tests/reference/nist_strd_*.csv"},
+      {"robinson_stokes_1959", "Robinson, R. A.; Stokes, R. H.", 1959, "Electrolyte Solutions",
+       "2nd ed., Butterworths, London", "",
+       "Appendix 8.6, osmotic coefficients of sucrose at 25 C (values in "
+       "tests/reference/sucrose_osmotic_coefficients_25c.csv are from memory)"},
+      {"choi_okos_1986", "Choi, Y.; Okos, M. R.", 1986,
+       "Effects of temperature and composition on the thermal properties of foods",
+       "in Le Maguer, M.; Jelen, P. (eds.), Food Engineering and Process Applications, vol. 1, "
+       "Elsevier Applied Science, 93-101", "ISBN 1-85166-011-2 (from memory)",
+       "component specific-heat polynomials, as tabulated in ASHRAE Refrigeration (2006) "
+       "ch. 9 Table 1 (coefficients from memory; water above 0 C also in Singh & Heldman "
+       "Table A.2.9)"},
+      {"ashrae_2006_refrigeration", "ASHRAE", 2006, "Thermal properties of foods",
+       "ASHRAE Handbook - Refrigeration (SI), chapter 9, ASHRAE, Atlanta", "ISBN 1-931862-86-9 (from memory)",
+       "Table 3: composition, initial freezing point, specific heat above and below "
+       "freezing, latent heat; rows in tests/reference/ashrae_food_properties.csv"},
+      {"chen_1985", "Chen, C. S.", 1985,
+       "Thermodynamic analysis of the freezing and thawing of foods: enthalpy and apparent "
+       "specific heat", "J. Food Sci. 50, 1158-1162", "doi:10.1111/j.1365-2621.1985.tb13034.x (from memory)",
+       "frozen-food specific heat 1.55 + 1.26 x_s + x_s R T0^2 / (M_s t^2) (kJ/(kg K))"},
+      {"schwartzberg_1976", "Schwartzberg, H. G.", 1976,
+       "Effective heat capacities for the freezing and thawing of food",
+       "J. Food Sci. 41, 152-156", "doi:10.1111/j.1365-2621.1976.tb01123.x (from memory)",
+       "unfreezable (bound) water about 0.4 kg per kg protein, as presented in ASHRAE "
+       "Refrigeration (2006) ch. 9 (from memory)"},
+      {"leighton_1927", "Leighton, A.", 1927,
+       "On the calculation of the freezing point of ice-cream mixes and of the quantities of "
+       "ice separated during the freezing process",
+       "J. Dairy Sci. 10, 300-308", "doi:10.3168/jds.S0022-0302(27)93840-5 (from memory)",
+       "average milk after Van Slyke: fat 3.9, lactose 4.9, protein 3.2, salts 0.89, water "
+       "87.11 %; freezing point -0.55 C, of which lactose 0.306 K and salts etc. 0.244 K"},
+      {"goff_hartel_2013", "Goff, H. D.; Hartel, R. W.", 2013, "Ice Cream, 7th ed.",
+       "Springer, New York", "ISBN 978-1-4614-6095-4 (from memory)",
+       "freezing point of mixes by Leighton's method: lactose 54.5 % of MSNF, 76.5 % of whey "
+       "solids; salts depression 2.37 (MSNF + WS) / W degC; a 12 % fat, 11 % MSNF, 15 % "
+       "sugar mix freezes near -2.5 C (as restated in dairy texts read in a stored copy)"},
+      {"usda_fdc", "U.S. Department of Agriculture, Agricultural Research Service", 2019,
+       "FoodData Central", "https://fdc.nal.usda.gov/ (SR Legacy and Foundation foods)", "",
+       "proximate composition per 100 g; the FDC id and description are given per value"},
+      {"hudson_1908", "Hudson, C. S.", 1908,
+       "Further studies on the forms of milk-sugar", "J. Am. Chem. Soc. 30, 1767-1783",
+       "doi:10.1021/ja01953a014 (from memory)",
+       "final solubility of lactose in water vs temperature (values from memory)"},
+      {"colligate_milk_salts", "colligate developers", 2026,
+       "Effective milk-salts solute derived from Leighton (1927)",
+       "colligate source tree, data/detail/builtin_solutes.inc", "",
+       "0.89 g salts in 87.11 g water lower the freezing point by 0.244 K: 0.1312 osmol/kg "
+       "water, an effective 77.9 g per osmole, treated as ideal particles"},
+      {"colligate_de_relation", "colligate developers", 2026,
+       "Starch hydrolysate oligomers represented through the dextrose equivalent",
+       "common practice: number-average molar mass about 18016 / DE g/mol", "",
+       "higher saccharides (DP >= 4) and maltodextrin as single ideal solutes of fixed molar mass"},
+      {"colligate_fit_user", "the user of colligate", 0,
+       "Constants fitted by colligate.fit to the user's own data",
+       "the provenance fields of the fitted-solute file", "", "see the record's note"},
   };
   return table;
 }

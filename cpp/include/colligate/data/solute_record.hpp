@@ -8,6 +8,8 @@
 #include <string>
 #include <vector>
 
+#include "colligate/data/pitzer_parameters.hpp"
+
 namespace colligate::data {
 
 enum class solute_class { non_electrolyte, electrolyte };
@@ -28,6 +30,26 @@ struct norrish_constants {
   std::string note;               ///< which data or rows set the constants
 };
 
+/// One ion of a dissolved electrolyte: its Pitzer-table name ("Na+", "SO4-2"), charge
+/// and count per formula unit (CaCl2 -> {"Ca+2", +2, 1}, {"Cl-", -1, 2}).
+struct ion_count {
+  std::string ion;
+  int charge = 0;
+  int count = 0;
+};
+
+/// Pitzer cation-anion parameters that a salt record carries itself (a salt fitted to a
+/// lab's data, fit/pitzer_fitter.hpp). When `available`, every Pitzer evaluation of a
+/// solution holding the record uses `binary` in place of the parameter set's row for the
+/// same ion pair (models/detail/pitzer_record_parameters.hpp), so a fitted salt needs no
+/// global registry: it travels with the record, through a solute_table, into the solution.
+struct record_pitzer_parameters {
+  bool available = false;
+  pitzer_binary binary{};        ///< cation, anion, beta0/beta1/beta2/C-phi (T), max_molality, source
+  double min_temperature = 0.0;  ///< K, lowest temperature the parameters are valid for
+  double max_temperature = 0.0;  ///< K, highest temperature the parameters are valid for
+};
+
 struct solute_record {
   std::string id;        ///< lower_snake id, unique ("sucrose", "sodium_chloride")
   std::string name;      ///< display name ("sucrose", "sodium chloride")
@@ -38,7 +60,11 @@ struct solute_record {
   solute_class kind = solute_class::non_electrolyte;
   int particles = 1;  ///< dissolved particles per formula unit (nu; 2 for NaCl)
   std::string particles_source;
+  /// Ions per formula unit of an electrolyte (empty for non-electrolytes). Their charges
+  /// sum to zero, so a solution made of salts is electroneutral by construction.
+  std::vector<ion_count> ions;
   norrish_constants norrish;
+  record_pitzer_parameters pitzer;  ///< own Pitzer binary parameters (fitted salts only)
 };
 
 }  // namespace colligate::data

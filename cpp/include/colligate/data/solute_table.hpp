@@ -65,6 +65,18 @@ class solute_table {
           "must be > 0 kg/mol"));
     if (r.particles < 1)
       throw invalid_input("solute_table::add: particles of '" + r.id + "' must be >= 1");
+    if (!r.ions.empty()) {
+      int charge = 0;
+      for (const auto& i : r.ions) {
+        if (i.count < 1 || i.charge == 0)
+          throw invalid_input("solute_table::add: ion '" + i.ion + "' of '" + r.id +
+                              "' needs a count >= 1 and a non-zero charge");
+        charge += i.charge * i.count;
+      }
+      if (charge != 0)
+        throw invalid_input("solute_table::add: the ions of '" + r.id + "' carry a net charge of " +
+                            std::to_string(charge) + " per formula unit; a salt must be neutral (0)");
+    }
     for (const auto& key : keys_of(r)) {
       for (const auto& existing : records_) {
         for (const auto& k2 : keys_of(existing)) {

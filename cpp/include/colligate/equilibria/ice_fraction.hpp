@@ -9,17 +9,25 @@
 ///
 /// W_u is found by TOMS 748 on ln W_u (a_w falls monotonically as water is removed).
 /// Above the freezing point the ice fraction is 0 (not an error).
-/// Not yet handled: crystallisation of a solute whose solubility is passed in the
-/// unfrozen phase; the validity record flags concentrations beyond the model's range.
+/// Salt limits (models 'pitzer', 'ross' and 'auto' with electrolytes): the ice curve
+/// stops where the unfrozen brine becomes saturated in a salt phase
+/// (equilibria/salt_solubility.hpp). Below that temperature (the eutectic of a binary
+/// salt solution; the first salt crystallisation of a mixture) the result has status
+/// below_eutectic, NaN masses, and a reason naming the eutectic temperature and the salt,
+/// instead of an extrapolated ice fraction. eutectic() returns that temperature.
+/// Non-electrolyte crystallisation (lactose) is not handled yet.
 
 #include <boost/math/tools/roots.hpp>
 #include <cmath>
 #include <cstdint>
+#include <cstdio>
 #include <limits>
+#include <string>
 
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/water/ice.hpp"
@@ -45,10 +53,11 @@ struct unfrozen_phase {
   }
 };
 
-/// Ice, unfrozen water and water activity at temperature T (K).
-inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
-                                        models::model_id m = models::model_id::automatic,
-                                        double bound_water_kg = 0.0) {
+namespace detail {
+
+/// The ice equilibrium at T without the salt limit.
+inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperature,
+                                            models::model_id m, double bound_water_kg) {
   models::check_temperature_argument("ice_fraction", temperature);
   detail::check_bound_water("ice_fraction", s, bound_water_kg);
   unfrozen_phase r;
@@ -105,12 +114,125 @@ inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
   return r;
 }
 
+/// True if the model computes ion activities, so salt saturation can be evaluated.
+inline bool has_salt_limits(models::model_id m, const solution& s) {
+  const auto r = models::resolve(m, s);
+  return s.has_electrolytes() && (r == models::model_id::pitzer || r == models::model_id::ross);
+}
+
+}  // namespace detail
+
+/// Where the ice curve of a solution ends because a salt crystallises.
+struct eutectic_result {
+  double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K
+  bool found = false;
+  std::string phase;    ///< mineral name ("hydrohalite"), empty if none found
+  std::string formula;  ///< "NaCl.2H2O"
+  std::string source;   ///< citation key of the solubility product
+  std::string reason;   ///< why none was found, or a caution ("" otherwise)
+};
+
+/// Eutectic temperature of a solution: the highest temperature below its freezing
+/// point at which the unfrozen brine in equilibrium with ice is saturated in a salt
+/// phase (for a binary salt solution, the ice + salt eutectic; for a mixture, the first
+/// salt to crystallise on cooling). Searched down to 219.15 K. Needs a model with ion
+/// activities ('auto', 'pitzer', 'ross').
+inline eutectic_result eutectic(const solution& s,
+                                models::model_id m = models::model_id::automatic,
+                                double bound_water_kg = 0.0) {
+  eutectic_result out;
+  if (!detail::has_salt_limits(m, s)) {
+    out.reason = "eutectic: needs electrolytes and a model with ion activities ('auto', "
+                 "'pitzer' or 'ross')";
+    return out;
+  }
+  const auto fp = freezing_point(s, m, bound_water_kg);
+  if (!fp.success()) {
+    out.reason = "eutectic: no freezing point: " + fp.check.reason;
+    return out;
+  }
+  const double W = s.water_mass() - bound_water_kg;
+  const auto at_fp = most_saturated_phase(s, W, fp.temperature,
+                                          models::ln_water_activity(m, s, W, fp.temperature));
+  if (at_fp.index > 0.0) {
+    out.phase = at_fp.phase->name;
+    out.formula = at_fp.phase->formula;
+    out.source = at_fp.phase->source;
+    out.reason = "eutectic: the solution is already saturated in " + out.phase + " (" +
+                 out.formula + ") at its freezing point; the salt crystallises before ice";
+    return out;
+  }
+  auto si = [&](double T, const salt_phase** ph) {
+    const auto u = detail::solve_ice_equilibrium(s, T, m, bound_water_kg);
+    if (!(u.unfrozen_water > 0.0)) return std::numeric_limits<double>::quiet_NaN();
+    const auto sat = most_saturated_phase(s, u.unfrozen_water, T, std::log(u.water_activity));
+    if (ph) *ph = sat.phase;
+    return sat.index;
+  };
+  const double step = 0.5;
+  double hi = fp.temperature - 1e-6;
+  for (double T = fp.temperature - step; T >= salt_phase_min_temperature - 1e-9; T -= step) {
+    const salt_phase* ph = nullptr;
+    const double v = si(T, &ph);
+    if (v >= 0.0) {
+      double lo = T;
+      for (int i = 0; i < 50 && hi - lo > 1e-7; ++i) {
+        const double mid = 0.5 * (lo + hi);
+        (si(mid, nullptr) >= 0.0 ? lo : hi) = mid;
+      }
+      out.found = true;
+      out.temperature = 0.5 * (lo + hi);
+      si(lo, &ph);
+      out.phase = ph->name;
+      out.formula = ph->formula;
+      out.source = ph->source;
+      return out;
+    }
+    hi = T;
+  }
+  out.reason = "eutectic: no salt phase saturates above 219.15 K, the lower limit of the "
+               "salt solubility data";
+  return out;
+}
+
+/// Ice, unfrozen water and water activity at temperature T (K). Below the eutectic
+/// (see eutectic()) the status is below_eutectic and the masses are NaN.
+inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
+                                        models::model_id m = models::model_id::automatic,
+                                        double bound_water_kg = 0.0) {
+  auto r = detail::solve_ice_equilibrium(s, temperature, m, bound_water_kg);
+  if (r.status != solve_status::converged || !detail::has_salt_limits(m, s) ||
+      !(r.unfrozen_water > 0.0))
+    return r;
+  const auto sat = most_saturated_phase(s, r.unfrozen_water, temperature,
+                                        std::log(r.water_activity));
+  if (!(sat.index > 0.0)) return r;
+  const auto e = eutectic(s, m, bound_water_kg);
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.2f K (%.2f C)", e.temperature,
+                e.temperature - constants::celsius_offset);
+  r.status = solve_status::below_eutectic;
+  r.check.reason = colligate::detail::describe(
+      "ice_fraction", "temperature", temperature,
+      "below the eutectic at " + (e.found ? std::string(buf) : std::string("an unknown temperature")) +
+          ", where " + sat.phase->name + " (" + sat.phase->formula +
+          ") crystallises from the unfrozen brine [" + sat.phase->source +
+          "]; the ice curve stops there");
+  r.unfrozen_water = std::numeric_limits<double>::quiet_NaN();
+  r.ice = std::numeric_limits<double>::quiet_NaN();
+  return r;
+}
+
 /// Ice mass / total water at T with the caller's range policy.
 inline checked_value ice_fraction(const solution& s, double temperature,
                                   models::model_id m = models::model_id::automatic,
                                   range_policy policy = range_policy::extrapolate,
                                   double bound_water_kg = 0.0) {
   const auto r = unfrozen_phase_at(s, temperature, m, bound_water_kg);
+  if (r.status == solve_status::below_eutectic) {
+    if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason);
+    return {std::numeric_limits<double>::quiet_NaN(), r.check};
+  }
   if (!r.success())
     throw convergence_error(std::string("ice_fraction: root finder stopped: ") +
                             to_string(r.status) + (r.check.reason.empty() ? "" : ": ") +

@@ -12,7 +12,7 @@
 
 namespace colligate::models {
 
-enum class model_id { automatic, ideal, raoult, norrish };
+enum class model_id { automatic, ideal, raoult, norrish, pitzer, ross };
 
 inline const char* to_string(model_id m) {
   switch (m) {
@@ -20,12 +20,15 @@ inline const char* to_string(model_id m) {
     case model_id::ideal: return "ideal";
     case model_id::raoult: return "raoult";
     case model_id::norrish: return "norrish";
+    case model_id::pitzer: return "pitzer";
+    case model_id::ross: return "ross";
   }
   return "unknown";
 }
 
 inline std::vector<model_id> all_models() {
-  return {model_id::automatic, model_id::ideal, model_id::raoult, model_id::norrish};
+  return {model_id::automatic, model_id::ideal, model_id::raoult, model_id::norrish,
+          model_id::pitzer, model_id::ross};
 }
 
 inline model_id model_from_string(const std::string& s) {

@@ -2,8 +2,10 @@
 /// \file water_activity.hpp
 /// One entry point for every activity model: ln a_w of a solution at temperature T,
 /// chosen by model_id, with its validity. `auto` chooses the most complete model for
-/// the solutes present (today: Norrish, which also counts electrolyte ions as ideal
-/// particles) and says so in describe_model().
+/// the solutes present and says so in describe_model(): Norrish when there are only
+/// non-electrolytes, Pitzer when there are only electrolytes, and the Ross (1975)
+/// product rule (model 'ross': Pitzer for the ions times Norrish for the
+/// non-electrolytes, each in the same water) when there are both.
 
 #include <cmath>
 #include <cstdio>
@@ -13,15 +15,19 @@
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/models/ideal.hpp"
+#include "colligate/models/mixing.hpp"
 #include "colligate/models/model_id.hpp"
 #include "colligate/models/norrish.hpp"
+#include "colligate/models/pitzer.hpp"
 #include "colligate/models/raoult.hpp"
 
 namespace colligate::models {
 
 /// The concrete model `auto` resolves to for this solution.
-inline model_id resolve(model_id m, const solution& /*s*/) {
-  return m == model_id::automatic ? model_id::norrish : m;
+inline model_id resolve(model_id m, const solution& s) {
+  if (m != model_id::automatic) return m;
+  if (!s.has_electrolytes()) return model_id::norrish;
+  return s.has_non_electrolytes() ? model_id::ross : model_id::pitzer;
 }
 
 /// ln a_w with `water_kg` of water in place of the solution's own (for the ice curve).
@@ -31,6 +37,8 @@ inline double ln_water_activity(model_id m, const solution& s, double water_kg,
     case model_id::ideal: return ideal::ln_water_activity(s, water_kg, temperature);
     case model_id::raoult: return raoult::ln_water_activity(s, water_kg, temperature);
     case model_id::norrish: return norrish::ln_water_activity(s, water_kg, temperature);
+    case model_id::pitzer: return pitzer::ln_water_activity(s, water_kg, temperature);
+    case model_id::ross: return ross::ln_water_activity(s, water_kg, temperature);
     case model_id::automatic: break;
   }
   throw invalid_input("ln_water_activity: unresolved model");
@@ -41,6 +49,8 @@ inline validity check(model_id m, const solution& s, double water_kg, double tem
     case model_id::ideal: return ideal::check(s, water_kg, temperature);
     case model_id::raoult: return raoult::check(s, water_kg, temperature);
     case model_id::norrish: return norrish::check(s, water_kg, temperature);
+    case model_id::pitzer: return pitzer::check(s, water_kg, temperature);
+    case model_id::ross: return ross::check(s, water_kg, temperature);
     case model_id::automatic: break;
   }
   throw invalid_input("check: unresolved model");
@@ -87,12 +97,34 @@ inline std::string describe_model(const solution& s, model_id m = model_id::auto
     case model_id::norrish:
       out += ": Norrish (1966) with the multi-solute extension of Chirife et al. (1980)";
       break;
+    case model_id::pitzer:
+      out += ": Pitzer ion interaction (Debye-Hueckel A_phi of Clegg, Rard & Pitzer 1994, "
+             "unsymmetrical E-theta of Pitzer 1975), parameter set '" +
+             pitzer::default_parameters().id + "' [" + pitzer::default_parameters().description +
+             "]; non-electrolytes counted as ideal particles";
+      break;
+    case model_id::ross:
+      out += ": Ross (1975) product rule, a_w = a_w(ions, Pitzer, parameter set '" +
+             pitzer::default_parameters().id +
+             "') * a_w(non-electrolytes, Norrish 1966 / Chirife et al. 1980), each evaluated "
+             "in the same water";
+      break;
     case model_id::automatic: break;
   }
   for (std::size_t i = 0; i < s.size(); ++i) {
     const auto& rec = s.species()[i];
     out += "; " + rec.id + ": ";
-    if (r == model_id::norrish && rec.norrish.available) {
+    const bool pitzer_ions = (r == model_id::pitzer || r == model_id::ross) &&
+                             rec.kind == data::solute_class::electrolyte && !rec.ions.empty();
+    const bool norrish_k = (r == model_id::norrish ||
+                            (r == model_id::ross && rec.kind == data::solute_class::non_electrolyte)) &&
+                           rec.norrish.available;
+    if (pitzer_ions) {
+      std::string cation, anion;
+      for (const auto& ion : rec.ions) (ion.charge > 0 ? cation : anion) = ion.ion;
+      const auto* row = detail::binary_for(rec, pitzer::default_parameters(), cation, anion);
+      out += cation + " + " + anion + (row ? " [" + row->source + "]" : " (no Pitzer parameters)");
+    } else if (norrish_k) {
       char buf[160];
       std::snprintf(buf, sizeof buf, "K = %.4g [%s]", rec.norrish.k, rec.norrish.k_source.c_str());
       out += buf;

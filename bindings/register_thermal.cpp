@@ -1,0 +1,135 @@
+// Bindings for thermal/: component heat capacities, enthalpy, apparent specific heat and
+// heat loads of a food. Thin: convert, release the GIL, call the core.
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+
+#include <string>
+#include <tuple>
+
+#include "colligate/colligate.hpp"
+#include "colligate/thermal/enthalpy.hpp"
+#include "register.hpp"
+
+namespace colligate_bindings {
+
+namespace {
+
+namespace th = colligate::thermal;
+
+th::food_composition to_composition(const py::object& mapping) {
+  th::food_composition x;
+  for (const auto& [name, value] : to_named_amounts(mapping, "composition")) {
+    if (name == "water") x.water = value;
+    else if (name == "protein") x.protein = value;
+    else if (name == "fat") x.fat = value;
+    else if (name == "carbohydrate") x.carbohydrate = value;
+    else if (name == "fibre" || name == "fiber") x.fibre = value;
+    else if (name == "ash") x.ash = value;
+    else
+      throw colligate::invalid_input("composition['" + name +
+                                     "']: unknown component; valid components are water, "
+                                     "protein, fat, carbohydrate, fibre, ash");
+  }
+  return x;
+}
+
+th::food make_food(const py::object& composition, const colligate::solution& s,
+                   double bound_water, const std::string& model) {
+  return th::food(to_composition(composition), s, bound_water,
+                  colligate::models::model_from_string(model));
+}
+
+template <class F>
+std::tuple<py::array_t<double>, std::string, std::size_t> over_array(
+    const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature, F&& f) {
+  py::array_t<double> out(temperature.request().shape);
+  const double* t = temperature.data();
+  double* o = out.mutable_data();
+  const auto n = static_cast<std::size_t>(temperature.size());
+  std::string first_reason;
+  std::size_t count = 0;
+  {
+    py::gil_scoped_release release;
+    for (std::size_t i = 0; i < n; ++i) {
+      const auto v = f(t[i]);
+      o[i] = v.value;
+      if (!v.check.in_range() && count++ == 0) first_reason = v.check.reason;
+    }
+  }
+  return {out, first_reason, count};
+}
+
+}  // namespace
+
+void register_thermal(py::module_& m) {
+  m.def(
+      "component_specific_heat",
+      [](const std::string& component, double T) {
+        return th::specific_heat(th::component_from_string(component), T);
+      },
+      py::arg("component"), py::arg("temperature"),
+      "Specific heat of a food component (water, ice, protein, fat, carbohydrate, fibre, ash) "
+      "at ``temperature`` (K), J/(kg K); Choi & Okos (1986).");
+  m.def(
+      "unfrozen_specific_heat",
+      [](const py::object& composition, double T) {
+        return th::unfrozen_specific_heat(to_composition(composition), T);
+      },
+      py::arg("composition"), py::arg("temperature"),
+      "Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).");
+  m.def(
+      "latent_heat_of_fusion",
+      [](const py::object& composition) {
+        return th::latent_heat_of_fusion(to_composition(composition));
+      },
+      py::arg("composition"), "Water fraction times the heat of fusion of ice at 0 C, J/kg of food.");
+  m.def(
+      "food_enthalpy",
+      [](const py::object& composition, const colligate::solution& s,
+         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const std::string& model, double bound_water) {
+        const auto f = make_food(composition, s, bound_water, model);
+        return over_array(temperature, [&](double T) { return th::enthalpy(f, T); });
+      },
+      py::arg("composition"), py::arg("solution"), py::arg("temperature"),
+      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      "Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).");
+  m.def(
+      "food_apparent_specific_heat",
+      [](const py::object& composition, const colligate::solution& s,
+         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const std::string& model, double bound_water) {
+        const auto f = make_food(composition, s, bound_water, model);
+        return over_array(temperature, [&](double T) { return th::apparent_specific_heat(f, T); });
+      },
+      py::arg("composition"), py::arg("solution"), py::arg("temperature"),
+      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      "Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).");
+  m.def(
+      "food_heat_load",
+      [](const py::object& composition, const colligate::solution& s, double from_temperature,
+         double to_temperature, const std::string& model, double bound_water) {
+        const auto f = make_food(composition, s, bound_water, model);
+        th::heat_load_result r;
+        {
+          py::gil_scoped_release release;
+          r = th::heat_load(f, from_temperature, to_temperature);
+        }
+        py::dict d;
+        d["total"] = r.total;
+        d["sensible"] = r.sensible;
+        d["latent"] = r.latent;
+        d["ice_fraction_from"] = r.ice_fraction_from;
+        d["ice_fraction_to"] = r.ice_fraction_to;
+        d["reason"] = r.check.reason;
+        return d;
+      },
+      py::arg("composition"), py::arg("solution"), py::arg("from_temperature"),
+      py::arg("to_temperature"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      "Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split "
+      "into sensible and latent parts.");
+  m.attr("ENTHALPY_REFERENCE_TEMPERATURE") = th::reference_temperature;
+}
+
+}  // namespace colligate_bindings

@@ -1,0 +1,295 @@
+#pragma once
+/// \file pitzer_parameters.hpp
+/// Pitzer ion-interaction parameters for Na+, K+, Ca+2, Mg+2, Cl-, SO4-2 in water, as
+/// named parameter sets. Each set declares its validity range (temperatures, largest
+/// molality of each salt) and every row carries a source key that resolves in
+/// citation.hpp.
+///
+/// Temperature functions use one form for every set (the "analytic" form used by the
+/// PHREEQC databases, T_r = 298.15 K):
+///
+///     P(T) = a0 + a1 (1/T - 1/T_r) + a2 ln(T/T_r) + a3 (T - T_r) + a4 (T^2 - T_r^2)
+///               + a5 (1/T^2 - 1/T_r^2)
+///
+/// so a0 is the value at 25 C and a 25 C-only set has a1..a5 = 0.
+///
+/// Sets:
+/// - "spencer_1990" (default): the low-temperature Na-K-Ca-Mg-Cl-SO4-H2O model of
+///   Spencer, Moller & Weare (1990), with the sulfate parameters re-evaluated by Marion &
+///   Farren (1999) and Marion (2001). Coefficients transcribed from the PHREEQC database
+///   frezchem.dat, in which Toner & Sletten (2013) refitted the FREZCHEM temperature
+///   functions to the analytic form above. Cross-check: MgCl2 beta0 and beta1 from the
+///   original Spencer et al. (1990) eq. 2 coefficients agree with the refit within 1e-3
+///   between 220 and 298 K (tests/cpp/models/test_pitzer.cpp). Valid 219.15-298.15 K.
+///   Evaluated with the Spencer et al. (1990) A_phi(T) polynomial they were fitted with
+///   (aphi_correlation::spencer_1990), not the Clegg et al. (1994) series, which falls
+///   steeply below 245 K and moved the CaCl2 eutectic 8 K too warm.
+/// - "harvie_1984": 25 C parameters of Harvie, Moller & Weare (1984), Table 1 (binary
+///   parameters; NaCl, KCl, CaCl2, MgCl2 equal to Pitzer & Mayorga 1973) and their mixing
+///   parameters. No temperature dependence: flagged outside 293.15-303.15 K. A_phi from
+///   the Clegg, Rard & Pitzer (1994) series (0.3915 at 25 C; Harvie et al. used 0.392).
+///
+/// C-phi is stored as published (C-phi); the model converts to C = C-phi / (2 sqrt|z_M z_X|).
+/// alpha1 = 2 (beta2 unused) for pairs with a univalent ion; alpha1 = 1.4, alpha2 = 12
+/// for 2:2 pairs (Pitzer & Mayorga 1974; Harvie et al. 1984).
+
+#include <array>
+#include <cmath>
+#include <string>
+#include <vector>
+
+#include "colligate/core/errors.hpp"
+
+namespace colligate::data {
+
+/// The ions the Pitzer parameter sets know, in a fixed order: cations then anions.
+struct pitzer_ion {
+  const char* name;
+  int charge;
+};
+inline constexpr std::size_t pitzer_ion_count = 6;
+inline constexpr std::array<pitzer_ion, pitzer_ion_count> pitzer_ions = {
+    {{"Na+", 1}, {"K+", 1}, {"Ca+2", 2}, {"Mg+2", 2}, {"Cl-", -1}, {"SO4-2", -2}}};
+
+/// Index of an ion in pitzer_ions, or pitzer_ion_count if unknown.
+inline std::size_t pitzer_ion_index(const std::string& name) {
+  for (std::size_t i = 0; i < pitzer_ion_count; ++i)
+    if (name == pitzer_ions[i].name) return i;
+  return pitzer_ion_count;
+}
+
+/// P(T) in the analytic form above; T_r = 298.15 K.
+struct t_function {
+  std::array<double, 6> a{};
+  double operator()(double T) const {
+    constexpr double Tr = 298.15;
+    return a[0] + a[1] * (1.0 / T - 1.0 / Tr) + a[2] * std::log(T / Tr) + a[3] * (T - Tr) +
+           a[4] * (T * T - Tr * Tr) + a[5] * (1.0 / (T * T) - 1.0 / (Tr * Tr));
+  }
+};
+
+/// Correlation used for the Debye-Hueckel osmotic slope A_phi(T). Pitzer parameters are
+/// fitted together with one A_phi(T), so each parameter set names the correlation its
+/// authors used (models/detail/pitzer_kernel.hpp evaluates them):
+/// - clegg_rard_pitzer_1994: Chebyshev series of Clegg, Rard & Pitzer (1994), a fit to the
+///   Archer & Wang (1990) dielectric constant; validated 234.15-373.15 K.
+/// - spencer_1990: the polynomial in T of Spencer, Moller & Weare (1990), fitted with their
+///   low-temperature parameters; used over their range, 219.15-298.15 K.
+enum class aphi_correlation { clegg_rard_pitzer_1994, spencer_1990 };
+
+/// Cation-anion parameters of one salt.
+struct pitzer_binary {
+  std::string cation, anion;
+  t_function beta0, beta1, beta2, cphi;
+  double max_molality;  ///< highest molality of the binary salt solution the set is valid for
+  std::string source;
+  std::string note;
+};
+
+/// theta for a pair of like-charged ions.
+struct pitzer_theta {
+  std::string ion1, ion2;
+  t_function theta;
+  std::string source;
+};
+
+/// psi for two like-charged ions and one ion of the opposite sign.
+struct pitzer_psi {
+  std::string ion1, ion2, ion3;
+  t_function psi;
+  std::string source;
+};
+
+struct pitzer_parameter_set {
+  std::string id;
+  std::string description;
+  double min_temperature;  ///< K
+  double max_temperature;  ///< K
+  std::string range_source;
+  std::vector<pitzer_binary> binaries;
+  std::vector<pitzer_theta> thetas;
+  std::vector<pitzer_psi> psis;
+  /// The A_phi(T) the parameters were fitted with.
+  aphi_correlation aphi = aphi_correlation::clegg_rard_pitzer_1994;
+
+  const pitzer_binary* find_binary(const std::string& cation, const std::string& anion) const {
+    for (const auto& b : binaries)
+      if (b.cation == cation && b.anion == anion) return &b;
+    return nullptr;
+  }
+};
+
+namespace detail {
+inline t_function tf(double a0, double a1 = 0, double a2 = 0, double a3 = 0, double a4 = 0,
+                     double a5 = 0) {
+  return t_function{{a0, a1, a2, a3, a4, a5}};
+}
+}  // namespace detail
+
+/// Spencer, Moller & Weare (1990) low-temperature set (see the file comment).
+inline const pitzer_parameter_set& spencer_1990_parameters() {
+  using detail::tf;
+  static const pitzer_parameter_set set{
+      "spencer_1990",
+      "Spencer, Moller & Weare (1990) Na-K-Ca-Mg-Cl-SO4-H2O below 25 C, sulfates from Marion & "
+      "Farren (1999) and Marion (2001), as refitted by Toner & Sletten (2013) (frezchem.dat)",
+      219.15, 298.15, "spencer_1990",
+      {
+          // beta0, beta1, beta2, C-phi: frezchem.dat -B0, -B1, -B2, -C0 rows.
+          // max molality: about the 25 C saturation molality of the salt, the upper end
+          // of the binary data behind the fit (from memory).
+          {"Na+", "Cl-", tf(0.076276, -886.777, -4.19728, 0.00613645, -1.1006E-06, 8942.9),
+           tf(0.280431, -8677.858, -94.69966, 0.2944375, -0.000147476, -191956), tf(0),
+           tf(0.001271, 52.6, 0.07951, 0.00031974, -3.195E-07, -1237.7), 6.2, "spencer_1990",
+           "NaCl"},
+          {"K+", "Cl-", tf(0.048342, -758.497, -4.69717, 0.01003107, -3.7342E-06, 64),
+           tf(0.210434, -14898.951, -173.19076, 0.55331238, -0.000283943, -412199.8), tf(0),
+           tf(-0.000839, 91.27, 0.58481, -0.00129068, 4.911E-07, -11.4), 4.85, "spencer_1990",
+           "KCl"},
+          {"Ca+2", "Cl-", tf(0.304058, 1265.271, 11.94793, -0.03558926, 1.64514E-05, -3394.2),
+           tf(1.708132, 0, 0, -0.015417, 0.000031791, 0), tf(0),
+           tf(-0.00199, 125.363, -0.64691, 0.00444735, -3.2027E-06, -12466.4), 7.5,
+           "spencer_1990", "CaCl2"},
+          {"Mg+2", "Cl-", tf(0.351542, -392.241, -17.65506, 0.0703283, -4.17563E-05, -117885),
+           tf(1.821364, -65485.608, 1302.23382, -6.71036992, 0.004429219, 13522889.4), tf(0),
+           tf(0.006507, 0, 0, -0.00024995, 2.418E-07, 0), 5.9, "spencer_1990", "MgCl2"},
+          {"Na+", "SO4-2", tf(0.038071, -26.946, -0.36262, 0.00595978, -1.6429E-06, 945),
+           tf(1.035408, -106.397, -1.89717, 0.01819155, -8.1292E-06, 4580.4), tf(0),
+           tf(-0.002331, -0.711, -0.04568, -0.00053454, -2.014E-07, 116.1), 2.0,
+           "marion_farren_1999", "Na2SO4"},
+          {"K+", "SO4-2", tf(0.003795, 22.492, 0.2029, 0.00165088, 9.746E-07, -540.7),
+           tf(1.052416, 767.611, 6.36874, -0.03159629, 2.98397E-05, -16995.7), tf(0),
+           tf(0.014845, 6.792, 0.12817, -0.00049111, 5.849E-07, -332), 0.7,
+           "marion_farren_1999", "K2SO4"},
+          {"Mg+2", "SO4-2", tf(0.126545, 470.866, 6.08307, -0.03139609, 2.82462E-05, -15937.6),
+           tf(3.491512, 2603.294, 34.29203, -0.13991327, 0.000161578, -90018.9),
+           tf(-6.243985, 245008.193, 1276.67549, -6.82364722, 0.007402746, -3561447.4),
+           tf(0.05291, -6.004, -0.43928, 0.00120236, -1.9372E-06, 1116.1), 3.0,
+           "marion_farren_1999", "MgSO4"},
+          {"Ca+2", "SO4-2", tf(0.115384, 145.327, 2.57051, -0.01120842, 1.68444E-05, -6826.8),
+           tf(3.56045, -6591.464, -37.68237, 0.17530628, -0.000174047, 103372),
+           tf(-61.685514, 21440.768, 133.72156, -0.59337506, 0.000399407, -359056.7),
+           tf(0.039751, 70.752, 0.59046, -0.00274756, 3.6688E-06, -1597.7), 0.02,
+           "marion_farren_1999", "CaSO4 (gypsum-saturated at about 0.015 mol/kg)"},
+      },
+      {
+          {"Na+", "K+", tf(-0.00948, 612.415, 3.02995, -0.00369038, 0, 0), "spencer_1990"},
+          {"Na+", "Ca+2", tf(0.048535, 39.673, 0.36653, -0.00159002, 1.6783E-06, -967.4),
+           "spencer_1990"},
+          {"Na+", "Mg+2", tf(0.07), "spencer_1990"},
+          {"K+", "Ca+2", tf(0.056416, -284.94, 0, -0.00454, 0, 0), "spencer_1990"},
+          {"K+", "Mg+2", tf(0.1167), "spencer_1990"},
+          {"Ca+2", "Mg+2", tf(0.124367, -983.114, 0, -0.00634242, 0, 0), "spencer_1990"},
+          {"Cl-", "SO4-2", tf(0.045973, -35.626, -0.29988, 0.00128989, -0.000001378, 794.3),
+           "marion_farren_1999"},
+      },
+      {
+          {"Na+", "K+", "Cl-", tf(-0.002539, -204.354, -1.09448, 0.00146803, 0, 0),
+           "spencer_1990"},
+          {"Na+", "Ca+2", "Cl-", tf(-0.003297, 0, 1.8475, -0.01299, 0.00001106, 0),
+           "spencer_1990"},
+          {"Na+", "Mg+2", "Cl-", tf(-0.008172, 1.994, 0, 0.00005446, 0, 0), "spencer_1990"},
+          {"K+", "Ca+2", "Cl-", tf(-0.028561, -13.439, 0, 0.00025428, 0, 0), "spencer_1990"},
+          {"K+", "Mg+2", "Cl-", tf(-0.049483, -28.991, 0, -0.00000875, 0, 0), "spencer_1990"},
+          {"Ca+2", "Mg+2", "Cl-", tf(-0.02381, -981.659, -7.4062, 0.01303773, 0, 0),
+           "spencer_1990"},
+          {"Na+", "K+", "SO4-2",
+           tf(0.003969, -1192.758, -7.92204, 0.03628726, -3.72313E-05, 21474.2),
+           "marion_farren_1999"},
+          {"Na+", "Ca+2", "SO4-2",
+           tf(-0.073409, -7353.945, -53.26546, 0.23794424, -0.00024367, 143653.4),
+           "marion_farren_1999"},
+          {"Na+", "Mg+2", "SO4-2",
+           tf(-0.009911, -36.718, -0.15613, 0.00124948, -1.3145E-06, 447),
+           "marion_farren_1999"},
+          {"K+", "Ca+2", "SO4-2", tf(-0.028561, -13.439, 0, 0.00025428, 0, 0),
+           "marion_farren_1999"},
+          {"K+", "Mg+2", "SO4-2", tf(-0.124362, -8.156, -0.36908, 0.00150172, -1.9823E-06, 954.2),
+           "marion_farren_1999"},
+          {"Ca+2", "Mg+2", "SO4-2", tf(0.024), "marion_farren_1999"},
+          {"Cl-", "SO4-2", "Na+", tf(-0.001451, 12.605, 0.1146, -0.00056411, 0.000000528, -309.6),
+           "marion_farren_1999"},
+          {"Cl-", "SO4-2", "K+", tf(-0.003829, -9.341, -0.12911, 0.00036001, -6.009E-07, 334),
+           "marion_farren_1999"},
+          {"Cl-", "SO4-2", "Ca+2",
+           tf(-0.054444, -27.382, -0.49859, 0.00202214, -2.5738E-06, 1303.4),
+           "marion_farren_1999"},
+          {"Cl-", "SO4-2", "Mg+2", tf(-0.01833, -21.244, 0.02933, -0.00019719, 1.618E-07, -66.2),
+           "marion_farren_1999"},
+      },
+      // The parameters were fitted with Spencer et al.'s own A_phi(T); the Clegg et al.
+      // (1994) series differs from it by 0.007 at 253 K and falls steeply below 240 K.
+      aphi_correlation::spencer_1990};
+  return set;
+}
+
+/// Harvie, Moller & Weare (1984) 25 C set (see the file comment).
+inline const pitzer_parameter_set& harvie_1984_parameters() {
+  using detail::tf;
+  static const pitzer_parameter_set set{
+      "harvie_1984",
+      "Harvie, Moller & Weare (1984) 25 C parameters (binary salts as Pitzer & Mayorga 1973)",
+      293.15, 303.15, "harvie_1984",
+      {
+          // Harvie et al. (1984) Table 1, read in a public transcription (pytzer's HMW84
+          // library), which prints NaCl beta1 = 0.2644; 0.2664 is the Pitzer & Mayorga (1973)
+          // value that Harvie et al. adopted (from memory) and is used here.
+          {"Na+", "Cl-", tf(0.0765), tf(0.2664), tf(0), tf(0.00127), 6.0, "pitzer_mayorga_1973",
+           "NaCl"},
+          {"K+", "Cl-", tf(0.04835), tf(0.2122), tf(0), tf(-0.00084), 4.8, "pitzer_mayorga_1973",
+           "KCl"},
+          {"Ca+2", "Cl-", tf(0.3159), tf(1.614), tf(0), tf(-0.00034), 6.0, "harvie_1984",
+           "CaCl2"},
+          {"Mg+2", "Cl-", tf(0.35235), tf(1.6815), tf(0), tf(0.00519), 5.0, "harvie_1984",
+           "MgCl2"},
+          {"Na+", "SO4-2", tf(0.01958), tf(1.113), tf(0), tf(0.00497), 1.9, "harvie_1984",
+           "Na2SO4"},
+          {"K+", "SO4-2", tf(0.04995), tf(0.7793), tf(0), tf(0), 0.7, "harvie_1984", "K2SO4"},
+          {"Mg+2", "SO4-2", tf(0.221), tf(3.343), tf(-37.23), tf(0.025), 3.0, "harvie_1984",
+           "MgSO4"},
+          {"Ca+2", "SO4-2", tf(0.2), tf(3.1973), tf(-54.24), tf(0), 0.02, "harvie_1984",
+           "CaSO4"},
+      },
+      {
+          // Mixing parameters of Harvie et al. (1984), Table 2 (values from memory).
+          {"Na+", "K+", tf(-0.012), "harvie_1984"},
+          {"Na+", "Ca+2", tf(0.07), "harvie_1984"},
+          {"Na+", "Mg+2", tf(0.07), "harvie_1984"},
+          {"K+", "Ca+2", tf(0.032), "harvie_1984"},
+          {"K+", "Mg+2", tf(0.0), "harvie_1984"},
+          {"Ca+2", "Mg+2", tf(0.007), "harvie_1984"},
+          {"Cl-", "SO4-2", tf(0.02), "harvie_1984"},
+      },
+      {
+          {"Na+", "K+", "Cl-", tf(-0.0018), "harvie_1984"},
+          {"Na+", "K+", "SO4-2", tf(-0.010), "harvie_1984"},
+          {"Na+", "Ca+2", "Cl-", tf(-0.007), "harvie_1984"},
+          {"Na+", "Ca+2", "SO4-2", tf(-0.055), "harvie_1984"},
+          {"Na+", "Mg+2", "Cl-", tf(-0.012), "harvie_1984"},
+          {"Na+", "Mg+2", "SO4-2", tf(-0.015), "harvie_1984"},
+          {"K+", "Ca+2", "Cl-", tf(-0.025), "harvie_1984"},
+          {"K+", "Mg+2", "Cl-", tf(-0.022), "harvie_1984"},
+          {"K+", "Mg+2", "SO4-2", tf(-0.048), "harvie_1984"},
+          {"Ca+2", "Mg+2", "Cl-", tf(-0.012), "harvie_1984"},
+          {"Ca+2", "Mg+2", "SO4-2", tf(0.024), "harvie_1984"},
+          {"Cl-", "SO4-2", "Na+", tf(0.0014), "harvie_1984"},
+          {"Cl-", "SO4-2", "Ca+2", tf(-0.018), "harvie_1984"},
+          {"Cl-", "SO4-2", "Mg+2", tf(-0.004), "harvie_1984"},
+      },
+      // Harvie et al. (1984) used A_phi = 0.392 at 25 C (from memory); the Clegg et al.
+      // (1994) series gives 0.3915 there and is kept for this 25 C set.
+      aphi_correlation::clegg_rard_pitzer_1994};
+  return set;
+}
+
+/// Ids of the built-in parameter sets; the first is the default.
+inline std::vector<std::string> pitzer_parameter_set_ids() { return {"spencer_1990", "harvie_1984"}; }
+
+inline const pitzer_parameter_set& find_pitzer_parameter_set(const std::string& id) {
+  if (id == "spencer_1990") return spencer_1990_parameters();
+  if (id == "harvie_1984") return harvie_1984_parameters();
+  throw invalid_input("parameter_set = '" + id +
+                      "': valid Pitzer parameter sets are 'spencer_1990' and 'harvie_1984'");
+}
+
+}  // namespace colligate::data

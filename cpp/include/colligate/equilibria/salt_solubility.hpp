@@ -1,0 +1,121 @@
+#pragma once
+/// \file salt_solubility.hpp
+/// Solubility of the salt phases that coexist with ice in Na-K-Ca-Mg-Cl-SO4 brines, as
+/// solubility products K(T) of the same low-temperature model as the Pitzer set
+/// "spencer_1990" (Spencer, Moller & Weare 1990; sulfates from Marion & Farren 1999).
+///
+/// For a phase  M_p X_q . n H2O = p M + q X + n H2O:
+///
+///     saturation index  SI = ln(IAP) - ln K,   IAP = (m_M gamma_M)^p (m_X gamma_X)^q a_w^n
+///
+/// SI > 0 means the solution is supersaturated: the salt would crystallise.
+/// ln K(T) = ln 10 * log10 K(T) with PHREEQC's analytic form
+///     log10 K = A1 + A2 T + A3 / T + A4 log10 T + A5 / T^2 + A6 T^2,
+/// coefficients transcribed from the PHREEQC database frezchem.dat (Toner & Sletten 2013
+/// refit of the FREZCHEM functions). Cross-checks: halite log10 K(298.15 K) = 1.576 and
+/// the same file's ice expression reproduce our ice model within 5e-4 in a_w at 253 K
+/// (tests/cpp/equilibria/test_eutectic.cpp). Valid 219.15-298.15 K.
+
+#include <cmath>
+#include <limits>
+#include <string>
+#include <vector>
+
+#include "colligate/core/solution.hpp"
+#include "colligate/data/pitzer_parameters.hpp"
+#include "colligate/models/pitzer.hpp"
+
+namespace colligate::equilibria {
+
+struct salt_phase {
+  std::string name;     ///< mineral name ("hydrohalite")
+  std::string formula;  ///< "NaCl.2H2O"
+  std::vector<std::pair<std::string, int>> ions;  ///< ion name, count per formula unit
+  int water = 0;                                  ///< waters of hydration
+  std::array<double, 6> log10_k{};                ///< A1..A6 of the analytic form
+  std::string source;
+
+  double ln_k(double T) const {
+    const auto& a = log10_k;
+    return std::log(10.0) *
+           (a[0] + a[1] * T + a[2] / T + a[3] * std::log10(T) + a[4] / (T * T) + a[5] * T * T);
+  }
+};
+
+inline constexpr double salt_phase_min_temperature = 219.15;
+inline constexpr double salt_phase_max_temperature = 298.15;
+
+/// The salt phases known to colligate (frezchem.dat PHASES rows).
+inline const std::vector<salt_phase>& salt_phases() {
+  static const std::vector<salt_phase> phases = {
+      {"hydrohalite", "NaCl.2H2O", {{"Na+", 1}, {"Cl-", 1}}, 2,
+       {-2366.884053, -1.81627952, 24690.3183, 1098.482092, 1523945.4, 0.001033303},
+       "spencer_1990"},
+      {"halite", "NaCl", {{"Na+", 1}, {"Cl-", 1}}, 0,
+       {596.809454, 0.73058662, 9360.9197, -315.516708, -1749318.4, -0.000495535},
+       "spencer_1990"},
+      {"sylvite", "KCl", {{"K+", 1}, {"Cl-", 1}}, 0,
+       {-114.93339, -0.1612449, -3569.5943, 66.15685, 307041.4, 9.81432E-05}, "spencer_1990"},
+      {"antarcticite", "CaCl2.6H2O", {{"Ca+2", 1}, {"Cl-", 2}}, 6,
+       {-38613.99886, -14.14140164, 1381731.005, 15479.47256, -52024247.5, 0.005422163},
+       "spencer_1990"},
+      {"magnesium chloride dodecahydrate", "MgCl2.12H2O", {{"Mg+2", 1}, {"Cl-", 2}}, 12,
+       {6251.417981, 18.27412717, 610125.588, -4799.728491, -54142200.5, -0.014127812},
+       "spencer_1990"},
+      {"mirabilite", "Na2SO4.10H2O", {{"Na+", 2}, {"SO4-2", 1}}, 10,
+       {-20.12422, 0.07613508, 0, 0, 0, -4.26568E-05}, "marion_farren_1999"},
+      {"meridianite", "MgSO4.11H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 11,
+       {-13.417432, 0.04061372, 0, 0, 0, 0}, "marion_farren_1999"},
+      {"epsomite", "MgSO4.7H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 7,
+       {1.718069, 0, -1073.1417, 0, 0, 0}, "marion_farren_1999"},
+      {"arcanite", "K2SO4", {{"K+", 2}, {"SO4-2", 1}}, 0, {2.822914, 0, -1371.198, 0, 0, 0},
+       "marion_farren_1999"},
+      {"gypsum", "CaSO4.2H2O", {{"Ca+2", 1}, {"SO4-2", 1}}, 2,
+       {-2136.655631, -1.43513531, 47367.1982, 944.564423, -1086550.1, 0.000855338},
+       "marion_farren_1999"},
+  };
+  return phases;
+}
+
+/// The most supersaturated phase of a solution state.
+struct saturation {
+  double index = -std::numeric_limits<double>::infinity();  ///< ln(IAP / K); > 0: crystallises
+  const salt_phase* phase = nullptr;
+};
+
+/// Largest saturation index over the salt phases whose ions are present, for the
+/// solutes of `s` in `water_kg` of water at T, with the water activity `ln_aw` of the
+/// whole solution (so non-electrolytes lower a_w for hydrates). Uses the default
+/// Pitzer set for the ion activity coefficients.
+inline saturation most_saturated_phase(const solution& s, double water_kg, double T,
+                                       double ln_aw) {
+  saturation out;
+  if (!s.has_electrolytes()) return out;
+  double other = 0.0;
+  const auto ions = s.only(data::solute_class::electrolyte);
+  const auto m = models::pitzer::ion_molalities(ions, water_kg, other);
+  // pitzer::evaluate applies the parameters a fitted salt record carries (same ion sums).
+  const auto r = models::pitzer::evaluate(ions, water_kg, T,
+                                          models::pitzer::default_parameters(), other);
+  for (const auto& ph : salt_phases()) {
+    double ln_iap = ph.water * ln_aw;
+    bool present = true;
+    for (const auto& [ion, count] : ph.ions) {
+      const auto k = data::pitzer_ion_index(ion);
+      if (k >= models::detail::n_ions || !(m[k] > 0.0)) {
+        present = false;
+        break;
+      }
+      ln_iap += count * (std::log(m[k]) + r.ln_gamma[k]);
+    }
+    if (!present) continue;
+    const double si = ln_iap - ph.ln_k(T);
+    if (si > out.index) {
+      out.index = si;
+      out.phase = &ph;
+    }
+  }
+  return out;
+}
+
+}  // namespace colligate::equilibria

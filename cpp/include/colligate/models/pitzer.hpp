@@ -1,0 +1,193 @@
+#pragma once
+/// \file pitzer.hpp
+/// Pitzer ion-interaction model for electrolytes (salts, brines, seawater).
+///
+/// Each electrolyte of the solution is split into its ions (solute_record::ions); the
+/// model works on ion molalities, so salts given as neutral formula units are
+/// electroneutral by construction. Osmotic coefficient, water activity and ion activity
+/// coefficients follow Pitzer (1973, 1991) with the mixing terms theta and psi and the
+/// unsymmetrical E-theta of Pitzer (1975), in the notation of Harvie, Moller & Weare
+/// (1984); equations in models/detail/pitzer_kernel.hpp.
+///
+///     ln a_w = -M_w sum_i m_i phi
+///
+/// Parameters come from a named set in data/pitzer_parameters.hpp (default
+/// "spencer_1990", valid 219.15-298.15 K; "harvie_1984" at 25 C). The Debye-Hueckel slope
+/// A_phi(T) is the one each set was fitted with (pitzer_parameter_set::aphi): the
+/// Spencer, Moller & Weare (1990) polynomial for "spencer_1990", the Clegg, Rard & Pitzer
+/// (1994) series (validated 234.15-373.15 K) for "harvie_1984".
+///
+/// Non-electrolytes in the solution are counted as ideal particles (ln a_w gains
+/// -M_w m); the check flags them above 0.1 mol/kg. Use 'auto' (Pitzer for the ions,
+/// Norrish for the non-electrolytes) for mixtures.
+///
+/// Validity (check): temperature inside the set's range and A_phi's; every electrolyte
+/// has ions the set knows and a cation-anion row; each salt's molality at most the row's
+/// max_molality.
+
+#include <cmath>
+#include <cstdio>
+#include <string>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+#include "colligate/data/pitzer_parameters.hpp"
+#include "colligate/models/detail/pitzer_kernel.hpp"
+#include "colligate/models/detail/pitzer_record_parameters.hpp"
+
+namespace colligate::models {
+
+struct pitzer {
+  static constexpr const char* id = "pitzer";
+  /// Largest total molality of non-electrolytes counted as ideal particles, mol/kg.
+  static constexpr double max_non_electrolyte_molality = 0.1;
+
+  static const data::pitzer_parameter_set& default_parameters() {
+    return data::spencer_1990_parameters();
+  }
+
+  /// Ion molalities (mol/kg) of the electrolytes with `water_kg` of water. Ions the
+  /// parameter tables do not know are added to `other_particles` (mol/kg), as are
+  /// non-electrolytes.
+  static detail::ion_array ion_molalities(const solution& s, double water_kg,
+                                          double& other_particles) {
+    detail::ion_array m{};
+    other_particles = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      const double mi = s.moles()[i] / water_kg;
+      if (rec.kind != data::solute_class::electrolyte || rec.ions.empty()) {
+        other_particles += rec.particles * mi;
+        continue;
+      }
+      for (const auto& ion : rec.ions) {
+        const auto k = data::pitzer_ion_index(ion.ion);
+        if (k < detail::n_ions)
+          m[k] += ion.count * mi;
+        else
+          other_particles += ion.count * mi;
+      }
+    }
+    return m;
+  }
+
+  /// The full evaluation: ion sums plus the ideal part.
+  static detail::pitzer_sums evaluate(const solution& s, double water_kg, double temperature,
+                                      const data::pitzer_parameter_set& set,
+                                      double& other_particles) {
+    const auto m = ion_molalities(s, water_kg, other_particles);
+    if (detail::has_record_binaries(s))  // salts carrying their own (fitted) parameters
+      return detail::evaluate(
+          m, detail::evaluate_coefficients(detail::with_record_binaries(s, set), temperature));
+    return detail::evaluate(m, detail::evaluate_coefficients(set, temperature));
+  }
+
+  static double ln_water_activity(const solution& s, double water_kg, double temperature,
+                                  const data::pitzer_parameter_set& set) {
+    double other = 0.0;
+    const auto r = evaluate(s, water_kg, temperature, set, other);
+    return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + other);
+  }
+
+  static double ln_water_activity(const solution& s, double water_kg, double temperature) {
+    return ln_water_activity(s, water_kg, temperature, default_parameters());
+  }
+
+  /// ln of the mean molal activity coefficient of electrolyte `index` of the solution.
+  static double ln_mean_activity_coefficient(const solution& s, std::size_t index,
+                                             double water_kg, double temperature,
+                                             const data::pitzer_parameter_set& set) {
+    const auto& rec = s.species().at(index);
+    if (rec.kind != data::solute_class::electrolyte || rec.ions.empty())
+      throw invalid_input("mean_activity_coefficient: solute '" + rec.id +
+                          "' is not an electrolyte with known ions");
+    double other = 0.0;
+    const auto r = evaluate(s, water_kg, temperature, set, other);
+    double sum = 0.0;
+    int nu = 0;
+    for (const auto& ion : rec.ions) {
+      const auto k = data::pitzer_ion_index(ion.ion);
+      if (k >= detail::n_ions)
+        throw invalid_input("mean_activity_coefficient: ion '" + ion.ion + "' of '" + rec.id +
+                            "' has no Pitzer parameters");
+      sum += ion.count * r.ln_gamma[k];
+      nu += ion.count;
+    }
+    return sum / nu;
+  }
+
+  static validity check(const solution& s, double water_kg, double temperature,
+                        const data::pitzer_parameter_set& set) {
+    validity v;
+    const std::string where = "model 'pitzer' (parameter set '" + set.id + "')";
+    if (temperature < set.min_temperature - 1e-9 || temperature > set.max_temperature + 1e-9) {
+      v.reason = colligate::detail::describe(
+          where, "temperature", temperature,
+          "outside " + fmt(set.min_temperature) + "-" + fmt(set.max_temperature) +
+              " K, where its parameters are valid [" + set.range_source +
+              "]; salts have no parameters at this temperature");
+      return v;
+    }
+    const auto aphi = detail::aphi_validity(set.aphi);
+    if (temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9) {
+      v.reason = colligate::detail::describe(
+          where, "temperature", temperature,
+          "outside " + fmt(aphi.min_temperature) + "-" + fmt(aphi.max_temperature) +
+              " K, the range of the Debye-Hueckel slope A_phi [" + aphi.source +
+              "], which is extrapolated");
+      return v;
+    }
+    double non_electrolytes = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      const double mi = s.moles()[i] / water_kg;
+      if (rec.kind != data::solute_class::electrolyte) {
+        non_electrolytes += mi;
+        continue;
+      }
+      if (mi == 0.0) continue;
+      std::string cation, anion;
+      for (const auto& ion : rec.ions) (ion.charge > 0 ? cation : anion) = ion.ion;
+      const auto* row =
+          (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
+      if (row == nullptr) {
+        v.reason = where + ": electrolyte '" + rec.id +
+                   "' has no Pitzer parameters in this set; counted with the Debye-Hueckel "
+                   "term only";
+        return v;
+      }
+      if (mi > row->max_molality + 1e-12) {
+        v.reason = colligate::detail::describe(
+            where, "molality of '" + rec.id + "' (mol/kg)", mi,
+            "above " + fmt(row->max_molality) +
+                " mol/kg, the highest molality its parameters are valid for [" + row->source +
+                "]");
+        return v;
+      }
+      if (auto why = detail::record_temperature_reason(rec, temperature); !why.empty()) {
+        v.reason = why;
+        return v;
+      }
+    }
+    if (non_electrolytes > max_non_electrolyte_molality)
+      v.reason = colligate::detail::describe(
+          where, "non-electrolyte molality (mol/kg)", non_electrolytes,
+          "above 0.1 mol/kg; the Pitzer model counts non-electrolytes as ideal particles "
+          "(use model 'auto' for mixtures)");
+    return v;
+  }
+
+  static validity check(const solution& s, double water_kg, double temperature) {
+    return check(s, water_kg, temperature, default_parameters());
+  }
+
+ private:
+  static std::string fmt(double x) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", x);
+    return buf;
+  }
+};
+
+}  // namespace colligate::models

@@ -1,0 +1,712 @@
+"""Fit model constants to your own data, with confidence intervals, and use the result.
+
+All inputs SI: molality in mol/kg, temperatures in K, fractions in kg/kg. The fits run in
+the C++ core (Levenberg-Marquardt on Eigen, Student-t intervals from Boost.Math).
+
+    >>> res = fit_norrish(m, water_activity=aw, T=298.15)          # doctest: +SKIP
+    >>> res.summary()                                               # doctest: +SKIP
+    >>> lib = SoluteLibrary([res.as_solute("my syrup", molar_mass=0.342)])  # doctest: +SKIP
+    >>> s = Solution.from_mass_fractions({"my syrup": 0.3}, table=lib)     # doctest: +SKIP
+
+Fitted solutes never enter a global registry: a :class:`SoluteLibrary` (the built-in
+solutes plus yours) is passed explicitly with ``table=`` to the Solution factories, and
+the resulting Solution carries its constants into every calculation.
+
+Models
+------
+``fit_norrish``: ln a_w = ln x_w - K x_s^2 (- K3 x_s^3), our sign convention (K > 0 for
+sugars), from water activities at one temperature or from initial freezing points.
+
+``fit_effective_solute``: an unknown food's dissolved solids as one ideal solute of
+apparent molar mass M (kg/mol) plus unfreezable water b (kg per kg of food solids), from
+initial freezing points at several water contents or from an ice-fraction curve.
+
+``fit_pitzer``: Pitzer beta0, beta1 (kg/mol), C-phi (kg^2/mol^2) of one salt (beta2 of a
+2:2 salt on request; optionally d/dT of each at 298.15 K), from osmotic coefficients, water
+activities or initial freezing points of its binary solutions. ``as_solute`` gives a salt
+record carrying the fitted parameters as its own Pitzer row: in a :class:`SoluteLibrary`
+it sits beside the built-in salt, and solutions made from it use the fitted parameters.
+"""
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+import math
+import os
+from typing import Any, Iterable, Optional, Sequence
+
+import numpy as np
+
+from . import _core
+from ._files import atomic_write, atomic_write_text
+
+__all__ = [
+    "FitResult",
+    "FittedSolute",
+    "SoluteLibrary",
+    "curve_fit",
+    "fit_norrish",
+    "fit_effective_solute",
+    "fit_pitzer",
+    "load_solute",
+]
+
+_UNITS = {
+    "norrish_k": "1",
+    "norrish_k3": "1",
+    "molar_mass": "kg/mol",
+    "bound_water_per_solids": "kg/kg solids",
+    "beta0": "kg/mol",
+    "beta1": "kg/mol",
+    "beta2": "kg/mol",
+    "cphi": "kg^2/mol^2",
+    "dbeta0_dT": "kg/(mol K)",
+    "dbeta1_dT": "kg/(mol K)",
+    "dbeta2_dT": "kg/(mol K)",
+    "dcphi_dT": "kg^2/(mol^2 K)",
+}
+FORMAT_NAME = "colligate-fitted-solute"
+FORMAT_VERSION = 2  # 2 adds [solute.pitzer] (fitted salts); Norrish files are still written as 1
+_PITZER_KEYS = ("beta0", "beta1", "beta2", "cphi", "dbeta0_dT", "dbeta1_dT", "dbeta2_dT", "dcphi_dT")
+# Widening of a fitted salt's temperature range beyond its data, K: the same 5 K as
+# colligate::fit::pitzer_fit_temperature_margin (the 25 C harvie_1984 set is used at 298.15 +/- 5 K).
+_PITZER_T_MARGIN = 5.0
+
+
+def _column(value: Any, data: Any, name: str) -> Optional[np.ndarray]:
+    """An array from an array-like, a pandas Series, or a column name of ``data``."""
+    if value is None:
+        return None
+    if isinstance(value, str):
+        if data is None:
+            raise _core.InvalidInputError(
+                f"{name} = '{value}' is a column name, but no data= table was given")
+        if value not in data:
+            raise _core.InvalidInputError(
+                f"{name}: column '{value}' is not in the data; columns are {list(data.columns)}")
+        value = data[value]
+    arr = np.asarray(value, dtype=float)
+    if arr.ndim == 0:
+        arr = arr.reshape(1)
+    if arr.ndim != 1:
+        raise _core.InvalidInputError(f"{name} must be one-dimensional, got shape {arr.shape}")
+    return np.ascontiguousarray(arr)
+
+
+class FitResult:
+    """Result of a fit: parameters, uncertainties, residuals, plots and a fitted solute.
+
+    Attributes
+    ----------
+    params : dict
+        Fitted parameters by name (units in :meth:`summary`).
+    stderr : dict
+        Standard errors by name (NaN when the parameters are not identifiable).
+    covariance : pandas.DataFrame
+        Parameter covariance, scaled by chi^2/dof.
+    residuals : numpy.ndarray
+        Data minus model, in the unit of the fitted quantity.
+    status, success, message : fit status (non-convergence is a status, not an error).
+    """
+
+    def __init__(self, core: Any, *, model: str, x: np.ndarray, y: np.ndarray,
+                 x_label: str, y_label: str, source: Optional[dict] = None,
+                 extra: Optional[dict] = None) -> None:
+        self._core = core
+        self.model = model
+        self.x = x
+        self.y = y
+        self.x_label = x_label
+        self.y_label = y_label
+        self.source = dict(source or {})
+        self.extra = dict(extra or {})
+        names = list(core.parameter_names) or [f"p{j}" for j in range(len(core.params))]
+        self.names = names
+        self.params = {n: float(v) for n, v in zip(names, core.params)}
+        self.stderr = {n: float(v) for n, v in zip(names, core.standard_errors)}
+        self.residuals = np.asarray(core.residuals)
+        self.fitted = np.asarray(core.fitted)
+        self.status: str = core.status
+        self.success: bool = core.success
+        self.message: str = core.message
+        self.chi_square: float = core.chi_square
+        self.degrees_of_freedom: int = core.degrees_of_freedom
+        self.r_squared: float = core.r_squared
+        self.contradictory_duplicates = [list(g) for g in core.contradictory_duplicates]
+
+    @property
+    def covariance(self):
+        import pandas as pd
+
+        return pd.DataFrame(np.asarray(self._core.covariance), index=self.names, columns=self.names)
+
+    def ci(self, level: float = 0.95):
+        """Confidence intervals at ``level`` (Student t, n - k degrees of freedom), a DataFrame
+        with columns ``lower`` and ``upper`` indexed by parameter."""
+        import pandas as pd
+
+        lim = np.asarray(self._core.confidence_intervals(float(level)))
+        return pd.DataFrame(lim, index=self.names, columns=["lower", "upper"])
+
+    def raise_if_failed(self) -> "FitResult":
+        """Raise :class:`colligate.ConvergenceError` unless the fit converged."""
+        if not self.success:
+            raise _core.ConvergenceError(f"fit ({self.model}) ended with status '{self.status}': {self.message}")
+        return self
+
+    def summary(self, level: float = 0.95):
+        """One row per parameter: value, standard error, confidence limits, unit. The fit
+        statistics are in ``.attrs`` (status, chi_square, dof, r_squared, n_points)."""
+        import pandas as pd
+
+        ci = self.ci(level)
+        pct = f"{100 * level:g}"
+        df = pd.DataFrame({
+            "value": [self.params[n] for n in self.names],
+            "stderr": [self.stderr[n] for n in self.names],
+            f"ci{pct}_lower": ci["lower"].to_numpy(),
+            f"ci{pct}_upper": ci["upper"].to_numpy(),
+            "unit": [_UNITS.get(n, "") for n in self.names],
+        }, index=pd.Index(self.names, name="parameter"))
+        df.attrs.update({
+            "model": self.model, "status": self.status, "message": self.message,
+            "chi_square": self.chi_square, "degrees_of_freedom": self.degrees_of_freedom,
+            "r_squared": self.r_squared, "n_points": int(self._core.n_points),
+            "iterations": int(self._core.iterations),
+            "contradictory_duplicates": self.contradictory_duplicates,
+        })
+        return df
+
+    def __repr__(self) -> str:
+        parts = ", ".join(f"{n}={self.params[n]:.6g}±{self.stderr[n]:.2g}" for n in self.names)
+        return f"FitResult({self.model}: {parts}; status={self.status})"
+
+    def plot(self, path: str | os.PathLike[str], *, inputs: Iterable[Any] = ()) -> str:
+        """Data and fitted curve, with a residual panel, as PNG (written atomically).
+        Returns the path written."""
+        from matplotlib.backends.backend_agg import FigureCanvasAgg
+        from matplotlib.figure import Figure
+
+        fig = Figure(figsize=(6.4, 6.0))
+        FigureCanvasAgg(fig)
+        ax, axr = fig.subplots(2, 1, sharex=True, gridspec_kw={"height_ratios": [3, 1]})
+        order = np.argsort(self.x)
+        ax.plot(self.x, self.y, "o", label="data")
+        ax.plot(self.x[order], self.fitted[order], "-", label="fit")
+        ax.set_ylabel(self.y_label)
+        ax.legend(loc="best")
+        title = ", ".join(f"{n} = {self.params[n]:.4g} ± {self.stderr[n]:.2g}" for n in self.names)
+        ax.set_title(f"{self.model}: {title}", fontsize=9)
+        axr.axhline(0.0, color="0.5", lw=0.8)
+        axr.plot(self.x, self.residuals, "o")
+        axr.set_xlabel(self.x_label)
+        axr.set_ylabel("residual")
+        fig.tight_layout()
+        fig.align_ylabels([ax, axr])
+        fig.subplots_adjust(left=0.17)
+
+        def write(fh):
+            fig.savefig(fh, format="png", dpi=110)
+
+        return atomic_write(path, write, inputs=inputs, what="plot")
+
+    def as_solute(self, name: str, *, molar_mass: Optional[float] = None,
+                  id: Optional[str] = None) -> "FittedSolute":
+        """The fitted solute, ready for a :class:`SoluteLibrary`.
+
+        ``molar_mass`` (kg/mol) is required for a Norrish fit (the fit uses molalities
+        only); an effective-solute fit carries its own. A Pitzer fit gives a copy of the salt
+        (molar mass, ions) with the fitted parameters as its own Pitzer row, valid to the
+        highest molality of the data and over the data's temperatures widened by 5 K."""
+        if not self.success:
+            raise _core.ConvergenceError(
+                f"as_solute: the fit did not converge (status '{self.status}'); refusing to build a solute")
+        sid = id or "_".join(name.lower().replace("-", " ").split())
+        note = f"fitted by colligate.fit ({self.model}) to {self._core.n_points} points"
+        if self.source.get("data"):
+            note += f" from {self.source['data']}"
+        if self.model.startswith("pitzer"):
+            if molar_mass is not None:
+                raise _core.InvalidInputError(
+                    "as_solute: molar_mass is taken from the salt for a Pitzer fit; leave it out")
+            temps = np.asarray(self.extra["temperature"], dtype=float)
+            rec = _core.pitzer_solute_record(
+                self._core, self.extra["salt"], sid, name, float(np.max(self.extra["molality"])),
+                float(np.min(temps)) - _PITZER_T_MARGIN, float(np.max(temps)) + _PITZER_T_MARGIN,
+                note, self.extra.get("table"))
+            return FittedSolute(rec, fit=self.summary(), source=self.source, salt=self.extra["salt"])
+        if self.model.startswith("norrish"):
+            if molar_mass is None:
+                raise _core.InvalidInputError(
+                    "as_solute: molar_mass (kg/mol) is required for a Norrish fit, e.g. 0.3423 for sucrose")
+            m_max = float(np.max(self.extra["molality"]))
+            max_w = m_max * molar_mass / (1.0 + m_max * molar_mass)
+            rec = _core.norrish_solute_record(self._core, sid, name, float(molar_mass), max_w, note)
+            bound = 0.0
+        else:
+            rec = _core.effective_solute_record(self._core, sid, name, note)
+            bound = float(self.params.get("bound_water_per_solids", self.extra.get("bound_water_fixed", 0.0)))
+        return FittedSolute(rec, bound_water_per_solids=bound, fit=self.summary(), source=self.source)
+
+
+class FittedSolute:
+    """A solute made from a fit: its record, the food's bound water, and provenance.
+
+    Use it through a :class:`SoluteLibrary`. ``bound_water_per_solids`` (kg per kg of the
+    solute's mass) is a property of the food: pass ``bound_water=fs.bound_water(s)`` to
+    :func:`colligate.freezing_point` and :func:`colligate.ice_fraction`.
+    """
+
+    def __init__(self, record: Any, *, bound_water_per_solids: float = 0.0, fit: Any = None,
+                 source: Optional[dict] = None, salt: Optional[str] = None) -> None:
+        self.record = record
+        self.salt = salt  # id of the salt a Pitzer fit started from (None otherwise)
+        self.bound_water_per_solids = float(bound_water_per_solids)
+        self.fit = fit
+        self.source = dict(source or {})
+
+    @property
+    def id(self) -> str:
+        return self.record.id
+
+    @property
+    def name(self) -> str:
+        return self.record.name
+
+    def bound_water(self, solution: Any) -> float:
+        """Unfreezable water in ``solution``, kg: b times the mass of this solute in it."""
+        masses = solution.solutes
+        return self.bound_water_per_solids * float(masses.get(self.id, 0.0))
+
+    def __repr__(self) -> str:
+        r = self.record
+        if r.pitzer is not None:
+            p = r.pitzer
+            return (f"FittedSolute(id='{r.id}', salt='{self.salt}', beta0={p['beta0']:.6g}, "
+                    f"beta1={p['beta1']:.6g}, cphi={p['cphi']:.6g}, max_molality={p['max_molality']:.6g})")
+        return (f"FittedSolute(id='{r.id}', molar_mass={r.molar_mass:.6g} kg/mol, "
+                f"norrish_k={r.norrish_k:.6g}, norrish_k3={r.norrish_k3:.6g}, "
+                f"bound_water_per_solids={self.bound_water_per_solids:.6g})")
+
+    # --- file format ---------------------------------------------------------------------
+    def to_toml(self) -> str:
+        """The fitted-solute file: a small TOML document of our own design."""
+        r = self.record
+
+        def q(s: Any) -> str:
+            return '"' + str(s).replace("\\", "\\\\").replace('"', '\\"').replace("\n", "\\n") + '"'
+
+        def num(v: Any) -> str:
+            v = float(v)
+            if math.isnan(v):
+                return "nan"
+            if math.isinf(v):
+                return "inf" if v > 0 else "-inf"
+            return repr(v)
+
+        pz = r.pitzer
+        lines = [
+            "# colligate fitted solute (SI units: kg, mol, K)",
+            f"format = {q(FORMAT_NAME)}",
+            f"version = {FORMAT_VERSION if pz is not None else 1}",
+            "",
+            "[solute]",
+            f"id = {q(r.id)}",
+            f"name = {q(r.name)}",
+            f"molar_mass = {num(r.molar_mass)}  # kg/mol",
+        ]
+        if pz is None:
+            lines += [
+                f"norrish_k = {num(r.norrish_k)}",
+                f"norrish_k3 = {num(r.norrish_k3)}",
+                f"max_mass_fraction = {num(r.max_mass_fraction)}",
+                f"bound_water_per_solids = {num(self.bound_water_per_solids)}  # kg per kg of this solute",
+                f"note = {q(r.note)}",
+            ]
+        else:
+            lines += [
+                f"salt = {q(self.salt)}  # the salt whose ions and molar mass this record copies",
+                f"note = {q(r.note)}",
+                "",
+                "[solute.pitzer]  # values at 298.15 K (kg/mol; C-phi kg^2/mol^2) and d/dT there (per K)",
+            ]
+            lines += [f"{k} = {num(pz[k])}" for k in _PITZER_KEYS]
+            lines += [f"max_molality = {num(pz['max_molality'])}  # mol/kg",
+                      f"min_temperature = {num(pz['min_temperature'])}  # K",
+                      f"max_temperature = {num(pz['max_temperature'])}  # K",
+                      f"source = {q(pz['source'])}"]
+        if self.fit is not None:
+            a = self.fit.attrs
+            lines += ["", "[fit]", f"model = {q(a.get('model', ''))}", f"status = {q(a.get('status', ''))}",
+                      f"n_points = {int(a.get('n_points', 0))}",
+                      f"degrees_of_freedom = {int(a.get('degrees_of_freedom', 0))}",
+                      f"chi_square = {num(a.get('chi_square', float('nan')))}"]
+            for pname, row in self.fit.iterrows():
+                lines += ["", f"[fit.parameters.{pname}]", f"value = {num(row['value'])}",
+                          f"stderr = {num(row['stderr'])}", f"unit = {q(row['unit'])}"]
+        lines += ["", "[provenance]"]
+        for k, v in sorted(self.source.items()):
+            lines.append(f"{k} = {q(v)}")
+        return "\n".join(lines) + "\n"
+
+    def save(self, path: str | os.PathLike[str]) -> str:
+        """Write the fitted solute as TOML (atomically). Returns the path."""
+        return atomic_write_text(path, self.to_toml(), what="fitted-solute file")
+
+    @classmethod
+    def load(cls, path: str | os.PathLike[str]) -> "FittedSolute":
+        return load_solute(path)
+
+
+def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
+    """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`."""
+    try:
+        import tomllib  # Python >= 3.11
+    except ImportError:  # pragma: no cover
+        import tomli as tomllib  # type: ignore[no-redef]
+    with open(path, "rb") as fh:
+        doc = tomllib.load(fh)
+    if doc.get("format") != FORMAT_NAME:
+        raise _core.InvalidInputError(
+            f"{os.fspath(path)}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
+            f"(expected format = '{FORMAT_NAME}')")
+    if int(doc.get("version", 0)) > FORMAT_VERSION:
+        raise _core.InvalidInputError(
+            f"{os.fspath(path)}: version = {doc.get('version')}: this colligate reads up to {FORMAT_VERSION}")
+    s = doc.get("solute", {})
+    pz = s.get("pitzer")
+    for key in ("id", "salt") if pz is not None else ("id", "molar_mass", "norrish_k"):
+        if key not in s:
+            raise _core.InvalidInputError(f"{os.fspath(path)}: [solute] {key} is missing")
+    if pz is not None:
+        for key in ("beta0", "beta1", "cphi", "max_molality", "min_temperature", "max_temperature"):
+            if key not in pz:
+                raise _core.InvalidInputError(f"{os.fspath(path)}: [solute.pitzer] {key} is missing")
+        rec = _core.make_pitzer_solute_record(
+            str(s["salt"]), str(s["id"]), str(s.get("name", s["id"])),
+            **{k: float(pz.get(k, 0.0)) for k in _PITZER_KEYS},
+            max_molality=float(pz["max_molality"]), min_temperature=float(pz["min_temperature"]),
+            max_temperature=float(pz["max_temperature"]),
+            source=str(pz.get("source", "colligate_fit_user")), note=str(s.get("note", "")))
+    else:
+        rec = _core.make_solute_record(str(s["id"]), str(s.get("name", s["id"])), float(s["molar_mass"]),
+                                       float(s["norrish_k"]), float(s.get("norrish_k3", 0.0)),
+                                       float(s.get("max_mass_fraction", 0.9)), str(s.get("note", "")))
+    fit_df = None
+    if "fit" in doc:
+        import pandas as pd
+
+        f = doc["fit"]
+        params = f.get("parameters", {})
+        fit_df = pd.DataFrame({"value": [p["value"] for p in params.values()],
+                               "stderr": [p["stderr"] for p in params.values()],
+                               "unit": [p.get("unit", "") for p in params.values()]},
+                              index=pd.Index(list(params), name="parameter"))
+        fit_df.attrs.update({k: v for k, v in f.items() if k != "parameters"})
+    return FittedSolute(rec, bound_water_per_solids=float(s.get("bound_water_per_solids", 0.0)),
+                        fit=fit_df, source={k: str(v) for k, v in doc.get("provenance", {}).items()},
+                        salt=str(s["salt"]) if pz is not None else None)
+
+
+class SoluteLibrary(_core.SoluteTable):
+    """The built-in solutes plus fitted ones: pass it as ``table=`` to the Solution factories.
+
+    >>> lib = SoluteLibrary([fitted])                                   # doctest: +SKIP
+    >>> s = Solution.from_mass_fractions({"my syrup": 0.3}, table=lib)   # doctest: +SKIP
+
+    Adding a solute changes only this library object (there is no global registry).
+    """
+
+    def __init__(self, solutes: Sequence[FittedSolute] = (), *, include_builtin: bool = True) -> None:
+        super().__init__(include_builtin)
+        self.fitted: dict[str, FittedSolute] = {}
+        for fs in solutes:
+            self.add_solute(fs)
+
+    def add_solute(self, solute: FittedSolute) -> "SoluteLibrary":
+        """Add a fitted solute (raises if a name is taken). Returns self."""
+        self.add(solute.record)
+        self.fitted[solute.id] = solute
+        return self
+
+    def load(self, path: str | os.PathLike[str]) -> FittedSolute:
+        """Read a fitted-solute file and add it. Returns the solute."""
+        fs = load_solute(path)
+        self.add_solute(fs)
+        return fs
+
+    def bound_water(self, solution: Any) -> float:
+        """Total unfreezable water of the fitted solutes in ``solution``, kg."""
+        return sum(fs.bound_water(solution) for fs in self.fitted.values())
+
+
+def _provenance(data_name: Optional[str], arrays: Sequence[np.ndarray]) -> dict:
+    h = hashlib.sha256()
+    for a in arrays:
+        h.update(np.ascontiguousarray(a, dtype=float).tobytes())
+    out = {"created": _dt.datetime.now(_dt.timezone.utc).isoformat(timespec="seconds"),
+           "colligate_version": getattr(_core, "__version__", ""),
+           "data_sha256": h.hexdigest()}
+    if data_name:
+        out["data"] = str(data_name)
+    return out
+
+
+def curve_fit(model, x, y, p0, *, weights=None, jacobian=None, lower_bounds=None,
+              upper_bounds=None, max_iterations: int = 500):
+    """General Levenberg-Marquardt fit of ``model(x, p)`` (x as an (n, d) array) to ``y``.
+
+    Returns a :class:`FitResult`. ``jacobian(x, p)`` (n, k) is optional (central
+    differences otherwise)."""
+    x_arr = np.asarray(x, dtype=float)
+    x2 = x_arr.reshape(-1, 1) if x_arr.ndim == 1 else x_arr
+    y_arr = np.asarray(y, dtype=float)
+
+    def f(xx, p):
+        return np.asarray(model(xx[:, 0] if x_arr.ndim == 1 else xx, p), dtype=float)
+
+    jac = None
+    if jacobian is not None:
+        def jac(xx, p):
+            return np.asarray(jacobian(xx[:, 0] if x_arr.ndim == 1 else xx, p), dtype=float)
+
+    core = _core.curve_fit(f, x2, y_arr, np.asarray(p0, dtype=float),
+                           None if weights is None else np.asarray(weights, dtype=float), jac,
+                           None if lower_bounds is None else np.asarray(lower_bounds, dtype=float),
+                           None if upper_bounds is None else np.asarray(upper_bounds, dtype=float),
+                           int(max_iterations))
+    return FitResult(core, model="curve_fit", x=x_arr if x_arr.ndim == 1 else np.arange(len(y_arr)),
+                     y=y_arr, x_label="x", y_label="y")
+
+
+def fit_norrish(molality, water_activity=None, freezing_point=None, T: float = 298.15,
+                weights=None, *, k3: bool = False, k_start: float = 2.0, k3_start: float = 0.0,
+                data=None, data_name: Optional[str] = None) -> FitResult:
+    """Fit Norrish K (and K3 with ``k3=True``) of one non-electrolyte.
+
+    Parameters
+    ----------
+    molality : array_like or str
+        Molality of each sample, mol/kg (or a column name of ``data``).
+    water_activity : array_like or str, optional
+        Water activity at temperature ``T`` (K). Give this or ``freezing_point``.
+    freezing_point : array_like or str, optional
+        Initial freezing point, K.
+    T : float
+        Temperature of the water-activity data, K (default 298.15).
+    weights : array_like or str, optional
+        Relative weights (e.g. 1/sigma^2); default all 1.
+    data : pandas.DataFrame, optional
+        Table whose columns the string arguments name.
+
+    Returns
+    -------
+    FitResult
+        Parameters ``norrish_k`` (and ``norrish_k3``), in our sign convention
+        ln a_w = ln x_w - K x_s^2 - K3 x_s^3.
+    """
+    m = _column(molality, data, "molality")
+    aw = _column(water_activity, data, "water_activity")
+    tf = _column(freezing_point, data, "freezing_point")
+    w = _column(weights, data, "weights")
+    if (aw is None) == (tf is None):
+        raise _core.InvalidInputError("fit_norrish: give exactly one of water_activity= or freezing_point=")
+    if m is None:
+        raise _core.InvalidInputError("fit_norrish: molality is required (mol/kg)")
+    if aw is not None:
+        core = _core.fit_norrish_water_activity(m, aw, float(T), w, k3, k_start, k3_start)
+        y, ylab, model = aw, f"water activity at {float(T):.2f} K", "norrish (water activity)"
+    else:
+        core = _core.fit_norrish_freezing_point(m, tf, w, k3, k_start, k3_start)
+        y, ylab, model = tf, "initial freezing point / K", "norrish (freezing point)"
+    src = _provenance(data_name, [m, y])
+    return FitResult(core, model=model, x=m, y=y, x_label="molality / (mol/kg)", y_label=ylab,
+                     source=src, extra={"molality": m})
+
+
+def fit_effective_solute(water_fraction, freezing_point=None, *, temperature=None,
+                         ice_fraction=None, weights=None, fit_bound_water: bool = True,
+                         molar_mass_start: float = 0.2, bound_water_start: float = 0.1,
+                         data=None, data_name: Optional[str] = None) -> FitResult:
+    """Fit an unknown food's effective solute: apparent molar mass of its solids (kg/mol)
+    and unfreezable water (kg per kg of solids).
+
+    Give either ``freezing_point`` (K; initial freezing points at several water contents
+    ``water_fraction``, kg water / kg food) or ``temperature`` (K) with ``ice_fraction``
+    (ice mass / total water mass, e.g. from DSC). ``water_fraction`` may be a scalar for an
+    ice curve of one sample. With ``fit_bound_water=False`` the bound water stays at
+    ``bound_water_start``.
+    """
+    T = _column(temperature, data, "temperature")
+    ice = _column(ice_fraction, data, "ice_fraction")
+    tf = _column(freezing_point, data, "freezing_point")
+    w = _column(weights, data, "weights")
+    wf = _column(water_fraction, data, "water_fraction")
+    if wf is None:
+        raise _core.InvalidInputError("fit_effective_solute: water_fraction (kg water / kg food) is required")
+    if tf is not None and (T is not None or ice is not None):
+        raise _core.InvalidInputError(
+            "fit_effective_solute: give freezing_point= or temperature= with ice_fraction=, not both")
+    if tf is not None:
+        core = _core.fit_effective_solute_freezing(wf, tf, w, fit_bound_water, molar_mass_start,
+                                                   bound_water_start)
+        x, y = wf, tf
+        xl, yl, model = "water mass fraction / (kg/kg)", "initial freezing point / K", "effective solute (freezing point)"
+    else:
+        if T is None or ice is None:
+            raise _core.InvalidInputError(
+                "fit_effective_solute: give freezing_point=, or both temperature= and ice_fraction=")
+        if wf.size == 1 and T.size > 1:
+            wf = np.full(T.size, float(wf[0]))
+        core = _core.fit_effective_solute_ice_curve(wf, T, ice, w, fit_bound_water, molar_mass_start,
+                                                    bound_water_start)
+        x, y = T, ice
+        xl, yl, model = "temperature / K", "ice mass / total water", "effective solute (ice curve)"
+    extra = {} if fit_bound_water else {"bound_water_fixed": bound_water_start}
+    return FitResult(core, model=model, x=x, y=y, x_label=xl, y_label=yl,
+                     source=_provenance(data_name, [wf, y]), extra=extra)
+
+
+def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=None,
+               freezing_point=None, T=298.15, weights=None, *, temperature_terms: bool = False,
+               beta2: bool = False, table: Any = None, data=None,
+               data_name: Optional[str] = None) -> FitResult:
+    """Fit the Pitzer binary parameters of one salt to data on its binary solutions.
+
+    Parameters
+    ----------
+    salt : str
+        The salt, by any accepted name ("NaCl", "sodium chloride"); looked up in ``table``
+        (default: the built-in table). Its ions must be ones the Pitzer model handles.
+    molality : array_like or str
+        Molality of each sample, mol/kg (or a column name of ``data``).
+    osmotic_coefficient, water_activity, freezing_point : array_like or str, optional
+        Give exactly one: osmotic coefficients or water activities at ``T``, or initial
+        freezing points in K.
+    T : float, array_like or str
+        Temperature of osmotic-coefficient or water-activity data, K: one value or one per
+        row (default 298.15). Not used with ``freezing_point``.
+    weights : array_like or str, optional
+        Relative weights (e.g. 1/sigma^2); default all 1.
+    temperature_terms : bool
+        Also fit d/dT of each parameter at 298.15 K (needs data at several temperatures;
+        with one temperature the status is 'singular').
+    beta2 : bool
+        Also fit beta2 (2:2 salts only).
+
+    Returns
+    -------
+    FitResult
+        Parameters ``beta0``, ``beta1`` (kg/mol), ``cphi`` (kg^2/mol^2) (and ``beta2``, and
+        ``d<name>_dT`` per K). ``as_solute(name)`` gives the fitted salt for a
+        :class:`SoluteLibrary`.
+    """
+    m = _column(molality, data, "molality")
+    phi = _column(osmotic_coefficient, data, "osmotic_coefficient")
+    aw = _column(water_activity, data, "water_activity")
+    tf = _column(freezing_point, data, "freezing_point")
+    w = _column(weights, data, "weights")
+    if sum(v is not None for v in (phi, aw, tf)) != 1:
+        raise _core.InvalidInputError(
+            "fit_pitzer: give exactly one of osmotic_coefficient=, water_activity= or freezing_point=")
+    if m is None:
+        raise _core.InvalidInputError("fit_pitzer: molality is required (mol/kg)")
+    if not isinstance(salt, str):
+        raise _core.InvalidInputError(f"fit_pitzer: salt must be a solute name, got {salt!r}")
+    opts = dict(temperature_terms=bool(temperature_terms), beta2=bool(beta2), table=table)
+    if tf is not None:
+        core = _core.fit_pitzer_freezing_point(salt, m, tf, w, **opts)
+        y, ylab, kind, temps = tf, "initial freezing point / K", "freezing point", tf
+    else:
+        temps = _column(T, data, "T")
+        if phi is not None:
+            core = _core.fit_pitzer_osmotic_coefficient(salt, m, phi, temps, w, **opts)
+            y, ylab, kind = phi, "osmotic coefficient", "osmotic coefficient"
+        else:
+            core = _core.fit_pitzer_water_activity(salt, m, aw, temps, w, **opts)
+            y, ylab, kind = aw, "water activity", "water activity"
+        if temps.size == 1:
+            ylab += f" at {float(temps[0]):.2f} K"
+    salt_id = (table if table is not None else _core.SoluteTable()).find(salt).id
+    src = _provenance(data_name, [m, y] + ([] if tf is not None else [temps]))
+    src["salt"] = salt_id
+    return FitResult(core, model=f"pitzer {salt_id} ({kind})", x=m, y=y,
+                     x_label="molality / (mol/kg)", y_label=ylab, source=src,
+                     extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
+
+
+def run_fit_command(args: Any) -> str:
+    """The ``colligate fit`` subcommand: fit, write the plot, return the printed summary."""
+    import pandas as pd
+
+    from ._files import check_output_path
+
+    data_path = os.fspath(args.data)
+    df = pd.read_csv(data_path)
+    stem = os.path.splitext(data_path)[0]
+    plot_path = args.plot or f"{stem}_fit.png"
+    check_output_path(plot_path, [data_path], "--plot")
+    if args.save_solute:
+        check_output_path(args.save_solute, [data_path], "--save-solute")
+    cols = set(df.columns)
+    weights = "weight" if "weight" in cols else None
+    name = os.path.basename(data_path)
+
+    def need(*names: str) -> None:
+        missing = [n for n in names if n not in cols]
+        if missing:
+            raise _core.InvalidInputError(
+                f"{data_path}: column(s) {missing} missing for --model {args.model}; columns are {sorted(cols)}")
+
+    if args.model == "pitzer":
+        if not args.salt:
+            raise _core.InvalidInputError("--salt is required for --model pitzer (e.g. --salt NaCl)")
+        need("molality")
+        kinds = [c for c in ("osmotic_coefficient", "water_activity", "freezing_point_K") if c in cols]
+        if len(kinds) != 1:
+            raise _core.InvalidInputError(
+                f"{data_path}: --model pitzer needs exactly one of the columns osmotic_coefficient, "
+                f"water_activity, freezing_point_K; columns are {sorted(cols)}")
+        key = {"osmotic_coefficient": "osmotic_coefficient", "water_activity": "water_activity",
+               "freezing_point_K": "freezing_point"}[kinds[0]]
+        res = fit_pitzer(args.salt, "molality", T="temperature_K" if "temperature_K" in cols else args.T,
+                         weights=weights, temperature_terms=args.temperature_terms, data=df,
+                         data_name=name, **{key: kinds[0]})
+    elif args.model == "norrish":
+        need("molality")
+        if "water_activity" in cols:
+            res = fit_norrish("molality", water_activity="water_activity", T=args.T, weights=weights,
+                              k3=args.k3, data=df, data_name=name)
+        else:
+            need("freezing_point_K")
+            res = fit_norrish("molality", freezing_point="freezing_point_K", weights=weights,
+                              k3=args.k3, data=df, data_name=name)
+    else:
+        need("water_fraction")
+        if "ice_fraction" in cols:
+            need("temperature_K")
+            res = fit_effective_solute("water_fraction", temperature="temperature_K",
+                                       ice_fraction="ice_fraction", weights=weights, data=df,
+                                       data_name=name)
+        else:
+            need("freezing_point_K")
+            res = fit_effective_solute("water_fraction", freezing_point="freezing_point_K",
+                                       weights=weights, data=df, data_name=name)
+    summary = res.summary()
+    written = res.plot(plot_path, inputs=[data_path])
+    a = summary.attrs
+    lines = [f"fit: {a['model']} to {a['n_points']} points from {data_path}",
+             f"status: {a['status']} ({a['message']}); chi-square {a['chi_square']:.6g}, "
+             f"dof {a['degrees_of_freedom']}, R^2 {a['r_squared']:.6f}",
+             summary.to_string(float_format=lambda v: f"{v:.6g}")]
+    if a["contradictory_duplicates"]:
+        lines.append(f"warning: rows with equal x but contradictory y: {a['contradictory_duplicates']}")
+    lines.append(f"plot: {os.path.abspath(written)}")
+    if args.save_solute:
+        molar_mass = None if args.model == "pitzer" else args.molar_mass
+        fs = res.as_solute(args.name or os.path.basename(stem), molar_mass=molar_mass)
+        lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute))}")
+    from . import CAUTIONS
+
+    lines += ["", "Cautions:"] + [f"- {c}" for c in CAUTIONS]
+    return "\n".join(lines) + "\n"

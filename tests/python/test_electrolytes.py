@@ -1,0 +1,51 @@
+"""Electrolytes with the Pitzer model: seawater against TEOS-10 (gsw), eutectics, warnings."""
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+import colligate as cg
+
+gsw = pytest.importorskip("gsw")
+
+
+@pytest.mark.parametrize("SA", [5.0, 10.0, 20.0, 30.0, 35.16504, 40.0])
+def test_seawater_freezing_point_vs_gsw(SA):
+    # External reference: TEOS-10 (IOC, SCOR & IAPSO 2010) as implemented by the gsw package,
+    # gsw.t_freezing(SA, p=0, saturation_fraction=0) (air-free), in C. Tolerance 0.02 K.
+    s = cg.Solution.seawater(SA)
+    expected = float(gsw.t_freezing(SA, 0, 0)) + 273.15
+    assert cg.freezing_point(s) == pytest.approx(expected, abs=0.02)
+
+
+def test_nacl_eutectic_and_ice_curve_stop():
+    # Archer (1992): ice + NaCl.2H2O eutectic at -21.2 C (from memory). Tolerance 0.3 K.
+    s = cg.Solution.from_mass_fractions({"NaCl": 0.10})
+    e = cg.eutectic(s)
+    assert e["found"] and e["phase"] == "hydrohalite"
+    assert e["temperature"] - 273.15 == pytest.approx(-21.2, abs=0.3)
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="eutectic"):
+        out = cg.ice_fraction(s, np.array([260.0, e["temperature"] - 1.0]))
+    assert out[0] > 0.4 and np.isnan(out[1])
+    with pytest.raises(cg.OutOfValidityRangeError, match="hydrohalite"):
+        cg.ice_fraction(s, e["temperature"] - 1.0, range_policy="raise")
+
+
+def test_pitzer_bad_input_warns_and_raises():
+    brine = cg.Solution.from_molalities({"NaCl": 1.0})
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="219.15-298.15 K"):
+        cg.water_activity(brine, 310.15, model="pitzer")
+    with pytest.raises(cg.OutOfValidityRangeError):
+        cg.water_activity(cg.Solution.from_molalities({"NaCl": 7.0}), 298.15, model="pitzer",
+                          range_policy="raise")
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="293.15-303.15 K"):
+        cg.mean_activity_coefficient(brine, "NaCl", 263.15, parameter_set="harvie_1984")
+    assert "Ross (1975)" in cg.describe_model(
+        cg.Solution.from_molalities({"NaCl": 0.1, "sucrose": 0.1}))
+    assert cg.pitzer_parameter_sets()[0] == "spencer_1990"
+
+
+def test_nacl_mean_activity_coefficient_25c():
+    # Hamer & Wu (1972), NaCl at 1 mol/kg, 25 C: gamma = 0.657 (from memory). Tolerance 0.005.
+    s = cg.Solution.from_molalities({"NaCl": 1.0})
+    assert cg.mean_activity_coefficient(s, "NaCl", 298.15) == pytest.approx(0.657, abs=0.005)
