@@ -12,6 +12,9 @@ namespace colligate_bindings {
 
 namespace py = pybind11;
 
+/// One solute record as a dict (SI units, source keys).
+py::dict solute_row(const colligate::data::solute_record& r);
+
 void register_core(py::module_& m);
 void register_equilibria(py::module_& m);
 void register_thermal(py::module_& m);

@@ -9,8 +9,7 @@
 
 namespace colligate_bindings {
 
-namespace {
-
+/// One solute record as a dict (SI units, source keys); shared with register_fit.cpp.
 py::dict solute_row(const colligate::data::solute_record& r) {
   py::dict d;
   d["id"] = r.id;
@@ -31,6 +30,8 @@ py::dict solute_row(const colligate::data::solute_record& r) {
   d["norrish_note"] = r.norrish.note;
   return d;
 }
+
+namespace {
 
 /// The caller's solute table (SoluteTable passed as table=), or the built-in one.
 const colligate::data::solute_table& table_or_builtin(const colligate::data::solute_table* t) {

@@ -74,20 +74,7 @@ fit::fit_options make_options(int max_iterations, const std::optional<VectorXd>&
 }
 
 py::dict record_row(const data::solute_record& r) {
-  py::dict d;
-  d["id"] = r.id;
-  d["name"] = r.name;
-  d["formula"] = r.formula;
-  d["aliases"] = r.aliases;
-  d["molar_mass_kg_per_mol"] = r.molar_mass;
-  d["kind"] = r.kind == data::solute_class::electrolyte ? "electrolyte" : "non_electrolyte";
-  d["particles"] = r.particles;
-  d["norrish_k"] = r.norrish.available ? py::cast(r.norrish.k) : py::none();
-  d["norrish_k3"] = r.norrish.available ? py::cast(r.norrish.k3) : py::none();
-  d["norrish_max_mass_fraction"] =
-      r.norrish.available ? py::cast(r.norrish.max_mass_fraction) : py::none();
-  d["norrish_source"] = r.norrish.k_source;
-  d["norrish_note"] = r.norrish.note;
+  py::dict d = solute_row(r);
   d["pitzer"] = record_pitzer(r);
   return d;
 }

@@ -44,7 +44,7 @@ def rows(solute: str, max_percent: float):
     path = pathlib.Path(__file__).resolve().parents[1] / "tests/reference/crc_freezing_points.csv"
     with open(path, newline="") as fh:
         for r in csv.DictReader(fh):
-            if r["solute"] == solute and float(r["mass_percent"]) <= max_percent and "check against print" not in r["note"]:
+            if r["solute"] == solute and float(r["mass_percent"]) <= max_percent and "below neighbours" not in r["note"]:
                 w = float(r["mass_percent"]) / 100
                 yield w / (1 - w) / MOLAR_MASS[solute], float(r["depression_K"])
 

@@ -400,17 +400,8 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
 
     # [composition]
     comp = _table(source, doc, "composition", required=True)
+    amounts = _amounts(source, "composition", comp, basis)
     unit = "kg" if basis == "kg" else "% of batch"
-    amounts: dict[str, float] = {}
-    for key, value in comp.items():
-        where = f"[composition].{key}"
-        if isinstance(value, dict):
-            raise _fail(source, where, f"must be a number (amount in {unit}), not a table")
-        rule = f"amount must be finite and >= 0 ({unit})"
-        x = _number(source, where, value, rule)
-        if x < 0.0:
-            raise _fail(source, f"{where} = {_show(value)}", rule)
-        amounts[key] = x
     water_keys = [k for k in amounts if k.strip().lower() == "water"]
     if not water_keys:
         raise _fail(source, "[composition].water", f"missing key: a recipe needs water > 0 ({unit})")
@@ -488,13 +479,12 @@ def _parse_options(source: str, doc: Mapping[str, Any], basis: str, water_amount
     return model, bound_kg
 
 
-def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | None, name: str, note: str,
-                             label: str, basis: str, batch_kg: float) -> Recipe:
-    table = _table(source, doc, "ingredients", required=True)
+def _amounts(source: str, table_name: str, table: Mapping[str, Any], basis: str) -> dict[str, float]:
+    """Amounts of a [composition] or [ingredients] table, validated (finite, >= 0)."""
     unit = "kg" if basis == "kg" else "% of batch"
     amounts: dict[str, float] = {}
     for key, value in table.items():
-        where = f"[ingredients].{key}"
+        where = f"[{table_name}].{key}"
         if isinstance(value, dict):
             raise _fail(source, where, f"must be a number (amount in {unit}), not a table")
         rule = f"amount must be finite and >= 0 ({unit})"
@@ -502,6 +492,13 @@ def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | No
         if x < 0.0:
             raise _fail(source, f"{where} = {_show(value)}", rule)
         amounts[key] = x
+    return amounts
+
+
+def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | None, name: str, note: str,
+                             label: str, basis: str, batch_kg: float) -> Recipe:
+    table = _table(source, doc, "ingredients", required=True)
+    amounts = _amounts(source, "ingredients", table, basis)
     if not amounts:
         raise _fail(source, "[ingredients]", "empty table: list at least one ingredient with its amount")
     if basis == "percent":

@@ -14,4 +14,4 @@ def crc_freezing() -> pd.DataFrame:
     """CRC Handbook (102nd ed., 2021) freezing-point depressions; source_key per row."""
     df = pd.read_csv(REFERENCE / "crc_freezing_points.csv", keep_default_na=False)
     # rows the transcription marks as doubtful are excluded (see NOTES_reference_data.md)
-    return df[~df["note"].str.contains("check against print")]
+    return df[~df["note"].str.contains("below neighbours")]

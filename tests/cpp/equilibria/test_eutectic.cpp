@@ -8,7 +8,7 @@
 #include "colligate/core/constants.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
-#include "../reference_csv.hpp"
+#include "../crc_reference.hpp"
 
 using namespace colligate;
 using models::model_id;
@@ -18,24 +18,8 @@ using Catch::Matchers::WithinRel;
 
 namespace {
 
-/// Worst |predicted - CRC| depression (K) for `solute` up to `max_percent` wt%, model auto.
 double worst_crc(const std::string& solute, double max_percent, int& rows) {
-  double worst = 0.0;
-  rows = 0;
-  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
-    if (row.at("solute") != solute) continue;
-    const double percent = std::stod(row.at("mass_percent"));
-    if (percent > max_percent) continue;
-    const auto s = solution::from_mass_fractions({{solute, percent / 100.0}});
-    const auto r = equilibria::freezing_point(s);
-    REQUIRE(r.success());
-    INFO(solute << " " << percent << " wt%: " << r.check.reason);
-    CHECK(r.check.in_range());
-    worst = std::max(worst, std::abs(constants::ice_point - r.temperature -
-                                     std::stod(row.at("depression_K"))));
-    ++rows;
-  }
-  return worst;
+  return colligate_test::worst_crc_deviation(solute, max_percent, rows, /*require_in_range=*/true);
 }
 
 }  // namespace

@@ -6,7 +6,7 @@
 
 #include "colligate/core/constants.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
-#include "../reference_csv.hpp"
+#include "../crc_reference.hpp"
 
 using namespace colligate;
 using models::model_id;
@@ -16,25 +16,7 @@ using Catch::Matchers::WithinRel;
 
 namespace {
 
-/// Largest |predicted - published| depression over the CRC rows of `solute` up to
-/// `max_percent` wt%; rows the transcription flags as doubtful are skipped (notes file).
-double worst_crc_deviation(const std::string& solute, double max_percent, int& rows) {
-  double worst = 0.0;
-  rows = 0;
-  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
-    if (row.at("solute") != solute) continue;
-    if (row.at("note").find("check against print") != std::string::npos) continue;
-    const double percent = std::stod(row.at("mass_percent"));
-    if (percent > max_percent) continue;
-    const auto s = solution::from_mass_fractions({{solute, percent / 100.0}});
-    const auto r = equilibria::freezing_point(s);
-    REQUIRE(r.success());
-    const double predicted = constants::ice_point - r.temperature;
-    worst = std::max(worst, std::abs(predicted - std::stod(row.at("depression_K"))));
-    ++rows;
-  }
-  return worst;
-}
+using colligate_test::worst_crc_deviation;
 
 }  // namespace
 
