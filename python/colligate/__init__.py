@@ -31,6 +31,14 @@ from .batch import (  # noqa: E402,F401
     batch_water_activity,
 )
 from . import fit  # noqa: E402,F401  (colligate.fit: fitting constants to your data)
+from .fit import (  # noqa: E402,F401
+    FitResult,
+    SoluteLibrary,
+    fit_effective_solute,
+    fit_norrish,
+    fit_pitzer,
+    load_solute,
+)
 
 try:
     from ._version import __version__
@@ -48,6 +56,12 @@ from ._core import (  # noqa: F401
 __all__ = [
     "Solution",
     "fit",
+    "fit_norrish",
+    "fit_pitzer",
+    "fit_effective_solute",
+    "FitResult",
+    "SoluteLibrary",
+    "load_solute",
     "SolutionBatch",
     "BatchRowWarning",
     "ROW_STATUS",
