@@ -17,7 +17,7 @@ TEST_CASE("ice + unfrozen + bound water = total water", "[equilibria][ice_fracti
     for (double t_c = -1.0; t_c >= -40.0; t_c -= 3.0) {
       const auto u = equilibria::unfrozen_phase_at(s, constants::ice_point + t_c, model_id::automatic, bound);
       REQUIRE(u.success());
-      // identity to 1e-12 relative (the issue's requirement)
+      // mass balance: identity to 1e-12 relative (rounding only)
       CHECK_THAT(u.ice + u.unfrozen_water + u.bound_water, WithinRel(s.water_mass(), 1e-12));
       CHECK(u.ice >= 0.0);
     }
