@@ -74,3 +74,98 @@ TEST_CASE("bad rows get NaN and a status, good rows are untouched", "[batch]") {
   CHECK_FALSE(bw.valid(0));
   CHECK_THROWS_AS(batch::solution_batch::from_molalities({"sucrse"}, m.data(), 1), invalid_input);
 }
+
+namespace {
+/// Seawater compositions (TEOS-10 Reference Composition as built by solution::seawater)
+/// for absolute salinities from 5 to 40 g/kg: the species list and the molality rows.
+std::vector<double> seawater_rows(std::size_t rows, std::vector<std::string>& species) {
+  species.clear();
+  const auto reference = solution::seawater(35.0);
+  for (const auto& r : reference.species()) species.push_back(r.id);
+  std::vector<double> m;
+  for (std::size_t i = 0; i < rows; ++i) {
+    const auto s = solution::seawater(5.0 + 35.0 * static_cast<double>(i) / (rows - 1));
+    for (std::size_t j = 0; j < s.size(); ++j) m.push_back(s.molality(j));
+  }
+  return m;
+}
+
+solution row_solution(const std::vector<std::string>& species, const double* m) {
+  std::vector<named_amount> amounts;
+  for (std::size_t j = 0; j < species.size(); ++j) amounts.emplace_back(species[j], m[j]);
+  return solution::from_molalities(amounts);
+}
+}  // namespace
+
+TEST_CASE("Pitzer seawater batch equals scalar calls bit for bit", "[batch][pitzer]") {
+  // Identity (no literature value): each row of a batch is computed by the scalar code,
+  // so freezing points and water activities are equal with == (no tolerance), for the
+  // 5-salt / 6-ion seawater of the Pitzer model and for 'auto' (which resolves to it).
+  std::vector<std::string> species;
+  const std::size_t N = 48;
+  const auto m = seawater_rows(N, species);
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), N);
+  for (auto model : {models::model_id::pitzer, models::model_id::automatic}) {
+    std::vector<double> tf(N), aw(N);
+    std::vector<std::uint8_t> st(N), sa(N);
+    batch::freezing_points(b, model, {}, tf.data(), st.data());
+    batch::water_activities(b, 271.15, model, {}, aw.data(), sa.data());
+    for (std::size_t i = 0; i < N; ++i) {
+      const auto s = row_solution(species, m.data() + i * species.size());
+      const auto r = equilibria::freezing_point(s, model);
+      INFO("row " << i);
+      CHECK(st[i] == static_cast<std::uint8_t>(batch::row_status::ok));
+      CHECK(r.success());
+      CHECK(r.temperature == tf[i]);
+      CHECK(std::exp(models::ln_water_activity(model, s, s.water_mass(), 271.15)) == aw[i]);
+    }
+  }
+}
+
+TEST_CASE("Pitzer seawater batch does not depend on the thread count", "[batch][pitzer]") {
+  // Identity: rows are independent and each thread prepares its own evaluator, so 1, 2 and
+  // 4 threads give the same bits (memcmp), for freezing points and ice fractions.
+  std::vector<std::string> species;
+  const std::size_t N = 301;
+  const auto m = seawater_rows(N, species);
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), N);
+  const double temps[2] = {271.0, 265.0};
+  std::vector<std::vector<double>> tf, ice;
+  for (unsigned threads : {1u, 2u, 4u}) {
+    batch::options o;
+    o.threads = threads;
+    std::vector<double> t(N), f(N * 2);
+    std::vector<std::uint8_t> st(N), sf(N * 2);
+    batch::freezing_points(b, models::model_id::pitzer, o, t.data(), st.data());
+    batch::ice_fractions(b, temps, 2, models::model_id::pitzer, o, f.data(), sf.data());
+    tf.push_back(t);
+    ice.push_back(f);
+  }
+  for (std::size_t k = 1; k < tf.size(); ++k) {
+    CHECK(std::memcmp(tf[0].data(), tf[k].data(), N * sizeof(double)) == 0);
+    CHECK(std::memcmp(ice[0].data(), ice[k].data(), N * 2 * sizeof(double)) == 0);
+  }
+}
+
+TEST_CASE("Pitzer batch: bad rows and salts beyond their range in a seawater batch", "[batch][pitzer]") {
+  // A NaN row is invalid input; a brine above the CaCl2 eutectic composition (4.5 mol/kg
+  // CaCl2, beyond the -50 C search limit; eutectic about 4 mol/kg, docs/electrolytes.md)
+  // has no freezing point; the other rows still equal their scalar values.
+  std::vector<std::string> species;
+  auto m = seawater_rows(4, species);
+  const std::size_t S = species.size();
+  m[1 * S] = std::nan("");
+  for (std::size_t j = 0; j < S; ++j) m[2 * S + j] = species[j] == "calcium_chloride" ? 4.5 : 0.0;
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), 4);
+  std::vector<double> tf(4);
+  std::vector<std::uint8_t> st(4);
+  batch::freezing_points(b, models::model_id::pitzer, {}, tf.data(), st.data());
+  CHECK(st[1] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
+  CHECK(st[2] == static_cast<std::uint8_t>(batch::row_status::no_freezing_point));
+  CHECK(std::isnan(tf[1]));
+  CHECK(std::isnan(tf[2]));
+  for (std::size_t i : {0u, 3u})
+    CHECK(tf[i] == equilibria::freezing_point(row_solution(species, m.data() + i * S),
+                                              models::model_id::pitzer)
+                       .temperature);
+}

@@ -1,8 +1,9 @@
 #pragma once
 /// \file kernels.hpp
 /// Multi-threaded batch kernels over a solution_batch: freezing point, water activity and
-/// ice fraction at a list of temperatures. Each thread reuses one solution workspace (no
-/// heap allocation per row for rows inside the validated range); rows are independent and
+/// ice fraction at a list of temperatures. Each thread reuses one solution workspace and one
+/// prepared ln a_w evaluator (no heap allocation per row for Pitzer or Norrish rows inside
+/// the validated range); rows are independent and
 /// each is computed by the same scalar code as a single call, so results are bit-identical
 /// whatever the thread count. A row that fails gets NaN and a row_status; it never aborts
 /// the batch.
@@ -11,6 +12,7 @@
 #include <cmath>
 #include <cstdint>
 #include <limits>
+#include <optional>
 #include <thread>
 #include <vector>
 
@@ -42,9 +44,20 @@ class workspace {
     for (std::size_t j = 0; j < s_.moles_.size(); ++j) s_.moles_[j] = molalities[j];
     return s_;
   }
+  /// ln a_w evaluator for model `m` on this workspace's solution, prepared on first use
+  /// (the species list is the same for every row; the evaluator reads each row's amounts).
+  models::ln_water_activity_evaluator& evaluator(models::model_id m) {
+    if (!evaluator_ || requested_ != m) {
+      evaluator_.emplace(m, s_);
+      requested_ = m;
+    }
+    return *evaluator_;
+  }
 
  private:
   solution s_;
+  std::optional<models::ln_water_activity_evaluator> evaluator_;
+  models::model_id requested_ = models::model_id::automatic;
 };
 
 inline unsigned thread_count(unsigned requested, std::size_t rows) {
@@ -96,7 +109,8 @@ inline void freezing_points(const solution_batch& b, models::model_id m, const o
     double v = detail::nan;
     if (st == row_status::ok) {
       const solution& s = ws.load(b.row(i));
-      const auto r = equilibria::freezing_point(s, m, opt.bound_water_fraction * s.water_mass());
+      const auto r = equilibria::freezing_point(s, m, opt.bound_water_fraction * s.water_mass(),
+                                                ws.evaluator(m));
       if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
       else if (!r.success()) st = row_status::not_converged;
       else v = detail::policy_value(r.temperature, r.check.in_range(), opt.policy, st);
@@ -117,7 +131,7 @@ inline void water_activities(const solution_batch& b, double temperature, models
     double v = detail::nan;
     if (st == row_status::ok) {
       const solution& s = ws.load(b.row(i));
-      const double lnaw = models::ln_water_activity(m, s, s.water_mass(), temperature);
+      const double lnaw = ws.evaluator(m)(s.water_mass(), temperature);
       v = detail::policy_value(std::exp(lnaw), models::check(m, s, s.water_mass(), temperature).in_range(),
                                opt.policy, st);
     }

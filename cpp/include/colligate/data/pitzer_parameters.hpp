@@ -53,8 +53,12 @@ inline constexpr std::array<pitzer_ion, pitzer_ion_count> pitzer_ions = {
 
 /// Index of an ion in pitzer_ions, or pitzer_ion_count if unknown.
 inline std::size_t pitzer_ion_index(const std::string& name) {
-  for (std::size_t i = 0; i < pitzer_ion_count; ++i)
-    if (name == pitzer_ions[i].name) return i;
+  // The first two characters tell the names apart; one full comparison confirms.
+  if (name.size() < 2) return pitzer_ion_count;
+  for (std::size_t i = 0; i < pitzer_ion_count; ++i) {
+    const char* n = pitzer_ions[i].name;
+    if (name[0] == n[0] && name[1] == n[1] && name == n) return i;
+  }
   return pitzer_ion_count;
 }
 

@@ -2,8 +2,8 @@
 /// \file freezing_point.hpp
 /// Initial freezing point: the temperature T at which the whole solution is in
 /// equilibrium with ice, ln a_w(solution, T) = ln a_w,ice(T) (DESIGN section 1).
-/// Solved by Boost.Math's TOMS 748 bracketed root finder between the ice point and
-/// `search_min_temperature`. Water that cannot freeze (`bound_water_kg`, e.g. bound to
+/// Solved between the ice point and `search_min_temperature` by a safeguarded Newton
+/// iteration (see freezing_point below). Water that cannot freeze (`bound_water_kg`, e.g. bound to
 /// protein) is taken out of the solvent.
 
 #include <boost/math/tools/roots.hpp>
@@ -60,10 +60,20 @@ inline bool temperature_independent(models::model_id resolved) {
 
 }  // namespace detail
 
-/// Initial freezing point of a solution, K, with status and validity.
-inline freezing_point_result freezing_point(const solution& s,
-                                            models::model_id m = models::model_id::automatic,
-                                            double bound_water_kg = 0.0) {
+/// Initial freezing point of a solution, K, with status and validity, using `ln_aw`, an
+/// evaluator prepared for `s` with model `m` (a batch thread keeps one for all its rows).
+///
+/// Temperature-dependent models (Pitzer, Ross) are solved by a safeguarded Newton
+/// iteration on f(T) = ln a_w(T) - ln a_w,ice(T) from the ice point: the first step is
+/// the linearised depression (slope of ln a_w,ice only), later steps use the exact slope
+/// of ln a_w,ice plus the secant slope of ln a_w of the last two iterates, which changes
+/// little with T. Every evaluation narrows a bracket [lo, hi] with f(lo) > 0 > f(hi); a
+/// step leaving it is replaced by bisection, and f at the lowest temperature searched is
+/// evaluated only then (a solution with f <= 0 there does not freeze above it). Stops when
+/// a step is below 1e-9 K (four evaluations for seawater).
+inline freezing_point_result freezing_point(const solution& s, models::model_id m,
+                                            double bound_water_kg,
+                                            models::ln_water_activity_evaluator& ln_aw) {
   detail::check_bound_water("freezing_point", s, bound_water_kg);
   const double W = s.water_mass() - bound_water_kg;
   freezing_point_result r;
@@ -73,48 +83,98 @@ inline freezing_point_result freezing_point(const solution& s,
     r.temperature = constants::ice_point;
     return r;
   }
-  if (detail::temperature_independent(models::resolve(m, s))) {
+  const auto below_limit = [&r] {
+    r.status = solve_status::below_search_limit;
+    r.check.reason = colligate::detail::describe(
+        "freezing_point", "lowest temperature searched", search_min_temperature,
+        "the solution does not freeze above this temperature (-50 C)");
+    return r;
+  };
+  if (detail::temperature_independent(ln_aw.model())) {
     // a_w does not depend on T: invert the ice equilibrium directly (Newton on ice.hpp).
-    const double ln_aw = models::ln_water_activity(m, s, W, constants::ice_point);
-    const double T = water::temperature_of_ice_equilibrium(ln_aw, search_min_temperature);
-    if (std::isnan(T)) {
-      r.status = solve_status::below_search_limit;
-      r.check.reason = colligate::detail::describe(
-          "freezing_point", "lowest temperature searched", search_min_temperature,
-          "the solution does not freeze above this temperature (-50 C)");
-      return r;
-    }
+    const double ln_aw_0 = ln_aw(W, constants::ice_point);
+    const double T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
+    if (std::isnan(T)) return below_limit();
     r.temperature = T;
     r.check = models::check(m, s, W, T);
     r.check.merge(water::ice_temperature_validity(T));
     return r;
   }
-  auto f = [&](double T) { return detail::ice_imbalance(m, s, W, T); };
-  const double hi = constants::ice_point;
-  const double lo = search_min_temperature;
-  const double f_hi = f(hi);
-  const double f_lo = f(lo);
-  if (!(f_lo > 0.0)) {
-    r.status = solve_status::below_search_limit;
-    r.check.reason = colligate::detail::describe(
-        "freezing_point", "lowest temperature searched", lo,
-        "the solution does not freeze above this temperature (-50 C)");
-    return r;
-  }
+  const double R = constants::gas_constant;
+  const auto ice_slope = [R](double T) {  // d ln a_w,ice / dT = dH_fus / (R T^2)
+    return water::enthalpy_of_fusion(T) / (R * T * T);
+  };
+  double hi = constants::ice_point;
+  double lo = search_min_temperature;
+  bool lo_known = false;  // f(lo) > 0 established
+  double L_hi = ln_aw(W, hi);
+  const double f_hi = L_hi;  // ln a_w,ice(T0) = 0
+  if (std::isnan(f_hi) &&
+      !(ln_aw(W, lo) - water::ln_water_activity_of_ice(lo) > 0.0))  // no usable model value
+    return below_limit();
   if (!(f_hi < 0.0)) {  // vanishingly dilute: depression below rounding
     r.temperature = hi;
     r.check = models::check(m, s, W, hi);
     return r;
   }
-  std::uintmax_t max_iter = 100;
-  boost::math::tools::eps_tolerance<double> tol(48);
-  const auto [a, b] = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, tol, max_iter);
-  r.temperature = 0.5 * (a + b);
-  r.iterations = static_cast<int>(max_iter);
-  r.status = max_iter >= 100 ? solve_status::max_iterations : solve_status::converged;
+  // A Newton step below 1e-9 K is taken without a new evaluation: the error left is of
+  // the order of the step squared times the curvature, far below 1e-12 K.
+  constexpr double step_tolerance = 1e-9;  // K
+  constexpr int max_iterations = 100;
+  double T = hi, L = L_hi, f = f_hi;
+  double T_prev = std::numeric_limits<double>::quiet_NaN(), L_prev = T_prev;
+  int it = 0;
+  bool converged = false;
+  for (; it < max_iterations; ++it) {
+    // Newton step on f = L(T) - ln a_w,ice(T): f' = L'(T) - ice_slope(T).
+    const double dL = std::isnan(T_prev) || T_prev == T ? 0.0 : (L - L_prev) / (T - T_prev);
+    const double slope = dL - ice_slope(T);
+    double next = T - f / slope;
+    if (std::abs(next - T) <= step_tolerance && next >= lo && next <= hi) {
+      T = next;  // converged (a step below one ulp lands on the bracket end: also accepted)
+      converged = true;
+      break;
+    }
+    if (!(next > lo && next < hi)) {
+      if (!lo_known) {
+        const double f_lo = ln_aw(W, lo) - water::ln_water_activity_of_ice(lo);
+        if (!(f_lo > 0.0)) return below_limit();
+        lo_known = true;
+      }
+      next = 0.5 * (lo + hi);
+    }
+    T_prev = T;
+    L_prev = L;
+    T = next;
+    L = ln_aw(W, T);
+    f = L - water::ln_water_activity_of_ice(T);
+    if (f > 0.0) {
+      lo = T;
+      lo_known = true;
+    } else if (f < 0.0) {
+      hi = T;
+    } else if (f == 0.0) {
+      converged = true;
+      break;
+    } else {  // NaN from the model
+      break;
+    }
+  }
+  r.temperature = T;
+  r.iterations = it + 1;
+  r.status = converged ? solve_status::converged : solve_status::max_iterations;
+  if (!converged && std::isnan(f)) r.temperature = std::numeric_limits<double>::quiet_NaN();
   r.check = models::check(m, s, W, r.temperature);
   r.check.merge(water::ice_temperature_validity(r.temperature));
   return r;
+}
+
+/// Initial freezing point of a solution, K, with status and validity.
+inline freezing_point_result freezing_point(const solution& s,
+                                            models::model_id m = models::model_id::automatic,
+                                            double bound_water_kg = 0.0) {
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  return freezing_point(s, m, bound_water_kg, ln_aw);
 }
 
 /// Convenience: the freezing point with the caller's range policy; throws

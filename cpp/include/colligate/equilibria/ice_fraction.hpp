@@ -87,7 +87,9 @@ inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperatur
     return r;
   }
   // g(u) = ln a_w(W_u = exp(u)) - ln a_w,ice(T): positive at u = ln W, negative as W_u -> 0.
-  auto g = [&](double u) { return models::ln_water_activity(m, s, std::exp(u), T) - ln_aw_ice; };
+  // The species are prepared once for the whole search (same values as ln_water_activity).
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  auto g = [&](double u) { return ln_aw(std::exp(u), T) - ln_aw_ice; };
   const double u_hi = std::log(W);
   double u_lo = u_hi - 2.0;
   double g_lo = g(u_lo);

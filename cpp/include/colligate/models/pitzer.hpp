@@ -35,6 +35,7 @@
 #include "colligate/data/pitzer_parameters.hpp"
 #include "colligate/models/detail/pitzer_kernel.hpp"
 #include "colligate/models/detail/pitzer_record_parameters.hpp"
+#include "colligate/models/detail/pitzer_system.hpp"
 
 namespace colligate::models {
 
@@ -83,11 +84,12 @@ struct pitzer {
     return detail::evaluate(m, detail::evaluate_coefficients(set, temperature));
   }
 
+  /// ln a_w. Prepares the species once (detail::pitzer_system); a solver calling this
+  /// many times on one solution can hold a pitzer_system itself (same arithmetic).
   static double ln_water_activity(const solution& s, double water_kg, double temperature,
                                   const data::pitzer_parameter_set& set) {
-    double other = 0.0;
-    const auto r = evaluate(s, water_kg, temperature, set, other);
-    return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + other);
+    detail::pitzer_system system(s, set);
+    return system.ln_water_activity(s.moles().data(), water_kg, temperature);
   }
 
   static double ln_water_activity(const solution& s, double water_kg, double temperature) {
@@ -120,10 +122,11 @@ struct pitzer {
   static validity check(const solution& s, double water_kg, double temperature,
                         const data::pitzer_parameter_set& set) {
     validity v;
-    const std::string where = "model 'pitzer' (parameter set '" + set.id + "')";
+    // The message prefix is built only when a reason is reported.
+    const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
     if (temperature < set.min_temperature - 1e-9 || temperature > set.max_temperature + 1e-9) {
       v.reason = colligate::detail::describe(
-          where, "temperature", temperature,
+          where(), "temperature", temperature,
           "outside " + fmt(set.min_temperature) + "-" + fmt(set.max_temperature) +
               " K, where its parameters are valid [" + set.range_source +
               "]; salts have no parameters at this temperature");
@@ -132,7 +135,7 @@ struct pitzer {
     const auto aphi = detail::aphi_validity(set.aphi);
     if (temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9) {
       v.reason = colligate::detail::describe(
-          where, "temperature", temperature,
+          where(), "temperature", temperature,
           "outside " + fmt(aphi.min_temperature) + "-" + fmt(aphi.max_temperature) +
               " K, the range of the Debye-Hueckel slope A_phi [" + aphi.source +
               "], which is extrapolated");
@@ -152,14 +155,14 @@ struct pitzer {
       const auto* row =
           (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
       if (row == nullptr) {
-        v.reason = where + ": electrolyte '" + rec.id +
+        v.reason = where() + ": electrolyte '" + rec.id +
                    "' has no Pitzer parameters in this set; counted with the Debye-Hueckel "
                    "term only";
         return v;
       }
       if (mi > row->max_molality + 1e-12) {
         v.reason = colligate::detail::describe(
-            where, "molality of '" + rec.id + "' (mol/kg)", mi,
+            where(), "molality of '" + rec.id + "' (mol/kg)", mi,
             "above " + fmt(row->max_molality) +
                 " mol/kg, the highest molality its parameters are valid for [" + row->source +
                 "]");
@@ -172,7 +175,7 @@ struct pitzer {
     }
     if (non_electrolytes > max_non_electrolyte_molality)
       v.reason = colligate::detail::describe(
-          where, "non-electrolyte molality (mol/kg)", non_electrolytes,
+          where(), "non-electrolyte molality (mol/kg)", non_electrolytes,
           "above 0.1 mol/kg; the Pitzer model counts non-electrolytes as ideal particles "
           "(use model 'auto' for mixtures)");
     return v;

@@ -18,6 +18,7 @@
 /// Validated range: 233.15 K to 273.15 K.
 
 #include <array>
+#include <cstddef>
 #include <cmath>
 #include <limits>
 
@@ -81,9 +82,54 @@ inline double enthalpy_of_fusion(double temperature) {
          d * (c[0] + d * (c[1] / 2.0 + d * (c[2] / 3.0 + d * c[3] / 4.0)));
 }
 
+namespace detail {
+
+/// Number of terms of the series in w = (T - T0)/T used for |w| <= 0.3 (T from 210 to
+/// 390 K); the terms fall below 1e-18 of the sum there.
+inline constexpr std::size_t ice_series_terms = 48;
+
+/// Coefficients e_j of ln a_w,ice = sum_j e_j w^(j+1), w = (T - T0)/T. With u = t - T0
+/// and dH_fus = sum_n b_n u^n, the substitution w = u/t turns each
+/// integral_0^d u^n/t^2 du into T0^(n-1) sum_k C(n+k-1, k) w^(n+k+1)/(n+k+1), so
+/// e_j = [sum_n b_n T0^(n-1) C(j-1, n-1)] / ((j+1) R) (n = 0 only for j = 0: b_0/T0).
+/// Unlike the antiderivative in powers of T, whose terms reach 1e5 and cancel (rounding
+/// of about 1e-11 in ln a_w, 1e-9 K in a freezing point), the series is smooth to rounding.
+inline std::array<double, ice_series_terms> ice_series_coefficients() {
+  const auto& c = delta_cp_coefficients;
+  const std::array<double, 5> b = {constants::enthalpy_of_fusion_ice, c[0], c[1] / 2.0,
+                                   c[2] / 3.0, c[3] / 4.0};
+  const double T0 = constants::ice_point;
+  std::array<double, ice_series_terms> e{};
+  e[0] = b[0] / T0;
+  for (std::size_t j = 1; j < ice_series_terms; ++j) {
+    double sum = 0.0, T0_power = 1.0, binom = 1.0;  // T0^(n-1), C(j-1, n-1)
+    for (std::size_t n = 1; n <= 4 && n <= j; ++n) {
+      sum += b[n] * T0_power * binom;
+      T0_power *= T0;
+      binom = binom * static_cast<double>(j - n) / static_cast<double>(n);
+    }
+    e[j] = sum;
+  }
+  for (std::size_t j = 0; j < ice_series_terms; ++j)
+    e[j] /= static_cast<double>(j + 1) * constants::gas_constant;
+  return e;
+}
+
+}  // namespace detail
+
 /// ln of the water activity of a solution in equilibrium with ice at T, one atmosphere.
 /// Defined for T > 0; validated 233.15-273.15 K (check with ice_temperature_validity).
+/// From 210 to 390 K by the series of detail::ice_series_coefficients (smooth to
+/// rounding, which root finders and finite differences need), elsewhere by the
+/// antiderivative in powers of T.
 inline double ln_water_activity_of_ice(double temperature) {
+  const double w = (temperature - constants::ice_point) / temperature;
+  if (std::abs(w) <= 0.3) {
+    static const auto e = detail::ice_series_coefficients();
+    double sum = e[detail::ice_series_terms - 1];
+    for (std::size_t j = detail::ice_series_terms - 1; j-- > 0;) sum = e[j] + w * sum;
+    return w * sum;
+  }
   static const std::array<double, 5> a = detail::enthalpy_power_coefficients();
   return (detail::enthalpy_over_t2_antiderivative(a, temperature) -
           detail::enthalpy_over_t2_antiderivative(a, constants::ice_point)) /

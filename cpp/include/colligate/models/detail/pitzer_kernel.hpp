@@ -128,8 +128,10 @@ inline void mixing_j(double x, double& J, double& dJ) {
   }
   const bool low = x < 1.0;
   const auto& ak = low ? aI : aII;
-  const double z = low ? 4.0 * std::pow(x, 0.2) - 2.0 : 40.0 / 9.0 * std::pow(x, -0.1) - 22.0 / 9.0;
-  const double dz = low ? 0.8 * std::pow(x, -0.8) : -4.0 / 9.0 * std::pow(x, -1.1);
+  // One power per call: x^-0.8 = x^0.2 / x and x^-1.1 = x^-0.1 / x.
+  const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
+  const double z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
+  const double dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
   double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0;
   for (int k = 20; k >= 0; --k) {
     b2 = b1;

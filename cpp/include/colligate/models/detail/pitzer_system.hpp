@@ -1,0 +1,347 @@
+#pragma once
+/// \file pitzer_system.hpp
+/// The Pitzer osmotic sum of models/detail/pitzer_kernel.hpp prepared once for one species
+/// list: the ions present (with their charges), which species feed which ion, and the
+/// parameter rows of every cation-anion pair, like-charged pair and triplet among them.
+/// Evaluating it does no name lookup and no heap allocation, so a solver that calls the
+/// model many times on one solution (freezing point, ice curve, batch rows with one
+/// species list) pays the preparation once.
+///
+/// Same equations as pitzer_kernel.hpp (Harvie, Moller & Weare 1984, eqs. 1-8; Pitzer
+/// 1991, ch. 3), osmotic part only:
+///
+///   sum_i m_i (phi - 1) = 2 [ -A_phi I^1.5 / (1 + b sqrt I) + sum_c sum_a m_c m_a (B^phi_ca + Z C_ca)
+///        + sum_i<j (like sign) m_i m_j (theta_ij + E-theta_ij + I E-theta'_ij + sum_k m_k psi_ijk) ]
+///
+/// Work done once per temperature: A_phi(T) and the parameters P(T) of the pairs and
+/// triplets present, as dot products with the basis of the analytic form
+/// (data::t_function), one logarithm in all. Work done once per evaluation: one
+/// exponential per distinct alpha (2, 1.4, 12) and one J(x) per distinct charge product
+/// (1, 2, 4) of the unsymmetrical mixing terms.
+///
+/// The object caches the coefficients of the last temperature, so it is not meant to be
+/// shared between threads: each solve or batch thread owns its own.
+
+#include <array>
+#include <cmath>
+#include <cstddef>
+#include <limits>
+#include <vector>
+
+#include "colligate/core/solution.hpp"
+#include "colligate/data/pitzer_parameters.hpp"
+#include "colligate/models/detail/pitzer_kernel.hpp"
+#include "colligate/models/detail/pitzer_record_parameters.hpp"
+
+namespace colligate::models::detail {
+
+/// The basis of the analytic temperature form at T (data::t_function, T_r = 298.15 K):
+/// P(T) = sum_k a_k v_k(T).
+struct t_basis {
+  std::array<double, 6> v{};
+  explicit t_basis(double T) {
+    constexpr double Tr = 298.15;
+    const double inv = 1.0 / T;
+    v = {1.0, inv - 1.0 / Tr, std::log(T / Tr), T - Tr, T * T - Tr * Tr,
+         inv * inv - 1.0 / (Tr * Tr)};
+  }
+  double operator()(const data::t_function& f) const {
+    return f.a[0] + f.a[1] * v[1] + f.a[2] * v[2] + f.a[3] * v[3] + f.a[4] * v[4] +
+           f.a[5] * v[5];
+  }
+};
+
+/// Ion sums of one osmotic evaluation.
+struct pitzer_osmotic_sums {
+  double ionic_strength = 0.0;
+  double total_molality = 0.0;  ///< sum_i m_i over the ions with parameters
+  double osmotic_excess = 0.0;  ///< sum_i m_i (phi - 1)
+  double other_particles = 0.0; ///< ideal particles (non-electrolytes, ions without parameters), mol/kg
+};
+
+/// The rows of a parameter set with their ion names resolved to indices of
+/// data::pitzer_ions (pitzer_ion_count for an ion the tables do not know). Points into
+/// the set, which must outlive it.
+struct indexed_parameter_rows {
+  struct binary {
+    std::size_t c, a;
+    const data::pitzer_binary* row;
+  };
+  struct theta {
+    std::size_t i, j;
+    const data::t_function* f;
+  };
+  struct psi {
+    std::size_t i, j, k;
+    const data::t_function* f;
+  };
+  std::vector<binary> binaries;
+  std::vector<theta> thetas;
+  std::vector<psi> psis;
+  data::aphi_correlation aphi;
+
+  explicit indexed_parameter_rows(const data::pitzer_parameter_set& set) : aphi(set.aphi) {
+    using data::pitzer_ion_index;
+    for (const auto& b : set.binaries)
+      binaries.push_back({pitzer_ion_index(b.cation), pitzer_ion_index(b.anion), &b});
+    for (const auto& t : set.thetas)
+      thetas.push_back({pitzer_ion_index(t.ion1), pitzer_ion_index(t.ion2), &t.theta});
+    for (const auto& s : set.psis)
+      psis.push_back(
+          {pitzer_ion_index(s.ion1), pitzer_ion_index(s.ion2), pitzer_ion_index(s.ion3), &s.psi});
+  }
+};
+
+class pitzer_system {
+ public:
+  static constexpr std::size_t max_pairs = n_ions * n_ions / 4 + 1;
+  static constexpr std::size_t max_like = n_ions * (n_ions - 1) / 2;
+  static constexpr std::size_t max_triplets = max_like * n_ions;
+
+  /// Prepares the model for the species of `s` (their amounts are read at evaluation).
+  /// Salts carrying their own parameters (solute_record::pitzer) replace the set's row for
+  /// their ion pair, as in pitzer::evaluate; conflicting rows throw invalid_input.
+  pitzer_system(const solution& s, const data::pitzer_parameter_set& set) {
+    if (has_record_binaries(s)) {
+      const auto copy = with_record_binaries(s, set);
+      build(s, indexed_parameter_rows(copy));
+    } else if (&set == &data::spencer_1990_parameters()) {
+      // Built-in sets are immutable statics: index them once (thread-safe initialisation).
+      static const indexed_parameter_rows rows(data::spencer_1990_parameters());
+      build(s, rows);
+    } else if (&set == &data::harvie_1984_parameters()) {
+      static const indexed_parameter_rows rows(data::harvie_1984_parameters());
+      build(s, rows);
+    } else {
+      build(s, indexed_parameter_rows(set));
+    }
+  }
+
+  /// Ion molalities (per slot) and ideal particles for `moles` (one per species of the
+  /// solution it was prepared for) in `water_kg` of water.
+  void molalities(const double* moles, double water_kg, double* m, double& other) const {
+    for (std::size_t k = 0; k < n_; ++k) m[k] = 0.0;
+    other = 0.0;
+    for (const auto& t : terms_) {
+      const double mi = moles[t.species] / water_kg;
+      if (t.slot < n_)
+        m[t.slot] += t.count * mi;
+      else
+        other += t.count * mi;
+    }
+  }
+
+  /// The osmotic sums for `moles` in `water_kg` of water at temperature T (K).
+  pitzer_osmotic_sums osmotic(const double* moles, double water_kg, double T) {
+    std::array<double, n_ions> m{};
+    pitzer_osmotic_sums r;
+    molalities(moles, water_kg, m.data(), r.other_particles);
+    osmotic_on_molalities(m.data(), T, r);
+    return r;
+  }
+
+  /// ln a_w = -M_w (sum_i m_i phi + other particles).
+  double ln_water_activity(const double* moles, double water_kg, double T) {
+    const auto r = osmotic(moles, water_kg, T);
+    return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + r.other_particles);
+  }
+
+ private:
+  struct term {
+    std::size_t species;
+    std::size_t slot;  ///< n_ for ideal particles
+    double count;
+  };
+  struct pair_row {
+    std::size_t c, a;
+    data::t_function beta0, beta1, beta2, cphi;
+    int alpha1;  ///< index into the alphas: 0 -> 2, 1 -> 1.4
+    bool two_two;
+    double c_scale;  ///< 2 sqrt|z_c z_a|
+  };
+  struct like_row {
+    std::size_t i, j;
+    int zi, zj;  ///< |charges|
+    data::t_function theta;
+    bool has_theta;
+    std::size_t psi_begin, psi_end;  ///< into triplets_
+  };
+  struct triplet_row {
+    std::size_t k;
+    data::t_function psi;
+  };
+  struct coefficients {
+    double temperature = std::numeric_limits<double>::quiet_NaN();
+    double aphi = 0.0;
+    std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{};
+    std::array<double, max_like> theta{};
+    std::array<double, max_triplets> psi{};
+  };
+
+  void build(const solution& s, const indexed_parameter_rows& set) {
+    // Ions present, in the fixed order of data::pitzer_ions (cations, then anions).
+    std::array<bool, n_ions> present{};
+    for (const auto& rec : s.species()) {
+      if (rec.kind != data::solute_class::electrolyte) continue;
+      for (const auto& ion : rec.ions) {
+        const auto k = data::pitzer_ion_index(ion.ion);
+        if (k < n_ions) present[k] = true;
+      }
+    }
+    std::array<std::size_t, n_ions + 1> slot_of{};
+    for (std::size_t g = 0; g < n_ions; ++g) {
+      slot_of[g] = n_ions;
+      if (!present[g]) continue;
+      slot_of[g] = n_;
+      z_[n_] = data::pitzer_ions[g].charge;
+      ++n_;
+    }
+    const auto slot = [&](std::size_t g) { return g < n_ions && slot_of[g] < n_ ? slot_of[g] : n_; };
+    // Species -> ion molalities, in the order of pitzer::ion_molalities.
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      if (rec.kind != data::solute_class::electrolyte || rec.ions.empty()) {
+        terms_.push_back({i, n_, static_cast<double>(rec.particles)});
+        continue;
+      }
+      for (const auto& ion : rec.ions)
+        terms_.push_back({i, slot(data::pitzer_ion_index(ion.ion)), static_cast<double>(ion.count)});
+    }
+    // Cation-anion rows (the last row of a pair wins, as in evaluate_coefficients).
+    for (const auto& b : set.binaries) {
+      const auto c = slot(b.c), a = slot(b.a);
+      if (c >= n_ || a >= n_) continue;
+      const int zc = z_[c], za = z_[a];
+      const bool two_two = std::abs(zc) == 2 && std::abs(za) == 2;
+      pair_row row{c, a, b.row->beta0, b.row->beta1, b.row->beta2, b.row->cphi, two_two ? 1 : 0,
+                   two_two, 2.0 * std::sqrt(std::abs(zc * za))};
+      std::size_t k = 0;
+      while (k < n_pairs_ && !(pairs_[k].c == c && pairs_[k].a == a)) ++k;
+      if (k == n_pairs_) ++n_pairs_;
+      pairs_[k] = row;
+      (two_two ? need_alpha_14_ : need_alpha_2_) = true;
+      if (two_two) need_alpha_12_ = true;
+    }
+    // Like-charged pairs, their theta and their triplets (the last matching row wins).
+    for (std::size_t i = 0; i < n_; ++i) {
+      for (std::size_t j = i + 1; j < n_; ++j) {
+        if ((z_[i] > 0) != (z_[j] > 0)) continue;
+        like_row L{i, j, std::abs(z_[i]), std::abs(z_[j]), {}, false, n_triplets_, n_triplets_};
+        for (const auto& t : set.thetas) {
+          const auto p = slot(t.i), q = slot(t.j);
+          if ((p == i && q == j) || (p == j && q == i)) {
+            L.theta = *t.f;
+            L.has_theta = true;
+          }
+        }
+        for (std::size_t k = 0; k < n_; ++k) {
+          if ((z_[k] > 0) == (z_[i] > 0)) continue;
+          const data::t_function* found = nullptr;
+          for (const auto& t : set.psis) {
+            const auto p = slot(t.i), q = slot(t.j), r = slot(t.k);
+            if (r == k && ((p == i && q == j) || (p == j && q == i))) found = t.f;
+          }
+          if (found) triplets_[n_triplets_++] = {k, *found};
+        }
+        L.psi_end = n_triplets_;
+        like_[n_like_++] = L;
+      }
+    }
+    aphi_ = set.aphi;
+  }
+
+  const coefficients& at(double T) {
+    if (coef_.temperature == T) return coef_;
+    const t_basis basis(T);
+    coef_.temperature = T;
+    coef_.aphi = debye_huckel_osmotic_slope(T, aphi_);
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      const auto& p = pairs_[k];
+      coef_.beta0[k] = basis(p.beta0);
+      coef_.beta1[k] = basis(p.beta1);
+      coef_.beta2[k] = p.two_two ? basis(p.beta2) : 0.0;
+      coef_.c[k] = basis(p.cphi) / p.c_scale;
+    }
+    for (std::size_t k = 0; k < n_like_; ++k)
+      coef_.theta[k] = like_[k].has_theta ? basis(like_[k].theta) : 0.0;
+    for (std::size_t k = 0; k < n_triplets_; ++k) coef_.psi[k] = basis(triplets_[k].psi);
+    return coef_;
+  }
+
+  void osmotic_on_molalities(const double* m, double T, pitzer_osmotic_sums& r) {
+    double I = 0.0, Z = 0.0, mt = 0.0;
+    for (std::size_t k = 0; k < n_; ++k) {
+      I += 0.5 * m[k] * z_[k] * z_[k];
+      Z += m[k] * std::abs(z_[k]);
+      mt += m[k];
+    }
+    r.ionic_strength = I;
+    r.total_molality = mt;
+    if (!(I > 0.0)) return;
+    const auto& p = at(T);
+    const double sI = std::sqrt(I);
+    const double A = p.aphi;
+    double osm = -A * I * sI / (1.0 + pitzer_b * sI);
+    // exp(-alpha sqrt I) for alpha = 2 (1:1, 2:1 pairs), 1.4 and 12 (2:2 pairs).
+    const double e2 = need_alpha_2_ ? std::exp(-2.0 * sI) : 0.0;
+    const double e14 = need_alpha_14_ ? std::exp(-1.4 * sI) : 0.0;
+    const double e12 = need_alpha_12_ ? std::exp(-12.0 * sI) : 0.0;
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      const auto& row = pairs_[k];
+      const double mm = m[row.c] * m[row.a];
+      if (mm == 0.0) continue;
+      double Bphi = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? e2 : e14);
+      if (row.two_two && p.beta2[k] != 0.0) Bphi += p.beta2[k] * e12;
+      osm += mm * (Bphi + Z * p.c[k]);
+    }
+    // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4.
+    std::array<double, 5> J{}, dJ{}, x{};
+    std::array<bool, 5> have{};
+    const double s6 = 6.0 * A * sI;
+    const auto j_of = [&](int zz) {
+      if (!have[zz]) {
+        x[zz] = s6 * zz;
+        mixing_j(x[zz], J[zz], dJ[zz]);
+        have[zz] = true;
+      }
+    };
+    for (std::size_t k = 0; k < n_like_; ++k) {
+      const auto& L = like_[k];
+      const double mm = m[L.i] * m[L.j];
+      if (mm == 0.0) continue;
+      double phiphi = p.theta[k];
+      if (L.zi != L.zj) {
+        // E-theta, E-theta' (Pitzer 1975, eqs. 23-24), as in e_theta().
+        const int ij = L.zi * L.zj, ii = L.zi * L.zi, jj = L.zj * L.zj;
+        j_of(ij);
+        j_of(ii);
+        j_of(jj);
+        const double zz = static_cast<double>(ij);
+        const double et = zz / (4.0 * I) * (J[ij] - 0.5 * J[ii] - 0.5 * J[jj]);
+        const double etp = -et / I + zz / (8.0 * I * I) *
+                                         (x[ij] * dJ[ij] - 0.5 * x[ii] * dJ[ii] -
+                                          0.5 * x[jj] * dJ[jj]);
+        phiphi = p.theta[k] + et + I * etp;
+      }
+      double psum = 0.0;
+      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) psum += m[triplets_[t].k] * p.psi[t];
+      osm += mm * (phiphi + psum);
+    }
+    r.osmotic_excess = 2.0 * osm;
+  }
+
+  std::size_t n_ = 0;
+  std::array<int, n_ions> z_{};
+  std::vector<term> terms_;
+  std::array<pair_row, max_pairs> pairs_{};
+  std::size_t n_pairs_ = 0;
+  std::array<like_row, max_like> like_{};
+  std::size_t n_like_ = 0;
+  std::array<triplet_row, max_triplets> triplets_{};
+  std::size_t n_triplets_ = 0;
+  bool need_alpha_2_ = false, need_alpha_14_ = false, need_alpha_12_ = false;
+  data::aphi_correlation aphi_ = data::aphi_correlation::clegg_rard_pitzer_1994;
+  coefficients coef_;
+};
+
+}  // namespace colligate::models::detail
