@@ -159,8 +159,9 @@ inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15
     if (f > 0.0) hi = T; else lo = T;
     const double slope = enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
     double next = T - f / slope;
+    if (std::abs(next - T) <= 4e-15 * T) return next;  // converged (before the bracket test:
+                                                        // at the root next may equal a bound)
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (std::abs(next - T) <= 4e-15 * T) return next;
     T = next;
   }
   return T;
