@@ -48,8 +48,8 @@ TEST_CASE("salt freezing points vs CRC Handbook with the Pitzer model", "[equili
   }
   // Achieved, not the 0.2 K asked (documented, not hidden):
   // - NaCl 22-23 wt%: 0.21 and 0.24 K too cold, although the model's eutectic (-21.27 C
-  //   at 23.2 wt%) matches Archer (1992); cause not established. Archer's (1992) NaCl(aq)
-  //   model is the next step. Tolerance 0.25 K.
+  //   at 23.2 wt%) matches Archer (1992). Archer's NaCl(aq) model (set archer_1992,
+  //   tests/cpp/models/test_pitzer.cpp) is 0.198 K too cold there as well. Tolerance 0.25 K.
   // - CaCl2 13-22 wt%: up to 0.39 K too warm (19 wt%). Tolerance 0.4 K.
   int rows = 0;
   CHECK(worst_crc("sodium_chloride", 23, rows) < 0.25);
@@ -58,7 +58,9 @@ TEST_CASE("salt freezing points vs CRC Handbook with the Pitzer model", "[equili
   //   ice + antarcticite eutectic at -50.1 C and 30.8 wt% (test below), in the range of
   //   the published eutectics (-49.8 to -50.5 C at 29.8-32 wt%, project reading list),
   //   while the CRC rows put 30 wt% at -41.0 C; the concentrated CRC rows (printed to
-  //   0.1 K) and the eutectic data the model was fitted to cannot both hold. Documented
+  //   0.1 K) and the eutectic data the model was fitted to cannot both hold; Melinder's
+  //   (2010) evaluated curve (CoolProp INCOMP::MCA) is 1.1-7.0 K below these CRC rows, so
+  //   the model is tested against Melinder in tests/python/test_electrolytes.py. Documented
   //   at the achieved 3.5 K; 30 wt% (-46.1 C) is below the validated ice range (233.15 K)
   //   and 32 wt% lies beyond the eutectic composition.
   CHECK(worst_crc("calcium_chloride", 28, rows) < 3.5);

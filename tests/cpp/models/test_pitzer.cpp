@@ -8,6 +8,8 @@
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/models/pitzer.hpp"
 #include "colligate/models/water_activity.hpp"
+#include "colligate/water/ice.hpp"
+#include "../reference_csv.hpp"
 
 using namespace colligate;
 using models::model_id;
@@ -91,7 +93,9 @@ TEST_CASE("NaCl osmotic coefficient at 25 C vs Hamer & Wu (1972)", "[models][pit
   const std::vector<std::pair<double, double>> hamer_wu = {
       {0.1, 0.9324}, {0.2, 0.9245}, {0.5, 0.9209}, {1.0, 0.9355}, {2.0, 0.9833},
       {3.0, 1.0453}, {4.0, 1.1158}, {5.0, 1.1916}, {6.0, 1.2706}};
-  for (const auto* set : {&data::spencer_1990_parameters(), &data::harvie_1984_parameters()}) {
+  // archer_1992 (worst 0.0036, at 2 mol/kg) included: Archer (1992) as transcribed.
+  for (const auto* set : {&data::spencer_1990_parameters(), &data::harvie_1984_parameters(),
+                          &data::archer_1992_parameters()}) {
     double worst = 0.0;
     for (const auto& [m, expected] : hamer_wu) {
       const auto s = solution::from_molalities({{"NaCl", m}});
@@ -305,4 +309,82 @@ TEST_CASE("a salt column with zero amount does not trigger the combining-rule fl
   const auto s = colligate::solution::from_mass_fractions({{"sucrose", 0.1}, {"NaCl", 0.0}});
   const auto v = colligate::models::water_activity(s, 298.15);
   CHECK(v.check.in_range());
+}
+
+TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points", "[models][pitzer][archer]") {
+  const auto& set = data::archer_1992_parameters();
+  const double Mw = 0.018015268;
+  // h(x) of the extended third-virial term: h(0) = 1/4, and the series (x < 1) and the
+  // closed form (x >= 1) meet at x = 1 (identity, rel 1e-12).
+  CHECK_THAT(models::detail::pitzer_h(1e-9), WithinRel(0.25, 1e-8));
+  CHECK_THAT(models::detail::pitzer_h(1.0 - 1e-15), WithinRel(models::detail::pitzer_h(1.0), 1e-12));
+  // Archer (1992) Table 2 as transcribed: the set's parameters at 25 C lie near the
+  // Pitzer & Mayorga (1973) values of the usual form (beta0 0.0765, beta1 0.2664): Archer's
+  // beta0 differs because his C1 term takes part of it (our evaluation: 0.0806, 0.2631).
+  const auto p25 = models::detail::evaluate_coefficients(set, 298.15);
+  const auto na = data::pitzer_ion_index("Na+"), cl = data::pitzer_ion_index("Cl-");
+  CHECK_THAT(p25.beta0[na][cl], WithinAbs(0.0765, 0.005));
+  CHECK_THAT(p25.beta1[na][cl], WithinAbs(0.2664, 0.005));
+  CHECK(p25.c1[na][cl] != 0.0);
+  CHECK(p25.omega[na][cl] == 2.5);
+  // Gibbs-Duhem for one salt: ln gamma_pm = (phi - 1) + integral_0^m (phi - 1)/m' dm'
+  // (as in the test above; Simpson in u = sqrt m, 4000 panels; abs 1e-6).
+  for (double T : {255.0, 298.15}) {
+    for (double m : {0.5, 2.0, 5.0}) {
+      auto phi_m1 = [&](double mm) { return phi(solution::from_molalities({{"NaCl", mm}}), T, set) - 1.0; };
+      const int n = 4000;
+      const double U = std::sqrt(m), h = U / n;
+      double integral = 0.0;
+      for (int k = 0; k <= n; ++k) {
+        const double u = k * h;
+        const double f = k == 0 ? 2.0 * phi_m1(1e-12) / 1e-6 : 2.0 * phi_m1(u * u) / u;
+        integral += f * (k == 0 || k == n ? 1.0 : (k % 2 ? 4.0 : 2.0));
+      }
+      integral *= h / 3.0;
+      const auto s = solution::from_molalities({{"NaCl", m}});
+      INFO("T = " << T << ", m = " << m);
+      CHECK_THAT(pitzer::ln_mean_activity_coefficient(s, 0, 1.0, T, set),
+                 WithinAbs(phi_m1(m) + integral, 1e-6));
+    }
+  }
+  // The prepared path (detail::pitzer_system, used by pitzer::ln_water_activity) equals the
+  // full kernel bit for bit (identity).
+  for (double T : {252.0, 273.15, 298.15}) {
+    for (double m : {0.01, 1.0, 5.5}) {
+      const auto s = solution::from_molalities({{"NaCl", m}});
+      double other = 0.0;
+      const auto r = pitzer::evaluate(s, 1.0, T, set, other);
+      CHECK(pitzer::ln_water_activity(s, 1.0, T, set) ==
+            -Mw * (r.total_molality + r.osmotic_excess + other));
+    }
+  }
+  // Freezing points against the CRC Handbook NaCl rows to 23 wt% (tests/reference/
+  // crc_freezing_points.csv, crc_concentrative), with colligate's ice model: solve
+  // ln a_w(T) = ln a_w,ice(T) by bisection. Worst 0.198 K (23 wt%, 0.2 K too cold; the
+  // default set: 0.24 K). Tolerance 0.2 K.
+  double worst = 0.0;
+  int rows = 0;
+  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
+    if (row.at("solute") != "sodium_chloride") continue;
+    const double w = std::stod(row.at("mass_percent")) / 100.0;
+    const auto s = solution::from_mass_fractions({{"NaCl", w}});
+    double lo = 245.0, hi = 273.15;
+    for (int i = 0; i < 60; ++i) {
+      const double mid = 0.5 * (lo + hi);
+      const double g = pitzer::ln_water_activity(s, s.water_mass(), mid, set) -
+                       water::ln_water_activity_of_ice(mid);
+      (g > 0.0 ? lo : hi) = mid;  // g > 0: below the freezing point
+    }
+    worst = std::max(worst, std::abs(273.15 - lo - std::stod(row.at("depression_K"))));
+    ++rows;
+  }
+  INFO("archer_1992: " << rows << " CRC rows, worst " << worst << " K");
+  CHECK(rows >= 30);
+  CHECK(worst < 0.2);
+  // Range: 250-373.15 K; NaCl only.
+  CHECK(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 330.0, set).in_range());
+  CHECK_THAT(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 245.0, set).reason,
+             Contains("250-373.15 K"));
+  CHECK_THAT(pitzer::check(solution::from_molalities({{"KCl", 1.0}}), 1.0, 273.15, set).reason,
+             Contains("no Pitzer parameters"));
 }

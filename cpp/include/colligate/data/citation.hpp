@@ -150,7 +150,9 @@ inline const std::vector<citation>& citations() {
        "Thermodynamic properties of the NaCl + H2O system. II. Thermodynamic properties of "
        "NaCl(aq), NaCl.2H2O(cr), and phase equilibria",
        "J. Phys. Chem. Ref. Data 21, 793-829", "doi:10.1063/1.555915",
-       "ice + NaCl.2H2O eutectic, -21.2 C near 23.3 wt% (from memory)"},
+       "ice + NaCl.2H2O eutectic, -21.2 C near 23.3 wt% (from memory); NaCl(aq) model, "
+       "eq. 36 and Table 2 (beta0, beta1, C0, C1; omega = 2.5), coefficients read in a public "
+       "transcription (pytzer, bC_Na_Cl_A92ii, with its typo corrections)"},
       {"colligate_fit_mk2005", "colligate developers", 2026,
        "Heat-capacity difference of supercooled water and ice fitted by colligate to the "
        "temperature dependence of the Murphy & Koop (2005) vapour-pressure ratio, 233-273 K",

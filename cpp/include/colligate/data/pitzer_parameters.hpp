@@ -29,6 +29,11 @@
 ///   parameters. No temperature dependence: flagged outside 293.15-303.15 K. A_phi from
 ///   the Clegg, Rard & Pitzer (1994) series (0.3915 at 25 C; Harvie et al. used 0.392).
 ///
+/// - "archer_1992": NaCl(aq) only, Archer (1992), J. Phys. Chem. Ref. Data 21, 793, in
+///   his extended form (C1 term with omega = 2.5; struct extended_binary), 250-373.15 K, with
+///   the A_phi of Archer & Wang (1990) as represented by the Clegg, Rard & Pitzer (1994)
+///   series. Selectable only; not used by 'auto' (docs/electrolytes.md says why).
+///
 /// C-phi is stored as published (C-phi); the model converts to C = C-phi / (2 sqrt|z_M z_X|).
 /// alpha1 = 2 (beta2 unused) for pairs with a univalent ion; alpha1 = 1.4, alpha2 = 12
 /// for 2:2 pairs (Pitzer & Mayorga 1974; Harvie et al. 1984).
@@ -81,6 +86,63 @@ struct t_function {
 ///   low-temperature parameters; used over their range, 219.15-298.15 K.
 enum class aphi_correlation { clegg_rard_pitzer_1994, spencer_1990 };
 
+/// Temperature function of Archer (1992), eq. 36, at p = 0.101325 MPa (the pressure terms
+/// are kept and evaluated at that pressure):
+///     f(T) = a1 + a2 1e-3 T + a3 4e-6 T^2 + a4/(T - 200) + a5/T + a6 100/(T - 200)^2
+///            + a7 200/T^2 + a8 8e-9 T^3 + a9/(650 - T)^0.5 + (pressure terms a10-a23)
+///            + a24 200/(650 - T)^3
+/// Coefficients of Archer (1992) Table 2, read in a public transcription (pytzer's
+/// bC_Na_Cl_A92ii, which applies the corrections of the a6/a7 multipliers and two C0
+/// coefficients noted there).
+struct archer_1992_function {
+  std::array<double, 24> a{};
+  double operator()(double T) const {
+    constexpr double P = 0.101325;  // MPa
+    const double t200 = T - 200.0, t225 = T - 225.0, t650 = 650.0 - T;
+    const double t650c = t650 * t650 * t650;
+    return a[0] + a[1] * 1e-3 * T + a[2] * 4e-6 * T * T + a[3] / t200 + a[4] / T +
+           a[5] * 100.0 / (t200 * t200) + a[6] * 200.0 / (T * T) + a[7] * 8e-9 * T * T * T +
+           a[8] / std::sqrt(t650) + a[9] * 1e-5 * P + a[10] * 2e-4 * P / t225 +
+           a[11] * 100.0 * P / t650c + a[12] * 2e-8 * P * T + a[13] * 2e-4 * P / t650 +
+           a[14] * 1e-7 * P * P + a[15] * 2e-6 * P * P / t225 + a[16] * P * P / t650c +
+           a[17] * 2e-10 * P * P * T + a[18] * 4e-13 * P * P * T * T +
+           a[19] * 0.04 * P / (t225 * t225) + a[20] * 4e-11 * P * T * T +
+           a[21] * 2e-8 * P * P * P / t225 + a[22] * 0.01 * P * P * P / t650c +
+           a[23] * 200.0 / t650c;
+  }
+};
+
+/// Binary parameters in the extended form of Archer (1991, 1992) for a 1:1 salt:
+/// B as usual with alpha1 = 2 (no beta2), and a third-virial coefficient that depends on
+/// ionic strength, C^T = C0 + 4 C1 h(omega sqrt I) in G_ex and ln gamma, and
+/// C^T_phi = C0 + C1 exp(-omega sqrt I) in the osmotic coefficient, with
+/// h(x) = [6 - (6 + 6x + 3x^2 + x^3) e^-x] / x^4. C0 and C1 are in the C (not C-phi)
+/// convention of Harvie et al. (1984): C-phi would be 2 C0 for a 1:1 salt.
+struct extended_binary {
+  archer_1992_function beta0, beta1, c0, c1;
+  double omega;
+};
+
+/// Archer (1992) NaCl(aq): Table 2 coefficients (see archer_1992_function), omega = 2.5.
+inline const extended_binary& archer_1992_sodium_chloride() {
+  static const extended_binary row{
+      {{0.242408292826506, 0, -0.162683350691532, 1.38092472558595, 0, 0, -67.2829389568145, 0,
+        0.625057580755179, -21.2229227815693, 81.8424235648693, -1.59406444547912, 0, 0,
+        28.6950512789644, -44.3370250373270, 1.92540008303069, -32.7614200872551, 0, 0,
+        30.9810098813807, 2.46955572958185, -0.725462987197141, 10.1525038212526}},
+      {{-1.90196616618343, 5.45706235080812, 0, -40.5376417191367, 0, 0, 4.85065273169753e2,
+        -0.661657744698137, 0, 0, 2.42206192927009e2, 0, -99.0388993875343, 0, 0,
+        -59.5815563506284, 0, 0, 0, 0, 0, 0, 0, 0}},
+      {{0, -0.0412678780636594, 0.0193288071168756, -0.338020294958017, 0, 0.0426735015911910,
+        4.14522615601883, -0.00296587329276653, 0, 1.39697497853107, -3.80140519885645,
+        0.06622025084, 0, -16.8888941636379, -2.49300473562086, 3.14339757137651, 0,
+        2.79586652877114, 0, 0, 0, 0, 0, -0.502708980699711}},
+      {{0.788987974218570, -3.67121085194744, 1.12604294979204, 0, 0, -10.1089172644722, 0, 0,
+        0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 16.6503495528290}},
+      2.5};
+  return row;
+}
+
 /// Cation-anion parameters of one salt.
 struct pitzer_binary {
   std::string cation, anion;
@@ -88,6 +150,9 @@ struct pitzer_binary {
   double max_molality;  ///< highest molality of the binary salt solution the set is valid for
   std::string source;
   std::string note;
+  /// When set, the row's parameters come from this extended form (beta0, beta1, C0, C1,
+  /// omega) and the t_functions above are unused.
+  const extended_binary* extended = nullptr;
 };
 
 /// theta for a pair of like-charged ions.
@@ -286,14 +351,40 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
   return set;
 }
 
+/// Archer (1992) NaCl(aq) set: NaCl only, in Archer's extended form (see the file comment).
+inline const pitzer_parameter_set& archer_1992_parameters() {
+  using detail::tf;
+  static const pitzer_parameter_set set{
+      "archer_1992",
+      "Archer (1992) NaCl(aq) model, extended Pitzer form with C1 (omega = 2.5), at 0.1 MPa",
+      250.0, 373.15, "archer_1992",
+      {
+          // Archer's model covers 250-600 K to saturation; 6.2 mol/kg as in spencer_1990
+          // (about the 25 C saturation, from memory). The upper temperature is that of the
+          // A_phi series.
+          {"Na+", "Cl-", tf(0), tf(0), tf(0), tf(0), 6.2, "archer_1992", "NaCl (extended form)",
+           &archer_1992_sodium_chloride()},
+      },
+      {},
+      {},
+      // Archer (1992) used the A_phi of Archer & Wang (1990), which the Clegg, Rard &
+      // Pitzer (1994) series represents.
+      aphi_correlation::clegg_rard_pitzer_1994};
+  return set;
+}
+
 /// Ids of the built-in parameter sets; the first is the default.
-inline std::vector<std::string> pitzer_parameter_set_ids() { return {"spencer_1990", "harvie_1984"}; }
+inline std::vector<std::string> pitzer_parameter_set_ids() {
+  return {"spencer_1990", "harvie_1984", "archer_1992"};
+}
 
 inline const pitzer_parameter_set& find_pitzer_parameter_set(const std::string& id) {
   if (id == "spencer_1990") return spencer_1990_parameters();
   if (id == "harvie_1984") return harvie_1984_parameters();
+  if (id == "archer_1992") return archer_1992_parameters();
   throw invalid_input("parameter_set = '" + id +
-                      "': valid Pitzer parameter sets are 'spencer_1990' and 'harvie_1984'");
+                      "': valid Pitzer parameter sets are 'spencer_1990', 'harvie_1984' and "
+                      "'archer_1992'");
 }
 
 }  // namespace colligate::data

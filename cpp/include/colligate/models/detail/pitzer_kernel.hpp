@@ -170,10 +170,27 @@ inline double pitzer_gp(double x) {
   return -2.0 * (1.0 - (1.0 + x + 0.5 * x * x) * std::exp(-x)) / (x * x);
 }
 
+/// h(x) = [6 - (6 + 6x + 3x^2 + x^3) e^-x] / x^4 of the extended third-virial term (Archer
+/// 1991, 1992); h(0) = 1/4. Below x = 1 the equal form 6 e^-x sum_{k>=4} x^(k-4)/k! avoids
+/// the cancellation (identity: 6 e^x - (6 + 6x + 3x^2 + x^3) = 6 sum_{k>=4} x^k/k!).
+inline double pitzer_h(double x) {
+  if (x < 1.0) {
+    double term = 1.0 / 24.0, sum = term;
+    for (int k = 5; k < 24; ++k) {
+      term *= x / k;
+      sum += term;
+    }
+    return 6.0 * std::exp(-x) * sum;
+  }
+  return (6.0 - (6.0 + x * (6.0 + x * (3.0 + x))) * std::exp(-x)) / (x * x * x * x);
+}
+
 /// Parameters of one set evaluated at one temperature, indexed by ion.
 struct pitzer_coefficients {
   double aphi = 0.0;
   std::array<std::array<double, n_ions>, n_ions> beta0{}, beta1{}, beta2{}, c{}, alpha1{}, alpha2{};
+  /// Extended form (data::extended_binary): C1 and omega; c1 = 0 for the usual form.
+  std::array<std::array<double, n_ions>, n_ions> c1{}, omega{};
   std::array<std::array<bool, n_ions>, n_ions> has_pair{};
   std::array<std::array<double, n_ions>, n_ions> theta{};
   std::array<std::array<std::array<double, n_ions>, n_ions>, n_ions> psi{};
@@ -189,6 +206,18 @@ inline pitzer_coefficients evaluate_coefficients(const data::pitzer_parameter_se
     const int zc = data::pitzer_ions[i].charge, za = data::pitzer_ions[j].charge;
     const bool two_two = std::abs(zc) == 2 && std::abs(za) == 2;
     p.has_pair[i][j] = true;
+    if (b.extended != nullptr) {
+      const auto& e = *b.extended;
+      p.beta0[i][j] = e.beta0(T);
+      p.beta1[i][j] = e.beta1(T);
+      p.beta2[i][j] = 0.0;
+      p.c[i][j] = e.c0(T);
+      p.c1[i][j] = e.c1(T);
+      p.omega[i][j] = e.omega;
+      p.alpha1[i][j] = 2.0;
+      p.alpha2[i][j] = 0.0;
+      continue;
+    }
     p.beta0[i][j] = b.beta0(T);
     p.beta1[i][j] = b.beta1(T);
     p.beta2[i][j] = two_two ? b.beta2(T) : 0.0;
@@ -240,6 +269,9 @@ inline pitzer_sums evaluate(const ion_array& m, const pitzer_coefficients& p) {
 
   // Pair functions.
   std::array<std::array<double, n_ions>, n_ions> B{}, Bphi{}, Bp{}, Phi{}, Phip{}, Phiphi{};
+  // Third-virial terms: C^T (G_ex, ln gamma), C^T_phi (osmotic), dC^T/dI; all equal to C
+  // (derivative 0) for the usual form.
+  std::array<std::array<double, n_ions>, n_ions> CT = p.c, CTphi = p.c, CTp{};
   for (std::size_t c = 0; c < n_ions; ++c) {
     if (!is_cation(c)) continue;
     for (std::size_t a = 0; a < n_ions; ++a) {
@@ -252,6 +284,14 @@ inline pitzer_sums evaluate(const ion_array& m, const pitzer_coefficients& p) {
       Bp[c][a] = (p.beta1[c][a] * pitzer_gp(x1) +
                   (p.beta2[c][a] != 0.0 ? p.beta2[c][a] * pitzer_gp(x2) : 0.0)) /
                  I;
+      if (p.c1[c][a] != 0.0) {
+        // C^T = C0 + 4 C1 h(w), C^T_phi = C^T + I dC^T/dI / 2 = C0 + C1 e^-w (because
+        // 4 h + x h' = e^-x), dC^T/dI = 2 C1 (e^-w - 4 h(w)) / I, w = omega sqrt I.
+        const double w = p.omega[c][a] * sI, ew = std::exp(-w), hw = pitzer_h(w);
+        CT[c][a] = p.c[c][a] + 4.0 * p.c1[c][a] * hw;
+        CTphi[c][a] = p.c[c][a] + p.c1[c][a] * ew;
+        CTp[c][a] = 2.0 * p.c1[c][a] * (ew - 4.0 * hw) / I;
+      }
     }
   }
   for (std::size_t i = 0; i < n_ions; ++i) {
@@ -274,9 +314,11 @@ inline pitzer_sums evaluate(const ion_array& m, const pitzer_coefficients& p) {
     for (std::size_t a = 0; a < n_ions; ++a) {
       if (is_cation(a) || m[a] == 0.0) continue;
       const double mm = m[c] * m[a];
-      osm += mm * (Bphi[c][a] + Z * p.c[c][a]);
+      osm += mm * (Bphi[c][a] + Z * CTphi[c][a]);
       F += mm * Bp[c][a];
-      sum_mmC += mm * p.c[c][a];
+      // d(Z C^T)/dm_M through I gives z_M^2 (Z/2) m_c m_a dC^T/dI: carried in F.
+      if (CTp[c][a] != 0.0) F += mm * 0.5 * Z * CTp[c][a];
+      sum_mmC += mm * CT[c][a];
     }
   }
   for (std::size_t i = 0; i < n_ions; ++i) {
@@ -301,7 +343,7 @@ inline pitzer_sums evaluate(const ion_array& m, const pitzer_coefficients& p) {
       if (is_cation(k) != is_cation(M)) {
         // opposite sign: binary terms
         const std::size_t c = is_cation(M) ? M : k, a = is_cation(M) ? k : M;
-        lg += m[k] * (2.0 * B[c][a] + Z * p.c[c][a]);
+        lg += m[k] * (2.0 * B[c][a] + Z * CT[c][a]);
       } else if (k != M) {
         double psum = 0.0;
         for (std::size_t a = 0; a < n_ions; ++a)

@@ -30,7 +30,8 @@ inline bool same_t_function(const data::t_function& a, const data::t_function& b
 
 inline bool same_binary_values(const data::pitzer_binary& a, const data::pitzer_binary& b) {
   return same_t_function(a.beta0, b.beta0) && same_t_function(a.beta1, b.beta1) &&
-         same_t_function(a.beta2, b.beta2) && same_t_function(a.cphi, b.cphi);
+         same_t_function(a.beta2, b.beta2) && same_t_function(a.cphi, b.cphi) &&
+         a.extended == b.extended;
 }
 
 /// `set` with the binary rows carried by the records of `s` in place of the set's rows.

@@ -112,6 +112,9 @@ class pitzer_system {
     } else if (&set == &data::harvie_1984_parameters()) {
       static const indexed_parameter_rows rows(data::harvie_1984_parameters());
       build(s, rows);
+    } else if (&set == &data::archer_1992_parameters()) {
+      static const indexed_parameter_rows rows(data::archer_1992_parameters());
+      build(s, rows);
     } else {
       build(s, indexed_parameter_rows(set));
     }
@@ -158,6 +161,7 @@ class pitzer_system {
     int alpha1;  ///< index into the alphas: 0 -> 2, 1 -> 1.4
     bool two_two;
     double c_scale;  ///< 2 sqrt|z_c z_a|
+    const data::extended_binary* ext;  ///< extended form (C1, omega), else nullptr
   };
   struct like_row {
     std::size_t i, j;
@@ -173,7 +177,7 @@ class pitzer_system {
   struct coefficients {
     double temperature = std::numeric_limits<double>::quiet_NaN();
     double aphi = 0.0;
-    std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{};
+    std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{}, c1{};
     std::array<double, max_like> theta{};
     std::array<double, max_triplets> psi{};
   };
@@ -213,14 +217,16 @@ class pitzer_system {
       if (c >= n_ || a >= n_) continue;
       const int zc = z_[c], za = z_[a];
       const bool two_two = std::abs(zc) == 2 && std::abs(za) == 2;
-      pair_row row{c, a, b.row->beta0, b.row->beta1, b.row->beta2, b.row->cphi, two_two ? 1 : 0,
-                   two_two, 2.0 * std::sqrt(std::abs(zc * za))};
+      const auto* ext = b.row->extended;
+      pair_row row{c,  a, b.row->beta0, b.row->beta1, b.row->beta2, b.row->cphi,
+                   ext == nullptr && two_two ? 1 : 0, ext == nullptr && two_two,
+                   2.0 * std::sqrt(std::abs(zc * za)), ext};
       std::size_t k = 0;
       while (k < n_pairs_ && !(pairs_[k].c == c && pairs_[k].a == a)) ++k;
       if (k == n_pairs_) ++n_pairs_;
       pairs_[k] = row;
-      (two_two ? need_alpha_14_ : need_alpha_2_) = true;
-      if (two_two) need_alpha_12_ = true;
+      (row.two_two ? need_alpha_14_ : need_alpha_2_) = true;
+      if (row.two_two) need_alpha_12_ = true;
     }
     // Like-charged pairs, their theta and their triplets (the last matching row wins).
     for (std::size_t i = 0; i < n_; ++i) {
@@ -257,6 +263,15 @@ class pitzer_system {
     coef_.aphi = debye_huckel_osmotic_slope(T, aphi_);
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& p = pairs_[k];
+      if (p.ext != nullptr) {
+        // Extended form: the same functions pitzer_kernel.hpp evaluates (C0 is C already).
+        coef_.beta0[k] = p.ext->beta0(T);
+        coef_.beta1[k] = p.ext->beta1(T);
+        coef_.beta2[k] = 0.0;
+        coef_.c[k] = p.ext->c0(T);
+        coef_.c1[k] = p.ext->c1(T);
+        continue;
+      }
       coef_.beta0[k] = basis(p.beta0);
       coef_.beta1[k] = basis(p.beta1);
       coef_.beta2[k] = p.two_two ? basis(p.beta2) : 0.0;
@@ -292,6 +307,12 @@ class pitzer_system {
       if (mm == 0.0) continue;
       double Bphi = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? e2 : e14);
       if (row.two_two && p.beta2[k] != 0.0) Bphi += p.beta2[k] * e12;
+      if (row.ext != nullptr && p.c1[k] != 0.0) {
+        // C^T_phi = C0 + C1 exp(-omega sqrt I), as in pitzer_kernel.hpp.
+        const double CTphi = p.c[k] + p.c1[k] * std::exp(-(row.ext->omega * sI));
+        osm += mm * (Bphi + Z * CTphi);
+        continue;
+      }
       osm += mm * (Bphi + Z * p.c[k]);
     }
     // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4.
