@@ -123,8 +123,11 @@ inline std::string describe_model(const solution& s, model_id m = model_id::auto
       out += ": Norrish (1966) with the multi-solute extension of Chirife et al. (1980)";
       break;
     case model_id::pitzer:
-      out += ": Pitzer ion interaction (Debye-Hueckel A_phi of Clegg, Rard & Pitzer 1994, "
-             "unsymmetrical E-theta of Pitzer 1975), parameter set '" +
+      out += std::string(": Pitzer ion interaction (Debye-Hueckel A_phi of ") +
+             (pitzer::default_parameters().aphi == data::aphi_correlation::spencer_1990
+                  ? "Spencer, Moller & Weare 1990"
+                  : "Clegg, Rard & Pitzer 1994") +
+             ", unsymmetrical E-theta of Pitzer 1975), parameter set '" +
              pitzer::default_parameters().id + "' [" + pitzer::default_parameters().description +
              "]; non-electrolytes counted as ideal particles";
       break;
