@@ -85,6 +85,12 @@ void register_thermal(py::module_& m) {
       },
       py::arg("composition"), "Water fraction times the heat of fusion of ice at 0 C, J/kg of food.");
   m.def(
+      "chen_frozen_specific_heat", &th::chen_frozen_specific_heat, py::arg("water_fraction"),
+      py::arg("solids_fraction"), py::arg("bound_water_fraction"), py::arg("initial_freezing_point"),
+      py::arg("temperature"),
+      "Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as "
+      "presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.");
+  m.def(
       "food_enthalpy",
       [](const py::object& composition, const colligate::solution& s,
          const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,

@@ -83,6 +83,7 @@ __all__ = [
     "enthalpy",
     "apparent_specific_heat",
     "heat_load",
+    "frozen_specific_heat_chen",
     "Ingredient",
     "ingredients",
     "Recipe",
@@ -341,6 +342,32 @@ def apparent_specific_heat(
     values, reason, count = _core.food_apparent_specific_heat(comp, s, np.asarray(T, dtype=float), model, bound_water)
     _warn(reason, count)
     return float(values) if scalar else values
+
+
+def frozen_specific_heat_chen(
+    water_fraction: float,
+    solids_fraction: float,
+    initial_freezing_point: float,
+    T: float,
+    *,
+    bound_water_fraction: float = 0.0,
+) -> float:
+    """Apparent specific heat of a frozen food by the Chen (1985) correlation, J/(kg K).
+
+    The form presented by the ASHRAE Handbook - Refrigeration (2006), ch. 9, whose table of
+    "specific heat below freezing" is this correlation at -40 C. :func:`apparent_specific_heat`
+    is the physical model (ice heat capacity from IAPWS); use this one to compare with
+    handbook tables.
+
+    Parameters
+    ----------
+    water_fraction, solids_fraction, bound_water_fraction : float
+        Mass fractions of the food.
+    initial_freezing_point, T : float
+        Initial freezing point and temperature, K (T below the freezing point).
+    """
+    return float(_core.chen_frozen_specific_heat(water_fraction, solids_fraction, bound_water_fraction,
+                                                 initial_freezing_point, T))
 
 
 def heat_load(

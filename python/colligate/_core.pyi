@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -345,6 +345,10 @@ def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated
     ...
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
+def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.
+    """
 def citation(key: str) -> dict:
     """
     One source of the citation table by key.

@@ -200,3 +200,13 @@ def test_heat_load_parts():
         cg.heat_load(comp, s, 293.15, 200.0)
     with pytest.raises(ValueError, match="composition.fat"):
         cg.enthalpy({"water": 0.8, "fat": 1.5}, s, 260.0)
+
+
+def test_chen_frozen_specific_heat_matches_the_ashrae_table():
+    # ASHRAE Handbook - Refrigeration (2006) ch. 9 Table 3, row Broccoli: water 90.69 %,
+    # initial freezing point -0.6 C, specific heat below freezing 1.82 kJ/(kg K)
+    # (tests/reference/ashrae_food_properties.csv); the column is Chen (1985) at -40 C.
+    c = cg.frozen_specific_heat_chen(0.9069, 1 - 0.9069, 273.15 - 0.6, 273.15 - 40.0)
+    assert c == pytest.approx(1820.0, rel=0.05)
+    with pytest.raises(cg.InvalidInputError, match="below the initial freezing point"):
+        cg.frozen_specific_heat_chen(0.9, 0.1, 272.5, 273.0)

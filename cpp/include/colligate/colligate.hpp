@@ -28,6 +28,7 @@
 #include "colligate/models/water_activity.hpp"
 #include "colligate/thermal/components.hpp"
 #include "colligate/thermal/enthalpy.hpp"
+#include "colligate/thermal/frozen_specific_heat.hpp"
 #include "colligate/water/ice.hpp"
 #include "colligate/water/vapour_pressure.hpp"
 
