@@ -70,11 +70,14 @@ inline bool temperature_independent(models::model_id resolved) {
 /// little with T. Every evaluation narrows a bracket [lo, hi] with f(lo) > 0 > f(hi); a
 /// step leaving it is replaced by bisection, and f at the lowest temperature searched is
 /// evaluated only then (a solution with f <= 0 there does not freeze above it). Stops when
-/// a step is below 1e-9 K (four evaluations for seawater).
+/// a step is below 1e-9 K (four evaluations for seawater). The validity check (for Ross,
+/// the comparison with the ZSR rule, itself a nested root solve) runs once, at the result,
+/// on the evaluator's prepared system.
 inline freezing_point_result freezing_point(const solution& s, models::model_id m,
                                             double bound_water_kg,
                                             models::ln_water_activity_evaluator& ln_aw) {
   detail::check_bound_water("freezing_point", s, bound_water_kg);
+  static_cast<void>(m);  // values and check both come from `ln_aw`, prepared with m for s
   const double W = s.water_mass() - bound_water_kg;
   freezing_point_result r;
   double total_moles = 0.0;
@@ -96,7 +99,7 @@ inline freezing_point_result freezing_point(const solution& s, models::model_id 
     const double T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
     if (std::isnan(T)) return below_limit();
     r.temperature = T;
-    r.check = models::check(m, s, W, T);
+    r.check = ln_aw.check(W, T);
     r.check.merge(water::ice_temperature_validity(T));
     return r;
   }
@@ -114,7 +117,7 @@ inline freezing_point_result freezing_point(const solution& s, models::model_id 
     return below_limit();
   if (!(f_hi < 0.0)) {  // vanishingly dilute: depression below rounding
     r.temperature = hi;
-    r.check = models::check(m, s, W, hi);
+    r.check = ln_aw.check(W, hi);
     return r;
   }
   // A Newton step below 1e-9 K is taken without a new evaluation: the error left is of
@@ -164,7 +167,7 @@ inline freezing_point_result freezing_point(const solution& s, models::model_id 
   r.iterations = it + 1;
   r.status = converged ? solve_status::converged : solve_status::max_iterations;
   if (!converged && std::isnan(f)) r.temperature = std::numeric_limits<double>::quiet_NaN();
-  r.check = models::check(m, s, W, r.temperature);
+  r.check = ln_aw.check(W, r.temperature);
   r.check.merge(water::ice_temperature_validity(r.temperature));
   return r;
 }

@@ -55,9 +55,12 @@ struct unfrozen_phase {
 
 namespace detail {
 
-/// The ice equilibrium at T without the salt limit.
+/// The ice equilibrium at T without the salt limit. `with_check` false leaves r.check
+/// without the model's validity (the eutectic search, which reads only the masses, runs
+/// many of these; the Ross rule comparison is a nested root solve).
 inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperature,
-                                            models::model_id m, double bound_water_kg) {
+                                            models::model_id m, double bound_water_kg,
+                                            bool with_check = true) {
   models::check_temperature_argument("ice_fraction", temperature);
   detail::check_bound_water("ice_fraction", s, bound_water_kg);
   unfrozen_phase r;
@@ -66,7 +69,9 @@ inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperatur
   r.bound_water = bound_water_kg;
   const double W = s.water_mass() - bound_water_kg;
   const double T = temperature;
-  const double ln_aw_solution = models::ln_water_activity(m, s, W, T);
+  // The species are prepared once for the whole search (same values as ln_water_activity).
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  const double ln_aw_solution = ln_aw(W, T);
   const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
   if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
     // At or above the freezing point: no ice.
@@ -74,7 +79,7 @@ inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperatur
     r.unfrozen_water = W;
     r.ice = 0.0;
     r.water_activity = std::exp(ln_aw_solution);
-    r.check = models::check(m, s, W, T);
+    if (with_check) r.check = ln_aw.check(W, T);
     return r;
   }
   double total_moles = 0.0;
@@ -87,8 +92,6 @@ inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperatur
     return r;
   }
   // g(u) = ln a_w(W_u = exp(u)) - ln a_w,ice(T): positive at u = ln W, negative as W_u -> 0.
-  // The species are prepared once for the whole search (same values as ln_water_activity).
-  models::ln_water_activity_evaluator ln_aw(m, s);
   auto g = [&](double u) { return ln_aw(std::exp(u), T) - ln_aw_ice; };
   const double u_hi = std::log(W);
   double u_lo = u_hi - 2.0;
@@ -111,8 +114,10 @@ inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperatur
   r.unfrozen_water = Wu;
   r.ice = s.water_mass() - Wu - bound_water_kg;
   r.water_activity = std::exp(ln_aw_ice);
-  r.check = models::check(m, s, Wu, T);
-  r.check.merge(water::ice_temperature_validity(T));
+  if (with_check) {
+    r.check = ln_aw.check(Wu, T);
+    r.check.merge(water::ice_temperature_validity(T));
+  }
   return r;
 }
 
@@ -165,7 +170,7 @@ inline eutectic_result eutectic(const solution& s,
     return out;
   }
   auto si = [&](double T, const salt_phase** ph) {
-    const auto u = detail::solve_ice_equilibrium(s, T, m, bound_water_kg);
+    const auto u = detail::solve_ice_equilibrium(s, T, m, bound_water_kg, false);
     if (!(u.unfrozen_water > 0.0)) return std::numeric_limits<double>::quiet_NaN();
     const auto sat = most_saturated_phase(s, u.unfrozen_water, T, std::log(u.water_activity));
     if (ph) *ph = sat.phase;

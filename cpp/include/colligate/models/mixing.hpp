@@ -23,10 +23,13 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
+#include <optional>
 #include <string>
+#include <vector>
 
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/models/detail/pitzer_system.hpp"
 #include "colligate/models/norrish.hpp"
 #include "colligate/models/pitzer.hpp"
 
@@ -34,17 +37,57 @@ namespace colligate::models {
 
 namespace detail {
 
-/// ln a_w of one class alone (electrolytes: Pitzer, non-electrolytes: Norrish).
-inline double class_ln_water_activity(const solution& part, data::solute_class kind, double W,
-                                      double T) {
-  return kind == data::solute_class::electrolyte ? pitzer::ln_water_activity(part, W, T)
-                                                 : norrish::ln_water_activity(part, W, T);
-}
+/// The Ross product rule prepared once for one species list: the indices of the
+/// electrolytes (with a Pitzer system prepared for them alone) and the Norrish constants of
+/// the non-electrolytes. Evaluating it reads the amounts of the solution it was prepared
+/// for (or of any solution with the same species, such as batch rows) and does no
+/// allocation and no copy. Gives the same values, bit for bit, as evaluating each class
+/// on a solution holding that class only (solution::only). Caches the Pitzer coefficients
+/// of the last temperature: one per solve or per thread.
+class ross_system {
+ public:
+  ross_system(const solution& s, const data::pitzer_parameter_set& set) {
+    std::vector<std::size_t> electrolytes;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      if (s.species()[i].kind == data::solute_class::electrolyte)
+        electrolytes.push_back(i);
+      else
+        non_electrolytes_.push_back(norrish::term_of(s, i));
+    }
+    if (!electrolytes.empty())
+      electrolytes_.emplace(s.only(data::solute_class::electrolyte), set, electrolytes);
+  }
 
-/// Water (kg) that `part` alone needs to reach ln a_w = target (< 0), found on ln W.
-inline double water_for_activity(const solution& part, data::solute_class kind, double target,
-                                  double T, double W_hint) {
-  auto f = [&](double u) { return class_ln_water_activity(part, kind, std::exp(u), T) - target; };
+  bool has_electrolytes() const noexcept { return electrolytes_.has_value(); }
+  bool has_non_electrolytes() const noexcept { return !non_electrolytes_.empty(); }
+
+  /// ln a_w of the electrolytes alone in `water_kg` (Pitzer); requires has_electrolytes().
+  double ln_electrolytes(const double* moles, double water_kg, double temperature) {
+    return electrolytes_->ln_water_activity(moles, water_kg, temperature);
+  }
+  /// ln a_w of the non-electrolytes alone in `water_kg` (Norrish).
+  double ln_non_electrolytes(const double* moles, double water_kg) const {
+    return norrish::ln_water_activity(non_electrolytes_.data(), non_electrolytes_.size(), moles,
+                                      water_kg);
+  }
+  /// Ross: ln a_w = ln a_w,Pitzer(electrolytes in W) + ln a_w,Norrish(non-electrolytes in W).
+  double ln_water_activity(const double* moles, double water_kg, double temperature) {
+    double out = 0.0;
+    if (has_electrolytes()) out += ln_electrolytes(moles, water_kg, temperature);
+    if (has_non_electrolytes()) out += ln_non_electrolytes(moles, water_kg);
+    return out;
+  }
+
+ private:
+  std::optional<pitzer_system> electrolytes_;
+  std::vector<norrish::term> non_electrolytes_;
+};
+
+/// Water (kg) that one class alone needs to reach ln a_w = target (< 0), found on ln W;
+/// `ln_aw(W)` is that class's ln a_w with W of water.
+template <class LnAw>
+double water_for_activity(LnAw&& ln_aw, double target, double W_hint) {
+  auto f = [&](double u) { return ln_aw(std::exp(u)) - target; };
   double lo = std::log(W_hint), hi = lo;
   double flo = f(lo), fhi = flo;
   // ln a_w rises with W: widen until f(lo) < 0 < f(hi).
@@ -57,29 +100,20 @@ inline double water_for_activity(const solution& part, data::solute_class kind, 
   return std::exp(0.5 * (a + b));
 }
 
-}  // namespace detail
-
-/// ZSR water activity of a salt + non-electrolyte mixture with `water_kg` of water.
-/// Reduces to the single model when only one class is present.
-inline double zsr_ln_water_activity(const solution& s, double water_kg, double temperature) {
-  using data::solute_class;
-  const bool el = s.has_electrolytes(), ne = s.has_non_electrolytes();
-  if (!el && !ne) return 0.0;
-  if (!ne) return pitzer::ln_water_activity(s, water_kg, temperature);
-  if (!el) return norrish::ln_water_activity(s, water_kg, temperature);
-  const auto ions = s.only(solute_class::electrolyte);
-  const auto neutral = s.only(solute_class::non_electrolyte);
-  const double l_el = pitzer::ln_water_activity(ions, water_kg, temperature);
-  const double l_ne = norrish::ln_water_activity(neutral, water_kg, temperature);
+/// ZSR ln a_w of a mixture holding both classes, on a prepared system (see
+/// zsr_ln_water_activity below).
+inline double zsr_ln_water_activity(ross_system& sys, const double* moles, double water_kg,
+                                    double temperature) {
+  const double l_el = sys.ln_electrolytes(moles, water_kg, temperature);
+  const double l_ne = sys.ln_non_electrolytes(moles, water_kg);
   if (l_el == 0.0) return l_ne;  // a class present with zero amounts counts as absent
   if (l_ne == 0.0) return l_el;
   // g(target) = sum_k W_k(target) - W rises with the target activity: at the lower of
   // the two single-class values one class needs all of W, so g > 0; far below, g < 0.
+  const auto el = [&](double W) { return sys.ln_electrolytes(moles, W, temperature); };
+  const auto ne = [&](double W) { return sys.ln_non_electrolytes(moles, W); };
   auto g = [&](double target) {
-    return detail::water_for_activity(ions, solute_class::electrolyte, target, temperature,
-                                      water_kg) +
-           detail::water_for_activity(neutral, solute_class::non_electrolyte, target,
-                                      temperature, water_kg) -
+    return water_for_activity(el, target, water_kg) + water_for_activity(ne, target, water_kg) -
            water_kg;
   };
   double hi = std::min(l_el, l_ne), lo = l_el + l_ne;
@@ -92,31 +126,67 @@ inline double zsr_ln_water_activity(const solution& s, double water_kg, double t
   return 0.5 * (a + b);
 }
 
+}  // namespace detail
+
+/// ZSR water activity of a salt + non-electrolyte mixture with `water_kg` of water.
+/// Reduces to the single model when only one class is present.
+inline double zsr_ln_water_activity(const solution& s, double water_kg, double temperature) {
+  const bool el = s.has_electrolytes(), ne = s.has_non_electrolytes();
+  if (!el && !ne) return 0.0;
+  if (!ne) return pitzer::ln_water_activity(s, water_kg, temperature);
+  if (!el) return norrish::ln_water_activity(s, water_kg, temperature);
+  detail::ross_system sys(s, pitzer::default_parameters());
+  return detail::zsr_ln_water_activity(sys, s.moles().data(), water_kg, temperature);
+}
+
 struct ross {
   static constexpr const char* id = "ross";
   /// Largest |a_w(Ross) - a_w(ZSR)| accepted before the mixture is flagged.
   static constexpr double max_rule_disagreement = 0.005;
 
+  /// ln a_w. Prepares the species once (detail::ross_system); a solver calling this many
+  /// times on one solution holds a ross_system itself (ln_water_activity_evaluator).
   static double ln_water_activity(const solution& s, double water_kg, double temperature) {
-    double out = 0.0;
-    if (s.has_electrolytes())
-      out += pitzer::ln_water_activity(s.only(data::solute_class::electrolyte), water_kg,
-                                       temperature);
-    if (s.has_non_electrolytes())
-      out += norrish::ln_water_activity(s.only(data::solute_class::non_electrolyte), water_kg,
-                                        temperature);
-    return out;
+    detail::ross_system sys(s, pitzer::default_parameters());
+    return sys.ln_water_activity(s.moles().data(), water_kg, temperature);
+  }
+
+  /// Validity of each class's model and, for a mixture of both classes, the comparison of
+  /// the Ross and ZSR rules at this state (one ZSR solve, nested root finding: a solver
+  /// calls it once, at its final state). `sys` must be prepared for the species of `s`.
+  static validity check(const solution& s, double water_kg, double temperature,
+                        detail::ross_system& sys) {
+    validity v = check_classes(s, water_kg, temperature);
+    if (v.in_range() && s.has_electrolytes() && s.has_non_electrolytes())
+      compare_rules(v, s, water_kg, temperature, sys);
+    return v;
   }
 
   static validity check(const solution& s, double water_kg, double temperature) {
+    validity v = check_classes(s, water_kg, temperature);
+    if (v.in_range() && s.has_electrolytes() && s.has_non_electrolytes()) {
+      detail::ross_system sys(s, pitzer::default_parameters());
+      compare_rules(v, s, water_kg, temperature, sys);
+    }
+    return v;
+  }
+
+ private:
+  static validity check_classes(const solution& s, double water_kg, double temperature) {
     validity v;
-    const bool el = s.has_electrolytes(), ne = s.has_non_electrolytes();
-    if (el) v.merge(pitzer::check(s.only(data::solute_class::electrolyte), water_kg, temperature));
-    if (ne)
+    if (s.has_electrolytes())
+      v.merge(pitzer::check(s.only(data::solute_class::electrolyte), water_kg, temperature));
+    if (s.has_non_electrolytes())
       v.merge(norrish::check(s.only(data::solute_class::non_electrolyte), water_kg, temperature));
-    if (!v.in_range() || !el || !ne) return v;
-    const double a_ross = std::exp(ln_water_activity(s, water_kg, temperature));
-    const double a_zsr = std::exp(zsr_ln_water_activity(s, water_kg, temperature));
+    return v;
+  }
+
+  static void compare_rules(validity& v, const solution& s, double water_kg, double temperature,
+                            detail::ross_system& sys) {
+    const double* moles = s.moles().data();
+    const double a_ross = std::exp(sys.ln_water_activity(moles, water_kg, temperature));
+    const double a_zsr =
+        std::exp(detail::zsr_ln_water_activity(sys, moles, water_kg, temperature));
     if (!(std::abs(a_ross - a_zsr) <= max_rule_disagreement)) {
       char buf[200];
       std::snprintf(buf, sizeof buf,
@@ -125,7 +195,6 @@ struct ross {
                     a_ross, a_zsr);
       v.reason = std::string("model 'ross': salt + non-electrolyte mixture: ") + buf;
     }
-    return v;
   }
 };
 

@@ -25,6 +25,7 @@
 /// max_mass_fraction; temperatures 233.15-323.15 K.
 
 #include <cmath>
+#include <cstddef>
 #include <string>
 
 #include "colligate/core/constants.hpp"
@@ -48,6 +49,44 @@ struct norrish {
       const auto& nc = s.species()[i].norrish;
       if (!nc.available) continue;
       const double x = s.moles()[i] / n_total;
+      if (nc.k > 0.0)
+        sqrt_sum += std::sqrt(nc.k) * x;
+      else
+        extra -= nc.k * x * x;
+      extra -= x * x * x * (nc.k3 + nc.k4 * x);
+    }
+    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
+  }
+
+  /// The constants of one solute, copied out of its record, for evaluations on a subset of
+  /// a solution's species (the non-electrolytes of a salt + sugar mixture, Ross rule).
+  struct term {
+    std::size_t species;  ///< index into the moles of the solution
+    double particles;
+    bool available;
+    double k, k3, k4;
+  };
+
+  static term term_of(const solution& s, std::size_t i) {
+    const auto& rec = s.species()[i];
+    return {i, static_cast<double>(rec.particles), rec.norrish.available, rec.norrish.k,
+            rec.norrish.k3, rec.norrish.k4};
+  }
+
+  /// ln a_w of the solutes `terms[0..n)` alone with `water_kg` of water, `moles` indexed
+  /// like the solution the terms were taken from. The same arithmetic, in the same order,
+  /// as ln_water_activity() on a solution holding those solutes only (bit-identical); no
+  /// allocation.
+  static double ln_water_activity(const term* terms, std::size_t n, const double* moles,
+                                  double water_kg) {
+    const double nw = water_kg / constants::molar_mass_water;
+    double n_total = nw;
+    for (std::size_t i = 0; i < n; ++i) n_total += terms[i].particles * moles[terms[i].species];
+    double sqrt_sum = 0.0, extra = 0.0;
+    for (std::size_t i = 0; i < n; ++i) {
+      const auto& nc = terms[i];
+      if (!nc.available) continue;
+      const double x = moles[nc.species] / n_total;
       if (nc.k > 0.0)
         sqrt_sum += std::sqrt(nc.k) * x;
       else

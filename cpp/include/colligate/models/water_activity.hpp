@@ -45,28 +45,42 @@ inline double ln_water_activity(model_id m, const solution& s, double water_kg,
   throw invalid_input("ln_water_activity: unresolved model");
 }
 
+inline validity check(model_id m, const solution& s, double water_kg, double temperature);
+
 /// ln a_w of one solution at many (water mass, temperature) pairs, equal bit for bit to
 /// ln_water_activity(m, s, water_kg, T), with the work that depends only on the species
 /// done once: for Pitzer, the ions and parameter rows (detail::pitzer_system), whose
-/// coefficients are also kept for the last temperature. Reads the amounts of `s` at each
-/// call, so it follows a solution whose amounts are overwritten in place (batch rows).
-/// Holds a pointer to `s` and a cache: one evaluator per solve or per thread.
+/// coefficients are also kept for the last temperature; for Ross (salt + sugar), the
+/// indices of each class, the Norrish constants and the Pitzer system of the electrolytes
+/// (detail::ross_system), so an evaluation copies nothing and allocates nothing. Reads the
+/// amounts of `s` at each call, so it follows a solution whose amounts are overwritten in
+/// place (batch rows). Holds a pointer to `s` and a cache: one evaluator per solve or per
+/// thread.
 class ln_water_activity_evaluator {
  public:
   ln_water_activity_evaluator(model_id m, const solution& s) : model_(resolve(m, s)), s_(&s) {
     if (model_ == model_id::pitzer) pitzer_.emplace(s, pitzer::default_parameters());
+    if (model_ == model_id::ross) ross_.emplace(s, pitzer::default_parameters());
   }
   /// The concrete model (after resolving 'auto').
   model_id model() const noexcept { return model_; }
   double operator()(double water_kg, double temperature) {
     if (pitzer_) return pitzer_->ln_water_activity(s_->moles().data(), water_kg, temperature);
+    if (ross_) return ross_->ln_water_activity(s_->moles().data(), water_kg, temperature);
     return ln_water_activity(model_, *s_, water_kg, temperature);
+  }
+  /// check(model, s, water_kg, T) for the solution and model this evaluator was prepared
+  /// for, same result; for Ross its rule comparison reuses the prepared system.
+  validity check(double water_kg, double temperature) {
+    if (ross_) return ross::check(*s_, water_kg, temperature, *ross_);
+    return models::check(model_, *s_, water_kg, temperature);
   }
 
  private:
   model_id model_;
   const solution* s_;
   std::optional<detail::pitzer_system> pitzer_;
+  std::optional<detail::ross_system> ross_;
 };
 
 inline validity check(model_id m, const solution& s, double water_kg, double temperature) {

@@ -120,6 +120,16 @@ class pitzer_system {
     }
   }
 
+  /// Prepares the model for `part`, a solution holding some of the species of a larger
+  /// one (the electrolytes of a salt + sugar mixture), and reads the amounts of the larger
+  /// one at evaluation: species j of `part` is species `species_of_part[j]` there. Same
+  /// arithmetic as a system prepared for `part` itself.
+  pitzer_system(const solution& part, const data::pitzer_parameter_set& set,
+                const std::vector<std::size_t>& species_of_part)
+      : pitzer_system(part, set) {
+    for (auto& t : terms_) t.species = species_of_part.at(t.species);
+  }
+
   /// Ion molalities (per slot) and ideal particles for `moles` (one per species of the
   /// solution it was prepared for) in `water_kg` of water.
   void molalities(const double* moles, double water_kg, double* m, double& other) const {
