@@ -12,7 +12,7 @@
 
 namespace colligate_test {
 
-/// True for rows the transcription notes flag as doubtful (values far below their
+/// True for rows the copy notes flag as doubtful (values far below their
 /// neighbours; see tests/reference/NOTES_reference_data.md).
 inline bool doubtful_crc_row(const csv_row& row) {
   return row.at("note").find("below neighbours") != std::string::npos;

@@ -13,5 +13,5 @@ REFERENCE = pathlib.Path(__file__).resolve().parents[1] / "reference"
 def crc_freezing() -> pd.DataFrame:
     """CRC Handbook (102nd ed., 2021) freezing-point depressions; source_key per row."""
     df = pd.read_csv(REFERENCE / "crc_freezing_points.csv", keep_default_na=False)
-    # rows the transcription marks as doubtful are excluded (see NOTES_reference_data.md)
+    # rows the copy marks as doubtful are excluded (see NOTES_reference_data.md)
     return df[~df["note"].str.contains("below neighbours")]

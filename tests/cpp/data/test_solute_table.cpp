@@ -52,7 +52,7 @@ TEST_CASE("names resolve case-insensitively by id, name, formula or alias", "[da
 }
 
 TEST_CASE("Norrish constants agree with the published table where we use them", "[data][norrish]") {
-  // tests/reference/norrish_constants.csv transcribes Makinen (2010) Table 3 and recalled
+  // tests/reference/norrish_constants.csv copies Makinen (2010) Table 3 and recalled
   // Chirife et al. (1980) values; where the built-in record cites that source, K must match.
   for (const auto& row : colligate_test::read_reference("norrish_constants.csv")) {
     const auto* rec = builtin_solutes().try_find(row.at("solute"));

@@ -24,7 +24,7 @@ struct nist_problem {
   double certified_rss = 0.0;
 };
 
-// NIST StRD nonlinear regression datasets (source key nist_strd_nls), transcribed in
+// NIST StRD nonlinear regression datasets (source key nist_strd_nls), copied in
 // tests/reference/nist_strd_data.csv and nist_strd_certified.csv.
 nist_problem load_nist(const std::string& name) {
   std::vector<double> xs, ys;

@@ -93,7 +93,7 @@ TEST_CASE("NaCl osmotic coefficient at 25 C vs Hamer & Wu (1972)", "[models][pit
   const std::vector<std::pair<double, double>> hamer_wu = {
       {0.1, 0.9324}, {0.2, 0.9245}, {0.5, 0.9209}, {1.0, 0.9355}, {2.0, 0.9833},
       {3.0, 1.0453}, {4.0, 1.1158}, {5.0, 1.1916}, {6.0, 1.2706}};
-  // archer_1992 (worst 0.0036, at 2 mol/kg) included: Archer (1992) as transcribed.
+  // archer_1992 (worst 0.0036, at 2 mol/kg) included: Archer (1992) as copied.
   for (const auto* set : {&data::spencer_1990_parameters(), &data::harvie_1984_parameters(),
                           &data::archer_1992_parameters()}) {
     double worst = 0.0;
@@ -227,7 +227,7 @@ TEST_CASE("Debye-Hueckel limiting law as I -> 0", "[models][pitzer]") {
 
 TEST_CASE("frezchem.dat refit agrees with Spencer et al. (1990) eq. 2 for MgCl2", "[models][pitzer][data]") {
   // Spencer, Moller & Weare (1990) give P(T) = a1 + a2 T + a6 T^2 + a9 T^3 + a3/T + a4 ln T;
-  // their MgCl2 beta0 and beta1 coefficients as transcribed in pytzer (parameters/spencer1990.py).
+  // their MgCl2 beta0 and beta1 coefficients as copied in pytzer (parameters/spencer1990.py).
   // The refit used here (Toner & Sletten 2013) must match within 1e-3 over 220-298 K.
   auto smw = [](const std::array<double, 6>& a, double T) {
     return a[0] + a[1] * T + a[2] * T * T + a[3] * T * T * T + a[4] / T + a[5] * std::log(T);
@@ -318,7 +318,7 @@ TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points
   // closed form (x >= 1) meet at x = 1 (identity, rel 1e-12).
   CHECK_THAT(models::detail::pitzer_h(1e-9), WithinRel(0.25, 1e-8));
   CHECK_THAT(models::detail::pitzer_h(1.0 - 1e-15), WithinRel(models::detail::pitzer_h(1.0), 1e-12));
-  // Archer (1992) Table 2 as transcribed: the set's parameters at 25 C lie near the
+  // Archer (1992) Table 2 as copied: the set's parameters at 25 C lie near the
   // Pitzer & Mayorga (1973) values of the usual form (beta0 0.0765, beta1 0.2664): Archer's
   // beta0 differs because his C1 term takes part of it (our evaluation: 0.0806, 0.2631).
   const auto p25 = models::detail::evaluate_coefficients(set, 298.15);

@@ -59,7 +59,7 @@ inline const std::vector<citation>& citations() {
        "Concentrative properties of aqueous solutions: density, refractive index, "
        "freezing point depression, and viscosity",
        "CRC Handbook of Chemistry and Physics, 102nd ed., CRC Press", "ISBN 9780367712600",
-       "freezing-point depression vs mass percent, 20 C densities; transcribed in "
+       "freezing-point depression vs mass percent, 20 C densities; copied in "
        "tests/reference/crc_freezing_points.csv"},
       {"makinen_2010", "Makinen, K. K.", 2010,
        "Sugar alcohols, caries incidence, and remineralization of caries lesions: a "
@@ -85,8 +85,8 @@ inline const std::vector<citation>& citations() {
        "Geochim. Cosmochim. Acta 54, 575-590", "doi:10.1016/0016-7037(90)90354-N",
        "Pitzer parameters and solubility products below 25 C (valid to about -54 C); "
        "coefficients read in the PHREEQC database frezchem.dat (toner_sletten_2013), MgCl2 "
-       "cross-checked against the paper's eq. 2 coefficients as transcribed in pytzer; "
-       "the A_phi(T) polynomial of the model, coefficients read in public transcriptions"},
+       "cross-checked against the paper's eq. 2 coefficients as copied in pytzer; "
+       "the A_phi(T) polynomial of the model, coefficients read in public copies"},
       {"marion_farren_1999", "Marion, G. M.; Farren, R. E.", 1999,
        "Mineral solubilities in the Na-K-Mg-Ca-Cl-SO4-H2O system: a re-evaluation of the sulfate "
        "chemistry in the Spencer-Moller-Weare model",
@@ -98,13 +98,13 @@ inline const std::vector<citation>& citations() {
        "exchange reactions: field measurements and modeling of reactive transport",
        "Geochim. Cosmochim. Acta 110, 84-105", "doi:10.1016/j.gca.2013.02.013",
        "PHREEQC database frezchem.dat: FREZCHEM (Spencer et al. 1990; Marion & Farren 1999; "
-       "Marion 2001) refitted to PHREEQC's analytic temperature form; transcribed from a public "
+       "Marion 2001) refitted to PHREEQC's analytic temperature form; copied from a public "
        "PHREEQC source tree (database/frezchem.dat)"},
       {"clegg_rard_pitzer_1994", "Clegg, S. L.; Rard, J. A.; Pitzer, K. S.", 1994,
        "Thermodynamic properties of 0-6 mol kg-1 aqueous sulfuric acid from 273.15 to 328.15 K",
        "J. Chem. Soc. Faraday Trans. 90, 1875-1894", "doi:10.1039/FT9949001875",
        "Appendix II, eqs. AII1-AII2 and Table 11: Chebyshev series for A_phi, 234.15-373.15 K "
-       "(coefficients read in a public transcription, pytzer)"},
+       "(coefficients read in a public copy, pytzer)"},
       {"pitzer_1975", "Pitzer, K. S.", 1975,
        "Thermodynamics of electrolytes. V. Effects of higher-order electrostatic terms",
        "J. Solution Chem. 4, 249-265", "doi:10.1007/BF00646562",
@@ -113,13 +113,13 @@ inline const std::vector<citation>& citations() {
        "in Activity Coefficients in Electrolyte Solutions, 2nd ed., CRC Press, 75-153",
        "ISBN 0-8493-5415-3 (from memory)",
        "osmotic and activity coefficient equations; Appendix B, eqs. B-21 to B-30 and Table B-1 "
-       "(Harvie's Chebyshev approximation of J, read in a public transcription, pytzer); "
+       "(Harvie's Chebyshev approximation of J, read in a public copy, pytzer); "
        "A_phi = 0.3915 at 25 C"},
       {"harvie_1984", "Harvie, C. E.; Moller, N.; Weare, J. H.", 1984,
        "The prediction of mineral solubilities in natural waters: the "
        "Na-K-Mg-Ca-H-Cl-SO4-OH-HCO3-CO3-CO2-H2O system to high ionic strengths at 25 C",
        "Geochim. Cosmochim. Acta 48, 723-751", "doi:10.1016/0016-7037(84)90098-X",
-       "Table 1 (binary parameters, read in the pytzer HMW84 transcription) and Table 2 "
+       "Table 1 (binary parameters, read in the pytzer HMW84 copy) and Table 2 "
        "(theta, psi; values from memory)"},
       {"pitzer_mayorga_1973", "Pitzer, K. S.; Mayorga, G.", 1973,
        "Thermodynamics of electrolytes. II. Activity and osmotic coefficients for strong "
@@ -152,7 +152,7 @@ inline const std::vector<citation>& citations() {
        "J. Phys. Chem. Ref. Data 21, 793-829", "doi:10.1063/1.555915",
        "ice + NaCl.2H2O eutectic, -21.2 C near 23.3 wt% (from memory); NaCl(aq) model, "
        "eq. 36 and Table 2 (beta0, beta1, C0, C1; omega = 2.5), coefficients read in a public "
-       "transcription (pytzer, bC_Na_Cl_A92ii, with its typo corrections)"},
+       "copy (pytzer, bC_Na_Cl_A92ii, with its typo corrections)"},
       {"colligate_fit_mk2005", "colligate developers", 2026,
        "Heat-capacity difference of supercooled water and ice fitted by colligate to the "
        "temperature dependence of the Murphy & Koop (2005) vapour-pressure ratio, 233-273 K",
@@ -161,7 +161,7 @@ inline const std::vector<citation>& citations() {
        "Statistical Reference Datasets: nonlinear regression",
        "https://www.itl.nist.gov/div898/strd/nls/nls_main.shtml", "",
        "Misra1a, Thurber and MGH09: data, starting values, certified values and standard "
-       "deviations; transcribed in tests/reference/nist_strd_*.csv"},
+       "deviations; copied in tests/reference/nist_strd_*.csv"},
       {"robinson_stokes_1959", "Robinson, R. A.; Stokes, R. H.", 1959, "Electrolyte Solutions",
        "2nd ed., Butterworths, London", "",
        "Appendix 8.6, osmotic coefficients of sucrose at 25 C (values in "

@@ -16,7 +16,7 @@
 /// Sets:
 /// - "spencer_1990" (default): the low-temperature Na-K-Ca-Mg-Cl-SO4-H2O model of
 ///   Spencer, Moller & Weare (1990), with the sulfate parameters re-evaluated by Marion &
-///   Farren (1999) and Marion (2001). Coefficients transcribed from the PHREEQC database
+///   Farren (1999) and Marion (2001). Coefficients copied from the PHREEQC database
 ///   frezchem.dat, in which Toner & Sletten (2013) refitted the FREZCHEM temperature
 ///   functions to the analytic form above. Cross-check: MgCl2 beta0 and beta1 from the
 ///   original Spencer et al. (1990) eq. 2 coefficients agree with the refit within 1e-3
@@ -91,7 +91,7 @@ enum class aphi_correlation { clegg_rard_pitzer_1994, spencer_1990 };
 ///     f(T) = a1 + a2 1e-3 T + a3 4e-6 T^2 + a4/(T - 200) + a5/T + a6 100/(T - 200)^2
 ///            + a7 200/T^2 + a8 8e-9 T^3 + a9/(650 - T)^0.5 + (pressure terms a10-a23)
 ///            + a24 200/(650 - T)^3
-/// Coefficients of Archer (1992) Table 2, read in a public transcription (pytzer's
+/// Coefficients of Archer (1992) Table 2, read in a public copy (pytzer's
 /// bC_Na_Cl_A92ii, which applies the corrections of the a6/a7 multipliers and two C0
 /// coefficients noted there).
 struct archer_1992_function {
@@ -300,7 +300,7 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
       "Harvie, Moller & Weare (1984) 25 C parameters (binary salts as Pitzer & Mayorga 1973)",
       293.15, 303.15, "harvie_1984",
       {
-          // Harvie et al. (1984) Table 1, read in a public transcription (pytzer's HMW84
+          // Harvie et al. (1984) Table 1, read in a public copy (pytzer's HMW84
           // library), which prints NaCl beta1 = 0.2644; 0.2664 is the Pitzer & Mayorga (1973)
           // value that Harvie et al. adopted (from memory) and is used here.
           {"Na+", "Cl-", tf(0.0765), tf(0.2664), tf(0), tf(0.00127), 6.0, "pitzer_mayorga_1973",

@@ -11,7 +11,7 @@
 /// SI > 0 means the solution is supersaturated: the salt would crystallise.
 /// ln K(T) = ln 10 * log10 K(T) with PHREEQC's analytic form
 ///     log10 K = A1 + A2 T + A3 / T + A4 log10 T + A5 / T^2 + A6 T^2,
-/// coefficients transcribed from the PHREEQC database frezchem.dat (Toner & Sletten 2013
+/// coefficients copied from the PHREEQC database frezchem.dat (Toner & Sletten 2013
 /// refit of the FREZCHEM functions). Cross-checks: halite log10 K(298.15 K) = 1.576 and
 /// the same file's ice expression reproduce our ice model within 5e-4 in a_w at 253 K
 /// (tests/cpp/equilibria/test_eutectic.cpp). Valid 219.15-298.15 K.

@@ -44,7 +44,7 @@ inline constexpr double aphi_max_temperature = 373.15;
 
 /// Debye-Hueckel osmotic slope A_phi at 0.1 MPa, kg^1/2 mol^-1/2: Chebyshev series of
 /// Clegg, Rard & Pitzer (1994), Appendix II, eqs. AII1-AII2, Table 11 (coefficients
-/// transcribed from a public copy; the first is halved as the series requires).
+/// copied from a public copy; the first is halved as the series requires).
 /// 0.3915 at 298.15 K, 0.3767 at 273.15 K. Beyond 234.15-373.15 K it is extrapolated.
 inline double debye_huckel_osmotic_slope(double temperature) {
   static constexpr std::array<double, 19> a = {
@@ -67,7 +67,7 @@ inline double debye_huckel_osmotic_slope(double temperature) {
 /// Debye-Hueckel osmotic slope A_phi of Spencer, Moller & Weare (1990), kg^1/2 mol^-1/2:
 ///     A_phi = a1 + a2 T + a3 T^2 + a4 T^3 + a5 / T + a6 ln T
 /// (the form of their eq. 2 for the Pitzer parameters), the slope their low-temperature
-/// parameters were fitted with. Coefficients read in public transcriptions of the paper.
+/// parameters were fitted with. Coefficients read in public copies of the paper.
 /// 0.3917 at 298.15 K (Harvie et al. 1984 used 0.392), 0.3781 at 273.15 K, 0.3671 at
 /// 233.15 K; smooth down to the model's lower limit, 219.15 K.
 inline double debye_huckel_osmotic_slope_spencer_1990(double temperature) {
