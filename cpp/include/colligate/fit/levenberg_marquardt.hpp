@@ -12,8 +12,8 @@
 ///
 /// by a column-pivoted QR of the stacked matrix [J; sqrt(lambda) D], never by the normal
 /// equations, so ill-conditioned problems (NIST StRD "higher difficulty") keep their digits.
-/// D holds the largest column norms of J seen so far (Moré 1978, Lecture Notes in Math.
-/// 630, 105), which makes the iteration invariant to the scale of each parameter. A trial
+/// D holds the largest column norms of J seen so far (Moré 1978, Numerical Analysis,
+/// Springer, vol. 630, p. 105), which makes the iteration invariant to the scale of each parameter. A trial
 /// point is projected onto the bounds; the gain ratio uses the projected step.
 ///
 /// Statistics at the solution, from the singular value decomposition of the column-scaled
