@@ -293,9 +293,14 @@ class UnfrozenPhase:
         )
 
 
-def _thermal_args(composition: Mapping[str, float], solution: Any):
+def _thermal_call(core_fn, composition: Mapping[str, float], solution: Any, T: Temperature,
+                  model: str, bound_water: float) -> Union[float, np.ndarray]:
+    """Calls a compiled thermal function over scalar or array T, turning reasons into warnings."""
     comp = {str(k): float(v) for k, v in dict(composition).items()}
-    return comp, _as_solution(solution)
+    scalar = np.ndim(T) == 0
+    values, reason, count = core_fn(comp, _as_solution(solution), np.asarray(T, dtype=float), model, bound_water)
+    _warn(reason, count)
+    return float(values) if scalar else values
 
 
 def enthalpy(
@@ -321,11 +326,7 @@ def enthalpy(
     bound_water : float
         Unfreezable water, kg per kg of food.
     """
-    comp, s = _thermal_args(composition, solution)
-    scalar = np.ndim(T) == 0
-    values, reason, count = _core.food_enthalpy(comp, s, np.asarray(T, dtype=float), model, bound_water)
-    _warn(reason, count)
-    return float(values) if scalar else values
+    return _thermal_call(_core.food_enthalpy, composition, solution, T, model, bound_water)
 
 
 def apparent_specific_heat(
@@ -337,11 +338,7 @@ def apparent_specific_heat(
     bound_water: float = 0.0,
 ) -> Union[float, np.ndarray]:
     """Apparent specific heat dH/dT of a food, J/(kg K) (arguments as :func:`enthalpy`)."""
-    comp, s = _thermal_args(composition, solution)
-    scalar = np.ndim(T) == 0
-    values, reason, count = _core.food_apparent_specific_heat(comp, s, np.asarray(T, dtype=float), model, bound_water)
-    _warn(reason, count)
-    return float(values) if scalar else values
+    return _thermal_call(_core.food_apparent_specific_heat, composition, solution, T, model, bound_water)
 
 
 def frozen_specific_heat_chen(
@@ -384,8 +381,8 @@ def heat_load(
     Returns a dict with ``total``, ``sensible`` and ``latent`` (J/kg, positive when
     cooling) and ``ice_fraction_from``, ``ice_fraction_to``.
     """
-    comp, s = _thermal_args(composition, solution)
-    out = dict(_core.food_heat_load(comp, s, float(from_T), float(to_T), model, bound_water))
+    comp = {str(k): float(v) for k, v in dict(composition).items()}
+    out = dict(_core.food_heat_load(comp, _as_solution(solution), float(from_T), float(to_T), model, bound_water))
     _warn(out.pop("reason"))
     return out
 
