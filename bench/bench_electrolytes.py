@@ -23,25 +23,18 @@ from __future__ import annotations
 import argparse
 import os
 import sys
-import time
 import warnings
 
 import numpy as np
 import pandas as pd
 
 import colligate as cg
+from _timing import best_of  # bench/_timing.py (run as python3 bench/<file>.py)
 
 warnings.simplefilter("ignore", cg.OutOfValidityRangeWarning)
 warnings.simplefilter("ignore", cg.BatchRowWarning)
 
 
-def best_of(fn, repeat=3):
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
 
 
 # --- (b) the Pitzer osmotic coefficient in NumPy, as an analyst would write it -----------

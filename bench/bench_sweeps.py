@@ -21,6 +21,7 @@ import pandas as pd
 from scipy.optimize import brentq
 
 import colligate as cg
+from _timing import best_of  # bench/_timing.py (run as python3 bench/<file>.py)
 
 SPECIES = ["sucrose", "glucose", "fructose", "lactose", "glycerol", "citric_acid"]
 warnings.simplefilter("ignore", cg.OutOfValidityRangeWarning)
@@ -32,13 +33,6 @@ def sweep(n: int, seed: int = 0) -> pd.DataFrame:
     return pd.DataFrame(rng.uniform(0.0, 0.05, (n, len(SPECIES))), columns=SPECIES)
 
 
-def best_of(fn, repeat=3):
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
 
 
 # --- the same Norrish + ice model written as an analyst would, for the brentq loop ----
