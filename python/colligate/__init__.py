@@ -441,7 +441,7 @@ def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.
 
 
 def mean_activity_coefficient(
-    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "spencer_1990"
+    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "spencer_1990_icefit"
 ) -> float:
     """Mean molal activity coefficient of electrolyte ``solute`` at ``T`` (K), Pitzer model."""
     value, reason = _core.mean_activity_coefficient(_as_solution(solution), solute, float(T), parameter_set)

@@ -450,7 +450,7 @@ def make_solute_record(id: str, name: str, molar_mass: typing.SupportsFloat | ty
     """
     A non-electrolyte record with user-fitted Norrish constants (molar mass in kg/mol).
     """
-def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990') -> tuple[float, str]:
+def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
 def models() -> list[str]:
     """
@@ -462,7 +462,7 @@ def norrish_solute_record(result: FitResult, id: str, name: str, molar_mass: typ
     """
 def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
-def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990') -> tuple[float, str]:
+def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
 def pitzer_parameter_set_range(parameter_set: str) -> tuple[float, float, str, str]:
     """

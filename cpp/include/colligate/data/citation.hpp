@@ -73,7 +73,8 @@ inline const std::vector<citation>& citations() {
       {"melinder_2010", "Melinder, A.", 2010,
        "Properties of secondary working fluids for indirect systems",
        "International Institute of Refrigeration, Paris", "ISBN 978-2-913149-76-3 (from memory)",
-       "freezing curve of propylene glycol-water, as fitted in CoolProp's INCOMP::MPG"},
+       "freezing curves of propylene glycol-, NaCl- and CaCl2-water, as fitted in CoolProp's "
+       "INCOMP::MPG, INCOMP::MNA and INCOMP::MCA"},
       {"colligate_fit_melinder", "colligate developers", 2026,
        "Norrish constants of propylene glycol fitted by colligate to the Melinder (2010) "
        "freezing curve (CoolProp 8.0 INCOMP::MPG T_freeze, 5-40 wt%)",
@@ -87,6 +88,13 @@ inline const std::vector<citation>& citations() {
        "coefficients read in the PHREEQC database frezchem.dat (toner_sletten_2013), MgCl2 "
        "cross-checked against the paper's eq. 2 coefficients as copied in pytzer; "
        "the A_phi(T) polynomial of the model, coefficients read in public copies"},
+      {"colligate_icefit", "colligate developers", 2026,
+       "Low-temperature curvature of the NaCl and CaCl2 Pitzer parameters of Spencer et al. "
+       "(1990), fitted to the evaluated ice lines of Melinder (2010)",
+       "colligate source tree: tools/fit_brine_ice_line.py", "",
+       "least-squares fit to Melinder's freezing curves as represented by CoolProp "
+       "INCOMP::MNA / INCOMP::MCA (NaCl 1-23 wt%, CaCl2 1-26 wt%); 25 C values and slopes "
+       "kept"},
       {"marion_farren_1999", "Marion, G. M.; Farren, R. E.", 1999,
        "Mineral solubilities in the Na-K-Mg-Ca-Cl-SO4-H2O system: a re-evaluation of the sulfate "
        "chemistry in the Spencer-Moller-Weare model",

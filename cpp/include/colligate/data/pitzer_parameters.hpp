@@ -14,7 +14,10 @@
 /// so a0 is the value at 25 C and a 25 C-only set has a1..a5 = 0.
 ///
 /// Sets:
-/// - "spencer_1990" (default): the low-temperature Na-K-Ca-Mg-Cl-SO4-H2O model of
+/// - "spencer_1990_icefit" (default): "spencer_1990" with the NaCl and CaCl2 rows given
+///   low-temperature curvature fitted to the ice lines of Melinder (2010); see
+///   spencer_1990_icefit_parameters() and docs/electrolytes.md.
+/// - "spencer_1990": the low-temperature Na-K-Ca-Mg-Cl-SO4-H2O model of
 ///   Spencer, Moller & Weare (1990), with the sulfate parameters re-evaluated by Marion &
 ///   Farren (1999) and Marion (2001). Coefficients copied from the PHREEQC database
 ///   frezchem.dat, in which Toner & Sletten (2013) refitted the FREZCHEM temperature
@@ -292,6 +295,43 @@ inline const pitzer_parameter_set& spencer_1990_parameters() {
   return set;
 }
 
+/// "spencer_1990_icefit" (default): spencer_1990 with the NaCl and CaCl2 binary rows
+/// given low-temperature curvature terms fitted to the evaluated ice lines of Melinder
+/// (2010) (tools/fit_brine_ice_line.py). Each added term has value and slope zero at
+/// 298.15 K, so the 25 C parameters and their temperature derivatives are those of the
+/// published set; only the curvature below 25 C changes (over 219-298 K: NaCl beta0 by
+/// at most -0.012; CaCl2 beta0 +0.009, beta1 -0.36..+0.45, C-phi +0.003). All other rows, the
+/// mixing terms, A_phi and the salt solubility products are Spencer et al.'s.
+inline const pitzer_parameter_set& spencer_1990_icefit_parameters() {
+  using detail::tf;
+  static const pitzer_parameter_set set = [] {
+    pitzer_parameter_set s = spencer_1990_parameters();
+    s.id = "spencer_1990_icefit";
+    s.description =
+        "Spencer, Moller & Weare (1990) set (sulfates Marion & Farren 1999, Marion 2001; "
+        "frezchem.dat) with NaCl and CaCl2 curvature below 25 C fitted to Melinder (2010) "
+        "ice lines by colligate (25 C values and slopes unchanged)";
+    for (auto& b : s.binaries) {
+      if (b.cation == "Na+" && b.anion == "Cl-") {
+        // tools/fit_brine_ice_line.py: beta0 += c (T - T_r)^2 / 1e4, c = -0.01849624994.
+        b.beta0 = tf(0.076276, -886.777, -4.19728, 0.007239381384, -2.950224994e-06, 8942.9);
+        b.source = "colligate_icefit";
+        b.note = "NaCl (spencer_1990 with fitted beta0 curvature)";
+      } else if (b.cation == "Ca+2" && b.anion == "Cl-") {
+        // tools/fit_brine_ice_line.py: two shapes each on beta0, beta1 and C-phi,
+        // regularised (see the script).
+        b.beta0 = tf(0.304058, 864.4903987, 11.94793, -0.05285165275, 3.783969605e-05, -3394.2);
+        b.beta1 = tf(1.708132, -39643.40661, 0, -1.640686996, 0.002009494198, 0);
+        b.cphi = tf(-0.00199, 247.8404573, -0.64691, 0.009321530354, -9.066156702e-06, -12466.4);
+        b.source = "colligate_icefit";
+        b.note = "CaCl2 (spencer_1990 with fitted beta0, beta1, C-phi curvature)";
+      }
+    }
+    return s;
+  }();
+  return set;
+}
+
 /// Harvie, Moller & Weare (1984) 25 C set (see the file comment).
 inline const pitzer_parameter_set& harvie_1984_parameters() {
   using detail::tf;
@@ -375,16 +415,17 @@ inline const pitzer_parameter_set& archer_1992_parameters() {
 
 /// Ids of the built-in parameter sets; the first is the default.
 inline std::vector<std::string> pitzer_parameter_set_ids() {
-  return {"spencer_1990", "harvie_1984", "archer_1992"};
+  return {"spencer_1990_icefit", "spencer_1990", "harvie_1984", "archer_1992"};
 }
 
 inline const pitzer_parameter_set& find_pitzer_parameter_set(const std::string& id) {
+  if (id == "spencer_1990_icefit") return spencer_1990_icefit_parameters();
   if (id == "spencer_1990") return spencer_1990_parameters();
   if (id == "harvie_1984") return harvie_1984_parameters();
   if (id == "archer_1992") return archer_1992_parameters();
   throw invalid_input("parameter_set = '" + id +
-                      "': valid Pitzer parameter sets are 'spencer_1990', 'harvie_1984' and "
-                      "'archer_1992'");
+                      "': valid Pitzer parameter sets are 'spencer_1990_icefit', "
+                      "'spencer_1990', 'harvie_1984' and 'archer_1992'");
 }
 
 }  // namespace colligate::data

@@ -12,9 +12,10 @@
 ///     ln a_w = -M_w sum_i m_i phi
 ///
 /// Parameters come from a named set in data/pitzer_parameters.hpp (default
-/// "spencer_1990", valid 219.15-298.15 K; "harvie_1984" at 25 C). The Debye-Hueckel slope
-/// A_phi(T) is the one each set was fitted with (pitzer_parameter_set::aphi): the
-/// Spencer, Moller & Weare (1990) polynomial for "spencer_1990", the Clegg, Rard & Pitzer
+/// "spencer_1990_icefit", valid 219.15-298.15 K; "spencer_1990" as published;
+/// "harvie_1984" at 25 C). The Debye-Hueckel slope A_phi(T) is the one each set was
+/// fitted with (pitzer_parameter_set::aphi): the Spencer, Moller & Weare (1990)
+/// polynomial for the two spencer sets, the Clegg, Rard & Pitzer
 /// (1994) series (validated 234.15-373.15 K) for "harvie_1984".
 ///
 /// Non-electrolytes in the solution are counted as ideal particles (ln a_w gains
@@ -45,7 +46,7 @@ struct pitzer {
   static constexpr double max_non_electrolyte_molality = 0.1;
 
   static const data::pitzer_parameter_set& default_parameters() {
-    return data::spencer_1990_parameters();
+    return data::spencer_1990_icefit_parameters();
   }
 
   /// Ion molalities (mol/kg) of the electrolytes with `water_kg` of water. Ions the
