@@ -55,6 +55,32 @@ void register_equilibria(py::module_& m) {
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate");
+  // The dairy method of Leighton (1927) / Goff & Hartel (2013) (equilibria/leighton_method.hpp).
+  py::class_<eq::leighton::mix_terms>(m, "LeightonTerms",
+                                      "Inputs of the Leighton dairy method, g per 100 g of mix.")
+      .def_readonly("sucrose_equivalent", &eq::leighton::mix_terms::sucrose_equivalent)
+      .def_readonly("milk_solids", &eq::leighton::mix_terms::milk_solids)
+      .def_readonly("water", &eq::leighton::mix_terms::water)
+      .def_property_readonly("reason",
+                             [](const eq::leighton::mix_terms& t) { return t.check.reason; });
+  m.def("leighton_terms", &eq::leighton::terms_of, py::arg("solution"));
+  m.def(
+      "leighton_freezing_point",
+      [](const solution& s) { return as_tuple(eq::leighton::freezing_point(eq::leighton::terms_of(s))); },
+      py::arg("solution"));
+  m.def(
+      "leighton_ice_fraction",
+      [](const solution& s, double T) {
+        return as_tuple(eq::leighton::ice_fraction(eq::leighton::terms_of(s), T));
+      },
+      py::arg("solution"), py::arg("temperature"));
+  m.def(
+      "leighton_depression",
+      [](const solution& s, double frozen) {
+        return as_tuple(eq::leighton::total_depression(eq::leighton::terms_of(s), frozen));
+      },
+      py::arg("solution"), py::arg("frozen_fraction"));
+
   m.def(
       "freezing_point",
       [](const solution& s, const std::string& model, const std::string& policy,

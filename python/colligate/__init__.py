@@ -74,6 +74,8 @@ __all__ = [
     "osmotic_coefficient",
     "ice_fraction",
     "unfrozen_phase",
+    "leighton_freezing_point",
+    "leighton_ice_fraction",
     "solutes",
     "citations",
     "citation",
@@ -249,6 +251,38 @@ def ice_fraction(
     )
     _warn(reason, count)
     return float(values) if scalar else values
+
+
+def leighton_freezing_point(solution: Solution) -> float:
+    """Initial freezing point (K) by the dairy method of Leighton (1927) as given by Goff &
+    Hartel (2013), Ice Cream, ch. 6: sugars as sucrose equivalents on their Table 6.1 plus
+    2.37 K per g milk solids-not-fat per 100 g water for the milk salts.
+
+    A cross-check against the figures of the dairy texts, not an activity model; see
+    ``cpp/include/colligate/equilibria/leighton_method.hpp``. Electrolytes other than milk
+    salts are left out with a warning.
+    """
+    value, reason = _core.leighton_freezing_point(_as_solution(solution))
+    _warn(reason)
+    return value
+
+
+def leighton_ice_fraction(solution: Solution, T: Temperature) -> Union[float, np.ndarray]:
+    """Fraction of the water frozen at ``T`` (K, scalar or array) by the Leighton (1927) /
+    Goff & Hartel (2013) dairy method (see :func:`leighton_freezing_point`). Beyond the end
+    of their sucrose table (180 g per 100 g water) the table is extrapolated and a warning
+    says so."""
+    s = _as_solution(solution)
+    temps = np.asarray(T, dtype=float)
+    out = np.empty(temps.shape)
+    reasons = []
+    for idx, t in np.ndenumerate(temps):
+        out[idx], reason = _core.leighton_ice_fraction(s, float(t))
+        if reason:
+            reasons.append(reason)
+    if reasons:
+        _warn(reasons[0], len(reasons))
+    return float(out) if np.ndim(T) == 0 else out
 
 
 def unfrozen_phase(

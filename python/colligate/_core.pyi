@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -270,6 +270,22 @@ class Solution:
         """
         Mass of water, kg.
         """
+class LeightonTerms:
+    """
+    Inputs of the Leighton dairy method, g per 100 g of mix.
+    """
+    @property
+    def milk_solids(self) -> float:
+        ...
+    @property
+    def reason(self) -> str:
+        ...
+    @property
+    def sucrose_equivalent(self) -> float:
+        ...
+    @property
+    def water(self) -> float:
+        ...
 class UnfrozenPhaseState:
     """
     State of a partly frozen solution at one temperature (SI).
@@ -434,6 +450,14 @@ def latent_heat_of_fusion(composition: typing.Any) -> float:
     """
     Water fraction times the heat of fusion of ice at 0 C, J/kg of food.
     """
+def leighton_depression(solution: Solution, frozen_fraction: typing.SupportsFloat | typing.SupportsIndex) -> tuple[float, str]:
+    ...
+def leighton_freezing_point(solution: Solution) -> tuple[float, str]:
+    ...
+def leighton_ice_fraction(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex) -> tuple[float, str]:
+    ...
+def leighton_terms(solution: Solution) -> LeightonTerms:
+    ...
 def liquid_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Vapour pressure of liquid or supercooled water, Pa (Murphy & Koop 2005 eq. 10).

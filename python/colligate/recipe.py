@@ -242,6 +242,11 @@ class Recipe:
         """Ice mass / total water at T (K, scalar or array)."""
         return cg.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
 
+    def leighton_ice_fraction(self, T):
+        """Fraction of the water frozen at T (K) by the dairy method of Leighton (1927) /
+        Goff & Hartel (2013); a cross-check against the dairy texts (no bound water)."""
+        return cg.leighton_ice_fraction(self.solution(), T)
+
     def water_activity(self, T: float = 298.15) -> float:
         """Water activity of the unfrozen recipe at T (K), no ice."""
         return float(cg.water_activity(self.solution(), T=T, model=self.model))

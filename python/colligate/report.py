@@ -275,6 +275,7 @@ def _compute(solution: "cg.Solution", temps: Mapping[str, float], model: str, bo
         )
 
     return {
+        "dairy_method": _dairy_method(solution, temps),
         "model": model,
         "model_description": str(cg.describe_model(solution, model=model)),
         "composition": composition,
@@ -289,6 +290,31 @@ def _compute(solution: "cg.Solution", temps: Mapping[str, float], model: str, bo
         "water_activity_note": WATER_ACTIVITY_NOTE,
         "eutectic": eutectic,
         "ice_table": rows,
+    }
+
+
+def _dairy_method(solution: "cg.Solution", temps: Mapping[str, float]) -> dict[str, Any] | None:
+    """The Leighton (1927) / Goff & Hartel (2013) dairy method beside the model, for mixes
+    of sugars and milk solids only (None otherwise)."""
+    if "milk_salts" not in solution.solutes or [e for e in _electrolytes(solution) if e != "milk_salts"]:
+        return None
+    notes: list[str] = []
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        tf = float(cg.leighton_freezing_point(solution))
+        rows = [{"name": point, "temperature_K": float(t_k),
+                 "ice_percent_of_water": 100.0 * float(cg.leighton_ice_fraction(solution, float(t_k)))}
+                for point, t_k in temps.items()]
+    for w in caught:
+        text = str(w.message)
+        if text not in notes:
+            notes.append(text)
+    return {
+        "method": "Leighton (1927) as given by Goff & Hartel (2013), Ice Cream, ch. 6, Table 6.1",
+        "freezing_point_K": tf,
+        "freezing_point_C": celsius_from_kelvin(tf),
+        "ice_table": rows,
+        "notes": notes,
     }
 
 
@@ -314,17 +340,20 @@ def _eutectic(solution: "cg.Solution", model: str, bound_water: float) -> dict[s
 
 
 #: Relative sweetness, sucrose = 1 (mass basis). Sucrose by definition; glucose 0.74,
-#: fructose 1.73, maltose 0.32, lactose 0.16 (values widely restated from Biester et al.
-#: 1925 in food-chemistry texts, e.g. Belitz, Grosch & Schieberle, Food Chemistry; from
-#: memory); higher saccharides and maltodextrin about 0 (common practice).
+#: fructose 1.73, maltose 0.33, lactose 0.16: Bender, A Dictionary of Food and Nutrition
+#: (Oxford University Press), entry "sweeteners" (fructose 173, glucose 74, maltose 33,
+#: lactose 16; read in a public copy). Gaman & Sherrington (1990), The Science of Food,
+#: give 170, 75, 30 and 15. Maltotriose 0.1 (from memory); higher saccharides and
+#: maltodextrin about 0 (common practice).
 RELATIVE_SWEETNESS: dict[str, float] = {
-    "sucrose": 1.0, "glucose": 0.74, "fructose": 1.73, "maltose": 0.32, "lactose": 0.16,
+    "sucrose": 1.0, "glucose": 0.74, "fructose": 1.73, "maltose": 0.33, "lactose": 0.16,
     "maltotriose": 0.1, "higher_saccharides": 0.0, "maltodextrin": 0.0,
 }
 
-#: Final solubility of lactose in water, g per 100 g water, by degC (Hudson 1908; values
-#: from memory). Below 0 degC the 0 degC value is used (an upper bound: solubility falls
-#: with temperature).
+#: Final solubility of lactose in water, g per 100 g water, by degC: Hudson's values as
+#: tabulated in Lowe, Experimental Cookery, table "Solubility of lactose in water (Hudson)"
+#: (read in a public copy; Hudson's paper itself not read). Below 0 degC the 0 degC value
+#: is used (an upper bound: solubility falls with temperature).
 LACTOSE_SOLUBILITY_G_PER_100G: tuple[tuple[float, float], ...] = ((0.0, 11.9), (15.0, 16.9), (25.0, 21.6), (39.0, 31.5))
 
 #: Temperature the mix is taken from for the heat load, degC (ageing temperature; common practice).
@@ -553,6 +582,15 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     lines.append("  ice %: ice as a share of all the water; liquid kg: water still liquid,")
     lines.append("  including any counted as unable to freeze; liquid solids %: dissolved")
     lines.append("  solids as a mass share of the unfrozen liquid.")
+    dm = report.get("dairy_method")
+    if dm:
+        shares = ", ".join(f"{r['name']} {r['ice_percent_of_water']:.1f}" for r in dm["ice_table"])
+        lines.extend(_wrap(
+            f"For comparison, the dairy texts' method ({dm['method']}): initial freezing point "
+            f"{dm['freezing_point_C']:.2f} °C; ice % {shares}"
+            + (" (beyond the end of the sucrose table: extrapolated)"
+               if any("beyond" in n for n in dm["notes"]) else "") + ".",
+            indent="  ", first="  "))
 
     # model
     lines += _heading(f"Model: {report['model']}")

@@ -131,6 +131,28 @@ def test_brine_report_gives_the_eutectic_and_stops_the_ice_table():
     assert text.rstrip().split("\nCautions\n")[1]
 
 
+def test_dairy_method_beside_the_model_for_milk_mixes_only():
+    # The demo ice cream (milk solids and sugars) carries the dairy texts' method (Leighton
+    # 1927 as in Goff & Hartel 2013) beside the model; a brine does not. The values are the
+    # library's cg.leighton_ice_fraction (identity).
+    recipe = load_demo_recipe()
+    rep = quiet(build_report, recipe)
+    dm = rep["dairy_method"]
+    assert dm is not None and "Goff & Hartel" in dm["method"]
+    for row in dm["ice_table"]:
+        expected, _ = quiet_value(cg.leighton_ice_fraction, recipe.solution(), row["temperature_K"])
+        assert row["ice_percent_of_water"] == pytest.approx(100.0 * expected, abs=1e-12)
+    assert "dairy texts' method" in format_text(rep)
+    json.loads(format_json(rep))
+    assert build_report(brine())["dairy_method"] is None
+
+
+def quiet_value(fn, *args):
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        return fn(*args), None
+
+
 def test_no_eutectic_entry_without_salts():
     rep = quiet(build_report, parse_recipe(SUGAR_SYRUP, "syrup"))
     assert rep["eutectic"] is None

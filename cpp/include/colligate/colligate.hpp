@@ -17,6 +17,7 @@
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/equilibria/leighton_method.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/ideal.hpp"

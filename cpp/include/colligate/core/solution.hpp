@@ -137,7 +137,7 @@ class solution {
     const double x_na = 0.4188071, x_mg = 0.0471678, x_ca = 0.0091823, x_k = 0.0091159,
                  x_sr = 0.0000810, x_cl = 0.4874839, x_so4 = 0.0252152, x_hco3 = 0.0015340,
                  x_br = 0.0007520, x_co3 = 0.0002134, x_boh4 = 0.0000900, x_f = 0.0000610,
-                 x_oh = 0.0000080;
+                 x_oh = 0.0000071;
     const double mean_molar_mass = 31.4038218e-3;  // kg/mol, Millero et al. (2008)
     const double water_kg = 1.0 - absolute_salinity / 1000.0;
     const double n_salt = absolute_salinity / 1000.0 / mean_molar_mass;  // mol per kg seawater
