@@ -11,7 +11,8 @@ targets. Timing belongs here, never in unit tests.
 (b) Osmotic coefficient of a seawater-like mixture: ``cg.osmotic_coefficient(s, T,
     model="pitzer")`` per composition against the same Pitzer equations written with NumPy
     below (vectorised over ions, pairs and triplets, called once per composition), with
-    the "spencer_1990" rows of cpp/include/colligate/data/pitzer_parameters.hpp typed in.
+    the rows of the default set "spencer_1990_icefit" (cpp/include/colligate/data/
+    pitzer_parameters.hpp) typed in.
     Target: at least 30x faster per composition, agreeing to about 1e-12 relative.
 (c) Salt + sugar freezing point (informational, no target): the batch kernel on NaCl +
     sucrose rows (sucrose 5-30 wt%, NaCl 0.5-5 wt%; 'auto' resolves to the Ross rule, whose
@@ -45,11 +46,12 @@ IONS = ["Na+", "K+", "Ca+2", "Mg+2", "Cl-", "SO4-2"]
 Z = np.array([1.0, 1.0, 2.0, 2.0, -1.0, -2.0])
 IX = {n: i for i, n in enumerate(IONS)}
 TR = 298.15
-# spencer_1990 rows: cation, anion, (beta0, beta1, beta2, C-phi) coefficients a0..a5
+# spencer_1990_icefit rows (spencer_1990 with the NaCl and CaCl2 rows of
+# tools/fit_brine_ice_line.py): cation, anion, (beta0, beta1, beta2, C-phi) coefficients a0..a5
 BINARY = [
-    ("Na+", "Cl-", [[0.076276, -886.777, -4.19728, 0.00613645, -1.1006e-06, 8942.9], [0.280431, -8677.858, -94.69966, 0.2944375, -0.000147476, -191956.0], [0] * 6, [0.001271, 52.6, 0.07951, 0.00031974, -3.195e-07, -1237.7]]),
+    ("Na+", "Cl-", [[0.076276, -886.777, -4.19728, 0.007239381384, -2.950224994e-06, 8942.9], [0.280431, -8677.858, -94.69966, 0.2944375, -0.000147476, -191956.0], [0] * 6, [0.001271, 52.6, 0.07951, 0.00031974, -3.195e-07, -1237.7]]),
     ("K+", "Cl-", [[0.048342, -758.497, -4.69717, 0.01003107, -3.7342e-06, 64.0], [0.210434, -14898.951, -173.19076, 0.55331238, -0.000283943, -412199.8], [0] * 6, [-0.000839, 91.27, 0.58481, -0.00129068, 4.911e-07, -11.4]]),
-    ("Ca+2", "Cl-", [[0.304058, 1265.271, 11.94793, -0.03558926, 1.64514e-05, -3394.2], [1.708132, 0.0, 0.0, -0.015417, 3.1791e-05, 0.0], [0] * 6, [-0.00199, 125.363, -0.64691, 0.00444735, -3.2027e-06, -12466.4]]),
+    ("Ca+2", "Cl-", [[0.304058, 864.4903987, 11.94793, -0.05285165275, 3.783969605e-05, -3394.2], [1.708132, -39643.40661, 0.0, -1.640686996, 0.002009494198, 0.0], [0] * 6, [-0.00199, 247.8404573, -0.64691, 0.009321530354, -9.066156702e-06, -12466.4]]),
     ("Mg+2", "Cl-", [[0.351542, -392.241, -17.65506, 0.0703283, -4.17563e-05, -117885.0], [1.821364, -65485.608, 1302.23382, -6.71036992, 0.004429219, 13522889.4], [0] * 6, [0.006507, 0.0, 0.0, -0.00024995, 2.418e-07, 0.0]]),
     ("Na+", "SO4-2", [[0.038071, -26.946, -0.36262, 0.00595978, -1.6429e-06, 945.0], [1.035408, -106.397, -1.89717, 0.01819155, -8.1292e-06, 4580.4], [0] * 6, [-0.002331, -0.711, -0.04568, -0.00053454, -2.014e-07, 116.1]]),
     ("K+", "SO4-2", [[0.003795, 22.492, 0.2029, 0.00165088, 9.746e-07, -540.7], [1.052416, 767.611, 6.36874, -0.03159629, 2.98397e-05, -16995.7], [0] * 6, [0.014845, 6.792, 0.12817, -0.00049111, 5.849e-07, -332.0]]),
