@@ -245,6 +245,44 @@ TEST_CASE("frezchem.dat refit agrees with Spencer et al. (1990) eq. 2 for MgCl2"
   }
 }
 
+TEST_CASE("frezchem.dat refit agrees with Spencer et al. (1990) eq. 2 for NaCl, KCl, CaCl2", "[models][pitzer][data]") {
+  // A second public copy of Spencer et al.'s eq. 2 coefficients (pypitzer,
+  // src/database/spencer_revised_binary.py, same form as the MgCl2 test above): beta0,
+  // beta1 and C-phi of NaCl, KCl and CaCl2. The published set's rows must match within
+  // 1e-4 over 220-298 K (achieved 7e-5, KCl beta1).
+  auto smw = [](const std::array<double, 6>& a, double T) {
+    return a[0] + a[1] * T + a[2] * T * T + a[3] * T * T * T + a[4] / T + a[5] * std::log(T);
+  };
+  struct copy_row {
+    const char* cation;
+    std::array<double, 6> b0, b1, cphi;
+  };
+  const copy_row rows[] = {
+      {"Na+",
+       {7.87239712e00, -8.3864096e-3, 1.44137774e-5, -8.7820301e-9, -4.96920671e2, -8.20972560e-1},
+       {8.66915291e2, 6.06166931e-1, -4.80489210e-4, 1.88503857e-7, -1.70460145e4, -1.67171296e2},
+       {1.70761824e00, 2.32970177e-03, -2.46665619e-06, 1.21543380e-09, -1.35583596e00, -3.87767714e-01}},
+      {"K+",
+       {2.65718766e1, 9.92715099e-3, -3.62323330e-6, -6.28427180e-11, -7.55707220e2, -4.67300770e0},
+       {1.69742977e3, 1.22270943e0, -9.9904449e-4, 4.04786721e-7, -3.286844221e4, -3.288138481e2},
+       {-3.27571680e0, -1.27222054e-3, 4.71374283e-7, 1.1162507e-11, 9.07747666e1, 5.80513562e-1}},
+      {"Ca+2",
+       {-5.62764702e01, -3.00771997e-02, 1.05630400e-05, 3.3331626e-09, 1.11730349e03, 1.06664743e01},
+       {3.4787e00, -1.5417e-02, 3.1791e-05, 0, 0, 0},
+       {2.64231655e01, 2.46922993e-02, -2.48298510e-05, 1.22421864e-08, -4.18098427e02, -5.35350322e00}},
+  };
+  for (const auto& r : rows) {
+    const auto* row = data::spencer_1990_parameters().find_binary(r.cation, "Cl-");
+    REQUIRE(row != nullptr);
+    for (double T : {220.0, 233.15, 253.15, 273.15, 298.15}) {
+      INFO(r.cation << " T = " << T);
+      CHECK_THAT(row->beta0(T), WithinAbs(smw(r.b0, T), 1e-4));
+      CHECK_THAT(row->beta1(T), WithinAbs(smw(r.b1, T), 1e-4));
+      CHECK_THAT(row->cphi(T), WithinAbs(smw(r.cphi, T), 1e-4));
+    }
+  }
+}
+
 TEST_CASE("every Pitzer parameter row resolves in the citation table", "[models][pitzer][data]") {
   for (const auto& id : data::pitzer_parameter_set_ids()) {
     const auto& set = data::find_pitzer_parameter_set(id);

@@ -85,8 +85,9 @@ inline const std::vector<citation>& citations() {
        "for the Na-K-Ca-Mg-Cl-SO4-H2O system at temperatures below 25 C",
        "Geochim. Cosmochim. Acta 54, 575-590", "doi:10.1016/0016-7037(90)90354-N",
        "Pitzer parameters and solubility products below 25 C (valid to about -54 C); "
-       "coefficients read in the PHREEQC database frezchem.dat (toner_sletten_2013), MgCl2 "
-       "cross-checked against the paper's eq. 2 coefficients as copied in pytzer; "
+       "coefficients read in the PHREEQC database frezchem.dat (toner_sletten_2013), the "
+       "chloride rows cross-checked against the paper's eq. 2 coefficients as copied in "
+       "pytzer (MgCl2) and pypitzer (NaCl, KCl, CaCl2); "
        "the A_phi(T) polynomial of the model, coefficients read in public copies"},
       {"colligate_icefit", "colligate developers", 2026,
        "Low-temperature curvature of the NaCl and CaCl2 Pitzer parameters of Spencer et al. "

@@ -21,9 +21,10 @@
 ///   Spencer, Moller & Weare (1990), with the sulfate parameters re-evaluated by Marion &
 ///   Farren (1999) and Marion (2001). Coefficients copied from the PHREEQC database
 ///   frezchem.dat, in which Toner & Sletten (2013) refitted the FREZCHEM temperature
-///   functions to the analytic form above. Cross-check: MgCl2 beta0 and beta1 from the
-///   original Spencer et al. (1990) eq. 2 coefficients agree with the refit within 1e-3
-///   between 220 and 298 K (tests/cpp/models/test_pitzer.cpp). Valid 219.15-298.15 K.
+///   functions to the analytic form above. Cross-check: the chloride rows agree with
+///   Spencer et al.'s (1990) eq. 2 coefficients as printed in two public copies (MgCl2
+///   beta0, beta1 within 1e-3; NaCl, KCl, CaCl2 beta0, beta1, C-phi within 1e-4) between
+///   220 and 298 K (tests/cpp/models/test_pitzer.cpp). Valid 219.15-298.15 K.
 ///   Evaluated with the Spencer et al. (1990) A_phi(T) polynomial they were fitted with
 ///   (aphi_correlation::spencer_1990), not the Clegg et al. (1994) series, which falls
 ///   steeply below 245 K and moved the CaCl2 eutectic 8 K too warm.
