@@ -124,6 +124,15 @@ inline mix_terms terms_of(const solution& s) {
   return m;
 }
 
+namespace detail {
+/// FPD_T (K) without the validity text (the bisection below calls this).
+inline double depression(const mix_terms& m, double frozen, bool& extrapolated) {
+  const double w = m.water * (1.0 - frozen);
+  return sucrose_depression(m.sucrose_equivalent * 100.0 / w, extrapolated) +
+         milk_salt_factor * m.milk_solids / w;
+}
+}  // namespace detail
+
 /// Freezing-point depression FPD_T (K) with a fraction `frozen` of the water frozen.
 inline checked_value total_depression(const mix_terms& m, double frozen) {
   if (!(frozen >= 0.0 && frozen < 1.0))
@@ -134,8 +143,7 @@ inline checked_value total_depression(const mix_terms& m, double frozen) {
                                          "must be > 0 g"));
   const double w = m.water * (1.0 - frozen);
   bool extrapolated = false;
-  const double fpd = sucrose_depression(m.sucrose_equivalent * 100.0 / w, extrapolated) +
-                     milk_salt_factor * m.milk_solids / w;
+  const double fpd = detail::depression(m, frozen, extrapolated);
   checked_value out{fpd, m.check};
   if (extrapolated && out.check.in_range()) {
     char buf[160];
@@ -166,9 +174,10 @@ inline checked_value ice_fraction(const mix_terms& m, double temperature) {
   const auto start = total_depression(m, 0.0);
   if (depression <= start.value) return {0.0, start.check};
   double lo = 0.0, hi = 1.0 - 1e-12;
+  bool extrapolated = false;
   for (int k = 0; k < 200 && hi - lo > 1e-12; ++k) {
     const double mid = 0.5 * (lo + hi);
-    (total_depression(m, mid).value < depression ? lo : hi) = mid;
+    (detail::depression(m, mid, extrapolated) < depression ? lo : hi) = mid;
   }
   const double f = 0.5 * (lo + hi);
   return {f, total_depression(m, f).check};
