@@ -205,7 +205,10 @@ inline const std::vector<citation>& citations() {
        "Springer, New York", "ISBN 978-1-4614-6095-4 (from memory)",
        "freezing point of mixes by Leighton's method: lactose 54.5 % of MSNF, 76.5 % of whey "
        "solids; salts depression 2.37 (MSNF + WS) / W degC; a 12 % fat, 11 % MSNF, 15 % "
-       "sugar mix freezes near -2.5 C (as restated in dairy texts read in a stored copy)"},
+       "sugar mix freezes near -2.5 C (as restated in dairy texts read in a stored copy); "
+       "ch. 6 Table 6.1 (sucrose freezing-point depression by g per 100 g water, 3-180 g), "
+       "Example Problems 13-14 and Table 6.2 (worked freezing curve), read in a public "
+       "reproduction of that section: equilibria/leighton_method.hpp"},
       {"usda_fdc", "U.S. Department of Agriculture, Agricultural Research Service", 2019,
        "FoodData Central", "https://fdc.nal.usda.gov/ (SR Legacy and Foundation foods)", "",
        "proximate composition per 100 g; the FDC id and description are given per value"},
