@@ -10,7 +10,7 @@
 
 #include "colligate/batch/kernels.hpp"
 #include "colligate/batch/solution_batch.hpp"
-#include "colligate/models/model_id.hpp"
+#include "colligate/models/builtin_models.hpp"
 #include "register.hpp"
 
 namespace colligate_bindings {
@@ -66,7 +66,7 @@ void register_batch(py::module_& m) {
 
   m.def("row_status_reasons", [] {
     std::vector<std::string> out;
-    for (int k = 0; k <= 4; ++k)
+    for (int k = 0; k < colligate::batch::row_status_count; ++k)
       out.emplace_back(colligate::batch::describe(static_cast<colligate::batch::row_status>(k)));
     return out;
   }, "Readable reason for each row status code (index = code).");
@@ -75,7 +75,7 @@ void register_batch(py::module_& m) {
       "batch_freezing_points",
       [](const solution_batch& b, const std::string& model, int threads, const std::string& policy,
          double bound) {
-        const auto id = colligate::models::model_from_string(model);
+        const auto id = colligate::models::model_choice(model);
         const auto opt = make_options(threads, policy, bound);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
@@ -94,7 +94,7 @@ void register_batch(py::module_& m) {
       "batch_water_activities",
       [](const solution_batch& b, double T, const std::string& model, int threads,
          const std::string& policy) {
-        const auto id = colligate::models::model_from_string(model);
+        const auto id = colligate::models::model_choice(model);
         const auto opt = make_options(threads, policy, 0.0);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
@@ -113,7 +113,7 @@ void register_batch(py::module_& m) {
       "batch_ice_fractions",
       [](const solution_batch& b, const array_in& temperatures, const std::string& model,
          int threads, const std::string& policy, double bound) {
-        const auto id = colligate::models::model_from_string(model);
+        const auto id = colligate::models::model_choice(model);
         const auto opt = make_options(threads, policy, bound);
         if (temperatures.ndim() != 1)
           throw colligate::invalid_input("temperatures must be a 1-D array (K)");

@@ -203,13 +203,13 @@ Solution from solute mole fractions (formula units, undissociated); rest is wate
       py::arg("key"), "One source of the citation table by key.");
   m.def("models", [] {
     std::vector<std::string> ids;
-    for (auto id : colligate::models::all_models()) ids.push_back(colligate::models::to_string(id));
+    for (const auto& id : colligate::models::builtin_models().ids()) ids.push_back(id);
     return ids;
   }, "Ids of the activity models.");
   m.def(
       "describe_model",
       [](const solution& s, const std::string& model) {
-        return colligate::models::describe_model(s, colligate::models::model_from_string(model));
+        return colligate::models::describe_model(s, colligate::models::model_choice(model));
       },
       py::arg("solution"), py::arg("model") = "auto",
       "Which model and constants a calculation on this solution uses.");

@@ -66,7 +66,7 @@ void register_electrolytes(py::module_& m) {
         eq::eutectic_result r;
         {
           py::gil_scoped_release release;
-          r = eq::eutectic(s, colligate::models::model_from_string(model), bound_water);
+          r = eq::eutectic(s, colligate::models::model_choice(model), bound_water);
         }
         return std::make_tuple(r.temperature, r.found, r.phase, r.formula, r.source, r.reason);
       },

@@ -17,7 +17,6 @@ namespace colligate_bindings {
 namespace {
 
 using colligate::solution;
-using colligate::models::model_from_string;
 
 std::tuple<double, std::string> as_tuple(const colligate::checked_value& v) {
   return {v.value, v.check.reason};
@@ -43,7 +42,7 @@ void register_equilibria(py::module_& m) {
       "water_activity",
       [](const solution& s, double T, const std::string& model, const std::string& policy) {
         return as_tuple(colligate::models::water_activity(
-            s, T, model_from_string(model), colligate::range_policy_from_string(policy)));
+            s, T, colligate::models::model_choice(model), colligate::range_policy_from_string(policy)));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate");
@@ -51,7 +50,7 @@ void register_equilibria(py::module_& m) {
       "osmotic_coefficient",
       [](const solution& s, double T, const std::string& model, const std::string& policy) {
         return as_tuple(colligate::models::osmotic_coefficient(
-            s, T, model_from_string(model), colligate::range_policy_from_string(policy)));
+            s, T, colligate::models::model_choice(model), colligate::range_policy_from_string(policy)));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate");
@@ -85,7 +84,7 @@ void register_equilibria(py::module_& m) {
       "freezing_point",
       [](const solution& s, const std::string& model, const std::string& policy,
          double bound_water) {
-        return as_tuple(eq::freezing_point_checked(s, model_from_string(model),
+        return as_tuple(eq::freezing_point_checked(s, colligate::models::model_choice(model),
                                                    colligate::range_policy_from_string(policy),
                                                    bound_water));
       },
@@ -96,7 +95,7 @@ void register_equilibria(py::module_& m) {
       [](const solution& s,
          const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
          const std::string& model, const std::string& policy, double bound_water) {
-        const auto id = model_from_string(model);
+        const auto id = colligate::models::model_choice(model);
         const auto pol = colligate::range_policy_from_string(policy);
         py::array_t<double> out(temperature.request().shape);
         const double* t = temperature.data();
@@ -138,7 +137,7 @@ void register_equilibria(py::module_& m) {
   m.def(
       "unfrozen_phase",
       [](const solution& s, double T, const std::string& model, double bound_water) {
-        return eq::unfrozen_phase_at(s, T, model_from_string(model), bound_water);
+        return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model), bound_water);
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("bound_water") = 0.0);

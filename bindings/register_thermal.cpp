@@ -37,7 +37,7 @@ th::food_composition to_composition(const py::object& mapping) {
 th::food make_food(const py::object& composition, const colligate::solution& s,
                    double bound_water, const std::string& model) {
   return th::food(to_composition(composition), s, bound_water,
-                  colligate::models::model_from_string(model));
+                  colligate::models::model_choice(model));
 }
 
 template <class F>

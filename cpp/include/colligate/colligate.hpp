@@ -16,12 +16,14 @@
 #include "colligate/data/solute_record.hpp"
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/equilibria/leighton_method.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/ideal.hpp"
-#include "colligate/models/model_id.hpp"
+#include "colligate/models/builtin_models.hpp"
+#include "colligate/models/registry.hpp"
 #include "colligate/models/mixing.hpp"
 #include "colligate/models/norrish.hpp"
 #include "colligate/models/pitzer.hpp"
@@ -38,7 +40,9 @@ using equilibria::eutectic;
 using equilibria::freezing_point;
 using equilibria::ice_fraction;
 using equilibria::unfrozen_phase_at;
-using models::model_id;
+using equilibria::ice_curve;
+using models::builtin_models;
+using models::model_choice;
 using models::water_activity;
 using models::osmotic_coefficient;
 }  // namespace colligate

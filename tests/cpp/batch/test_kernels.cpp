@@ -28,7 +28,7 @@ TEST_CASE("batch freezing points equal scalar ones bit for bit", "[batch]") {
   const auto b = batch::solution_batch::from_molalities(species, m.data(), 64);
   std::vector<double> out(64);
   std::vector<std::uint8_t> st(64);
-  batch::freezing_points(b, models::model_id::automatic, {}, out.data(), st.data());
+  batch::freezing_points(b, "auto", {}, out.data(), st.data());
   for (std::size_t i = 0; i < 64; ++i) {
     const auto s = solution::from_molalities(
         {{species[0], m[i * 3]}, {species[1], m[i * 3 + 1]}, {species[2], m[i * 3 + 2]}});
@@ -47,12 +47,12 @@ TEST_CASE("thread count does not change batch results", "[batch]") {
   o1.threads = 1;
   batch::options o4;
   o4.threads = 4;
-  batch::freezing_points(b, models::model_id::norrish, o1, one.data(), s1.data());
-  batch::freezing_points(b, models::model_id::norrish, o4, four.data(), s4.data());
+  batch::freezing_points(b, "norrish", o1, one.data(), s1.data());
+  batch::freezing_points(b, "norrish", o4, four.data(), s4.data());
   CHECK(std::memcmp(one.data(), four.data(), N * sizeof(double)) == 0);
   const double temps[2] = {265.0, 250.0};
-  batch::ice_fractions(b, temps, 2, models::model_id::norrish, o1, ice1.data(), is1.data());
-  batch::ice_fractions(b, temps, 2, models::model_id::norrish, o4, ice4.data(), is4.data());
+  batch::ice_fractions(b, temps, 2, "norrish", o1, ice1.data(), is1.data());
+  batch::ice_fractions(b, temps, 2, "norrish", o4, ice4.data(), is4.data());
   CHECK(std::memcmp(ice1.data(), ice4.data(), N * 2 * sizeof(double)) == 0);
 }
 
@@ -62,7 +62,7 @@ TEST_CASE("bad rows get NaN and a status, good rows are untouched", "[batch]") {
   const auto b = batch::solution_batch::from_molalities(species, m.data(), 4);
   std::vector<double> out(4);
   std::vector<std::uint8_t> st(4);
-  batch::freezing_points(b, models::model_id::automatic, {}, out.data(), st.data());
+  batch::freezing_points(b, "auto", {}, out.data(), st.data());
   CHECK(st[0] == 0);
   CHECK(st[1] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
   CHECK(st[2] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
@@ -105,7 +105,7 @@ TEST_CASE("Pitzer seawater batch equals scalar calls bit for bit", "[batch][pitz
   const std::size_t N = 48;
   const auto m = seawater_rows(N, species);
   const auto b = batch::solution_batch::from_molalities(species, m.data(), N);
-  for (auto model : {models::model_id::pitzer, models::model_id::automatic}) {
+  for (auto model : {"pitzer", "auto"}) {
     std::vector<double> tf(N), aw(N);
     std::vector<std::uint8_t> st(N), sa(N);
     batch::freezing_points(b, model, {}, tf.data(), st.data());
@@ -136,8 +136,8 @@ TEST_CASE("Pitzer seawater batch does not depend on the thread count", "[batch][
     o.threads = threads;
     std::vector<double> t(N), f(N * 2);
     std::vector<std::uint8_t> st(N), sf(N * 2);
-    batch::freezing_points(b, models::model_id::pitzer, o, t.data(), st.data());
-    batch::ice_fractions(b, temps, 2, models::model_id::pitzer, o, f.data(), sf.data());
+    batch::freezing_points(b, "pitzer", o, t.data(), st.data());
+    batch::ice_fractions(b, temps, 2, "pitzer", o, f.data(), sf.data());
     tf.push_back(t);
     ice.push_back(f);
   }
@@ -159,14 +159,14 @@ TEST_CASE("Pitzer batch: bad rows and salts beyond their range in a seawater bat
   const auto b = batch::solution_batch::from_molalities(species, m.data(), 4);
   std::vector<double> tf(4);
   std::vector<std::uint8_t> st(4);
-  batch::freezing_points(b, models::model_id::pitzer, {}, tf.data(), st.data());
+  batch::freezing_points(b, "pitzer", {}, tf.data(), st.data());
   CHECK(st[1] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
   CHECK(st[2] == static_cast<std::uint8_t>(batch::row_status::no_freezing_point));
   CHECK(std::isnan(tf[1]));
   CHECK(std::isnan(tf[2]));
   for (std::size_t i : {0u, 3u})
     CHECK(tf[i] == equilibria::freezing_point(row_solution(species, m.data() + i * S),
-                                              models::model_id::pitzer)
+                                              "pitzer")
                        .temperature);
 }
 
@@ -193,8 +193,8 @@ TEST_CASE("NaCl + sucrose batch (Ross rule) equals scalar calls bit for bit", "[
     o.threads = threads;
     std::vector<double> t(N), a(N);
     std::vector<std::uint8_t> st(N), sa(N);
-    batch::freezing_points(b, models::model_id::automatic, o, t.data(), st.data());
-    batch::water_activities(b, 268.15, models::model_id::automatic, o, a.data(), sa.data());
+    batch::freezing_points(b, "auto", o, t.data(), st.data());
+    batch::water_activities(b, 268.15, "auto", o, a.data(), sa.data());
     for (std::size_t i = 0; i < N; ++i) {
       const auto s = row_solution(species, m.data() + i * 2);
       INFO("row " << i << ", " << threads << " thread(s)");

@@ -13,7 +13,6 @@
 #include "../crc_reference.hpp"
 
 using namespace colligate;
-using models::model_id;
 using Catch::Matchers::Contains;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
@@ -73,7 +72,8 @@ TEST_CASE("NaCl-H2O eutectic", "[equilibria][pitzer][eutectic]") {
   CHECK(e.phase == "hydrohalite");
   CHECK(e.formula == "NaCl.2H2O");
   CHECK_THAT(e.temperature - constants::celsius_offset, WithinAbs(-21.2, 0.3));
-  const auto u = equilibria::detail::solve_ice_equilibrium(s, e.temperature, model_id::automatic, 0.0);
+  equilibria::ice_curve curve(s);
+  const auto u = curve.at(e.temperature);
   const double brine_percent = 100.0 * s.total_solute_mass() / (s.total_solute_mass() + u.unfrozen_water);
   CHECK_THAT(brine_percent, WithinAbs(23.3, 0.5));
   // The eutectic does not depend on the starting concentration of a binary solution
@@ -127,7 +127,7 @@ TEST_CASE("the ice curve stops at the eutectic", "[equilibria][pitzer][eutectic]
   CHECK_THAT(below.check.reason, Contains(te_celsius));
   const auto v = equilibria::ice_fraction(s, Te - 1.0);
   CHECK(std::isnan(v.value));
-  CHECK_THROWS_AS(equilibria::ice_fraction(s, Te - 1.0, model_id::automatic, range_policy::raise),
+  CHECK_THROWS_AS(equilibria::ice_fraction(s, Te - 1.0, "auto", range_policy::raise),
                   out_of_validity_range);
   // A solution beyond the eutectic composition crystallises salt before ice.
   const auto strong = equilibria::eutectic(solution::from_mass_fractions({{"NaCl", 0.25}}));

@@ -9,7 +9,6 @@
 #include "../crc_reference.hpp"
 
 using namespace colligate;
-using models::model_id;
 using Catch::Matchers::Contains;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
@@ -75,13 +74,13 @@ TEST_CASE("ideal model gives Kf = 1.86 K kg/mol in the dilute limit", "[equilibr
   // Kf of water 1.86 K kg/mol (common practice).
   for (double m : {1e-3, 1e-2}) {
     const auto s = solution::from_molalities({{"glucose", m}});
-    const auto r = equilibria::freezing_point(s, model_id::ideal);
+    const auto r = equilibria::freezing_point(s, "ideal");
     CHECK_THAT((constants::ice_point - r.temperature) / m, WithinRel(1.86, 5e-3));
   }
   // Raoult and Norrish agree with it as m -> 0 (limit law; rel 1e-3 at 1e-3 mol/kg).
   const auto s = solution::from_molalities({{"sucrose", 1e-3}});
-  const double ideal = constants::ice_point - equilibria::freezing_point(s, model_id::ideal).temperature;
-  for (auto m : {model_id::raoult, model_id::norrish}) {
+  const double ideal = constants::ice_point - equilibria::freezing_point(s, "ideal").temperature;
+  for (auto m : {"raoult", "norrish"}) {
     CHECK_THAT(constants::ice_point - equilibria::freezing_point(s, m).temperature, WithinRel(ideal, 1e-3));
   }
 }
@@ -96,7 +95,7 @@ TEST_CASE("freezing point edge cases", "[equilibria]") {
   CHECK_FALSE(r.check.in_range());
   // Bound water concentrates the solvent and lowers the freezing point.
   const auto s = solution::from_mass_fractions({{"sucrose", 0.2}});
-  CHECK(equilibria::freezing_point(s, model_id::automatic, 0.1).temperature <
+  CHECK(equilibria::freezing_point(s, "auto", 0.1).temperature <
         equilibria::freezing_point(s).temperature);
-  CHECK_THROWS_WITH(equilibria::freezing_point(s, model_id::automatic, 2.0), Contains("bound_water"));
+  CHECK_THROWS_WITH(equilibria::freezing_point(s, "auto", 2.0), Contains("bound_water"));
 }

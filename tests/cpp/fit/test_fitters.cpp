@@ -44,7 +44,7 @@ TEST_CASE("Norrish K of sucrose from the CRC freezing points", "[fit][norrish]")
   double chi2_builtin = 0.0;
   for (std::size_t i = 0; i < m.size(); ++i) {
     const auto s = solution::from_molalities({{"sucrose", m[i]}});
-    const double d = equilibria::freezing_point(s, model_id::norrish).temperature - tf[i];
+    const double d = equilibria::freezing_point(s, "norrish").temperature - tf[i];
     chi2_builtin += d * d;
   }
   CHECK(r.chi_square <= chi2_builtin);
@@ -78,8 +78,8 @@ TEST_CASE("Norrish fit recovers the constants that generated the data", "[fit][n
   for (double mi = 0.2; mi <= 3.0; mi += 0.4) {
     const auto s = solution::from_molalities({{"glucose", mi}});
     m.push_back(mi);
-    tf.push_back(equilibria::freezing_point(s, model_id::norrish).temperature);
-    aw.push_back(models::water_activity(s, 298.15, model_id::norrish).value);
+    tf.push_back(equilibria::freezing_point(s, "norrish").temperature);
+    aw.push_back(models::water_activity(s, 298.15, "norrish").value);
   }
   const auto r = fit::fit_norrish_freezing_point(vec(m), vec(tf));
   REQUIRE(r.success());
@@ -93,7 +93,7 @@ TEST_CASE("Norrish fit recovers the constants that generated the data", "[fit][n
   for (double mi = 0.5; mi <= 6.0; mi += 0.5) {
     mg.push_back(mi);
     tg.push_back(equilibria::freezing_point(solution::from_molalities({{"glycerol", mi}}),
-                                            model_id::norrish).temperature);
+                                            "norrish").temperature);
   }
   fit::norrish_fit_options o;
   o.fit_k3 = true;
@@ -113,7 +113,7 @@ TEST_CASE("effective solute from an ice-fraction curve", "[fit][effective]") {
   for (double t = 271.0; t >= 243.0; t -= 2.0) {
     wf.push_back(w);
     T.push_back(t);
-    ice.push_back(equilibria::unfrozen_phase_at(food, t, model_id::norrish, b * (1 - w)).ice_fraction());
+    ice.push_back(equilibria::unfrozen_phase_at(food, t, "norrish", b * (1 - w)).ice_fraction());
   }
   const auto r = fit::fit_effective_solute_ice_curve(vec(wf), vec(T), vec(ice));
   INFO(r.message);
@@ -129,8 +129,8 @@ TEST_CASE("effective solute from an ice-fraction curve", "[fit][effective]") {
   const auto t2 = fit::extend_table(data::builtin_solutes(), {rec});
   const auto s = solution::from_mass_fractions({{"my food solids", 1 - w}}, 1.0, t2);
   const double T_check = 255.0;
-  const double expected = equilibria::unfrozen_phase_at(food, T_check, model_id::norrish, b * (1 - w)).ice_fraction();
-  CHECK_THAT(equilibria::ice_fraction(s, T_check, model_id::automatic, range_policy::extrapolate,
+  const double expected = equilibria::unfrozen_phase_at(food, T_check, "norrish", b * (1 - w)).ice_fraction();
+  CHECK_THAT(equilibria::ice_fraction(s, T_check, "auto", range_policy::extrapolate,
                                       r.params[1] * (1 - w)).value,
              WithinAbs(expected, 1e-6));
 }
@@ -143,7 +143,7 @@ TEST_CASE("effective solute from freezing points of several dilutions", "[fit][e
   for (double w = 0.60; w <= 0.901; w += 0.05) {
     wf.push_back(w);
     tf.push_back(equilibria::freezing_point(fit::detail::food_solution(w, M, table),
-                                            model_id::norrish, b * (1 - w)).temperature);
+                                            "norrish", b * (1 - w)).temperature);
   }
   const auto r = fit::fit_effective_solute_freezing(vec(wf), vec(tf));
   INFO(r.message);

@@ -86,9 +86,9 @@ TEST_CASE("Pitzer fit recovers the parameters that generated the data", "[fit][p
   for (double mi : {0.1, 0.3, 0.6, 1.0, 1.5, 2.0, 3.0, 4.0}) {
     const auto s = solution::from_molalities({{"nacl_test", mi}}, 1.0, table);
     m.push_back(mi);
-    phi.push_back(models::osmotic_coefficient(s, 298.15, model_id::pitzer).value);
-    aw.push_back(models::water_activity(s, 298.15, model_id::pitzer).value);
-    tf.push_back(equilibria::freezing_point(s, model_id::pitzer).temperature);
+    phi.push_back(models::osmotic_coefficient(s, 298.15, "pitzer").value);
+    aw.push_back(models::water_activity(s, 298.15, "pitzer").value);
+    tf.push_back(equilibria::freezing_point(s, "pitzer").temperature);
   }
   const Eigen::VectorXd T = Eigen::VectorXd::Constant(1, 298.15);
   const Eigen::Vector3d expected(p.beta0, p.beta1, p.cphi);
@@ -117,7 +117,7 @@ TEST_CASE("Pitzer fit recovers the parameters that generated the data", "[fit][p
       const auto s = solution::from_molalities({{"nacl_t", mi}}, 1.0, table_t);
       mt.push_back(mi);
       Tt.push_back(Ti);
-      awt.push_back(models::water_activity(s, Ti, model_id::pitzer).value);
+      awt.push_back(models::water_activity(s, Ti, "pitzer").value);
     }
   fit::pitzer_fit_options o;
   o.fit_temperature_terms = true;
@@ -149,24 +149,24 @@ TEST_CASE("a fitted salt is used through a table, with its own validity range", 
   const auto s = solution::from_molalities({{"lab NaCl", 2.0}}, 1.0, table);
   // phi through the public model entry equals the fit's fitted value at 2 mol/kg (row 4;
   // identity, rel 1e-12).
-  CHECK_THAT(models::osmotic_coefficient(s, 298.15, model_id::pitzer).value,
+  CHECK_THAT(models::osmotic_coefficient(s, 298.15, "pitzer").value,
              WithinRel(r.fitted[4], 1e-12));
-  CHECK(models::check(model_id::pitzer, s, 1.0, 298.15).reason.empty());
+  CHECK(models::check("pitzer", s, 1.0, 298.15).reason.empty());
   // Differs from the built-in salt evaluated with spencer_1990 (other parameters) but by
   // less than 0.005 (both describe NaCl at 25 C; the accuracy asked in test_pitzer.cpp).
   const auto builtin = solution::from_molalities({{"NaCl", 2.0}});
-  CHECK_THAT(models::osmotic_coefficient(s, 298.15, model_id::pitzer).value,
-             WithinAbs(models::osmotic_coefficient(builtin, 298.15, model_id::pitzer).value, 0.005));
+  CHECK_THAT(models::osmotic_coefficient(s, 298.15, "pitzer").value,
+             WithinAbs(models::osmotic_coefficient(builtin, 298.15, "pitzer").value, 0.005));
   // The freezing point uses the fitted parameters too: 25 C-only parameters at about -7 C,
   // so the result is flagged with the record's own temperature range.
-  const auto fp = equilibria::freezing_point(s, model_id::automatic);
+  const auto fp = equilibria::freezing_point(s, "auto");
   REQUIRE(fp.success());
   CHECK_THAT(fp.check.reason, Contains("lab_nacl") && Contains("293.15"));
-  CHECK_THAT(models::describe_model(s, model_id::pitzer), Contains("colligate_fit_user"));
+  CHECK_THAT(models::describe_model(s, "pitzer"), Contains("colligate_fit_user"));
   // Outside the record's own range, the check gives a reason.
-  CHECK_THAT(models::check(model_id::pitzer, s, 1.0, 280.0).reason, Contains("lab_nacl"));
+  CHECK_THAT(models::check("pitzer", s, 1.0, 280.0).reason, Contains("lab_nacl"));
   const auto strong = solution::from_molalities({{"lab NaCl", 6.5}}, 1.0, table);
-  CHECK_THAT(models::check(model_id::pitzer, strong, 1.0, 298.15).reason,
+  CHECK_THAT(models::check("pitzer", strong, 1.0, 298.15).reason,
              Contains("above 6 mol/kg"));
   // Two records with different parameters for the same ion pair: a caller mistake.
   fit::pitzer_salt_parameters other;

@@ -12,7 +12,6 @@
 #include "../reference_csv.hpp"
 
 using namespace colligate;
-using models::model_id;
 using models::pitzer;
 using Catch::Matchers::Contains;
 using Catch::Matchers::WithinAbs;
@@ -298,37 +297,37 @@ TEST_CASE("every Pitzer parameter row resolves in the citation table", "[models]
 TEST_CASE("Pitzer validity: temperature without parameters and molality beyond the set", "[models][pitzer][validity]") {
   const auto brine = solution::from_molalities({{"NaCl", 1.0}});
   // 37 C is above the low-temperature set (219.15-298.15 K).
-  const auto warm = models::water_activity(brine, 310.15, model_id::pitzer);
+  const auto warm = models::water_activity(brine, 310.15, "pitzer");
   CHECK_THAT(warm.check.reason, Contains("219.15-298.15 K"));
-  CHECK_THROWS_AS(models::water_activity(brine, 310.15, model_id::pitzer, range_policy::raise),
+  CHECK_THROWS_AS(models::water_activity(brine, 310.15, "pitzer", range_policy::raise),
                   out_of_validity_range);
   // The 25 C set has no parameters at -10 C.
   const auto v = pitzer::check(brine, 1.0, 263.15, data::harvie_1984_parameters());
   CHECK_THAT(v.reason, Contains("293.15-303.15 K"));
   // 7 mol/kg NaCl is beyond the 6.2 mol/kg of the set.
   const auto strong = solution::from_molalities({{"NaCl", 7.0}});
-  const auto s7 = models::water_activity(strong, 298.15, model_id::pitzer);
+  const auto s7 = models::water_activity(strong, 298.15, "pitzer");
   CHECK_THAT(s7.check.reason, Contains("6.2 mol/kg"));
   CHECK_THAT(s7.check.reason, Contains("sodium_chloride"));
-  CHECK_THROWS_AS(models::water_activity(strong, 298.15, model_id::pitzer, range_policy::raise),
+  CHECK_THROWS_AS(models::water_activity(strong, 298.15, "pitzer", range_policy::raise),
                   out_of_validity_range);
-  CHECK(models::water_activity(brine, 298.15, model_id::pitzer).check.in_range());
+  CHECK(models::water_activity(brine, 298.15, "pitzer").check.in_range());
 }
 
 TEST_CASE("auto picks Pitzer, Norrish or the Ross product rule", "[models][pitzer][ross]") {
   const auto brine = solution::from_molalities({{"NaCl", 1.0}});
   const auto syrup = solution::from_molalities({{"sucrose", 1.0}});
   const auto mix = solution::from_molalities({{"NaCl", 1.0}, {"sucrose", 1.0}});
-  CHECK(models::resolve(model_id::automatic, brine) == model_id::pitzer);
-  CHECK(models::resolve(model_id::automatic, syrup) == model_id::norrish);
-  CHECK(models::resolve(model_id::automatic, mix) == model_id::ross);
+  CHECK(models::model_choice("auto").resolve(brine).id == "pitzer");
+  CHECK(models::model_choice("auto").resolve(syrup).id == "norrish");
+  CHECK(models::model_choice("auto").resolve(mix).id == "ross");
   CHECK_THAT(models::describe_model(mix), Contains("Ross (1975)"));
   CHECK_THAT(models::describe_model(brine), Contains("spencer_1990"));
   // Ross (1975): ln a_w of the mixture = ln a_w(brine) + ln a_w(syrup), same water (identity).
   const double T = 298.15;
-  CHECK_THAT(models::ln_water_activity(model_id::automatic, mix, 1.0, T),
-             WithinRel(models::ln_water_activity(model_id::automatic, brine, 1.0, T) +
-                           models::ln_water_activity(model_id::automatic, syrup, 1.0, T),
+  CHECK_THAT(models::ln_water_activity("auto", mix, 1.0, T),
+             WithinRel(models::ln_water_activity("auto", brine, 1.0, T) +
+                           models::ln_water_activity("auto", syrup, 1.0, T),
                        1e-13));
   // ZSR reduces to the single-class model for one class (identity, rel 1e-9 from the solver).
   CHECK_THAT(models::zsr_ln_water_activity(brine, 1.0, T),

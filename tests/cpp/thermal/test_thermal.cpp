@@ -14,7 +14,6 @@ using namespace colligate;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
 using thermal::component;
-using models::model_id;
 
 namespace {
 
@@ -45,7 +44,7 @@ thermal::food ashrae_food(const colligate_test::csv_row& r) {
   for (int i = 0; i < 80; ++i) {
     const double m = 0.5 * (lo + hi);
     const auto s = solution::from_molalities({{"glucose", m}}, x.water);
-    (equilibria::freezing_point(s, model_id::automatic, bound).temperature > tf ? lo : hi) = m;
+    (equilibria::freezing_point(s, "auto", bound).temperature > tf ? lo : hi) = m;
   }
   return thermal::food(x, solution::from_molalities({{"glucose", lo}}, x.water), bound);
 }
@@ -96,7 +95,7 @@ TEST_CASE("enthalpy is zero at -40 C and continuous across the freezing point", 
 TEST_CASE("numerical derivative of H equals the apparent specific heat", "[thermal]") {
   for (double bound : {0.0, 0.02}) {
     const auto f = sucrose_food(0.25, bound);
-    const double tf = equilibria::freezing_point(f.water_phase(), model_id::automatic,
+    const double tf = equilibria::freezing_point(f.water_phase(), "auto",
                                                  f.bound_water_in_phase()).temperature;
     for (double T = 234.15; T <= 312.15; T += 1.7) {
       if (std::abs(T - tf) < 0.05 || std::abs(T - T0) < 0.05) continue;  // kinks

@@ -12,6 +12,7 @@
 #include <cmath>
 #include <cstdint>
 #include <limits>
+#include <memory>
 #include <optional>
 #include <thread>
 #include <vector>
@@ -20,6 +21,7 @@
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/models/water_activity.hpp"
 
@@ -46,18 +48,33 @@ class workspace {
   }
   /// ln a_w evaluator for model `m` on this workspace's solution, prepared on first use
   /// (the species list is the same for every row; the evaluator reads each row's amounts).
-  models::ln_water_activity_evaluator& evaluator(models::model_id m) {
-    if (!evaluator_ || requested_ != m) {
+  models::ln_water_activity_evaluator& evaluator(const models::model_choice& m) {
+    if (!evaluator_ || !(requested_ == m)) {
       evaluator_.emplace(m, s_);
       requested_ = m;
     }
     return *evaluator_;
   }
+  /// The ice curve of the row loaded last (prepared on first use for the species list,
+  /// reset for each row's amounts).
+  equilibria::ice_curve& curve(const models::model_choice& m, double bound_water_kg) {
+    if (!curve_ || !(curve_model_ == m)) {
+      // A non-owning view of this workspace's solution: the curve follows its amounts.
+      curve_.emplace(std::shared_ptr<const solution>(&s_, [](const solution*) {}), m,
+                     bound_water_kg, equilibria::crystallisation_path::equilibrium);
+      curve_model_ = m;
+    } else {
+      curve_->reset(bound_water_kg);
+    }
+    return *curve_;
+  }
 
  private:
   solution s_;
   std::optional<models::ln_water_activity_evaluator> evaluator_;
-  models::model_id requested_ = models::model_id::automatic;
+  models::model_choice requested_ = "auto";
+  std::optional<equilibria::ice_curve> curve_;
+  models::model_choice curve_model_ = "auto";
 };
 
 inline unsigned thread_count(unsigned requested, std::size_t rows) {
@@ -99,7 +116,7 @@ inline double policy_value(double value, bool in_range, range_policy policy, row
 }  // namespace detail
 
 /// Initial freezing points, K. `out` and `status` hold rows() entries.
-inline void freezing_points(const solution_batch& b, models::model_id m, const options& opt,
+inline void freezing_points(const solution_batch& b, const models::model_choice& m, const options& opt,
                             double* out, std::uint8_t* status) {
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
@@ -121,7 +138,7 @@ inline void freezing_points(const solution_batch& b, models::model_id m, const o
 }
 
 /// Water activity at temperature T (K), no ice.
-inline void water_activities(const solution_batch& b, double temperature, models::model_id m,
+inline void water_activities(const solution_batch& b, double temperature, const models::model_choice& m,
                              const options& opt, double* out, std::uint8_t* status) {
   models::check_temperature_argument("water_activities", temperature);
   if (opt.policy == range_policy::raise)
@@ -132,7 +149,7 @@ inline void water_activities(const solution_batch& b, double temperature, models
     if (st == row_status::ok) {
       const solution& s = ws.load(b.row(i));
       const double lnaw = ws.evaluator(m)(s.water_mass(), temperature);
-      v = detail::policy_value(std::exp(lnaw), models::check(m, s, s.water_mass(), temperature).in_range(),
+      v = detail::policy_value(std::exp(lnaw), ws.evaluator(m).check(s.water_mass(), temperature).in_range(),
                                opt.policy, st);
     }
     out[i] = v;
@@ -143,7 +160,7 @@ inline void water_activities(const solution_batch& b, double temperature, models
 /// Ice fraction (ice / total water) at each of `n_temperatures` temperatures (K):
 /// `out` and `status` are rows() x n_temperatures, row-major.
 inline void ice_fractions(const solution_batch& b, const double* temperatures,
-                          std::size_t n_temperatures, models::model_id m, const options& opt,
+                          std::size_t n_temperatures, const models::model_choice& m, const options& opt,
                           double* out, std::uint8_t* status) {
   for (std::size_t k = 0; k < n_temperatures; ++k)
     models::check_temperature_argument("ice_fractions", temperatures[k]);
@@ -152,13 +169,15 @@ inline void ice_fractions(const solution_batch& b, const double* temperatures,
   detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
     const row_status input = b.input_status(i);
     const solution* s = input == row_status::ok ? &ws.load(b.row(i)) : nullptr;
+    equilibria::ice_curve* curve =
+        s ? &ws.curve(m, opt.bound_water_fraction * s->water_mass()) : nullptr;
     for (std::size_t k = 0; k < n_temperatures; ++k) {
       row_status st = input;
       double v = detail::nan;
-      if (s) {
-        const auto u = equilibria::unfrozen_phase_at(*s, temperatures[k], m,
-                                                     opt.bound_water_fraction * s->water_mass());
-        if (!u.success()) st = row_status::not_converged;
+      if (curve) {
+        const auto u = curve->at(temperatures[k]);
+        if (u.status == equilibria::solve_status::below_eutectic) st = row_status::below_curve_end;
+        else if (!u.success()) st = row_status::not_converged;
         else v = detail::policy_value(u.ice_fraction(), u.check.in_range(), opt.policy, st);
       }
       out[i * n_temperatures + k] = v;

@@ -23,7 +23,10 @@ enum class row_status : std::uint8_t {
   invalid_input = 2,      ///< negative or non-finite amount, or mass fractions summing >= 1
   no_freezing_point = 3,  ///< does not freeze above the lowest temperature searched
   not_converged = 4,      ///< the solver stopped before its tolerance
+  below_curve_end = 5,    ///< below the end of the ice curve (final eutectic, data limit)
 };
+/// Number of row_status values (codes 0 .. row_status_count - 1).
+inline constexpr int row_status_count = 6;
 
 inline const char* describe(row_status s) {
   switch (s) {
@@ -32,6 +35,7 @@ inline const char* describe(row_status s) {
     case row_status::invalid_input: return "invalid input: negative or non-finite amount, or mass fractions summing to 1 or more";
     case row_status::no_freezing_point: return "does not freeze above -50 C";
     case row_status::not_converged: return "solver did not converge";
+    case row_status::below_curve_end: return "below the end of the ice curve (the final eutectic of a brine, or the lower limit of the salt data): no liquid is computed";
   }
   return "unknown";
 }

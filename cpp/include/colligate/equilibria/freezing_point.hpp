@@ -47,16 +47,10 @@ inline void check_bound_water(const char* where, const solution& s, double bound
 
 /// f(T) = ln a_w(solution with `water_kg`, T) - ln a_w,ice(T); negative above the
 /// freezing point, positive below it.
-inline double ice_imbalance(models::model_id m, const solution& s, double water_kg, double T) {
+inline double ice_imbalance(const models::model_choice& m, const solution& s, double water_kg, double T) {
   return models::ln_water_activity(m, s, water_kg, T) - water::ln_water_activity_of_ice(T);
 }
 
-/// Models whose water activity does not depend on temperature (their constants are used
-/// unchanged at every T); the freezing point then inverts the ice equilibrium directly.
-inline bool temperature_independent(models::model_id resolved) {
-  return resolved == models::model_id::ideal || resolved == models::model_id::raoult ||
-         resolved == models::model_id::norrish;
-}
 
 }  // namespace detail
 
@@ -73,7 +67,7 @@ inline bool temperature_independent(models::model_id resolved) {
 /// a step is below 1e-9 K (four evaluations for seawater). The validity check (for Ross,
 /// the comparison with the ZSR rule, itself a nested root solve) runs once, at the result,
 /// on the evaluator's prepared system.
-inline freezing_point_result freezing_point(const solution& s, models::model_id m,
+inline freezing_point_result freezing_point(const solution& s, const models::model_choice& m,
                                             double bound_water_kg,
                                             models::ln_water_activity_evaluator& ln_aw) {
   detail::check_bound_water("freezing_point", s, bound_water_kg);
@@ -93,7 +87,7 @@ inline freezing_point_result freezing_point(const solution& s, models::model_id 
         "the solution does not freeze above this temperature (-50 C)");
     return r;
   };
-  if (detail::temperature_independent(ln_aw.model())) {
+  if (!ln_aw.model().traits.temperature_dependent) {
     // a_w does not depend on T: invert the ice equilibrium directly (Newton on ice.hpp).
     const double ln_aw_0 = ln_aw(W, constants::ice_point);
     const double T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
@@ -174,7 +168,7 @@ inline freezing_point_result freezing_point(const solution& s, models::model_id 
 
 /// Initial freezing point of a solution, K, with status and validity.
 inline freezing_point_result freezing_point(const solution& s,
-                                            models::model_id m = models::model_id::automatic,
+                                            const models::model_choice& m = "auto",
                                             double bound_water_kg = 0.0) {
   models::ln_water_activity_evaluator ln_aw(m, s);
   return freezing_point(s, m, bound_water_kg, ln_aw);
@@ -183,7 +177,7 @@ inline freezing_point_result freezing_point(const solution& s,
 /// Convenience: the freezing point with the caller's range policy; throws
 /// convergence_error if the solve fails.
 inline checked_value freezing_point_checked(const solution& s,
-                                            models::model_id m = models::model_id::automatic,
+                                            const models::model_choice& m = "auto",
                                             range_policy policy = range_policy::extrapolate,
                                             double bound_water_kg = 0.0) {
   const auto r = freezing_point(s, m, bound_water_kg);

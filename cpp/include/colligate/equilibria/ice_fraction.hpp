@@ -1,36 +1,25 @@
 #pragma once
 /// \file ice_fraction.hpp
-/// Ice-fraction curve: below the initial freezing point, ice takes water out of the
-/// solution; the solutes stay in the unfrozen phase. At temperature T the unfrozen water
-/// W_u satisfies ln a_w(solutes in W_u, T) = ln a_w,ice(T) (DESIGN section 1). Water that
-/// cannot freeze (bound) is neither ice nor solvent. Then
+/// Point queries on the ice curve (equilibria/ice_curve.hpp): the unfrozen phase and the
+/// ice fraction at one temperature, and the end of the curve (the eutectic). Each call
+/// prepares an ice_curve; a caller asking many questions of one solution holds the curve.
 ///
-///     ice = W_total - W_u - W_bound,   ice fraction = ice / W_total.
+///     ice = W_total - W_u - W_bound - W_hydrate,   ice fraction = ice / W_total.
 ///
-/// W_u is found by TOMS 748 on ln W_u (a_w falls monotonically as water is removed).
-/// Above the freezing point the ice fraction is 0 (not an error).
-/// Salt limits (models 'pitzer', 'ross' and 'auto' with electrolytes): the ice curve
-/// stops where the unfrozen brine becomes saturated in a salt phase
-/// (equilibria/salt_solubility.hpp). Below that temperature (the eutectic of a binary
-/// salt solution; the first salt crystallisation of a mixture) the result has status
-/// below_eutectic, NaN masses, and a reason naming the eutectic temperature and the salt,
-/// instead of an extrapolated ice fraction. eutectic() returns that temperature.
-/// Non-electrolyte crystallisation (lactose) is not handled yet.
+/// Above the freezing point the ice fraction is 0 (not an error). Below the end of the
+/// curve (the final eutectic of a brine, or the salt data's lower limit) the status is
+/// below_eutectic, the masses are NaN and the reason names the temperature and the salt.
 
-#include <boost/math/tools/roots.hpp>
 #include <cmath>
-#include <cstdint>
-#include <cstdio>
 #include <limits>
 #include <string>
 
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
-#include "colligate/equilibria/salt_solubility.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/water_activity.hpp"
-#include "colligate/water/ice.hpp"
 
 namespace colligate::equilibria {
 
@@ -53,83 +42,22 @@ struct unfrozen_phase {
   }
 };
 
-namespace detail {
-
-/// The ice equilibrium at T without the salt limit. `with_check` false leaves r.check
-/// without the model's validity (the eutectic search, which reads only the masses, runs
-/// many of these; the Ross rule comparison is a nested root solve).
-inline unfrozen_phase solve_ice_equilibrium(const solution& s, double temperature,
-                                            models::model_id m, double bound_water_kg,
-                                            bool with_check = true) {
-  models::check_temperature_argument("ice_fraction", temperature);
-  detail::check_bound_water("ice_fraction", s, bound_water_kg);
+/// The unfrozen_phase view of an ice-curve state.
+inline unfrozen_phase as_unfrozen_phase(const ice_curve_state& s) {
   unfrozen_phase r;
-  r.temperature = temperature;
-  r.total_water = s.water_mass();
-  r.bound_water = bound_water_kg;
-  const double W = s.water_mass() - bound_water_kg;
-  const double T = temperature;
-  // The species are prepared once for the whole search (same values as ln_water_activity).
-  models::ln_water_activity_evaluator ln_aw(m, s);
-  const double ln_aw_solution = ln_aw(W, T);
-  const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
-  if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
-    // At or above the freezing point: no ice.
-    r.status = solve_status::not_frozen;
-    r.unfrozen_water = W;
-    r.ice = 0.0;
-    r.water_activity = std::exp(ln_aw_solution);
-    if (with_check) r.check = ln_aw.check(W, T);
-    return r;
-  }
-  double total_moles = 0.0;
-  for (double n : s.moles()) total_moles += n;
-  if (total_moles == 0.0) {  // pure water below the ice point: all freezable water is ice
-    r.unfrozen_water = 0.0;
-    r.ice = W;
-    r.water_activity = std::exp(ln_aw_ice);
-    r.check = water::ice_temperature_validity(T);
-    return r;
-  }
-  // g(u) = ln a_w(W_u = exp(u)) - ln a_w,ice(T): positive at u = ln W, negative as W_u -> 0.
-  auto g = [&](double u) { return ln_aw(std::exp(u), T) - ln_aw_ice; };
-  const double u_hi = std::log(W);
-  double u_lo = u_hi - 2.0;
-  double g_lo = g(u_lo);
-  while (!(g_lo < 0.0) && u_lo > u_hi - 60.0) {
-    u_lo -= 4.0;
-    g_lo = g(u_lo);
-  }
-  if (!(g_lo < 0.0)) {
-    r.status = solve_status::max_iterations;
-    r.check.reason = "ice_fraction: no unfrozen-water mass satisfies the ice equilibrium";
-    return r;
-  }
-  std::uintmax_t max_iter = 100;
-  boost::math::tools::eps_tolerance<double> tol(50);
-  const auto [a, b] = boost::math::tools::toms748_solve(g, u_lo, u_hi, g_lo, g(u_hi), tol, max_iter);
-  r.iterations = static_cast<int>(max_iter);
-  r.status = max_iter >= 100 ? solve_status::max_iterations : solve_status::converged;
-  const double Wu = std::exp(0.5 * (a + b));
-  r.unfrozen_water = Wu;
-  r.ice = s.water_mass() - Wu - bound_water_kg;
-  r.water_activity = std::exp(ln_aw_ice);
-  if (with_check) {
-    r.check = ln_aw.check(Wu, T);
-    r.check.merge(water::ice_temperature_validity(T));
-  }
+  r.temperature = s.temperature;
+  r.total_water = s.total_water;
+  r.bound_water = s.bound_water;
+  r.unfrozen_water = s.unfrozen_water;
+  r.ice = s.ice;
+  r.water_activity = s.water_activity;
+  r.status = s.status;
+  r.iterations = s.iterations;
+  r.check = s.check;
   return r;
 }
 
-/// True if the model computes ion activities, so salt saturation can be evaluated.
-inline bool has_salt_limits(models::model_id m, const solution& s) {
-  const auto r = models::resolve(m, s);
-  return s.has_electrolytes() && (r == models::model_id::pitzer || r == models::model_id::ross);
-}
-
-}  // namespace detail
-
-/// Where the ice curve of a solution ends because a salt crystallises.
+/// Where the ice curve of a solution ends.
 struct eutectic_result {
   double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K
   bool found = false;
@@ -139,103 +67,63 @@ struct eutectic_result {
   std::string reason;   ///< why none was found, or a caution ("" otherwise)
 };
 
-/// Eutectic temperature of a solution: the highest temperature below its freezing
-/// point at which the unfrozen brine in equilibrium with ice is saturated in a salt
-/// phase (for a binary salt solution, the ice + salt eutectic; for a mixture, the first
-/// salt to crystallise on cooling). Searched down to 219.15 K. Needs a model with ion
-/// activities ('auto', 'pitzer', 'ross').
-inline eutectic_result eutectic(const solution& s,
-                                models::model_id m = models::model_id::automatic,
-                                double bound_water_kg = 0.0) {
+/// The end of a curve as an eutectic_result: found for a final eutectic (the salt named
+/// is the one whose saturation ends the curve; for a binary brine, its salt hydrate).
+inline eutectic_result eutectic_of(ice_curve& curve) {
   eutectic_result out;
-  if (!detail::has_salt_limits(m, s)) {
+  if (!curve.model().traits.ion_activities || !curve.composition().has_electrolytes()) {
     out.reason = "eutectic: needs electrolytes and a model with ion activities ('auto', "
                  "'pitzer' or 'ross')";
     return out;
   }
-  const auto fp = freezing_point(s, m, bound_water_kg);
-  if (!fp.success()) {
-    out.reason = "eutectic: no freezing point: " + fp.check.reason;
+  const auto end = curve.end_reason();
+  if (end == curve_end::no_freezing_point) {
+    out.reason = "eutectic: no freezing point: " + curve.initial_freezing_point().check.reason;
     return out;
   }
-  const double W = s.water_mass() - bound_water_kg;
-  const auto at_fp = most_saturated_phase(s, W, fp.temperature,
-                                          models::ln_water_activity(m, s, W, fp.temperature));
-  if (at_fp.index > 0.0) {
-    out.phase = at_fp.phase->name;
-    out.formula = at_fp.phase->formula;
-    out.source = at_fp.phase->source;
+  if (end == curve_end::saturated_before_ice) {
+    const auto* ph = curve.saturated_phase();
+    out.phase = ph->name;
+    out.formula = ph->formula;
+    out.source = ph->source;
     out.reason = "eutectic: the solution is already saturated in " + out.phase + " (" +
                  out.formula + ") at its freezing point; the salt crystallises before ice";
     return out;
   }
-  auto si = [&](double T, const salt_phase** ph) {
-    const auto u = detail::solve_ice_equilibrium(s, T, m, bound_water_kg, false);
-    if (!(u.unfrozen_water > 0.0)) return std::numeric_limits<double>::quiet_NaN();
-    const auto sat = most_saturated_phase(s, u.unfrozen_water, T, std::log(u.water_activity));
-    if (ph) *ph = sat.phase;
-    return sat.index;
-  };
-  const double step = 0.5;
-  double hi = fp.temperature - 1e-6;
-  for (double T = fp.temperature - step; T >= salt_phase_min_temperature - 1e-9; T -= step) {
-    const salt_phase* ph = nullptr;
-    const double v = si(T, &ph);
-    if (v >= 0.0) {
-      double lo = T;
-      for (int i = 0; i < 50 && hi - lo > 1e-7; ++i) {
-        const double mid = 0.5 * (lo + hi);
-        (si(mid, nullptr) >= 0.0 ? lo : hi) = mid;
-      }
-      out.found = true;
-      out.temperature = 0.5 * (lo + hi);
-      si(lo, &ph);
-      out.phase = ph->name;
-      out.formula = ph->formula;
-      out.source = ph->source;
-      return out;
-    }
-    hi = T;
+  if (end == curve_end::final_eutectic) {
+    const auto& last = curve.salts().back();
+    out.found = true;
+    out.temperature = curve.end_temperature();
+    out.phase = last.phase->name;
+    out.formula = last.phase->formula;
+    out.source = last.phase->source;
+    return out;
   }
-  out.reason = "eutectic: no salt phase saturates above 219.15 K, the lower limit of the "
-               "salt solubility data";
+  out.reason = "eutectic: no final eutectic above 219.15 K, the lower limit of the salt "
+               "solubility data";
   return out;
 }
 
-/// Ice, unfrozen water and water activity at temperature T (K). Below the eutectic
-/// (see eutectic()) the status is below_eutectic and the masses are NaN.
-inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
-                                        models::model_id m = models::model_id::automatic,
-                                        double bound_water_kg = 0.0) {
-  auto r = detail::solve_ice_equilibrium(s, temperature, m, bound_water_kg);
-  if (r.status != solve_status::converged || !detail::has_salt_limits(m, s) ||
-      !(r.unfrozen_water > 0.0))
-    return r;
-  const auto sat = most_saturated_phase(s, r.unfrozen_water, temperature,
-                                        std::log(r.water_activity));
-  if (!(sat.index > 0.0)) return r;
-  const auto e = eutectic(s, m, bound_water_kg);
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.2f K (%.2f C)", e.temperature,
-                e.temperature - constants::celsius_offset);
-  r.status = solve_status::below_eutectic;
-  r.check.reason = colligate::detail::describe(
-      "ice_fraction", "temperature", temperature,
-      "below the eutectic at " + (e.found ? std::string(buf) : std::string("an unknown temperature")) +
-          ", where " + sat.phase->name + " (" + sat.phase->formula +
-          ") crystallises from the unfrozen brine [" + sat.phase->source +
-          "]; the ice curve stops there");
-  r.unfrozen_water = std::numeric_limits<double>::quiet_NaN();
-  r.ice = std::numeric_limits<double>::quiet_NaN();
-  return r;
+/// Final eutectic of a solution: the temperature below which no liquid remains (for a
+/// binary salt solution, the ice + salt eutectic). Needs a model with ion activities.
+inline eutectic_result eutectic(const solution& s, const models::model_choice& m = "auto",
+                                double bound_water_kg = 0.0,
+                                crystallisation_path path = crystallisation_path::equilibrium) {
+  ice_curve curve(s, m, bound_water_kg, path);
+  return eutectic_of(curve);
 }
 
-/// Ice mass / total water at T with the caller's range policy.
-inline checked_value ice_fraction(const solution& s, double temperature,
-                                  models::model_id m = models::model_id::automatic,
-                                  range_policy policy = range_policy::extrapolate,
-                                  double bound_water_kg = 0.0) {
-  const auto r = unfrozen_phase_at(s, temperature, m, bound_water_kg);
+/// Ice, unfrozen water and water activity at temperature T (K).
+inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
+                                        const models::model_choice& m = "auto",
+                                        double bound_water_kg = 0.0) {
+  models::check_temperature_argument("ice_fraction", temperature);
+  ice_curve curve(s, m, bound_water_kg);
+  return as_unfrozen_phase(curve.at(temperature));
+}
+
+/// A curve state with the caller's range policy applied to its ice fraction.
+inline checked_value ice_fraction_of(const ice_curve_state& r, range_policy policy) {
   if (r.status == solve_status::below_eutectic) {
     if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason);
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
@@ -245,6 +133,16 @@ inline checked_value ice_fraction(const solution& s, double temperature,
                             to_string(r.status) + (r.check.reason.empty() ? "" : ": ") +
                             r.check.reason);
   return apply_policy(r.ice_fraction(), r.check, policy);
+}
+
+/// Ice mass / total water at T with the caller's range policy.
+inline checked_value ice_fraction(const solution& s, double temperature,
+                                  const models::model_choice& m = "auto",
+                                  range_policy policy = range_policy::extrapolate,
+                                  double bound_water_kg = 0.0) {
+  models::check_temperature_argument("ice_fraction", temperature);
+  ice_curve curve(s, m, bound_water_kg);
+  return ice_fraction_of(curve.at(temperature), policy);
 }
 
 }  // namespace colligate::equilibria

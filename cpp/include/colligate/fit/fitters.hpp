@@ -188,7 +188,7 @@ inline fit_result fit_norrish_freezing_point(const Eigen::VectorXd& molality,
     Eigen::VectorXd T(x.rows());
     for (Eigen::Index i = 0; i < x.rows(); ++i) {
       const auto s = solution::from_molalities({{detail::fitted_id, x(i, 0)}}, 1.0, table);
-      const auto fp = equilibria::freezing_point(s, models::model_id::norrish);
+      const auto fp = equilibria::freezing_point(s, "norrish");
       T[i] = fp.status == equilibria::solve_status::converged
                  ? fp.temperature
                  : std::numeric_limits<double>::quiet_NaN();
@@ -304,7 +304,7 @@ inline fit_result fit_effective_solute_freezing(const Eigen::VectorXd& water_fra
         continue;
       }
       const auto fp = equilibria::freezing_point(detail::food_solution(w, p[0], table),
-                                                 models::model_id::norrish, bound);
+                                                 "norrish", bound);
       T[i] = fp.status == equilibria::solve_status::converged
                  ? fp.temperature
                  : std::numeric_limits<double>::quiet_NaN();
@@ -350,7 +350,7 @@ inline fit_result fit_effective_solute_ice_curve(const Eigen::VectorXd& water_fr
         continue;
       }
       const auto u = equilibria::unfrozen_phase_at(detail::food_solution(w, p[0], table),
-                                                   xx(i, 1), models::model_id::norrish, bound);
+                                                   xx(i, 1), "norrish", bound);
       ice[i] = u.success() ? u.ice_fraction() : std::numeric_limits<double>::quiet_NaN();
     }
     return ice;

@@ -214,7 +214,7 @@ inline Eigen::VectorXd pitzer_model_values(pitzer_data_kind kind, const data::so
         break;
       case pitzer_data_kind::freezing_point: {
         const auto s = solution::from_molalities({{trial.id, m}}, 1.0, table);
-        const auto fp = equilibria::freezing_point(s, models::model_id::pitzer);
+        const auto fp = equilibria::freezing_point(s, "pitzer");
         f[i] = fp.success() ? fp.temperature : std::numeric_limits<double>::quiet_NaN();
         break;
       }

@@ -11,11 +11,16 @@
 #include "colligate/core/constants.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
+#include "colligate/models/detail/static_evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models {
 
 struct ideal {
   static constexpr const char* id = "ideal";
+  /// The registry entry (defined below).
+  static model_descriptor descriptor();
   static constexpr double max_particle_molality = 0.1;  // mol/kg
 
   static double particle_molality(const solution& s, double water_kg) {
@@ -39,5 +44,22 @@ struct ideal {
     return v;
   }
 };
+
+
+/// The registry entry of model 'ideal' (models/builtin_models.hpp).
+inline model_descriptor ideal::descriptor() {
+  model_descriptor d;
+  d.id = id;
+  d.summary = "ideal dilute solution, ln a_w = -M_w sum nu_i m_i";
+  d.traits = {false, false};
+  d.auto_rank = nullptr;
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::static_model_evaluator<ideal>>(s);
+  };
+  d.describe = [](const solution& s) {
+    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_ideal_particles(r); });
+  };
+  return d;
+}
 
 }  // namespace colligate::models

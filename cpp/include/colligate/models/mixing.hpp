@@ -23,6 +23,7 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -32,6 +33,10 @@
 #include "colligate/models/detail/pitzer_system.hpp"
 #include "colligate/models/norrish.hpp"
 #include "colligate/models/pitzer.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
+#include "colligate/models/detail/pitzer_ion_activities.hpp"
+#include "colligate/models/evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models {
 
@@ -141,6 +146,8 @@ inline double zsr_ln_water_activity(const solution& s, double water_kg, double t
 
 struct ross {
   static constexpr const char* id = "ross";
+  /// The registry entry (defined below).
+  static model_descriptor descriptor();
   /// Largest |a_w(Ross) - a_w(ZSR)| accepted before the mixture is flagged.
   static constexpr double max_rule_disagreement = 0.005;
 
@@ -197,5 +204,74 @@ struct ross {
     }
   }
 };
+
+
+namespace detail {
+
+/// Model 'ross' prepared for one species list (ross_system); the ion activities of its
+/// electrolytes prepared on first use.
+class ross_evaluator final : public activity_evaluator, public ion_activity_model {
+ public:
+  explicit ross_evaluator(const solution& s) : s_(&s), system_(s, pitzer::default_parameters()) {}
+  double ln_water_activity(double water_kg, double temperature) override {
+    return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
+  }
+  validity check(double water_kg, double temperature) override {
+    return ross::check(*s_, water_kg, temperature, system_);
+  }
+  ion_activity_model* ions() noexcept override {
+    return system_.has_electrolytes() ? this : nullptr;
+  }
+
+  std::size_t ion_slots() const override { return activities().ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const override { return activities().global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const override { return activities().slot_of(g); }
+  void ion_moles(double* n) const override { activities().ion_moles(n); }
+  /// Ross: the ions (Pitzer, with the ions that have no parameters as ideal particles)
+  /// times the non-electrolytes (Norrish), each in `water_kg`.
+  double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
+                                   double* ln_activity) override {
+    auto& a = activities();
+    const double sum = a.osmotic_sum(n, water_kg, temperature, ln_activity);
+    return -constants::molar_mass_water * (sum + a.unknown_ion_moles() / water_kg) +
+           system_.ln_non_electrolytes(s_->moles().data(), water_kg);
+  }
+
+ private:
+  pitzer_ion_activities& activities() const {
+    if (!activities_) activities_.emplace(*s_, pitzer::default_parameters());
+    return *activities_;
+  }
+  const solution* s_;
+  ross_system system_;
+  mutable std::optional<pitzer_ion_activities> activities_;
+};
+
+}  // namespace detail
+
+/// The registry entry of model 'ross' (models/builtin_models.hpp).
+inline model_descriptor ross::descriptor() {
+  model_descriptor d;
+  d.id = id;
+  d.summary = "Ross (1975) product rule, a_w = a_w(ions, Pitzer, parameter set '" +
+              pitzer::default_parameters().id +
+              "') * a_w(non-electrolytes, Norrish 1966 / Chirife et al. 1980), each evaluated "
+              "in the same water";
+  d.traits = {true, true};
+  d.auto_rank = [](const solution& s) {
+    return s.has_electrolytes() && s.has_non_electrolytes() ? 10 : 0;
+  };
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::ross_evaluator>(s);
+  };
+  d.describe = [](const solution& s) {
+    return detail::describe_each(s, [](const data::solute_record& r) {
+      return r.kind == data::solute_class::electrolyte
+                 ? detail::describe_pitzer_pair(r, pitzer::default_parameters())
+                 : detail::describe_norrish_constants(r);
+    });
+  };
+  return d;
+}
 
 }  // namespace colligate::models

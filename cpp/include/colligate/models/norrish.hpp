@@ -31,11 +31,16 @@
 #include "colligate/core/constants.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
+#include "colligate/models/detail/static_evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models {
 
 struct norrish {
   static constexpr const char* id = "norrish";
+  /// The registry entry (defined below).
+  static model_descriptor descriptor();
   static constexpr double min_temperature = 233.15;
   static constexpr double max_temperature = 323.15;
   static constexpr double max_ionic_strength = 0.3;  // counted as Raoult particles
@@ -131,5 +136,22 @@ struct norrish {
     return v;
   }
 };
+
+
+/// The registry entry of model 'norrish' (models/builtin_models.hpp).
+inline model_descriptor norrish::descriptor() {
+  model_descriptor d;
+  d.id = id;
+  d.summary = "Norrish (1966) with the multi-solute extension of Chirife et al. (1980)";
+  d.traits = {false, false};
+  d.auto_rank = [](const solution& s) { return s.has_electrolytes() ? 0 : 10; };
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::static_model_evaluator<norrish>>(s);
+  };
+  d.describe = [](const solution& s) {
+    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_norrish_constants(r); });
+  };
+  return d;
+}
 
 }  // namespace colligate::models

@@ -28,6 +28,8 @@
 
 #include <cmath>
 #include <cstdio>
+#include <memory>
+#include <optional>
 #include <string>
 
 #include "colligate/core/constants.hpp"
@@ -37,11 +39,17 @@
 #include "colligate/models/detail/pitzer_kernel.hpp"
 #include "colligate/models/detail/pitzer_record_parameters.hpp"
 #include "colligate/models/detail/pitzer_system.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
+#include "colligate/models/detail/pitzer_ion_activities.hpp"
+#include "colligate/models/evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models {
 
 struct pitzer {
   static constexpr const char* id = "pitzer";
+  /// The registry entry (defined below).
+  static model_descriptor descriptor();
   /// Largest total molality of non-electrolytes counted as ideal particles, mol/kg.
   static constexpr double max_non_electrolyte_molality = 0.1;
 
@@ -193,5 +201,83 @@ struct pitzer {
     return buf;
   }
 };
+
+
+namespace detail {
+
+/// Non-electrolyte particles and ions without parameters of `s`, mol: the ideal part of
+/// the Pitzer model (pitzer::ion_molalities).
+inline double pitzer_ideal_particle_moles(const solution& s, const pitzer_ion_activities& ions) {
+  double n = ions.unknown_ion_moles();
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const auto& rec = s.species()[i];
+    if (rec.kind != data::solute_class::electrolyte || rec.ions.empty())
+      n += rec.particles * s.moles()[i];
+  }
+  return n;
+}
+
+/// Model 'pitzer' prepared for one species list: the osmotic sum on the prepared system,
+/// the ion activities prepared on first use.
+class pitzer_evaluator final : public activity_evaluator, public ion_activity_model {
+ public:
+  pitzer_evaluator(const solution& s, const data::pitzer_parameter_set& set)
+      : s_(&s), set_(&set), system_(s, set) {}
+  double ln_water_activity(double water_kg, double temperature) override {
+    return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
+  }
+  validity check(double water_kg, double temperature) override {
+    return pitzer::check(*s_, water_kg, temperature, *set_);
+  }
+  ion_activity_model* ions() noexcept override { return this; }
+
+  std::size_t ion_slots() const override { return activities().ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const override { return activities().global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const override { return activities().slot_of(g); }
+  void ion_moles(double* n) const override { activities().ion_moles(n); }
+  double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
+                                   double* ln_activity) override {
+    auto& a = activities();
+    const double sum = a.osmotic_sum(n, water_kg, temperature, ln_activity);
+    return -constants::molar_mass_water * (sum + pitzer_ideal_particle_moles(*s_, a) / water_kg);
+  }
+
+ private:
+  pitzer_ion_activities& activities() const {
+    if (!activities_) activities_.emplace(*s_, *set_);
+    return *activities_;
+  }
+  const solution* s_;
+  const data::pitzer_parameter_set* set_;
+  pitzer_system system_;
+  mutable std::optional<pitzer_ion_activities> activities_;
+};
+
+}  // namespace detail
+
+/// The registry entry of model 'pitzer' (models/builtin_models.hpp).
+inline model_descriptor pitzer::descriptor() {
+  const auto& set = default_parameters();
+  model_descriptor d;
+  d.id = id;
+  d.summary = std::string("Pitzer ion interaction (Debye-Hueckel A_phi of ") +
+              (set.aphi == data::aphi_correlation::spencer_1990 ? "Spencer, Moller & Weare 1990"
+                                                               : "Clegg, Rard & Pitzer 1994") +
+              ", unsymmetrical E-theta of Pitzer 1975), parameter set '" + set.id + "' [" +
+              set.description + "]; non-electrolytes counted as ideal particles";
+  d.traits = {true, true};
+  d.auto_rank = [](const solution& s) {
+    return s.has_electrolytes() && !s.has_non_electrolytes() ? 10 : 0;
+  };
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::pitzer_evaluator>(s, default_parameters());
+  };
+  d.describe = [](const solution& s) {
+    return detail::describe_each(s, [](const data::solute_record& r) {
+      return detail::describe_pitzer_pair(r, default_parameters());
+    });
+  };
+  return d;
+}
 
 }  // namespace colligate::models

@@ -9,11 +9,16 @@
 
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
+#include "colligate/models/detail/static_evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models {
 
 struct raoult {
   static constexpr const char* id = "raoult";
+  /// The registry entry (defined below).
+  static model_descriptor descriptor();
   static constexpr double max_particle_molality = 1.0;        // mol/kg
   static constexpr double max_ionic_strength = 0.3;     // mol/kg of formula units
 
@@ -38,5 +43,22 @@ struct raoult {
     return v;
   }
 };
+
+
+/// The registry entry of model 'raoult' (models/builtin_models.hpp).
+inline model_descriptor raoult::descriptor() {
+  model_descriptor d;
+  d.id = id;
+  d.summary = "Raoult's law with dissociated particles counted, a_w = x_w";
+  d.traits = {false, false};
+  d.auto_rank = nullptr;
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::static_model_evaluator<raoult>>(s);
+  };
+  d.describe = [](const solution& s) {
+    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_ideal_particles(r); });
+  };
+  return d;
+}
 
 }  // namespace colligate::models

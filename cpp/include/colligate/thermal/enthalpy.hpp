@@ -53,7 +53,7 @@ inline constexpr double max_temperature = 313.15;
 class food {
  public:
   food(food_composition composition, solution water_phase, double bound_water = 0.0,
-       models::model_id model = models::model_id::automatic)
+       models::model_choice model = "auto")
       : composition_(composition), water_phase_(std::move(water_phase)),
         bound_water_(bound_water), model_(model) {
     composition_.validate("food");
@@ -67,7 +67,7 @@ class food {
   const food_composition& composition() const noexcept { return composition_; }
   const solution& water_phase() const noexcept { return water_phase_; }
   double bound_water() const noexcept { return bound_water_; }
-  models::model_id model() const noexcept { return model_; }
+  const models::model_choice& model() const noexcept { return model_; }
 
   /// Bound water expressed on the scale of water_phase(), kg.
   double bound_water_in_phase() const noexcept {
@@ -78,7 +78,7 @@ class food {
   food_composition composition_;
   solution water_phase_;
   double bound_water_;
-  models::model_id model_;
+  models::model_choice model_;
 };
 
 /// Liquid share of the water and its temperature derivative at T.

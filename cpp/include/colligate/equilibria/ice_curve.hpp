@@ -1,0 +1,803 @@
+#pragma once
+/// \file ice_curve.hpp
+/// The ice curve of one solution under one model: prepared once, it knows the initial
+/// freezing point and the ordered solid phases along the freezing path (ice, then each
+/// salt or salt hydrate as the unfrozen brine saturates in it, with the temperature where
+/// each starts), and answers for any temperature: the phase state, ice, each salt
+/// precipitated, the unfrozen liquid (water and ions), a_w and the validity (DESIGN
+/// section 1). Freezing point, ice fraction, unfrozen phase, eutectic, enthalpy, the
+/// batch kernels, the report and the plots all read it.
+///
+/// Equations. Ice (pure H2O) coexists with the liquid when
+///     ln a_w(liquid, T) = ln a_w,ice(T);
+/// a salt phase M_p X_q . h H2O that has crystallised coexists with it when
+///     SI = p ln(m_M gamma_M) + q ln(m_X gamma_X) + h ln a_w - ln K(T) = 0
+/// (equilibria/salt_solubility.hpp). With ice and the active salts k the unknowns are the
+/// liquid water W_u and the amounts crystallised xi_k; water balance
+///     W - W_bound = W_u + ice + M_w sum_k h_k xi_k.
+/// One phase (ice) is a 1-D bracketed root on ln W_u (equilibria/roots.hpp); with salts,
+/// Newton on (ln W_u, xi) with a finite-difference Jacobian, warm-started from the
+/// previous temperature of the path.
+///
+/// The path. Below the first salt onset the curve is followed downwards in steps of
+/// `path_step` K; at each step a salt that becomes supersaturated is added (its onset
+/// located by bisection to 1e-7 K), and, on the equilibrium path, a salt whose amount
+/// would turn negative dissolves again. Two paths are offered:
+/// - crystallisation_path::equilibrium: every solid stays in contact with the brine and
+///   may redissolve (the whole system at equilibrium at each T);
+/// - crystallisation_path::fractional: each salt is removed from the brine as it forms,
+///   so it never redissolves (where the equilibrium path would dissolve it, it stays
+///   crystallised and leaves the equilibrium).
+/// The curve ends at the final eutectic, the temperature at which one more solid phase
+/// saturates than the liquid's composition can accommodate (phase rule: the liquid is
+/// used up; for a binary brine, the ice + salt hydrate eutectic), or where the salt
+/// solubility data end (219.15 K), and says which. Below the end the masses are NaN with
+/// a reason.
+///
+/// Models without ion activities (ideal, Raoult, Norrish) have no salt phases; their
+/// curve is ice alone down to the search limit. Non-electrolyte crystallisation (lactose,
+/// sucrose) is not part of the path.
+///
+/// An ice_curve caches the path it has explored and the model's last-temperature
+/// coefficients: one per thread (copying is not offered; move it).
+
+#include <Eigen/Dense>
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+#include <cstdio>
+#include <limits>
+#include <memory>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/errors.hpp"
+#include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
+#include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/roots.hpp"
+#include "colligate/equilibria/salt_solubility.hpp"
+#include "colligate/equilibria/solver_status.hpp"
+#include "colligate/models/water_activity.hpp"
+#include "colligate/water/ice.hpp"
+
+namespace colligate::equilibria {
+
+/// Which freezing path the curve follows once salts crystallise.
+enum class crystallisation_path : std::uint8_t { equilibrium, fractional };
+
+inline const char* to_string(crystallisation_path p) {
+  return p == crystallisation_path::fractional ? "fractional" : "equilibrium";
+}
+
+inline crystallisation_path crystallisation_path_from_string(const std::string& s) {
+  if (s == "equilibrium") return crystallisation_path::equilibrium;
+  if (s == "fractional") return crystallisation_path::fractional;
+  throw invalid_input("path = '" + s + "': valid values are 'equilibrium' and 'fractional'");
+}
+
+/// What a solution is at one temperature.
+enum class phase_state : std::uint8_t {
+  liquid,            ///< above the freezing point: no ice
+  ice_and_liquid,    ///< ice and the unfrozen liquid
+  ice_salts_liquid,  ///< ice, one or more salt phases and the liquid
+  below_curve_end,   ///< below the final eutectic or the data's lower limit: not computed
+  not_solved         ///< the solver did not converge (status says why)
+};
+
+inline const char* to_string(phase_state s) {
+  switch (s) {
+    case phase_state::liquid: return "liquid";
+    case phase_state::ice_and_liquid: return "ice_and_liquid";
+    case phase_state::ice_salts_liquid: return "ice_salts_liquid";
+    case phase_state::below_curve_end: return "below_curve_end";
+    case phase_state::not_solved: return "not_solved";
+  }
+  return "unknown";
+}
+
+/// Why the ice curve ends where it does.
+enum class curve_end : std::uint8_t {
+  final_eutectic,     ///< no liquid can remain below it
+  salt_data_limit,    ///< the salt solubility data end (219.15 K)
+  search_limit,       ///< models without salt phases: the lowest temperature searched
+  saturated_before_ice,  ///< a salt is supersaturated already at the freezing point
+  no_freezing_point   ///< the solution does not freeze above the search limit
+};
+
+inline const char* to_string(curve_end e) {
+  switch (e) {
+    case curve_end::final_eutectic: return "final_eutectic";
+    case curve_end::salt_data_limit: return "salt_data_limit";
+    case curve_end::search_limit: return "search_limit";
+    case curve_end::saturated_before_ice: return "saturated_before_ice";
+    case curve_end::no_freezing_point: return "no_freezing_point";
+  }
+  return "unknown";
+}
+
+/// A solid salt phase on the path.
+struct salt_onset {
+  const salt_phase* phase = nullptr;
+  double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K where it starts to form
+  /// K where it dissolves again (equilibrium path) or leaves the equilibrium (fractional
+  /// path); NaN if it stays to the end of the curve.
+  double ends = std::numeric_limits<double>::quiet_NaN();
+};
+
+/// The state of the solution at one temperature. Masses in kg, amounts in mol.
+struct ice_curve_state {
+  double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K
+  phase_state state = phase_state::liquid;
+  solve_status status = solve_status::converged;
+  int iterations = 0;
+  double total_water = 0.0;     ///< water in the solution, kg
+  double bound_water = 0.0;     ///< water that cannot freeze, kg
+  double unfrozen_water = 0.0;  ///< liquid water (solvent), kg
+  double ice = 0.0;             ///< kg
+  double hydrate_water = 0.0;   ///< water held in crystallised salt hydrates, kg
+  double water_activity = std::numeric_limits<double>::quiet_NaN();
+  /// Salt crystallised, mol, one per entry of ice_curve::salts() (empty without salts).
+  std::vector<double> precipitated;
+  validity check;
+
+  /// Ice mass over total water mass.
+  double ice_fraction() const noexcept { return ice / total_water; }
+  bool success() const noexcept {
+    return status == solve_status::converged || status == solve_status::not_frozen;
+  }
+};
+
+class ice_curve {
+ public:
+  /// Lowest temperature a salt path is followed to (the salt data's limit), K.
+  static constexpr double lowest_salt_temperature = salt_phase_min_temperature;
+  /// Step of the path below the first salt onset, K.
+  static constexpr double path_step = 0.5;
+
+  /// The curve of `s` (copied) under model `m`.
+  explicit ice_curve(const solution& s, const models::model_choice& m = "auto",
+                     double bound_water_kg = 0.0,
+                     crystallisation_path path = crystallisation_path::equilibrium)
+      : ice_curve(std::make_shared<const solution>(s), m, bound_water_kg, path) {}
+
+  /// The curve of a shared solution. A batch passes a view of its workspace solution
+  /// (amounts overwritten row by row) and calls reset() after each new row.
+  ice_curve(std::shared_ptr<const solution> s, const models::model_choice& m,
+            double bound_water_kg, crystallisation_path path)
+      : s_(std::move(s)),
+        ln_aw_(std::make_unique<models::ln_water_activity_evaluator>(m, *s_)),
+        model_choice_(m),
+        path_(path) {
+    ions_ = s_->has_electrolytes() && ln_aw_->model().traits.ion_activities ? ln_aw_->ions()
+                                                                             : nullptr;
+    if (ions_) prepare_salts();
+    reset(bound_water_kg);
+  }
+
+  /// Forgets everything that depends on the amounts (after they changed in place) and
+  /// takes a new bound water, kg.
+  void reset(double bound_water_kg) {
+    detail::check_bound_water("ice_curve", *s_, bound_water_kg);
+    bound_ = bound_water_kg;
+    W_ = s_->water_mass() - bound_;
+    fp_known_ = false;
+    salts_started_ = false;
+    onsets_.clear();
+    onset_candidate_.clear();
+    segments_.clear();
+    nodes_.clear();
+    solver_stopped_ = false;
+    saturated_phase_ = nullptr;
+    explored_to_ = -1.0;
+    end_temperature_ = ions_ ? lowest_salt_temperature : search_min_temperature;
+    end_ = ions_ ? curve_end::salt_data_limit : curve_end::search_limit;
+    if (ions_) ions_->ion_moles(n0_.data());
+  }
+
+  ice_curve(const ice_curve&) = delete;
+  ice_curve& operator=(const ice_curve&) = delete;
+  ice_curve(ice_curve&&) noexcept = default;
+  ice_curve& operator=(ice_curve&&) noexcept = default;
+
+  const solution& composition() const noexcept { return *s_; }
+  const models::model_descriptor& model() const noexcept { return ln_aw_->model(); }
+  crystallisation_path path() const noexcept { return path_; }
+  double bound_water() const noexcept { return bound_; }
+
+  /// The initial freezing point (status and validity included), solved on first use.
+  const freezing_point_result& initial_freezing_point() {
+    if (!fp_known_) {
+      fp_ = freezing_point(*s_, model_choice_, bound_, *ln_aw_);
+      fp_known_ = true;
+    }
+    return fp_;
+  }
+
+  /// The salt phases along the path in the order they form (the whole path explored).
+  const std::vector<salt_onset>& salts() {
+    explore(lowest_salt_temperature);
+    return onsets_;
+  }
+
+  /// Where the curve ends (the whole path explored), K, and why.
+  double end_temperature() {
+    explore(lowest_salt_temperature);
+    return end_temperature_;
+  }
+  curve_end end_reason() {
+    explore(lowest_salt_temperature);
+    return end_;
+  }
+  /// The phase supersaturated at the freezing point (end_reason() saturated_before_ice).
+  const salt_phase* saturated_phase() const noexcept { return saturated_phase_; }
+
+  /// The first salt onset (the eutectic of a binary brine), exploring only as far as it.
+  const salt_onset* first_salt() {
+    if (start_salts() && onsets_.empty()) explore_first_onset(lowest_salt_temperature);
+    return onsets_.empty() ? nullptr : &onsets_[0];
+  }
+
+  /// The state at temperature T (K). Above the freezing point: liquid, no ice.
+  ice_curve_state at(double temperature) {
+    models::check_temperature_argument("ice_curve", temperature);
+    ice_curve_state r;
+    r.temperature = temperature;
+    r.total_water = s_->water_mass();
+    r.bound_water = bound_;
+    r.precipitated.assign(onsets_.size(), 0.0);
+    const double T = temperature;
+    const double ln_aw_solution = (*ln_aw_)(W_, T);
+    const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
+    if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
+      r.state = phase_state::liquid;
+      r.status = solve_status::not_frozen;
+      r.unfrozen_water = W_;
+      r.water_activity = std::exp(ln_aw_solution);
+      r.check = ln_aw_->check(W_, T);
+      return r;
+    }
+    if (ions_ == nullptr) return ice_only(r, ln_aw_ice);
+    // Salt path. No salt on the path yet: one ice solve and a saturation test decide
+    // (the saturation of the brine grows as it freezes).
+    if (onsets_.empty() && end_ != curve_end::saturated_before_ice) {
+      liquid_state st;
+      if (solve_ice_only(T, nullptr, st) && !(max_saturation(T, st, nullptr) > 0.0) &&
+          T >= lowest_salt_temperature)
+        return fill(r, st, {}, ln_aw_ice);
+    }
+    if (!start_salts()) return below_end(r);
+    explore(T);
+    if (T < end_temperature_) return below_end(r);
+    const segment& seg = segment_for(T);
+    liquid_state st = guess_for(T, seg);
+    if (!solve(T, seg, st)) {
+      r.state = phase_state::not_solved;
+      r.status = solve_status::max_iterations;
+      r.check = validity{colligate::detail::describe(
+          "ice_curve", "temperature", T,
+          "the ice and salt equilibria did not converge at this temperature")};
+      r.unfrozen_water = r.ice = std::numeric_limits<double>::quiet_NaN();
+      return r;
+    }
+    r.precipitated.assign(onsets_.size(), 0.0);
+    return fill(r, st, seg, ln_aw_ice);
+  }
+
+ private:
+  /// Unknowns of one state: u = ln W_u and the amounts crystallised per onset.
+  struct liquid_state {
+    double u = 0.0;
+    std::vector<double> xi;  ///< per onset (active or fixed)
+    int iterations = 0;
+  };
+  /// A stretch of the path with one set of active salts.
+  struct segment {
+    double t_hi = 0.0, t_lo = 0.0;
+    std::vector<std::size_t> active;  ///< onset indices in equilibrium with the liquid
+    std::vector<double> fixed;        ///< per onset: amounts removed for good (fractional)
+  };
+  struct node {
+    double temperature;
+    liquid_state state;
+  };
+  struct candidate {
+    const salt_phase* phase;
+    std::vector<std::pair<std::size_t, int>> slots;  ///< ion slot, count
+  };
+
+  // --- preparation -----------------------------------------------------------------
+
+  /// Solves the freezing point and starts the salt path there (once per reset). False
+  /// when there is no path to follow (no freezing point, or a salt saturated before ice).
+  bool start_salts() {
+    if (ions_ == nullptr) return false;
+    if (salts_started_) return explored_to_ >= 0.0 || !onsets_.empty();
+    salts_started_ = true;
+    const auto& fp = initial_freezing_point();
+    if (!fp.success()) {
+      end_ = curve_end::no_freezing_point;
+      end_temperature_ = fp.temperature;
+      return false;
+    }
+    liquid_state probe;
+    probe.u = std::log(W_);
+    const salt_phase* ph = nullptr;
+    if (max_saturation(fp.temperature, probe, &ph) > 0.0) {
+      end_ = curve_end::saturated_before_ice;
+      end_temperature_ = fp.temperature;
+      saturated_phase_ = ph;
+      return false;
+    }
+    explored_to_ = fp.temperature;
+    return true;
+  }
+
+  /// The salt phases whose ions the species can supply (amounts are read at reset()).
+  void prepare_salts() {
+    n_slots_ = ions_->ion_slots();
+    n0_.assign(n_slots_, 0.0);
+    for (const auto& ph : salt_phases()) {
+      candidate c{&ph, {}};
+      bool present = true;
+      for (const auto& [ion, count] : ph.ions) {
+        const auto g = data::pitzer_ion_index(ion);
+        const auto k = g < data::pitzer_ion_count ? ions_->slot_of(g) : n_slots_;
+        if (k >= n_slots_) {
+          present = false;
+          break;
+        }
+        c.slots.emplace_back(k, count);
+      }
+      if (present) candidates_.push_back(std::move(c));
+    }
+    ln_act_.assign(n_slots_, 0.0);
+    n_liq_.assign(n_slots_, 0.0);
+  }
+
+  double ion_scale() const {
+    double s = 0.0;
+    for (double n : n0_) s += n;
+    return s > 0.0 ? s : 1.0;
+  }
+
+  // --- evaluations -----------------------------------------------------------------
+
+  /// Liquid ion amounts for crystallised amounts xi (per onset) and the fixed removals.
+  void liquid_ions(const std::vector<double>& xi, const std::vector<double>* fixed) {
+    n_liq_ = n0_;
+    for (std::size_t j = 0; j < onsets_.size(); ++j) {
+      const double x = (j < xi.size() ? xi[j] : 0.0) + (fixed && j < fixed->size() ? (*fixed)[j] : 0.0);
+      if (x == 0.0) continue;
+      for (const auto& [k, count] : candidate_of(j).slots) n_liq_[k] -= count * x;
+    }
+  }
+  const candidate& candidate_of(std::size_t onset) const { return candidates_[onset_candidate_[onset]]; }
+
+  double saturation_index(const candidate& c, double T, double ln_aw) const {
+    double si = c.phase->water * ln_aw - c.phase->ln_k(T);
+    for (const auto& [k, count] : c.slots) si += count * ln_act_[k];
+    return si;
+  }
+
+  /// ln a_w of the liquid (n_liq_ in W_u) and ln(m gamma) into ln_act_.
+  double evaluate_liquid(double Wu, double T) {
+    for (double n : n_liq_)
+      if (!(n >= 0.0)) return std::numeric_limits<double>::quiet_NaN();
+    return ions_->ln_water_activity_of_ions(n_liq_.data(), Wu, T, ln_act_.data());
+  }
+
+  /// Largest saturation index over the candidates not yet on the path, at the state `st`
+  /// (whose xi are already applied to n_liq_ by the caller when relevant).
+  double max_saturation(double T, const liquid_state& st, const salt_phase** which) {
+    if (st.xi.empty()) n_liq_ = n0_;
+    const double ln_aw = evaluate_liquid(std::exp(st.u), T);
+    double best = -std::numeric_limits<double>::infinity();
+    for (std::size_t c = 0; c < candidates_.size(); ++c) {
+      if (on_path(c)) continue;
+      const double si = saturation_index(candidates_[c], T, ln_aw);
+      if (si > best) {
+        best = si;
+        if (which) *which = candidates_[c].phase;
+      }
+    }
+    return best;
+  }
+  bool on_path(std::size_t c) const {
+    return std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
+  }
+
+  // --- solves ----------------------------------------------------------------------
+
+  /// Ice alone (no salt): the 1-D root on ln W_u. `fixed` removals apply (fractional).
+  bool solve_ice_only(double T, const std::vector<double>* fixed, liquid_state& st) {
+    const double ln_aw_ice = water::ln_water_activity_of_ice(T);
+    const bool plain = fixed == nullptr || std::all_of(fixed->begin(), fixed->end(),
+                                                       [](double x) { return x == 0.0; });
+    if (plain) n_liq_ = n0_;
+    else liquid_ions({}, fixed);
+    auto g = [&](double u) {
+      const double Wu = std::exp(u);
+      const double l = plain ? (*ln_aw_)(Wu, T) : evaluate_liquid(Wu, T);
+      return l - ln_aw_ice;
+    };
+    const auto root = solve_on_log_water(g, std::log(W_));
+    st.u = root.x;
+    st.xi.assign(onsets_.size(), 0.0);
+    st.iterations = root.iterations;
+    return root.status == root_status::converged;
+  }
+
+  /// Ice and the active salts of `seg` at T by damped Newton from `st`.
+  bool solve(double T, const segment& seg, liquid_state& st) {
+    if (seg.active.empty()) return solve_ice_only(T, &seg.fixed, st);
+    st.xi.resize(onsets_.size(), 0.0);
+    const std::size_t k = seg.active.size(), n = k + 1;
+    const double ln_aw_ice = water::ln_water_activity_of_ice(T);
+    Eigen::VectorXd x(n), r(n), r_try(n), dx(n);
+    Eigen::MatrixXd J(n, n);
+    auto residual = [&](const Eigen::VectorXd& v, Eigen::VectorXd& out) {
+      std::vector<double>& xi = work_xi_;
+      xi.assign(onsets_.size(), 0.0);
+      for (std::size_t a = 0; a < k; ++a) xi[seg.active[a]] = v[a + 1];
+      liquid_ions(xi, &seg.fixed);
+      const double ln_aw = evaluate_liquid(std::exp(v[0]), T);
+      if (!std::isfinite(ln_aw)) return false;
+      out[0] = ln_aw - ln_aw_ice;
+      for (std::size_t a = 0; a < k; ++a)
+        out[a + 1] = saturation_index(candidate_of(seg.active[a]), T, ln_aw);
+      return std::isfinite(out.sum());
+    };
+    x[0] = st.u;
+    for (std::size_t a = 0; a < k; ++a) x[a + 1] = st.xi[seg.active[a]];
+    if (!residual(x, r)) return false;
+    for (int it = 0; it < 60; ++it) {
+      if (r.lpNorm<Eigen::Infinity>() < 1e-11) {
+        st.u = x[0];
+        for (std::size_t a = 0; a < k; ++a) st.xi[seg.active[a]] = x[a + 1];
+        st.iterations = it;
+        return true;
+      }
+      for (std::size_t j = 0; j < n; ++j) {
+        Eigen::VectorXd xp = x;
+        const double h = j == 0 ? 1e-7 : 1e-7 * std::max(std::abs(x[j]), 1e-4 * ion_scale());
+        xp[j] += h;
+        if (!residual(xp, r_try)) {
+          xp[j] = x[j] - h;
+          if (!residual(xp, r_try)) return false;
+          J.col(j) = (r - r_try) / h;
+        } else {
+          J.col(j) = (r_try - r) / h;
+        }
+      }
+      dx = J.partialPivLu().solve(-r);
+      if (!dx.allFinite()) return false;
+      // Keep every ion amount positive: limit the step, then backtrack on |r|.
+      double lambda = 1.0;
+      for (int bt = 0; bt < 40; ++bt, lambda *= 0.5) {
+        Eigen::VectorXd xt = x + lambda * dx;
+        if (residual(xt, r_try) && r_try.norm() < (1.0 - 1e-4 * lambda) * r.norm() + 1e-300) {
+          x = xt;
+          r = r_try;
+          break;
+        }
+        if (bt == 39) return false;
+      }
+    }
+    return false;
+  }
+
+  // --- the path --------------------------------------------------------------------
+
+  /// Finds the first salt onset above `T_low` on the ice-only path (bisection on the
+  /// largest saturation index, assumed to grow as the brine concentrates).
+  void explore_first_onset(double T_low) {
+    if (!onsets_.empty()) return;
+    liquid_state st;
+    const double lo_T = std::max(T_low, lowest_salt_temperature);
+    if (!solve_ice_only(lo_T, nullptr, st)) return;
+    const salt_phase* ph = nullptr;
+    if (!(max_saturation(lo_T, st, &ph) > 0.0)) {
+      explored_to_ = std::min(explored_to_, lo_T);
+      if (lo_T <= lowest_salt_temperature) {
+        end_temperature_ = lowest_salt_temperature;
+        end_ = curve_end::salt_data_limit;
+      }
+      return;
+    }
+    double hi = initial_freezing_point().temperature, lo = lo_T;
+    for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
+      const double mid = 0.5 * (lo + hi);
+      liquid_state sm;
+      const bool ok = solve_ice_only(mid, nullptr, sm);
+      (ok && max_saturation(mid, sm, nullptr) >= 0.0 ? lo : hi) = mid;
+    }
+    const double T_on = 0.5 * (lo + hi);
+    solve_ice_only(T_on, nullptr, st);
+    const salt_phase* first = nullptr;
+    max_saturation(T_on, st, &first);
+    segments_.push_back({initial_freezing_point().temperature, T_on, {}, {}});
+    add_onset(first, T_on, st);
+  }
+
+  /// Adds a salt at its onset T, or ends the curve there if the phase rule allows no
+  /// more solids with the liquid.
+  void add_onset(const salt_phase* phase, double T_on, const liquid_state& st) {
+    std::size_t c = 0;
+    while (candidates_[c].phase != phase) ++c;
+    // Phase rule: the liquid's composition directions (its amounts and the removal
+    // vector of each salt in equilibrium with it) must stay independent.
+    const auto& prev = segments_.back();
+    std::vector<std::size_t> active = prev.active;
+    const bool has_non_electrolytes = s_->has_non_electrolytes();
+    const std::size_t rows = n_slots_ + (has_non_electrolytes ? 1 : 0);
+    Eigen::MatrixXd A(rows, active.size() + 2);
+    A.setZero();
+    liquid_ions(st.xi, &prev.fixed);
+    for (std::size_t i = 0; i < n_slots_; ++i) A(i, 0) = n_liq_[i] / ion_scale();
+    if (has_non_electrolytes) A(n_slots_, 0) = 1.0;
+    for (std::size_t a = 0; a < active.size(); ++a)
+      for (const auto& [k, count] : candidate_of(active[a]).slots) A(k, a + 1) = count;
+    for (const auto& [k, count] : candidates_[c].slots) A(k, active.size() + 1) = count;
+    Eigen::FullPivLU<Eigen::MatrixXd> lu(A);
+    lu.setThreshold(1e-9);
+    onsets_.push_back({phase, T_on, std::numeric_limits<double>::quiet_NaN()});
+    onset_candidate_.push_back(c);
+    if (lu.rank() < static_cast<Eigen::Index>(active.size() + 2)) {
+      end_ = curve_end::final_eutectic;
+      end_temperature_ = T_on;
+      explored_to_ = T_on;
+      return;
+    }
+    active.push_back(onsets_.size() - 1);
+    std::vector<double> fixed = prev.fixed;
+    fixed.resize(onsets_.size(), 0.0);
+    segments_.push_back({T_on, T_on, active, fixed});
+    liquid_state start = st;
+    start.xi.resize(onsets_.size(), 0.0);
+    nodes_.push_back({T_on, start});
+    explored_to_ = T_on;
+  }
+
+  /// Follows the path down to `T_target` (or the end).
+  void explore(double T_target) {
+    if (!start_salts()) return;
+    if (onsets_.empty()) {
+      explore_first_onset(T_target);
+      if (onsets_.empty()) return;
+    }
+    while (explored_to_ > T_target && end_ == curve_end::salt_data_limit &&
+           explored_to_ > lowest_salt_temperature) {
+      segment& seg = segments_.back();
+      const double T_prev = explored_to_;
+      double step = path_step;
+      liquid_state st;
+      double T = 0.0;
+      bool ok = false;
+      for (int tries = 0; tries < 12 && !ok; ++tries, step *= 0.5) {
+        T = std::max(T_prev - step, lowest_salt_temperature);
+        st = nodes_.back().state;
+        ok = solve(T, seg, st);
+      }
+      if (!ok) {
+        end_ = curve_end::salt_data_limit;  // stops where the solver does; say so in at()
+        end_temperature_ = T_prev;
+        solver_stopped_ = true;
+        return;
+      }
+      // A new salt saturating?
+      const salt_phase* ph = nullptr;
+      liquid_ions(st.xi, &seg.fixed);
+      if (max_saturation(T, st, &ph) > 0.0) {
+        double hi = T_prev, lo = T;
+        liquid_state s_hi = nodes_.back().state, s_lo = st;
+        for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
+          const double mid = 0.5 * (lo + hi);
+          liquid_state sm = s_hi;
+          if (!solve(mid, seg, sm)) break;
+          liquid_ions(sm.xi, &seg.fixed);
+          if (max_saturation(mid, sm, nullptr) >= 0.0) {
+            lo = mid;
+            s_lo = sm;
+          } else {
+            hi = mid;
+            s_hi = sm;
+          }
+        }
+        liquid_ions(s_lo.xi, &seg.fixed);
+        const salt_phase* which = nullptr;
+        max_saturation(lo, s_lo, &which);
+        seg.t_lo = lo;
+        nodes_.push_back({lo, s_lo});
+        add_onset(which, lo, s_lo);
+        continue;
+      }
+      // A salt dissolving (equilibrium) or leaving the equilibrium (fractional)?
+      std::size_t leaving = onsets_.size();
+      for (std::size_t a : seg.active) {
+        const bool falls = path_ == crystallisation_path::fractional
+                               ? st.xi[a] < nodes_.back().state.xi[a]
+                               : st.xi[a] < 0.0;
+        if (falls) {
+          leaving = a;
+          break;
+        }
+      }
+      if (leaving < onsets_.size()) {
+        double T_out = T;
+        liquid_state s_out = st;
+        if (path_ == crystallisation_path::equilibrium) {
+          double hi = T_prev, lo = T;
+          liquid_state s_hi = nodes_.back().state;
+          for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
+            const double mid = 0.5 * (lo + hi);
+            liquid_state sm = s_hi;
+            if (!solve(mid, seg, sm)) break;
+            if (sm.xi[leaving] < 0.0) lo = mid;
+            else {
+              hi = mid;
+              s_hi = sm;
+            }
+          }
+          T_out = hi;
+          s_out = s_hi;
+          s_out.xi[leaving] = 0.0;
+        } else {
+          T_out = T_prev;
+          s_out = nodes_.back().state;
+        }
+        onsets_[leaving].ends = T_out;
+        seg.t_lo = T_out;
+        std::vector<std::size_t> active;
+        for (std::size_t a : seg.active)
+          if (a != leaving) active.push_back(a);
+        std::vector<double> fixed = seg.fixed;
+        if (path_ == crystallisation_path::fractional) {
+          fixed[leaving] += s_out.xi[leaving];
+          s_out.xi[leaving] = 0.0;
+        }
+            segments_.push_back({T_out, T_out, active, fixed});
+        nodes_.push_back({T_out, s_out});
+        explored_to_ = T_out;
+        continue;
+      }
+      seg.t_lo = T;
+      nodes_.push_back({T, st});
+      explored_to_ = T;
+      if (T <= lowest_salt_temperature) {
+        end_ = curve_end::salt_data_limit;
+        end_temperature_ = lowest_salt_temperature;
+      }
+    }
+  }
+
+  const segment& segment_for(double T) const {
+    for (const auto& seg : segments_)
+      if (T <= seg.t_hi && T >= seg.t_lo) return seg;
+    return segments_.back();
+  }
+
+  /// The stored state nearest above T in its segment (the warm start).
+  liquid_state guess_for(double T, const segment& seg) const {
+    const liquid_state* best = nullptr;
+    double best_dt = std::numeric_limits<double>::infinity();
+    for (const auto& nd : nodes_) {
+      if (nd.temperature > seg.t_hi || nd.temperature < seg.t_lo) continue;
+      const double dt = std::abs(nd.temperature - T);
+      if (dt < best_dt) {
+        best_dt = dt;
+        best = &nd.state;
+      }
+    }
+    if (best) return *best;
+    liquid_state st;
+    st.u = std::log(W_);
+    st.xi.assign(onsets_.size(), 0.0);
+    return st;
+  }
+
+  // --- results ---------------------------------------------------------------------
+
+  ice_curve_state& ice_only(ice_curve_state& r, double ln_aw_ice) {
+    double total_moles = 0.0;
+    for (double n : s_->moles()) total_moles += n;
+    if (total_moles == 0.0) {  // pure water below the ice point: all freezable water is ice
+      r.state = phase_state::ice_and_liquid;
+      r.unfrozen_water = 0.0;
+      r.ice = W_;
+      r.water_activity = std::exp(ln_aw_ice);
+      r.check = water::ice_temperature_validity(r.temperature);
+      return r;
+    }
+    liquid_state st;
+    const bool ok = solve_ice_only(r.temperature, nullptr, st);
+    if (!ok) {
+      r.state = phase_state::not_solved;
+      r.status = solve_status::max_iterations;
+      r.check.reason = "ice_fraction: no unfrozen-water mass satisfies the ice equilibrium";
+      r.unfrozen_water = r.ice = std::numeric_limits<double>::quiet_NaN();
+      return r;
+    }
+    return fill(r, st, segment{}, ln_aw_ice);
+  }
+
+  ice_curve_state& fill(ice_curve_state& r, const liquid_state& st, const segment& seg,
+                        double ln_aw_ice) {
+    const double Wu = std::exp(st.u);
+    r.iterations = st.iterations;
+    r.unfrozen_water = Wu;
+    r.water_activity = std::exp(ln_aw_ice);
+    double hydrate_mol = 0.0;
+    r.precipitated.assign(onsets_.size(), 0.0);
+    for (std::size_t j = 0; j < onsets_.size() && j < st.xi.size(); ++j) {
+      const double x = st.xi[j] + (j < seg.fixed.size() ? seg.fixed[j] : 0.0);
+      r.precipitated[j] = x;
+      hydrate_mol += x * onsets_[j].phase->water;
+    }
+    r.hydrate_water = hydrate_mol * constants::molar_mass_water;
+    r.ice = s_->water_mass() - Wu - bound_ - r.hydrate_water;
+    bool salts = false;
+    for (double x : r.precipitated) salts = salts || x > 0.0;
+    r.state = salts ? phase_state::ice_salts_liquid : phase_state::ice_and_liquid;
+    r.status = solve_status::converged;
+    r.check = ln_aw_->check(Wu, r.temperature);
+    r.check.merge(water::ice_temperature_validity(r.temperature));
+    return r;
+  }
+
+  ice_curve_state& below_end(ice_curve_state& r) {
+    r.state = phase_state::below_curve_end;
+    r.status = solve_status::below_eutectic;
+    r.unfrozen_water = r.ice = r.hydrate_water = std::numeric_limits<double>::quiet_NaN();
+    r.precipitated.assign(onsets_.size(), std::numeric_limits<double>::quiet_NaN());
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.2f K (%.2f C)", end_temperature_,
+                  end_temperature_ - constants::celsius_offset);
+    std::string why;
+    if (end_ == curve_end::saturated_before_ice) {
+      why = "the solution is already saturated in " + saturated_phase_->name + " (" +
+            saturated_phase_->formula + ") at its freezing point [" + saturated_phase_->source +
+            "]; the salt crystallises before ice and the curve is not followed";
+    } else if (end_ == curve_end::final_eutectic) {
+      const auto& last = onsets_.back();
+      why = "below the final eutectic at " + std::string(buf) + ", where " + last.phase->name +
+            " (" + last.phase->formula + ") crystallises from the unfrozen brine [" +
+            last.phase->source + "] and no liquid remains; the ice curve stops there";
+    } else if (solver_stopped_) {
+      why = "below " + std::string(buf) + ", where the ice and salt equilibria stopped converging";
+    } else {
+      why = "below " + std::string(buf) + ", the lower limit of the salt solubility data [" +
+            std::string(salt_phases().front().source) + "]";
+    }
+    r.check.reason = colligate::detail::describe("ice_fraction", "temperature", r.temperature, why);
+    return r;
+  }
+
+  std::shared_ptr<const solution> s_;  // stable address: the evaluator points to it
+  std::unique_ptr<models::ln_water_activity_evaluator> ln_aw_;
+  models::model_choice model_choice_;
+  double bound_ = 0.0;
+  double W_ = 0.0;  // freezable water, kg
+  crystallisation_path path_;
+  freezing_point_result fp_;
+  bool fp_known_ = false;
+  bool salts_started_ = false;
+  models::ion_activity_model* ions_ = nullptr;
+  // salt path
+  std::size_t n_slots_ = 0;
+  std::vector<double> n0_, n_liq_, ln_act_, work_xi_;
+  std::vector<candidate> candidates_;
+  std::vector<salt_onset> onsets_;
+  std::vector<std::size_t> onset_candidate_;
+  std::vector<segment> segments_;
+  std::vector<node> nodes_;
+  double explored_to_ = -1.0;  // K; < 0: nothing to explore
+  double end_temperature_ = std::numeric_limits<double>::quiet_NaN();
+  curve_end end_ = curve_end::search_limit;
+  bool solver_stopped_ = false;
+  const salt_phase* saturated_phase_ = nullptr;
+};
+
+}  // namespace colligate::equilibria

@@ -1,0 +1,75 @@
+#pragma once
+/// \file roots.hpp
+/// The one root-finding layer of colligate: thin wrappers over Boost.Math tools/roots
+/// (TOMS 748, Alefeld, Potra & Shi 1995) that return a status instead of throwing, plus
+/// the bracket searches the equilibria need. A reversed bracket or a bracket without a
+/// sign change is reported as a status (the callers turn it into an error where it is
+/// a caller mistake).
+
+#include <boost/math/tools/roots.hpp>
+#include <cmath>
+#include <cstdint>
+#include <limits>
+
+namespace colligate::equilibria {
+
+enum class root_status : std::uint8_t {
+  converged,       ///< bracket narrowed to the tolerance
+  no_sign_change,  ///< f has the same sign at both ends (or is NaN there)
+  max_iterations   ///< stopped before reaching the tolerance
+};
+
+struct root_result {
+  double x = std::numeric_limits<double>::quiet_NaN();  ///< midpoint of the final bracket
+  double lo = std::numeric_limits<double>::quiet_NaN(), hi = lo;
+  root_status status = root_status::no_sign_change;
+  int iterations = 0;
+};
+
+/// Root of f in [lo, hi] given f(lo) and f(hi) of opposite signs, by TOMS 748 to `bits`
+/// bits of relative precision in at most `max_iterations` evaluations.
+template <class F>
+root_result toms748_root(F&& f, double lo, double hi, double f_lo, double f_hi, int bits = 50,
+                         int max_iterations = 100) {
+  root_result r;
+  if (!(f_lo * f_hi < 0.0)) return r;
+  std::uintmax_t it = static_cast<std::uintmax_t>(max_iterations);
+  boost::math::tools::eps_tolerance<double> tol(bits);
+  const auto [a, b] = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, tol, it);
+  r.lo = a;
+  r.hi = b;
+  r.x = 0.5 * (a + b);
+  r.iterations = static_cast<int>(it);
+  r.status = it >= static_cast<std::uintmax_t>(max_iterations) ? root_status::max_iterations
+                                                               : root_status::converged;
+  return r;
+}
+
+/// Root of g(u) on u = ln W (water mass) below u_hi, where g(u_hi) > 0 and g falls as
+/// water is removed (the ice equilibrium of the unfrozen water): the lower end is moved
+/// down by 2, then by 4 at a time, to 60 below u_hi, until g < 0 there.
+template <class G>
+root_result solve_on_log_water(G&& g, double u_hi) {
+  double u_lo = u_hi - 2.0;
+  double g_lo = g(u_lo);
+  while (!(g_lo < 0.0) && u_lo > u_hi - 60.0) {
+    u_lo -= 4.0;
+    g_lo = g(u_lo);
+  }
+  if (!(g_lo < 0.0)) return {};
+  return toms748_root(g, u_lo, u_hi, g_lo, g(u_hi), 50, 100);
+}
+
+/// Root of h(u) (rising in u) near u0: the bracket is widened by 1 at a time on each side
+/// (at most 60 steps) until h changes sign, then TOMS 748 to `bits` bits.
+template <class H>
+root_result solve_rising(H&& h, double u0, int bits = 40) {
+  double lo = u0, hi = u0;
+  double flo = h(lo), fhi = flo;
+  for (int i = 0; i < 60 && !(fhi > 0.0); ++i) fhi = h(hi += 1.0);
+  for (int i = 0; i < 60 && !(flo < 0.0); ++i) flo = h(lo -= 1.0);
+  if (!(flo < 0.0) || !(fhi > 0.0)) return {};
+  return toms748_root(h, lo, hi, flo, fhi, bits, 100);
+}
+
+}  // namespace colligate::equilibria

@@ -1,0 +1,54 @@
+#pragma once
+/// \file builtin_models.hpp
+/// The registry of the models shipped with colligate, and the handle callers use to name
+/// a model (an id plus the registry to look it up in). One line per model below.
+
+#include <string>
+#include <utility>
+
+#include "colligate/models/ideal.hpp"
+#include "colligate/models/mixing.hpp"
+#include "colligate/models/norrish.hpp"
+#include "colligate/models/pitzer.hpp"
+#include "colligate/models/raoult.hpp"
+#include "colligate/models/registry.hpp"
+
+namespace colligate::models {
+
+/// The built-in models (immutable; built once, thread-safe initialisation).
+inline const model_registry& builtin_models() {
+  static const model_registry registry({
+      ideal::descriptor(),
+      raoult::descriptor(),
+      norrish::descriptor(),
+      pitzer::descriptor(),
+      ross::descriptor(),
+  });
+  return registry;
+}
+
+/// A model named by id ('auto' by default) in a registry (the built-in one by default).
+/// Cheap to copy; the registry must outlive it.
+class model_choice {
+ public:
+  model_choice(const char* id) : model_choice(std::string(id)) {}  // NOLINT: implicit by design
+  model_choice(std::string id) : model_choice(std::move(id), builtin_models()) {}  // NOLINT
+  model_choice(std::string id, const model_registry& registry)
+      : id_(std::move(id)), registry_(&registry) {
+    registry_->require(id_);
+  }
+  const std::string& id() const noexcept { return id_; }
+  bool is_auto() const noexcept { return id_ == automatic_model_id; }
+  const model_registry& registry() const noexcept { return *registry_; }
+  /// The concrete model for this solution ('auto' resolved).
+  const model_descriptor& resolve(const solution& s) const { return registry_->resolve(id_, s); }
+  bool operator==(const model_choice& o) const noexcept {
+    return id_ == o.id_ && registry_ == o.registry_;
+  }
+
+ private:
+  std::string id_;
+  const model_registry* registry_;
+};
+
+}  // namespace colligate::models

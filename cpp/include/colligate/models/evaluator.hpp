@@ -1,0 +1,52 @@
+#pragma once
+/// \file evaluator.hpp
+/// What every activity model offers once it is prepared for one species list: ln a_w of the
+/// solution it was prepared for (with a water mass in place of its own, for the ice
+/// curve), the validity of that state, and, for models with ion activities, the ion
+/// activities a salt-saturation test needs.
+///
+/// An evaluator holds a pointer to the solution it was prepared for and reads its amounts
+/// at each call, so it follows a solution whose amounts are overwritten in place (batch
+/// rows). It may cache work of the last temperature: one evaluator per solve or per thread.
+
+#include <cstddef>
+
+#include "colligate/core/validity.hpp"
+
+namespace colligate::models {
+
+/// Ion activities of a prepared model: the ions present ("slots", in the order of
+/// data::pitzer_ions), their amounts in the prepared solution, and ln a_w and
+/// ln(m_i gamma_i) for any ion amounts in any water mass. The non-electrolytes of the
+/// prepared solution stay as they are; a salt phase that crystallises removes ions only.
+class ion_activity_model {
+ public:
+  virtual ~ion_activity_model() = default;
+  /// Number of ions present.
+  virtual std::size_t ion_slots() const = 0;
+  /// Index into data::pitzer_ions of slot k.
+  virtual std::size_t global_ion(std::size_t slot) const = 0;
+  /// Slot of a data::pitzer_ions index; ion_slots() when that ion is absent.
+  virtual std::size_t slot_of(std::size_t global_ion) const = 0;
+  /// Amounts of each ion in the prepared solution, mol (ion_slots() values).
+  virtual void ion_moles(double* moles_per_slot) const = 0;
+  /// ln a_w with `ion_moles` (mol per slot) and the solution's non-electrolytes in
+  /// `water_kg` of water at T; if `ln_activity` is not null, also ln(m_i gamma_i) per slot
+  /// (-inf for an ion with zero amount).
+  virtual double ln_water_activity_of_ions(const double* ion_moles, double water_kg,
+                                           double temperature, double* ln_activity) = 0;
+};
+
+/// A model prepared for one species list.
+class activity_evaluator {
+ public:
+  virtual ~activity_evaluator() = default;
+  /// ln a_w of the prepared solution's amounts in `water_kg` of water at T (K).
+  virtual double ln_water_activity(double water_kg, double temperature) = 0;
+  /// Validity of that state.
+  virtual validity check(double water_kg, double temperature) = 0;
+  /// The ion activities, or nullptr for models without them.
+  virtual ion_activity_model* ions() noexcept { return nullptr; }
+};
+
+}  // namespace colligate::models
