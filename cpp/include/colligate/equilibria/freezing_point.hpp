@@ -6,7 +6,6 @@
 /// iteration (see freezing_point below). Water that cannot freeze (`bound_water_kg`, e.g. bound to
 /// protein) is taken out of the solvent.
 
-#include <boost/math/tools/roots.hpp>
 #include <cmath>
 #include <cstdint>
 #include <limits>

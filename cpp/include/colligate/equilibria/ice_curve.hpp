@@ -15,7 +15,7 @@
 /// (equilibria/salt_solubility.hpp). With ice and the active salts k the unknowns are the
 /// liquid water W_u and the amounts crystallised xi_k; water balance
 ///     W - W_bound = W_u + ice + M_w sum_k h_k xi_k.
-/// One phase (ice) is a 1-D bracketed root on ln W_u (equilibria/roots.hpp); with salts,
+/// One phase (ice) is a 1-D bracketed root on ln W_u (core/roots.hpp); with salts,
 /// Newton on (ln W_u, xi) with a finite-difference Jacobian, warm-started from the
 /// previous temperature of the path.
 ///
@@ -54,10 +54,10 @@
 
 #include "colligate/core/constants.hpp"
 #include "colligate/core/errors.hpp"
+#include "colligate/core/roots.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
-#include "colligate/equilibria/roots.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/water_activity.hpp"
@@ -507,14 +507,13 @@ class ice_curve {
       }
       return;
     }
-    double hi = initial_freezing_point().temperature, lo = lo_T;
-    for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
-      const double mid = 0.5 * (lo + hi);
-      liquid_state sm;
-      const bool ok = solve_ice_only(mid, nullptr, sm);
-      (ok && max_saturation(mid, sm, nullptr) >= 0.0 ? lo : hi) = mid;
-    }
-    const double T_on = 0.5 * (lo + hi);
+    const auto b = bisect_boundary(
+        [&](double mid) {
+          liquid_state sm;
+          return solve_ice_only(mid, nullptr, sm) && max_saturation(mid, sm, nullptr) >= 0.0;
+        },
+        lo_T, initial_freezing_point().temperature, 1e-7, 60);
+    const double T_on = 0.5 * (b.lo + b.hi);
     solve_ice_only(T_on, nullptr, st);
     const salt_phase* first = nullptr;
     max_saturation(T_on, st, &first);
@@ -591,21 +590,20 @@ class ice_curve {
       const salt_phase* ph = nullptr;
       liquid_ions(st.xi, &seg.fixed);
       if (max_saturation(T, st, &ph) > 0.0) {
-        double hi = T_prev, lo = T;
         liquid_state s_hi = nodes_.back().state, s_lo = st;
-        for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
-          const double mid = 0.5 * (lo + hi);
-          liquid_state sm = s_hi;
-          if (!solve(mid, seg, sm)) break;
-          liquid_ions(sm.xi, &seg.fixed);
-          if (max_saturation(mid, sm, nullptr) >= 0.0) {
-            lo = mid;
-            s_lo = sm;
-          } else {
-            hi = mid;
-            s_hi = sm;
-          }
-        }
+        // Saturated at lo, not at hi; an unsolved midpoint counts as saturated (the
+        // bracket then closes on the last solved state).
+        const auto b = bisect_boundary(
+            [&](double mid) {
+              liquid_state sm = s_hi;
+              if (!solve(mid, seg, sm)) return true;
+              liquid_ions(sm.xi, &seg.fixed);
+              const bool saturated = max_saturation(mid, sm, nullptr) >= 0.0;
+              (saturated ? s_lo : s_hi) = sm;
+              return saturated;
+            },
+            T, T_prev, 1e-7, 60);
+        const double lo = b.lo;
         liquid_ions(s_lo.xi, &seg.fixed);
         const salt_phase* which = nullptr;
         max_saturation(lo, s_lo, &which);
@@ -629,19 +627,18 @@ class ice_curve {
         double T_out = T;
         liquid_state s_out = st;
         if (path_ == crystallisation_path::equilibrium) {
-          double hi = T_prev, lo = T;
           liquid_state s_hi = nodes_.back().state;
-          for (int i = 0; i < 60 && hi - lo > 1e-7; ++i) {
-            const double mid = 0.5 * (lo + hi);
-            liquid_state sm = s_hi;
-            if (!solve(mid, seg, sm)) break;
-            if (sm.xi[leaving] < 0.0) lo = mid;
-            else {
-              hi = mid;
-              s_hi = sm;
-            }
-          }
-          T_out = hi;
+          // Dissolved (amount < 0) at lo, present at hi.
+          const auto b = bisect_boundary(
+              [&](double mid) {
+                liquid_state sm = s_hi;
+                if (!solve(mid, seg, sm)) return true;
+                if (sm.xi[leaving] < 0.0) return true;
+                s_hi = sm;
+                return false;
+              },
+              T, T_prev, 1e-7, 60);
+          T_out = b.hi;
           s_out = s_hi;
           s_out.xi[leaving] = 0.0;
         } else {

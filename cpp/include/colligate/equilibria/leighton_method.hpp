@@ -35,6 +35,7 @@
 #include <string>
 #include <utility>
 
+#include "colligate/core/roots.hpp"
 #include "colligate/core/constants.hpp"
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
@@ -173,13 +174,11 @@ inline checked_value ice_fraction(const mix_terms& m, double temperature) {
   const double depression = constants::ice_point - temperature;
   const auto start = total_depression(m, 0.0);
   if (depression <= start.value) return {0.0, start.check};
-  double lo = 0.0, hi = 1.0 - 1e-12;
   bool extrapolated = false;
-  for (int k = 0; k < 200 && hi - lo > 1e-12; ++k) {
-    const double mid = 0.5 * (lo + hi);
-    (detail::depression(m, mid, extrapolated) < depression ? lo : hi) = mid;
-  }
-  const double f = 0.5 * (lo + hi);
+  const auto r = bisect_boundary(
+      [&](double x) { return detail::depression(m, x, extrapolated) < depression; }, 0.0,
+      1.0 - 1e-12, 1e-12, 200);
+  const double f = 0.5 * (r.lo + r.hi);
   return {f, total_depression(m, f).check};
 }
 

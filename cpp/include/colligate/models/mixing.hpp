@@ -19,7 +19,6 @@
 /// (colligate's choice: the typical uncertainty of a water-activity measurement, common
 /// practice), since beyond that the neglected cross interactions are no longer small.
 
-#include <boost/math/tools/roots.hpp>
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
@@ -28,6 +27,7 @@
 #include <string>
 #include <vector>
 
+#include "colligate/core/roots.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/models/detail/pitzer_system.hpp"
@@ -92,17 +92,10 @@ class ross_system {
 /// `ln_aw(W)` is that class's ln a_w with W of water.
 template <class LnAw>
 double water_for_activity(LnAw&& ln_aw, double target, double W_hint) {
-  auto f = [&](double u) { return ln_aw(std::exp(u)) - target; };
-  double lo = std::log(W_hint), hi = lo;
-  double flo = f(lo), fhi = flo;
-  // ln a_w rises with W: widen until f(lo) < 0 < f(hi).
-  for (int i = 0; i < 60 && !(fhi > 0.0); ++i) fhi = f(hi += 1.0);
-  for (int i = 0; i < 60 && !(flo < 0.0); ++i) flo = f(lo -= 1.0);
-  if (!(flo < 0.0) || !(fhi > 0.0)) return std::nan("");
-  std::uintmax_t it = 100;
-  boost::math::tools::eps_tolerance<double> tol(40);
-  const auto [a, b] = boost::math::tools::toms748_solve(f, lo, hi, flo, fhi, tol, it);
-  return std::exp(0.5 * (a + b));
+  // ln a_w rises with W: the bracket on ln W is widened until it changes sign.
+  const auto r = solve_rising([&](double u) { return ln_aw(std::exp(u)) - target; },
+                              std::log(W_hint), 40);
+  return r.status == root_status::no_sign_change ? std::nan("") : std::exp(r.x);
 }
 
 /// ZSR ln a_w of a mixture holding both classes, on a prepared system (see
@@ -125,10 +118,7 @@ inline double zsr_ln_water_activity(ross_system& sys, const double* moles, doubl
   double ghi = g(hi), glo = g(lo);
   for (int i = 0; i < 30 && !(glo < 0.0); ++i) glo = g(lo *= 1.5);
   if (!(glo < 0.0) || !(ghi > 0.0)) return std::nan("");
-  std::uintmax_t it = 100;
-  boost::math::tools::eps_tolerance<double> tol(40);
-  const auto [a, b] = boost::math::tools::toms748_solve(g, lo, hi, glo, ghi, tol, it);
-  return 0.5 * (a + b);
+  return toms748_root(g, lo, hi, glo, ghi, 40, 100).x;
 }
 
 }  // namespace detail

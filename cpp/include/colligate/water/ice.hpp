@@ -23,6 +23,7 @@
 #include <limits>
 
 #include "colligate/core/constants.hpp"
+#include "colligate/core/roots.hpp"
 #include "colligate/core/validity.hpp"
 
 namespace colligate::water {
@@ -152,19 +153,12 @@ inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15
   if (!(ln_water_activity_of_ice(lo) <= ln_aw)) return std::numeric_limits<double>::quiet_NaN();
   // First guess from the linearised relation dT = -ln_aw R T0^2 / dH_fus.
   const double T0 = constants::ice_point;
-  double T = T0 + ln_aw * constants::gas_constant * T0 * T0 / constants::enthalpy_of_fusion_ice;
-  if (!(T > lo && T < hi)) T = 0.5 * (lo + hi);
-  for (int i = 0; i < 60; ++i) {
-    const double f = ln_water_activity_of_ice(T) - ln_aw;
-    if (f > 0.0) hi = T; else lo = T;
-    const double slope = enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
-    double next = T - f / slope;
-    if (std::abs(next - T) <= 4e-15 * T) return next;  // converged (before the bracket test:
-                                                        // at the root next may equal a bound)
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    T = next;
-  }
-  return T;
+  const double T = T0 + ln_aw * constants::gas_constant * T0 * T0 / constants::enthalpy_of_fusion_ice;
+  return safeguarded_newton(
+             [ln_aw](double t) { return ln_water_activity_of_ice(t) - ln_aw; },
+             [](double t) { return enthalpy_of_fusion(t) / (constants::gas_constant * t * t); },
+             lo, hi, T, 4e-15, 60)
+      .x;
 }
 
 /// Range check for the ice equilibrium.

@@ -1,8 +1,10 @@
 #pragma once
 /// \file roots.hpp
 /// The one root-finding layer of colligate: thin wrappers over Boost.Math tools/roots
-/// (TOMS 748, Alefeld, Potra & Shi 1995) that return a status instead of throwing, plus
-/// the bracket searches the equilibria need. A reversed bracket or a bracket without a
+/// (TOMS 748, Alefeld, Potra & Shi 1995) that return a status instead of throwing, the
+/// bracket searches the models and equilibria need, bisection of a boundary, and a
+/// safeguarded Newton iteration. The freezing-point solver (equilibria/freezing_point.hpp)
+/// is the one specialised iteration kept apart: it mixes an exact and a secant slope. A reversed bracket or a bracket without a
 /// sign change is reported as a status (the callers turn it into an error where it is
 /// a caller mistake).
 
@@ -11,7 +13,7 @@
 #include <cstdint>
 #include <limits>
 
-namespace colligate::equilibria {
+namespace colligate {
 
 enum class root_status : std::uint8_t {
   converged,       ///< bracket narrowed to the tolerance
@@ -72,4 +74,56 @@ root_result solve_rising(H&& h, double u0, int bits = 40) {
   return toms748_root(h, lo, hi, flo, fhi, bits, 100);
 }
 
-}  // namespace colligate::equilibria
+/// The boundary between `pred` true (at lo) and false (at hi) by bisection, until the
+/// bracket is at most `tolerance` wide or `max_iterations` halvings are done; x is the
+/// last `lo` (where pred holds).
+template <class P>
+root_result bisect_boundary(P&& pred, double lo, double hi, double tolerance,
+                            int max_iterations = 200) {
+  root_result r;
+  int k = 0;
+  for (; k < max_iterations && std::abs(hi - lo) > tolerance; ++k) {
+    const double mid = 0.5 * (lo + hi);
+    (pred(mid) ? lo : hi) = mid;
+  }
+  r.lo = lo;
+  r.hi = hi;
+  r.x = lo;
+  r.iterations = k;
+  r.status = std::abs(hi - lo) <= tolerance ? root_status::converged : root_status::max_iterations;
+  return r;
+}
+
+/// Root of an increasing f on [lo, hi] by Newton steps with `slope(x)`, replaced by
+/// bisection when a step leaves the bracket; stops when a step is at most
+/// `relative_tolerance * |x|` (tested before the bracket, since at the root a step may
+/// land on a bound).
+template <class F, class S>
+root_result safeguarded_newton(F&& f, S&& slope, double lo, double hi, double x0,
+                               double relative_tolerance, int max_iterations = 60) {
+  root_result r;
+  double x = (x0 > lo && x0 < hi) ? x0 : 0.5 * (lo + hi);
+  for (int i = 0; i < max_iterations; ++i) {
+    const double fx = f(x);
+    if (fx > 0.0) hi = x; else lo = x;
+    double next = x - fx / slope(x);
+    if (std::abs(next - x) <= relative_tolerance * std::abs(x)) {
+      r.x = next;
+      r.lo = lo;
+      r.hi = hi;
+      r.iterations = i + 1;
+      r.status = root_status::converged;
+      return r;
+    }
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    x = next;
+  }
+  r.x = x;
+  r.lo = lo;
+  r.hi = hi;
+  r.iterations = max_iterations;
+  r.status = root_status::max_iterations;
+  return r;
+}
+
+}  // namespace colligate
