@@ -4,6 +4,7 @@
 
 #include <sstream>
 
+#include "colligate/batch/solution_batch.hpp"
 #include "colligate/colligate.hpp"
 #include "register.hpp"
 
@@ -58,6 +59,35 @@ void register_core(py::module_& m) {
   py::register_exception<colligate::out_of_validity_range>(m, "OutOfValidityRangeError",
                                                            PyExc_ValueError);
   py::register_exception<colligate::convergence_error>(m, "ConvergenceError", PyExc_RuntimeError);
+
+  py::class_<colligate::validity>(m, "Validity",
+                                  "Which limit a result crossed, as a record (code 'in_range' "
+                                  "when none); ``reason`` is its text.")
+      .def_property_readonly("code", [](const colligate::validity& v) { return colligate::to_string(v.code); })
+      .def_property_readonly("in_range", &colligate::validity::in_range)
+      .def_readonly("where", &colligate::validity::where, "The model or function that checked.")
+      .def_readonly("quantity", &colligate::validity::quantity)
+      .def_readonly("value", &colligate::validity::value, "Value of the quantity (SI, NaN if none).")
+      .def_readonly("limit", &colligate::validity::limit, "The bound crossed (NaN if none).")
+      .def_readonly("range_low", &colligate::validity::range_low)
+      .def_readonly("range_high", &colligate::validity::range_high)
+      .def_readonly("source", &colligate::validity::source, "Citation key of the limit.")
+      .def_readonly("note", &colligate::validity::note)
+      .def_property_readonly("reason", &colligate::validity::reason)
+      .def("__repr__", [](const colligate::validity& v) {
+        return "Validity(" + std::string(colligate::to_string(v.code)) +
+               (v.in_range() ? "" : ": " + v.reason()) + ")";
+      });
+
+  py::enum_<colligate::batch::row_status>(m, "RowStatus",
+                                          "Outcome of one row of a batch calculation (the code "
+                                          "stored in status arrays).")
+      .value("ok", colligate::batch::row_status::ok)
+      .value("out_of_range", colligate::batch::row_status::out_of_range)
+      .value("invalid_input", colligate::batch::row_status::invalid_input)
+      .value("no_freezing_point", colligate::batch::row_status::no_freezing_point)
+      .value("not_converged", colligate::batch::row_status::not_converged)
+      .value("below_curve_end", colligate::batch::row_status::below_curve_end);
 
   py::class_<solution>(m, "Solution", R"doc(
 An aqueous solution: kilograms of water plus moles of each solute. Immutable.

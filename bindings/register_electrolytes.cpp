@@ -45,7 +45,7 @@ void register_electrolytes(py::module_& m) {
         colligate::models::check_temperature_argument("mean_activity_coefficient", T);
         const double v = std::exp(colligate::models::pitzer::ln_mean_activity_coefficient(
             s, i, s.water_mass(), T, set));
-        return std::make_tuple(v, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason);
+        return std::make_tuple(v, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason());
       },
       py::arg("solution"), py::arg("solute"), py::arg("temperature"),
       py::arg("parameter_set") = "spencer_1990_icefit");
@@ -57,7 +57,7 @@ void register_electrolytes(py::module_& m) {
         const double mp = colligate::models::ideal::particle_molality(s, s.water_mass());
         const double lnaw = colligate::models::pitzer::ln_water_activity(s, s.water_mass(), T, set);
         const double phi = mp > 0.0 ? -lnaw / (colligate::constants::molar_mass_water * mp) : 1.0;
-        return std::make_tuple(phi, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason);
+        return std::make_tuple(phi, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason());
       },
       py::arg("solution"), py::arg("temperature"), py::arg("parameter_set") = "spencer_1990_icefit");
   m.def(

@@ -19,7 +19,7 @@ namespace {
 using colligate::solution;
 
 std::tuple<double, std::string> as_tuple(const colligate::checked_value& v) {
-  return {v.value, v.check.reason};
+  return {v.value, v.check.reason()};
 }
 
 }  // namespace
@@ -61,7 +61,7 @@ void register_equilibria(py::module_& m) {
       .def_readonly("milk_solids", &eq::leighton::mix_terms::milk_solids)
       .def_readonly("water", &eq::leighton::mix_terms::water)
       .def_property_readonly("reason",
-                             [](const eq::leighton::mix_terms& t) { return t.check.reason; });
+                             [](const eq::leighton::mix_terms& t) { return t.check.reason(); });
   m.def("leighton_terms", &eq::leighton::terms_of, py::arg("solution"));
   m.def(
       "leighton_freezing_point",
@@ -110,7 +110,7 @@ void register_equilibria(py::module_& m) {
             const auto v = eq::ice_fraction_of(curve.at(t[i]), pol);
             o[i] = v.value;
             if (!v.check.in_range()) {
-              if (n_out_of_range++ == 0) first_reason = v.check.reason;
+              if (n_out_of_range++ == 0) first_reason = v.check.reason();
             }
           }
         }
@@ -133,7 +133,7 @@ void register_equilibria(py::module_& m) {
                              "Ice mass / total water mass.")
       .def_property_readonly("status", [](const eq::unfrozen_phase& u) { return eq::to_string(u.status); })
       .def_property_readonly("success", &eq::unfrozen_phase::success)
-      .def_property_readonly("reason", [](const eq::unfrozen_phase& u) { return u.check.reason; },
+      .def_property_readonly("reason", [](const eq::unfrozen_phase& u) { return u.check.reason(); },
                              "Why the result is outside the validated range ('' if inside).");
   m.def(
       "unfrozen_phase",

@@ -36,8 +36,10 @@ void register_ice_curve(py::module_& m) {
                     "Salt crystallised, mol, one per entry of IceCurve.salts.")
       .def_property_readonly("ice_fraction", &eq::ice_curve_state::ice_fraction,
                              "Ice mass / total water mass.")
-      .def_property_readonly("reason", [](const eq::ice_curve_state& s) { return s.check.reason; },
-                             "Why the state is outside the validated range or not computed ('' if inside).");
+      .def_property_readonly("reason", [](const eq::ice_curve_state& s) { return s.check.reason(); },
+                             "Why the state is outside the validated range or not computed ('' if inside).")
+      .def_readonly("validity", &eq::ice_curve_state::check,
+                    "The limit crossed, as a record (Validity).");
 
   py::class_<eq::ice_curve>(m, "IceCurve", R"doc(
 The ice curve of one solution under one activity model, prepared once.
@@ -73,7 +75,7 @@ path : str
           "freezing_point",
           [](eq::ice_curve& c) {
             const auto& fp = c.initial_freezing_point();
-            return std::make_tuple(fp.temperature, eq::to_string(fp.status), fp.check.reason);
+            return std::make_tuple(fp.temperature, eq::to_string(fp.status), fp.check.reason());
           },
           "(temperature K, status, reason) of the initial freezing point.")
       .def_property_readonly(
@@ -116,7 +118,7 @@ path : str
             for (std::size_t i = 0; i < n; ++i) {
               const auto v = eq::ice_fraction_of(c.at(t[i]), pol);
               o[i] = v.value;
-              if (!v.check.in_range() && n_out_of_range++ == 0) first_reason = v.check.reason;
+              if (!v.check.in_range() && n_out_of_range++ == 0) first_reason = v.check.reason();
             }
             return std::make_tuple(out, first_reason, n_out_of_range);
           },

@@ -54,7 +54,7 @@ std::tuple<py::array_t<double>, std::string, std::size_t> over_array(
     for (std::size_t i = 0; i < n; ++i) {
       const auto v = f(t[i]);
       o[i] = v.value;
-      if (!v.check.in_range() && count++ == 0) first_reason = v.check.reason;
+      if (!v.check.in_range() && count++ == 0) first_reason = v.check.reason();
     }
   }
   return {out, first_reason, count};
@@ -128,7 +128,7 @@ void register_thermal(py::module_& m) {
         d["latent"] = r.latent;
         d["ice_fraction_from"] = r.ice_fraction_from;
         d["ice_fraction_to"] = r.ice_fraction_to;
-        d["reason"] = r.check.reason;
+        d["reason"] = r.check.reason();
         return d;
       },
       py::arg("composition"), py::arg("solution"), py::arg("from_temperature"),

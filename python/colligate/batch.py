@@ -16,7 +16,9 @@ from . import _core
 
 #: Row status codes of the batch kernels and their meaning (index = code).
 ROW_STATUS: tuple[str, ...] = tuple(_core.row_status_reasons())
-OK, OUT_OF_RANGE, INVALID_INPUT, NO_FREEZING_POINT, NOT_CONVERGED = range(5)
+#: The codes, one enum defined in the C++ core (colligate::batch::row_status).
+RowStatus = _core.RowStatus
+OK, OUT_OF_RANGE = int(RowStatus.ok), int(RowStatus.out_of_range)
 
 
 class BatchRowWarning(UserWarning):

@@ -33,7 +33,7 @@ inline double worst_crc_deviation(const std::string& solute, double max_percent,
     const auto r = colligate::equilibria::freezing_point(s);
     REQUIRE(r.success());
     if (require_in_range) {
-      INFO(solute << " " << percent << " wt%: " << r.check.reason);
+      INFO(solute << " " << percent << " wt%: " << r.check.reason());
       CHECK(r.check.in_range());
     }
     worst = std::max(worst, std::abs(colligate::constants::ice_point - r.temperature -

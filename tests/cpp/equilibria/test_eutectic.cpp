@@ -120,11 +120,11 @@ TEST_CASE("the ice curve stops at the eutectic", "[equilibria][pitzer][eutectic]
   const auto below = equilibria::unfrozen_phase_at(s, Te - 1.0);
   CHECK(below.status == equilibria::solve_status::below_eutectic);
   CHECK(std::isnan(below.ice));
-  CHECK_THAT(below.check.reason, Contains("hydrohalite"));
-  CHECK_THAT(below.check.reason, Contains("NaCl.2H2O"));
+  CHECK_THAT(below.check.reason(), Contains("hydrohalite"));
+  CHECK_THAT(below.check.reason(), Contains("NaCl.2H2O"));
   char te_celsius[32];
   std::snprintf(te_celsius, sizeof te_celsius, "%.2f C", Te - constants::celsius_offset);
-  CHECK_THAT(below.check.reason, Contains(te_celsius));
+  CHECK_THAT(below.check.reason(), Contains(te_celsius));
   const auto v = equilibria::ice_fraction(s, Te - 1.0);
   CHECK(std::isnan(v.value));
   CHECK_THROWS_AS(equilibria::ice_fraction(s, Te - 1.0, "auto", range_policy::raise),

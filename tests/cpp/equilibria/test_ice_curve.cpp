@@ -68,7 +68,7 @@ TEST_CASE("seawater ice curve is finite and monotonic to -30 C", "[equilibria][i
   double prev = 0.0;
   for (double t = -2.0; t >= -30.0; t -= 0.25) {
     const auto st = c.at(t + constants::celsius_offset);
-    INFO(t << " C: " << st.check.reason);
+    INFO(t << " C: " << st.check.reason());
     REQUIRE(std::isfinite(st.ice_fraction()));
     CHECK(st.ice_fraction() >= prev);  // ice only grows on cooling (common practice)
     CHECK(st.ice_fraction() < 1.0);
@@ -111,7 +111,7 @@ TEST_CASE("seawater equilibrium path: salt onsets against published paths",
   CHECK(c.end_temperature() - constants::celsius_offset > published_onset("vancoppenolle_2019", "final_eutectic", "equilibrium"));
   const auto below = c.at(c.end_temperature() - 1.0);
   CHECK(std::isnan(below.ice));
-  CHECK_THAT(below.check.reason, Contains("final eutectic"));
+  CHECK_THAT(below.check.reason(), Contains("final eutectic"));
 }
 
 TEST_CASE("seawater fractional path goes on below the equilibrium eutectic",
@@ -155,7 +155,7 @@ TEST_CASE("binary brines end at their eutectic with the salt hydrate named",
     CHECK(above.state == equilibria::phase_state::ice_and_liquid);
     const auto below = c.at(te - 0.5);
     CHECK(below.state == equilibria::phase_state::below_curve_end);
-    CHECK_THAT(below.check.reason, Contains(b.hydrate));
+    CHECK_THAT(below.check.reason(), Contains(b.hydrate));
   }
 }
 

@@ -39,7 +39,7 @@ TEST_CASE("Leighton method reproduces Goff & Hartel's worked freezing curve", "[
   // FPD_SE 14.27 (FPD_T 16.61); the last-interval slope here gives 14.00 (16.37) and says
   // so. Tolerance 0.3 K, documented.
   const auto d80 = lm::total_depression(mix, 0.80);
-  CHECK_THAT(d80.check.reason, Contains("beyond the end of Goff & Hartel's Table 6.1"));
+  CHECK_THAT(d80.check.reason(), Contains("beyond the end of Goff & Hartel's Table 6.1"));
   CHECK_THAT(d80.value, WithinAbs(16.61, 0.3));
   // Above the initial freezing point nothing is frozen.
   CHECK(lm::ice_fraction(mix, constants::ice_point - 1.0).value == 0.0);
@@ -59,6 +59,6 @@ TEST_CASE("Leighton method terms from a solution", "[equilibria][leighton]") {
   CHECK(t.check.in_range());
   // Electrolytes other than milk salts are outside the method and named.
   const auto brine = solution::from_masses(0.9, {{"sucrose", 0.05}, {"NaCl", 0.05}});
-  CHECK_THAT(lm::terms_of(brine).check.reason, Contains("sodium_chloride left out"));
+  CHECK_THAT(lm::terms_of(brine).check.reason(), Contains("sodium_chloride left out"));
   CHECK_THROWS_AS(lm::total_depression(t, 1.0), invalid_input);
 }

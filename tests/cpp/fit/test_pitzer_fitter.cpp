@@ -151,7 +151,7 @@ TEST_CASE("a fitted salt is used through a table, with its own validity range", 
   // identity, rel 1e-12).
   CHECK_THAT(models::osmotic_coefficient(s, 298.15, "pitzer").value,
              WithinRel(r.fitted[4], 1e-12));
-  CHECK(models::check("pitzer", s, 1.0, 298.15).reason.empty());
+  CHECK(models::check("pitzer", s, 1.0, 298.15).reason().empty());
   // Differs from the built-in salt evaluated with spencer_1990 (other parameters) but by
   // less than 0.005 (both describe NaCl at 25 C; the accuracy asked in test_pitzer.cpp).
   const auto builtin = solution::from_molalities({{"NaCl", 2.0}});
@@ -161,12 +161,12 @@ TEST_CASE("a fitted salt is used through a table, with its own validity range", 
   // so the result is flagged with the record's own temperature range.
   const auto fp = equilibria::freezing_point(s, "auto");
   REQUIRE(fp.success());
-  CHECK_THAT(fp.check.reason, Contains("lab_nacl") && Contains("293.15"));
+  CHECK_THAT(fp.check.reason(), Contains("lab_nacl") && Contains("293.15"));
   CHECK_THAT(models::describe_model(s, "pitzer"), Contains("colligate_fit_user"));
   // Outside the record's own range, the check gives a reason.
-  CHECK_THAT(models::check("pitzer", s, 1.0, 280.0).reason, Contains("lab_nacl"));
+  CHECK_THAT(models::check("pitzer", s, 1.0, 280.0).reason(), Contains("lab_nacl"));
   const auto strong = solution::from_molalities({{"lab NaCl", 6.5}}, 1.0, table);
-  CHECK_THAT(models::check("pitzer", strong, 1.0, 298.15).reason,
+  CHECK_THAT(models::check("pitzer", strong, 1.0, 298.15).reason(),
              Contains("above 6 mol/kg"));
   // Two records with different parameters for the same ion pair: a caller mistake.
   fit::pitzer_salt_parameters other;

@@ -298,17 +298,17 @@ TEST_CASE("Pitzer validity: temperature without parameters and molality beyond t
   const auto brine = solution::from_molalities({{"NaCl", 1.0}});
   // 37 C is above the low-temperature set (219.15-298.15 K).
   const auto warm = models::water_activity(brine, 310.15, "pitzer");
-  CHECK_THAT(warm.check.reason, Contains("219.15-298.15 K"));
+  CHECK_THAT(warm.check.reason(), Contains("219.15-298.15 K"));
   CHECK_THROWS_AS(models::water_activity(brine, 310.15, "pitzer", range_policy::raise),
                   out_of_validity_range);
   // The 25 C set has no parameters at -10 C.
   const auto v = pitzer::check(brine, 1.0, 263.15, data::harvie_1984_parameters());
-  CHECK_THAT(v.reason, Contains("293.15-303.15 K"));
+  CHECK_THAT(v.reason(), Contains("293.15-303.15 K"));
   // 7 mol/kg NaCl is beyond the 6.2 mol/kg of the set.
   const auto strong = solution::from_molalities({{"NaCl", 7.0}});
   const auto s7 = models::water_activity(strong, 298.15, "pitzer");
-  CHECK_THAT(s7.check.reason, Contains("6.2 mol/kg"));
-  CHECK_THAT(s7.check.reason, Contains("sodium_chloride"));
+  CHECK_THAT(s7.check.reason(), Contains("6.2 mol/kg"));
+  CHECK_THAT(s7.check.reason(), Contains("sodium_chloride"));
   CHECK_THROWS_AS(models::water_activity(strong, 298.15, "pitzer", range_policy::raise),
                   out_of_validity_range);
   CHECK(models::water_activity(brine, 298.15, "pitzer").check.in_range());
@@ -420,8 +420,8 @@ TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points
   CHECK(worst < 0.2);
   // Range: 250-373.15 K; NaCl only.
   CHECK(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 330.0, set).in_range());
-  CHECK_THAT(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 245.0, set).reason,
+  CHECK_THAT(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 245.0, set).reason(),
              Contains("250-373.15 K"));
-  CHECK_THAT(pitzer::check(solution::from_molalities({{"KCl", 1.0}}), 1.0, 273.15, set).reason,
+  CHECK_THAT(pitzer::check(solution::from_molalities({{"KCl", 1.0}}), 1.0, 273.15, set).reason(),
              Contains("no Pitzer parameters"));
 }

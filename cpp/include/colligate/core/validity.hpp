@@ -4,12 +4,15 @@
 ///
 /// Every model declares the temperatures and concentrations over which its constants
 /// were validated, and the citation key that sets those limits. A result carries a
-/// `validity` record: empty when in range, otherwise a readable reason. The caller
+/// `validity` record: its code is in_range when inside, otherwise it names the limit. The caller
 /// chooses what happens outside the range (range_policy); the C++ core never prints.
 
 #include <cmath>
+#include <cstdint>
+#include <cstdio>
 #include <limits>
 #include <string>
+#include <utility>
 
 #include "colligate/core/errors.hpp"
 
@@ -30,15 +33,124 @@ inline range_policy range_policy_from_string(const std::string& s) {
                       "': valid values are 'extrapolate', 'nan' and 'raise'");
 }
 
-/// Outcome of a validity check: empty reason means in range.
+/// What kind of limit a result crossed (in_range when none).
+enum class validity_code : std::uint8_t {
+  in_range = 0,
+  temperature_out_of_range,    ///< temperature outside the range of the constants
+  concentration_out_of_range,  ///< molality, mass fraction or ionic strength above the range
+  missing_constants,           ///< a solute without constants for the model (counted ideal)
+  rules_disagree,              ///< two combining rules differ by more than accepted
+  below_curve_end,             ///< below the end of the ice curve (eutectic, data limit)
+  no_freezing_point,           ///< does not freeze above the lowest temperature searched
+  not_converged                ///< a solver stopped before its tolerance
+};
+
+inline const char* to_string(validity_code c) {
+  switch (c) {
+    case validity_code::in_range: return "in_range";
+    case validity_code::temperature_out_of_range: return "temperature_out_of_range";
+    case validity_code::concentration_out_of_range: return "concentration_out_of_range";
+    case validity_code::missing_constants: return "missing_constants";
+    case validity_code::rules_disagree: return "rules_disagree";
+    case validity_code::below_curve_end: return "below_curve_end";
+    case validity_code::no_freezing_point: return "no_freezing_point";
+    case validity_code::not_converged: return "not_converged";
+  }
+  return "unknown";
+}
+
+/// Outcome of a validity check as a record: the code, which quantity, its value, the
+/// limit it crossed (and the validated range when there is one), and the citation key
+/// that sets the limit. Text is made from it only on request (reason()), at the edge;
+/// a check that passes builds no strings.
 struct validity {
-  std::string reason;
-  bool in_range() const noexcept { return reason.empty(); }
-  /// Keeps the first reason found.
+  validity_code code = validity_code::in_range;
+  std::string where;     ///< the model or function that checked ("model 'norrish'")
+  std::string quantity;  ///< "temperature", "molality of 'sodium_chloride' (mol/kg)"
+  double value = std::numeric_limits<double>::quiet_NaN();
+  double limit = std::numeric_limits<double>::quiet_NaN();  ///< the bound crossed
+  double range_low = std::numeric_limits<double>::quiet_NaN();   ///< validated range, if any
+  double range_high = std::numeric_limits<double>::quiet_NaN();
+  std::string unit;    ///< unit of the limits in the text (" K", " mol/kg"), may be empty
+  std::string note;    ///< what the limit means or what happens beyond it
+  std::string source;  ///< citation key of the limit (data/citation.hpp), may be empty
+
+  bool in_range() const noexcept { return code == validity_code::in_range; }
+  /// Keeps the first limit found.
   void merge(const validity& other) {
-    if (reason.empty()) reason = other.reason;
+    if (in_range()) *this = other;
+  }
+  /// Readable text: "" when in range.
+  std::string reason() const {
+    if (in_range()) return {};
+    const std::string src = source.empty() ? "" : " [" + source + "]";
+    const bool has_limit = code == validity_code::temperature_out_of_range ||
+                           code == validity_code::concentration_out_of_range;
+    if (!has_limit) {
+      if (std::isnan(value)) return where + ": " + quantity + (note.empty() ? "" : ": " + note) + src;
+      return colligate::detail::describe(where, quantity, value, note + src);
+    }
+    std::string why;
+    if (!std::isnan(range_low) && !std::isnan(range_high))
+      why = "outside " + fmt(range_low) + "-" + fmt(range_high) + unit;
+    else if (!std::isnan(limit))
+      why = std::string(value < limit ? "below " : "above ") + fmt(limit) + unit;
+    if (!note.empty()) why += (why.empty() ? "" : ", ") + note;
+    return colligate::detail::describe(where, quantity, value, why + src);
+  }
+
+  static std::string fmt(double x) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.6g", x);
+    return buf;
   }
 };
+
+/// Factories for the common records (they allocate only when called, i.e. out of range).
+inline validity outside_range(std::string where, std::string quantity, double value, double low,
+                              double high, std::string unit, std::string note,
+                              std::string source = {},
+                              validity_code code = validity_code::temperature_out_of_range) {
+  validity v;
+  v.code = code;
+  v.where = std::move(where);
+  v.quantity = std::move(quantity);
+  v.value = value;
+  v.limit = value < low ? low : high;
+  v.range_low = low;
+  v.range_high = high;
+  v.unit = std::move(unit);
+  v.note = std::move(note);
+  v.source = std::move(source);
+  return v;
+}
+
+inline validity beyond_limit(std::string where, std::string quantity, double value, double limit,
+                             std::string unit, std::string note, std::string source = {},
+                             validity_code code = validity_code::concentration_out_of_range) {
+  validity v;
+  v.code = code;
+  v.where = std::move(where);
+  v.quantity = std::move(quantity);
+  v.value = value;
+  v.limit = limit;
+  v.unit = std::move(unit);
+  v.note = std::move(note);
+  v.source = std::move(source);
+  return v;
+}
+
+/// A limit without a number (a solute without constants, a rule comparison).
+inline validity flagged(validity_code code, std::string where, std::string what, std::string note,
+                        std::string source = {}) {
+  validity v;
+  v.code = code;
+  v.where = std::move(where);
+  v.quantity = std::move(what);
+  v.note = std::move(note);
+  v.source = std::move(source);
+  return v;
+}
 
 /// A value together with its validity.
 struct checked_value {
@@ -49,7 +161,7 @@ struct checked_value {
 /// Applies the policy: raise throws, nan replaces the value, extrapolate keeps it.
 inline checked_value apply_policy(double value, validity v, range_policy policy) {
   if (!v.in_range()) {
-    if (policy == range_policy::raise) throw out_of_validity_range(v.reason);
+    if (policy == range_policy::raise) throw out_of_validity_range(v.reason());
     if (policy == range_policy::nan) value = std::numeric_limits<double>::quiet_NaN();
   }
   return {value, std::move(v)};

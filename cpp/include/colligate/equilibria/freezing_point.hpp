@@ -81,9 +81,9 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   }
   const auto below_limit = [&r] {
     r.status = solve_status::below_search_limit;
-    r.check.reason = colligate::detail::describe(
-        "freezing_point", "lowest temperature searched", search_min_temperature,
-        "the solution does not freeze above this temperature (-50 C)");
+    r.check = flagged(validity_code::no_freezing_point, "freezing_point",
+                      "lowest temperature searched = 223.15 K",
+                      "the solution does not freeze above this temperature (-50 C)");
     return r;
   };
   if (!ln_aw.model().traits.temperature_dependent) {
@@ -181,7 +181,7 @@ inline checked_value freezing_point_checked(const solution& s,
                                             double bound_water_kg = 0.0) {
   const auto r = freezing_point(s, m, bound_water_kg);
   if (r.status == solve_status::below_search_limit) {
-    if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason);
+    if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason());
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
   }
   if (!r.success())

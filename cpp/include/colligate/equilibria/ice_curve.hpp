@@ -276,9 +276,9 @@ class ice_curve {
     if (!solve(T, seg, st)) {
       r.state = phase_state::not_solved;
       r.status = solve_status::max_iterations;
-      r.check = validity{colligate::detail::describe(
-          "ice_curve", "temperature", T,
-          "the ice and salt equilibria did not converge at this temperature")};
+      r.check = flagged(validity_code::not_converged, "ice_curve", "temperature",
+                        "the ice and salt equilibria did not converge at this temperature");
+      r.check.value = T;
       r.unfrozen_water = r.ice = std::numeric_limits<double>::quiet_NaN();
       return r;
     }
@@ -713,7 +713,8 @@ class ice_curve {
     if (!ok) {
       r.state = phase_state::not_solved;
       r.status = solve_status::max_iterations;
-      r.check.reason = "ice_fraction: no unfrozen-water mass satisfies the ice equilibrium";
+      r.check = flagged(validity_code::not_converged, "ice_fraction", "unfrozen water",
+                        "no unfrozen-water mass satisfies the ice equilibrium");
       r.unfrozen_water = r.ice = std::numeric_limits<double>::quiet_NaN();
       return r;
     }
@@ -768,7 +769,9 @@ class ice_curve {
       why = "below " + std::string(buf) + ", the lower limit of the salt solubility data [" +
             std::string(salt_phases().front().source) + "]";
     }
-    r.check.reason = colligate::detail::describe("ice_fraction", "temperature", r.temperature, why);
+    r.check = flagged(validity_code::below_curve_end, "ice_fraction", "temperature", why);
+    r.check.value = r.temperature;
+    r.check.limit = end_temperature_;
     return r;
   }
 

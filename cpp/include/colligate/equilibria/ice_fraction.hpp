@@ -78,7 +78,7 @@ inline eutectic_result eutectic_of(ice_curve& curve) {
   }
   const auto end = curve.end_reason();
   if (end == curve_end::no_freezing_point) {
-    out.reason = "eutectic: no freezing point: " + curve.initial_freezing_point().check.reason;
+    out.reason = "eutectic: no freezing point: " + curve.initial_freezing_point().check.reason();
     return out;
   }
   if (end == curve_end::saturated_before_ice) {
@@ -125,13 +125,13 @@ inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
 /// A curve state with the caller's range policy applied to its ice fraction.
 inline checked_value ice_fraction_of(const ice_curve_state& r, range_policy policy) {
   if (r.status == solve_status::below_eutectic) {
-    if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason);
+    if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason());
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
   }
   if (!r.success())
     throw convergence_error(std::string("ice_fraction: root finder stopped: ") +
-                            to_string(r.status) + (r.check.reason.empty() ? "" : ": ") +
-                            r.check.reason);
+                            to_string(r.status) + (r.check.in_range() ? "" : ": ") +
+                            r.check.reason());
   return apply_policy(r.ice_fraction(), r.check, policy);
 }
 

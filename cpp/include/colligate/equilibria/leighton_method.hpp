@@ -120,8 +120,8 @@ inline mix_terms terms_of(const solution& s) {
     }
   }
   if (!left_out.empty())
-    m.check.reason = "leighton method: " + left_out +
-                     " left out; the method covers sugars and the salts of milk solids only";
+    m.check = flagged(validity_code::missing_constants, "leighton method", left_out + " left out",
+                      "the method covers sugars and the salts of milk solids only");
   return m;
 }
 
@@ -147,12 +147,10 @@ inline checked_value total_depression(const mix_terms& m, double frozen) {
   const double fpd = detail::depression(m, frozen, extrapolated);
   checked_value out{fpd, m.check};
   if (extrapolated && out.check.in_range()) {
-    char buf[160];
-    std::snprintf(buf, sizeof buf,
-                  "leighton method: %.1f g sucrose equivalents per 100 g water is beyond the "
-                  "end of Goff & Hartel's Table 6.1 (180 g); extrapolated",
-                  m.sucrose_equivalent * 100.0 / w);
-    out.check.reason = buf;
+    out.check = beyond_limit("leighton method", "sucrose equivalents (g per 100 g water)",
+                             m.sucrose_equivalent * 100.0 / w, 180.0, " g",
+                             "beyond the end of Goff & Hartel's Table 6.1; extrapolated",
+                             "goff_hartel_2013");
   }
   return out;
 }

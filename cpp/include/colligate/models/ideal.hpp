@@ -38,9 +38,8 @@ struct ideal {
     validity v;
     const double m = particle_molality(s, water_kg);
     if (m > max_particle_molality)
-      v.reason = colligate::detail::describe(
-          "model 'ideal'", "particle molality", m,
-          "above 0.1 mol/kg, the dilute range where the colligative law holds within about 1 %");
+      v = beyond_limit("model 'ideal'", "particle molality (mol/kg)", m, max_particle_molality,
+                       " mol/kg", "the dilute range where the colligative law holds within about 1 %");
     return v;
   }
 };

@@ -190,7 +190,8 @@ struct ross {
                     "the Ross (%.4f) and ZSR (%.4f) combining rules differ by more than 0.005 "
                     "in a_w; salt-sugar interactions are no longer negligible",
                     a_ross, a_zsr);
-      v.reason = std::string("model 'ross': salt + non-electrolyte mixture: ") + buf;
+      v = flagged(validity_code::rules_disagree, "model 'ross'", "salt + non-electrolyte mixture",
+                  buf);
     }
   }
 };

@@ -104,9 +104,8 @@ struct norrish {
   static validity check(const solution& s, double water_kg, double temperature) {
     validity v;
     if (temperature < min_temperature - 1e-9 || temperature > max_temperature + 1e-9) {
-      v.reason = colligate::detail::describe("model 'norrish'", "temperature", temperature,
-                                             "outside 233.15-323.15 K where its constants "
-                                             "were checked");
+      v = outside_range("model 'norrish'", "temperature", temperature, min_temperature,
+                        max_temperature, " K", "where its constants were checked");
       return v;
     }
     for (std::size_t i = 0; i < s.size(); ++i) {
@@ -114,25 +113,24 @@ struct norrish {
       const double mass = s.moles()[i] * rec.molar_mass;
       if (rec.kind == data::solute_class::electrolyte) continue;
       if (!rec.norrish.available) {
-        v.reason = "model 'norrish': solute '" + rec.id +
-                   "' has no Norrish constant; counted as an ideal (Raoult) particle";
+        v = flagged(validity_code::missing_constants, "model 'norrish'", "solute '" + rec.id + "'",
+                    "has no Norrish constant; counted as an ideal (Raoult) particle");
         return v;
       }
       const double w = mass / (mass + water_kg);
       if (w > rec.norrish.max_mass_fraction) {
-        v.reason = colligate::detail::describe(
-            "model 'norrish'", "binary mass fraction of '" + rec.id + "'", w,
-            "above " + std::to_string(rec.norrish.max_mass_fraction).substr(0, 4) +
-                ", the highest concentration its constants were checked at (" +
-                rec.norrish.note + ")");
+        v = beyond_limit("model 'norrish'", "binary mass fraction of '" + rec.id + "'", w,
+                         rec.norrish.max_mass_fraction, "",
+                         "the highest concentration its constants were checked at (" +
+                             rec.norrish.note + ")",
+                         rec.norrish.k_source);
         return v;
       }
     }
     const double I = s.ionic_strength(water_kg);
     if (I > max_ionic_strength)
-      v.reason = colligate::detail::describe(
-          "model 'norrish'", "ionic strength", I,
-          "above 0.3 mol/kg; electrolytes are counted as ideal ions, which fails beyond that");
+      v = beyond_limit("model 'norrish'", "ionic strength (mol/kg)", I, max_ionic_strength,
+                       " mol/kg", "electrolytes are counted as ideal ions, which fails beyond that");
     return v;
   }
 };

@@ -134,20 +134,19 @@ struct pitzer {
     // The message prefix is built only when a reason is reported.
     const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
     if (temperature < set.min_temperature - 1e-9 || temperature > set.max_temperature + 1e-9) {
-      v.reason = colligate::detail::describe(
-          where(), "temperature", temperature,
-          "outside " + fmt(set.min_temperature) + "-" + fmt(set.max_temperature) +
-              " K, where its parameters are valid [" + set.range_source +
-              "]; salts have no parameters at this temperature");
+      return outside_range(where(), "temperature", temperature, set.min_temperature,
+                           set.max_temperature, " K",
+                           "where its parameters are valid; salts have no parameters at this "
+                           "temperature",
+                           set.range_source);
       return v;
     }
     const auto aphi = detail::aphi_validity(set.aphi);
     if (temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9) {
-      v.reason = colligate::detail::describe(
-          where(), "temperature", temperature,
-          "outside " + fmt(aphi.min_temperature) + "-" + fmt(aphi.max_temperature) +
-              " K, the range of the Debye-Hueckel slope A_phi [" + aphi.source +
-              "], which is extrapolated");
+      return outside_range(where(), "temperature", temperature, aphi.min_temperature,
+                           aphi.max_temperature, " K",
+                           "the range of the Debye-Hueckel slope A_phi, which is extrapolated",
+                           aphi.source);
       return v;
     }
     double non_electrolytes = 0.0;
@@ -164,29 +163,25 @@ struct pitzer {
       const auto* row =
           (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
       if (row == nullptr) {
-        v.reason = where() + ": electrolyte '" + rec.id +
-                   "' has no Pitzer parameters in this set; counted with the Debye-Hueckel "
-                   "term only";
+        return flagged(validity_code::missing_constants, where(), "electrolyte '" + rec.id + "'",
+                       "has no Pitzer parameters in this set; counted with the Debye-Hueckel "
+                       "term only");
         return v;
       }
       if (mi > row->max_molality + 1e-12) {
-        v.reason = colligate::detail::describe(
-            where(), "molality of '" + rec.id + "' (mol/kg)", mi,
-            "above " + fmt(row->max_molality) +
-                " mol/kg, the highest molality its parameters are valid for [" + row->source +
-                "]");
+        return beyond_limit(where(), "molality of '" + rec.id + "' (mol/kg)", mi,
+                            row->max_molality, " mol/kg",
+                            "the highest molality its parameters are valid for", row->source);
         return v;
       }
-      if (auto why = detail::record_temperature_reason(rec, temperature); !why.empty()) {
-        v.reason = why;
-        return v;
-      }
+      if (auto why = detail::record_temperature_validity(rec, temperature); !why.in_range())
+        return why;
     }
     if (non_electrolytes > max_non_electrolyte_molality)
-      v.reason = colligate::detail::describe(
-          where(), "non-electrolyte molality (mol/kg)", non_electrolytes,
-          "above 0.1 mol/kg; the Pitzer model counts non-electrolytes as ideal particles "
-          "(use model 'auto' for mixtures)");
+      v = beyond_limit(where(), "non-electrolyte molality (mol/kg)", non_electrolytes,
+                       max_non_electrolyte_molality, " mol/kg",
+                       "the Pitzer model counts non-electrolytes as ideal particles (use model "
+                       "'auto' for mixtures)");
     return v;
   }
 

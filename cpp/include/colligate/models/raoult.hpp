@@ -35,11 +35,11 @@ struct raoult {
     for (std::size_t i = 0; i < s.size(); ++i) m += s.species()[i].particles * s.moles()[i] / water_kg;
     const double I = s.ionic_strength(water_kg);
     if (I > max_ionic_strength)
-      v.reason = colligate::detail::describe("model 'raoult'", "ionic strength", I,
-                                             "above 0.3 mol/kg, where ideal ions fail");
+      v = beyond_limit("model 'raoult'", "ionic strength (mol/kg)", I, max_ionic_strength,
+                       " mol/kg", "where ideal ions fail");
     else if (m > max_particle_molality)
-      v.reason = colligate::detail::describe("model 'raoult'", "particle molality", m,
-                                             "above the validated 1 mol/kg");
+      v = beyond_limit("model 'raoult'", "particle molality (mol/kg)", m, max_particle_molality,
+                       " mol/kg", "the validated range");
     return v;
   }
 };

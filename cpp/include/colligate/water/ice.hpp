@@ -165,9 +165,9 @@ inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15
 inline validity ice_temperature_validity(double temperature) {
   validity v;
   if (temperature < ice_model_min_temperature - 1e-9)
-    v.reason = colligate::detail::describe(
-        "ice equilibrium", "temperature", temperature,
-        "below the validated range 233.15-273.15 K of a_w,ice (Murphy & Koop 2005)");
+    v = outside_range("ice equilibrium", "temperature", temperature, ice_model_min_temperature,
+                      ice_model_max_temperature, " K", "the validated range of a_w,ice",
+                      "murphy_koop_2005");
   return v;
 }
 

@@ -12,6 +12,7 @@
 
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
 #include "colligate/data/pitzer_parameters.hpp"
 #include "colligate/data/solute_record.hpp"
 
@@ -75,15 +76,15 @@ inline const data::pitzer_binary* binary_for(const data::solute_record& rec,
   return set.find_binary(cation, anion);
 }
 
-/// Empty, or why temperature T (K) is outside the range of a record's own parameters.
-inline std::string record_temperature_reason(const data::solute_record& rec, double T) {
+/// In range, or the record of temperature T (K) outside the range of a record's own
+/// parameters.
+inline validity record_temperature_validity(const data::solute_record& rec, double T) {
   if (!rec.pitzer.available) return {};
   const auto& p = rec.pitzer;
   if (T >= p.min_temperature - 1e-9 && T <= p.max_temperature + 1e-9) return {};
-  return colligate::detail::describe(
-      "model 'pitzer'", "temperature for the parameters of '" + rec.id + "'", T,
-      "outside " + std::to_string(p.min_temperature) + "-" + std::to_string(p.max_temperature) +
-          " K, the range of the data behind them [" + p.binary.source + "]");
+  return outside_range("model 'pitzer'", "temperature for the parameters of '" + rec.id + "'",
+                       T, p.min_temperature, p.max_temperature, " K",
+                       "the range of the data behind them", p.binary.source);
 }
 
 }  // namespace colligate::models::detail

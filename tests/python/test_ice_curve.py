@@ -1,0 +1,77 @@
+"""The prepared ice curve from Python: seawater against TEOS-10 (gsw), the salt path,
+binary brines ending at their hydrates, and the structured validity record."""
+from __future__ import annotations
+
+import math
+
+import gsw
+import numpy as np
+import pytest
+
+import colligate as cg
+
+SA = 35.16504  # g/kg, TEOS-10 standard seawater
+
+
+def teos10_ice_fraction(t_c: float) -> float:
+    """Ice / water of seawater frozen at t_c with the salt kept in the brine (TEOS-10 via
+    gsw, IOC, SCOR & IAPSO 2010): brine salinity from the freezing line, p = 0, air-free."""
+    sa_b = float(gsw.SA_freezing_from_t(t_c, 0.0, 0.0))
+    return (1.0 - SA / sa_b) / (1.0 - SA / 1000.0)
+
+
+@pytest.mark.parametrize("t_c", [-3.0, -5.0, -6.0])
+def test_seawater_follows_teos10_before_salts_change_the_brine(t_c):
+    # Tolerance 0.01 of the water: the criterion of the ice-curve work; achieved < 5e-4.
+    curve = cg.IceCurve(cg.Solution.seawater(SA))
+    assert curve.at(t_c + 273.15).ice_fraction == pytest.approx(teos10_ice_fraction(t_c), abs=0.01)
+
+
+def test_seawater_curve_finite_and_monotonic_to_minus_30():
+    curve = cg.IceCurve(cg.Solution.seawater(SA))
+    temps = np.arange(-2.0, -30.01, -0.5) + 273.15
+    ice, _, _ = curve.ice_fractions(temps)
+    assert np.all(np.isfinite(ice))
+    assert np.all(np.diff(ice) >= 0.0)  # ice only grows on cooling (common practice)
+    names = [s["name"] for s in curve.salts]
+    # Equilibrium path of standard seawater (Wolfenbarger et al. 2022, FREZCHEM v13.3 run):
+    # gypsum, mirabilite, hydrohalite in that order, then the potassium and magnesium salts.
+    assert names[:3] == ["gypsum", "mirabilite", "hydrohalite"]
+    assert curve.end_reason == "final_eutectic"
+
+
+def test_fractional_path_reaches_colder():
+    eq = cg.IceCurve(cg.Solution.seawater(SA))
+    fr = cg.IceCurve(cg.Solution.seawater(SA), path="fractional")
+    assert fr.path == "fractional"
+    assert fr.end_temperature < eq.end_temperature
+    below = eq.at(eq.end_temperature - 1.0)
+    assert below.state == "below_curve_end" and math.isnan(below.ice)
+    assert below.validity.code == "below_curve_end"
+    assert "final eutectic" in below.reason
+    assert fr.at(eq.end_temperature - 1.0).state == "ice_salts_liquid"
+
+
+@pytest.mark.parametrize("salt,hydrate", [("NaCl", "hydrohalite"), ("CaCl2", "antarcticite"),
+                                          ("MgCl2", "magnesium chloride dodecahydrate")])
+def test_binary_brine_ends_at_its_hydrate(salt, hydrate):
+    curve = cg.IceCurve(cg.Solution.from_mass_fractions({salt: 0.05}))
+    assert curve.end_reason == "final_eutectic"
+    assert [s["name"] for s in curve.salts] == [hydrate]
+    assert curve.at(curve.end_temperature + 0.01).state == "ice_and_liquid"
+
+
+def test_above_freezing_point_no_ice_and_validity_record():
+    curve = cg.IceCurve(cg.Solution.from_mass_fractions({"sucrose": 0.2}))
+    st = curve.at(290.0)
+    assert st.state == "liquid" and st.ice == 0.0
+    assert st.validity.in_range and st.validity.code == "in_range"
+    cold = curve.at(220.0)  # below the ice model's validated range (Murphy & Koop 2005)
+    assert cold.validity.code == "temperature_out_of_range"
+    assert cold.validity.source == "murphy_koop_2005"
+    assert cold.validity.range_low == pytest.approx(233.15)
+
+
+def test_unknown_path_names_the_valid_values():
+    with pytest.raises(ValueError, match="equilibrium"):
+        cg.IceCurve(cg.Solution.seawater(SA), path="sideways")
