@@ -105,8 +105,9 @@ void register_equilibria(py::module_& m) {
         std::size_t n_out_of_range = 0;
         {
           py::gil_scoped_release release;
+          eq::ice_curve curve(s, id, bound_water);  // one curve for every temperature
           for (std::size_t i = 0; i < n; ++i) {
-            const auto v = eq::ice_fraction(s, t[i], id, pol, bound_water);
+            const auto v = eq::ice_fraction_of(curve.at(t[i]), pol);
             o[i] = v.value;
             if (!v.check.in_range()) {
               if (n_out_of_range++ == 0) first_reason = v.check.reason;

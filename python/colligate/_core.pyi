@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -355,6 +355,133 @@ class SolutionBatchCore:
     @property
     def species(self) -> list[str]:
         ...
+class IceCurveState:
+    """
+    A solution on its ice curve at one temperature (SI: K, kg, mol).
+    """
+    @property
+    def bound_water(self) -> float:
+        """
+        Unfreezable water, kg.
+        """
+    @property
+    def hydrate_water(self) -> float:
+        """
+        Water held in crystallised salt hydrates, kg.
+        """
+    @property
+    def ice(self) -> float:
+        """
+        Ice, kg.
+        """
+    @property
+    def ice_fraction(self) -> float:
+        """
+        Ice mass / total water mass.
+        """
+    @property
+    def precipitated(self) -> list[float]:
+        """
+        Salt crystallised, mol, one per entry of IceCurve.salts.
+        """
+    @property
+    def reason(self) -> str:
+        """
+        Why the state is outside the validated range or not computed ('' if inside).
+        """
+    @property
+    def state(self) -> str:
+        """
+        'liquid', 'ice_and_liquid', 'ice_salts_liquid', 'below_curve_end' or 'not_solved'.
+        """
+    @property
+    def status(self) -> str:
+        ...
+    @property
+    def success(self) -> bool:
+        ...
+    @property
+    def temperature(self) -> float:
+        """
+        Temperature, K.
+        """
+    @property
+    def total_water(self) -> float:
+        """
+        Water in the solution, kg.
+        """
+    @property
+    def unfrozen_water(self) -> float:
+        """
+        Liquid water, kg.
+        """
+    @property
+    def water_activity(self) -> float:
+        """
+        Water activity of the unfrozen liquid.
+        """
+class IceCurve:
+    """
+    The ice curve of one solution under one activity model, prepared once.
+    
+    Knows the initial freezing point and the solid phases along the freezing path (ice, then
+    each salt or salt hydrate as the unfrozen brine saturates in it), and answers for any
+    temperature (K): phase state, ice, salts crystallised, the unfrozen liquid, a_w.
+    
+    Parameters
+    ----------
+    solution : Solution
+    model : str
+        Activity model id ('auto' chooses for the solutes present).
+    bound_water : float
+        Water that cannot freeze, kg (same scale as the solution's water).
+    path : str
+        'equilibrium' (crystallised salts stay in contact with the brine and may
+        redissolve) or 'fractional' (each salt is removed as it forms).
+    """
+    def __init__(self, solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
+        ...
+    def at(self, temperature: typing.SupportsFloat | typing.SupportsIndex) -> IceCurveState:
+        """
+        The state at ``temperature`` (K).
+        """
+    def ice_fractions(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+        """
+        (ice fractions, first reason, count out of range) at each temperature (K).
+        """
+    @property
+    def bound_water(self) -> float:
+        """
+        Unfreezable water, kg.
+        """
+    @property
+    def end_reason(self) -> str:
+        """
+        'final_eutectic', 'salt_data_limit', 'search_limit', 'saturated_before_ice' or 'no_freezing_point'.
+        """
+    @property
+    def end_temperature(self) -> float:
+        """
+        Where the curve ends, K.
+        """
+    @property
+    def freezing_point(self) -> tuple[float, str, str]:
+        """
+        (temperature K, status, reason) of the initial freezing point.
+        """
+    @property
+    def model(self) -> str:
+        """
+        Id of the model used ('auto' resolved).
+        """
+    @property
+    def path(self) -> str:
+        ...
+    @property
+    def salts(self) -> list:
+        """
+        The salt phases along the path, in the order they form (onset and end in K; end NaN if the phase stays to the end of the curve).
+        """
 def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:

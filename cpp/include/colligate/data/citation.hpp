@@ -216,6 +216,42 @@ inline const std::vector<citation>& citations() {
        "Further studies on the forms of milk-sugar", "J. Am. Chem. Soc. 30, 1767-1783",
        "doi:10.1021/ja01953a014 (from memory)",
        "final solubility of lactose in water vs temperature (values from memory)"},
+      // Seawater freezing path (tests/reference/seawater_brine_path.csv and
+      // seawater_teos10_ice_fraction.csv; what was read is in NOTES_seawater_path.md).
+      {"teos10_2010", "IOC, SCOR and IAPSO", 2010,
+       "The international thermodynamic equation of seawater - 2010: calculation and use of "
+       "thermodynamic properties",
+       "Intergovernmental Oceanographic Commission, Manuals and Guides No. 56, UNESCO", "",
+       "freezing temperature of seawater (sections 3.33-3.34), evaluated with the gsw package; "
+       "brine-conservative ice fractions by tools/teos10_brine_ice_fraction.py"},
+      {"wolfenbarger_2022", "Wolfenbarger, N. S.; Fox-Powell, M. G.; Buffo, J. J.; Soderlund, K. M.; "
+       "Blankenship, D. D.", 2022,
+       "Compositional controls on the distribution of brine in Europa's ice shell",
+       "J. Geophys. Res. Planets 127(9), e2022JE007305", "doi:10.1029/2022JE007305",
+       "FREZCHEM v13.3 equilibrium freezing of standard seawater, output file "
+       "FREZCHEM/v13.3/Seawater/Gitterman of the authors' public data repository"},
+      {"vancoppenolle_2019", "Vancoppenolle, M.; Madec, G.; Thomas, M.; McDougall, T. J.", 2019,
+       "Thermodynamics of sea ice phase composition revisited", "J. Geophys. Res. Oceans 124(1), "
+       "615-634", "doi:10.1029/2018JC014611", "final eutectic of seawater (abstract)"},
+      {"butler_2016", "Butler, B. M.; Papadimitriou, S.; Santoro, A.; Kennedy, H.", 2016,
+       "Mirabilite solubility in equilibrium sea ice brines", "Geochim. Cosmochim. Acta 182, "
+       "40-54 (volume and pages from memory)", "doi:10.1016/j.gca.2016.03.008",
+       "onset of mirabilite precipitation in sea-ice brine (abstract)"},
+      {"melnichenko_slobodyuk_2013", "Mel'nichenko, N. A.; Slobodyuk, A. B.", 2013,
+       "Nuclear magnetic resonance study of sea-water freezing mechanisms: 1. Temperature "
+       "dependence of relative brine content in sea ice", "J. Glaciol. 59 (issue from memory)",
+       "doi:10.3189/2013JoG12J239", "hydrohalite below -23 C (abstract)"},
+      {"marion_farren_komrowski_1999", "Marion, G. M.; Farren, R. E.; Komrowski, A. J.", 1999,
+       "Alternative pathways for seawater freezing", "Cold Reg. Sci. Technol. 29, 259-266 "
+       "(pages from memory)", "doi:10.1016/S0165-232X(99)00033-6 (from memory)",
+       "equilibrium (Gitterman) and fractional (Ringer-Nelson-Thompson) paths (from memory)"},
+      {"assur_1958", "Assur, A.", 1958, "Composition of sea ice and its tensile strength",
+       "Arctic Sea Ice, Publ. 598, National Academy of Sciences - National Research Council, "
+       "106-138 (from memory)", "",
+       "phase-transition temperatures of sea-ice brine, as the breakpoints of later fits"},
+      {"nelson_thompson_1954", "Nelson, K. H.; Thompson, T. G.", 1954,
+       "Deposition of salts from sea water by frigid concentration",
+       "J. Mar. Res. 13, 166-182 (pages from memory)", "", "fractional freezing path (from memory)"},
       {"colligate_milk_salts", "colligate developers", 2026,
        "Effective milk-salts solute derived from Leighton (1927)",
        "colligate source tree, data/detail/builtin_solutes.inc", "",

@@ -1,0 +1,127 @@
+// Binding of equilibria/ice_curve.hpp: the prepared ice curve of one solution. No physics
+// here. The curve caches the path it has explored, so its methods keep the GIL (one
+// Python thread at a time per curve object).
+#include <pybind11/numpy.h>
+#include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
+
+#include <string>
+#include <tuple>
+
+#include "colligate/colligate.hpp"
+#include "register.hpp"
+
+namespace colligate_bindings {
+
+void register_ice_curve(py::module_& m) {
+  namespace eq = colligate::equilibria;
+  using colligate::solution;
+
+  py::class_<eq::ice_curve_state>(m, "IceCurveState",
+                                  "A solution on its ice curve at one temperature (SI: K, kg, mol).")
+      .def_readonly("temperature", &eq::ice_curve_state::temperature, "Temperature, K.")
+      .def_property_readonly("state", [](const eq::ice_curve_state& s) { return eq::to_string(s.state); },
+                             "'liquid', 'ice_and_liquid', 'ice_salts_liquid', 'below_curve_end' or 'not_solved'.")
+      .def_property_readonly("status", [](const eq::ice_curve_state& s) { return eq::to_string(s.status); })
+      .def_property_readonly("success", &eq::ice_curve_state::success)
+      .def_readonly("total_water", &eq::ice_curve_state::total_water, "Water in the solution, kg.")
+      .def_readonly("bound_water", &eq::ice_curve_state::bound_water, "Unfreezable water, kg.")
+      .def_readonly("unfrozen_water", &eq::ice_curve_state::unfrozen_water, "Liquid water, kg.")
+      .def_readonly("ice", &eq::ice_curve_state::ice, "Ice, kg.")
+      .def_readonly("hydrate_water", &eq::ice_curve_state::hydrate_water,
+                    "Water held in crystallised salt hydrates, kg.")
+      .def_readonly("water_activity", &eq::ice_curve_state::water_activity,
+                    "Water activity of the unfrozen liquid.")
+      .def_readonly("precipitated", &eq::ice_curve_state::precipitated,
+                    "Salt crystallised, mol, one per entry of IceCurve.salts.")
+      .def_property_readonly("ice_fraction", &eq::ice_curve_state::ice_fraction,
+                             "Ice mass / total water mass.")
+      .def_property_readonly("reason", [](const eq::ice_curve_state& s) { return s.check.reason; },
+                             "Why the state is outside the validated range or not computed ('' if inside).");
+
+  py::class_<eq::ice_curve>(m, "IceCurve", R"doc(
+The ice curve of one solution under one activity model, prepared once.
+
+Knows the initial freezing point and the solid phases along the freezing path (ice, then
+each salt or salt hydrate as the unfrozen brine saturates in it), and answers for any
+temperature (K): phase state, ice, salts crystallised, the unfrozen liquid, a_w.
+
+Parameters
+----------
+solution : Solution
+model : str
+    Activity model id ('auto' chooses for the solutes present).
+bound_water : float
+    Water that cannot freeze, kg (same scale as the solution's water).
+path : str
+    'equilibrium' (crystallised salts stay in contact with the brine and may
+    redissolve) or 'fractional' (each salt is removed as it forms).
+)doc")
+      .def(py::init([](const solution& s, const std::string& model, double bound_water,
+                       const std::string& path) {
+             return std::make_unique<eq::ice_curve>(s, colligate::models::model_choice(model),
+                                                    bound_water,
+                                                    eq::crystallisation_path_from_string(path));
+           }),
+           py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+           py::arg("path") = "equilibrium")
+      .def_property_readonly("model", [](const eq::ice_curve& c) { return c.model().id; },
+                             "Id of the model used ('auto' resolved).")
+      .def_property_readonly("path", [](const eq::ice_curve& c) { return eq::to_string(c.path()); })
+      .def_property_readonly("bound_water", &eq::ice_curve::bound_water, "Unfreezable water, kg.")
+      .def_property_readonly(
+          "freezing_point",
+          [](eq::ice_curve& c) {
+            const auto& fp = c.initial_freezing_point();
+            return std::make_tuple(fp.temperature, eq::to_string(fp.status), fp.check.reason);
+          },
+          "(temperature K, status, reason) of the initial freezing point.")
+      .def_property_readonly(
+          "salts",
+          [](eq::ice_curve& c) {
+            py::list out;
+            for (const auto& o : c.salts()) {
+              py::dict d;
+              d["name"] = o.phase->name;
+              d["formula"] = o.phase->formula;
+              d["source"] = o.phase->source;
+              d["water_of_hydration"] = o.phase->water;
+              d["onset_temperature_K"] = o.temperature;
+              d["ends_temperature_K"] = o.ends;
+              out.append(d);
+            }
+            return out;
+          },
+          "The salt phases along the path, in the order they form (onset and end in K; "
+          "end NaN if the phase stays to the end of the curve).")
+      .def_property_readonly("end_temperature", [](eq::ice_curve& c) { return c.end_temperature(); },
+                             "Where the curve ends, K.")
+      .def_property_readonly("end_reason", [](eq::ice_curve& c) { return eq::to_string(c.end_reason()); },
+                             "'final_eutectic', 'salt_data_limit', 'search_limit', "
+                             "'saturated_before_ice' or 'no_freezing_point'.")
+      .def("at", &eq::ice_curve::at, py::arg("temperature"),
+           "The state at ``temperature`` (K).")
+      .def(
+          "ice_fractions",
+          [](eq::ice_curve& c,
+             const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+             const std::string& policy) {
+            const auto pol = colligate::range_policy_from_string(policy);
+            py::array_t<double> out(temperature.request().shape);
+            const double* t = temperature.data();
+            double* o = out.mutable_data();
+            const auto n = static_cast<std::size_t>(temperature.size());
+            std::string first_reason;
+            std::size_t n_out_of_range = 0;
+            for (std::size_t i = 0; i < n; ++i) {
+              const auto v = eq::ice_fraction_of(c.at(t[i]), pol);
+              o[i] = v.value;
+              if (!v.check.in_range() && n_out_of_range++ == 0) first_reason = v.check.reason;
+            }
+            return std::make_tuple(out, first_reason, n_out_of_range);
+          },
+          py::arg("temperature"), py::arg("range_policy") = "extrapolate",
+          "(ice fractions, first reason, count out of range) at each temperature (K).");
+}
+
+}  // namespace colligate_bindings
