@@ -46,6 +46,9 @@ __all__ = [
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",
+    "sweetness_table",
+    "lactose_solubility",
+    "lactose_solubility_table",
     "InvalidInputError",
     "OutOfValidityRangeError",
     "OutOfValidityRangeWarning",
@@ -419,3 +422,36 @@ def mean_activity_coefficient(
 def pitzer_parameter_sets() -> list[str]:
     """Ids of the Pitzer parameter sets (the first is the default)."""
     return list(_core.pitzer_parameter_sets())
+
+
+def sweetness_table():
+    """Relative sweetness of sugars (sucrose = 1, mass basis), from the core's data table.
+
+    Returns a pandas DataFrame indexed by solute id with columns ``relative_sweetness``,
+    ``source`` (citation key, see :func:`citation`) and ``note``. Solutes not listed count
+    as not sweet.
+    """
+    import pandas as pd
+
+    return pd.DataFrame(_core.sweetness_table()).set_index("solute")
+
+
+def lactose_solubility_table():
+    """The points of the core's lactose solubility curve, as a pandas DataFrame.
+
+    Columns ``temperature`` (K), ``solubility`` (kg anhydrous lactose per kg water),
+    ``source`` (citation key, see :func:`citation`) and ``note``.
+    """
+    import pandas as pd
+
+    return pd.DataFrame(_core.lactose_solubility_table())
+
+
+def lactose_solubility(T: Temperature) -> Union[float, np.ndarray]:
+    """Solubility of lactose in water at ``T`` (K, scalar or array), kg per kg water.
+
+    Linear interpolation in :func:`lactose_solubility_table`; below its coldest point the
+    value there (an upper bound), above its warmest point the value there.
+    """
+    out = _core.lactose_solubility(np.asarray(T, dtype=float))
+    return float(out) if np.ndim(T) == 0 else out

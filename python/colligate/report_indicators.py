@@ -38,36 +38,14 @@ __all__ = [
 #: Identifier and version of the dict layout produced by :func:`build_report`.
 REPORT_FORMAT = "colligate-report/1"
 
-#: Relative sweetness, sucrose = 1 (mass basis). Sucrose by definition; glucose 0.74,
-#: fructose 1.73, maltose 0.33, lactose 0.16: Bender, A Dictionary of Food and Nutrition
-#: (Oxford University Press), entry "sweeteners" (fructose 173, glucose 74, maltose 33,
-#: lactose 16; read in a public copy). Gaman & Sherrington (1990), The Science of Food,
-#: give 170, 75, 30 and 15. Maltotriose 0.1 (from memory); higher saccharides and
-#: maltodextrin about 0 (common practice).
-RELATIVE_SWEETNESS: dict[str, float] = {
-    "sucrose": 1.0, "glucose": 0.74, "fructose": 1.73, "maltose": 0.33, "lactose": 0.16,
-    "maltotriose": 0.1, "higher_saccharides": 0.0, "maltodextrin": 0.0,
-}
-
-#: Final solubility of lactose in water, g per 100 g water, by degC: Hudson's values as
-#: tabulated in Lowe, Experimental Cookery, table "Solubility of lactose in water (Hudson)"
-#: (read in a public copy; Hudson's paper itself not read). Below 0 degC the 0 degC value
-#: is used (an upper bound: solubility falls with temperature).
-LACTOSE_SOLUBILITY_G_PER_100G: tuple[tuple[float, float], ...] = ((0.0, 11.9), (15.0, 16.9), (25.0, 21.6), (39.0, 31.5))
-
-
-def _lactose_solubility(t_c: float) -> float:
-    pts = LACTOSE_SOLUBILITY_G_PER_100G
-    if t_c <= pts[0][0]:
-        return pts[0][1]
-    for (t1, s1), (t2, s2) in zip(pts, pts[1:]):
-        if t_c <= t2:
-            return s1 + (s2 - s1) * (t_c - t1) / (t2 - t1)
-    return pts[-1][1]
-
-
 def _sweetness() -> dict[str, float]:
-    return RELATIVE_SWEETNESS
+    """Relative sweetness by solute id (sucrose = 1), from the core's table."""
+    return {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
+
+
+def _lactose_solubility_g_per_100g(t_k: float) -> float:
+    """Lactose solubility at ``t_k`` (K) from the core, in g per 100 g water for display."""
+    return 100.0 * float(api.lactose_solubility(t_k))
 
 
 def freezing_power(sid: str) -> float | None:
@@ -113,7 +91,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
         salts = sum(v for k, v in solutes.items() if kinds.get(k) == "electrolyte" or k == "milk_salts")
         lac = solutes.get("lactose", 0.0)
         t_c = celsius_from_kelvin(t_k)
-        sol = _lactose_solubility(t_c)
+        sol = _lactose_solubility_g_per_100g(t_k)
         out["unfrozen_phase"].append({
             "name": point,
             "temperature_C": t_c,
