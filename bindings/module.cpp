@@ -14,4 +14,5 @@ PYBIND11_MODULE(_core, m) {
   colligate_bindings::register_batch(m);
   colligate_bindings::register_electrolytes(m);
   colligate_bindings::register_ice_curve(m);
+  colligate_bindings::register_data(m);
 }

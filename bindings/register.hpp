@@ -22,6 +22,7 @@ void register_batch(py::module_& m);
 void register_fit(py::module_& m);
 void register_electrolytes(py::module_& m);
 void register_ice_curve(py::module_& m);
+void register_data(py::module_& m);
 
 /// Converts any mapping with .items() (dict, pandas Series) to named amounts.
 inline std::vector<colligate::named_amount> to_named_amounts(const py::object& mapping,

@@ -9,11 +9,6 @@ safety, and defer to local codes and licensed practice.
 """
 from __future__ import annotations
 
-import warnings
-from typing import Any, Mapping, Union
-
-import numpy as np
-
 try:
     from . import _core
 except ImportError as exc:  # pragma: no cover - only without a build
@@ -45,13 +40,42 @@ try:
 except ImportError:  # pragma: no cover
     __version__ = _core.__version__
 
-from ._core import (  # noqa: F401
+from .api import (  # noqa: E402,F401
+    CAUTIONS,
+    RANGE_POLICIES,
     ConvergenceError,
     InvalidInputError,
     OutOfValidityRangeError,
+    OutOfValidityRangeWarning,
     Solution,
+    UnfrozenPhase,
     UnfrozenPhaseState,
+    apparent_specific_heat,
+    citation,
+    citations,
+    describe_model,
+    enthalpy,
+    eutectic,
+    freezing_point,
+    frozen_specific_heat_chen,
+    heat_load,
+    ice_fraction,
+    leighton_freezing_point,
+    leighton_ice_fraction,
+    mean_activity_coefficient,
+    models,
+    osmotic_coefficient,
+    pitzer_parameter_sets,
+    lactose_solubility,
+    lactose_solubility_table,
+    solutes,
+    sweetness_table,
+    unfrozen_phase,
+    water_activity,
+    water_activity_of_ice,
 )
+from .ingredients import Ingredient, ingredients  # noqa: E402
+from .recipe import Recipe  # noqa: E402
 
 __all__ = [
     "Solution",
@@ -92,401 +116,14 @@ __all__ = [
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",
+    "sweetness_table",
+    "lactose_solubility",
+    "lactose_solubility_table",
     "InvalidInputError",
     "OutOfValidityRangeError",
     "OutOfValidityRangeWarning",
     "ConvergenceError",
     "CAUTIONS",
+    "RANGE_POLICIES",
     "__version__",
 ]
-
-#: Cautions shown with every report and by the command line.
-CAUTIONS = (
-    "Predictions are estimates from published models and constants; real ingredients vary.",
-    "Verify freezing behaviour and water activity by measurement before relying on them.",
-    "Do not base food-safety decisions (water activity, brines, ethanol, freezing for "
-    "safety, ice-salt baths) on these numbers alone; defer to local codes, regulations "
-    "and licensed practice.",
-)
-
-RANGE_POLICIES = ("extrapolate", "nan", "raise")
-
-
-class OutOfValidityRangeWarning(UserWarning):
-    """A result was computed outside the validated range of its model (see the message)."""
-
-
-Temperature = Union[float, "np.typing.ArrayLike"]
-
-
-def _warn(reason: str, count: int = 1) -> None:
-    if reason:
-        prefix = f"{count} value(s) outside the validated range; first: " if count > 1 else ""
-        warnings.warn(prefix + reason, OutOfValidityRangeWarning, stacklevel=3)
-
-
-def _as_solution(solution: Any) -> Solution:
-    if isinstance(solution, Solution):
-        return solution
-    raise InvalidInputError(
-        f"expected a colligate.Solution, got {type(solution).__name__}; build one with "
-        "Solution(water=..., solutes={...}) or Solution.from_mass_fractions({...})"
-    )
-
-
-def freezing_point(
-    solution: Solution,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-    range_policy: str = "extrapolate",
-) -> float:
-    """Initial freezing point of a solution.
-
-    Parameters
-    ----------
-    solution : Solution
-        The solution.
-    model : str
-        Activity model id: "auto", "ideal", "raoult", "norrish", "pitzer" or "ross" (see
-        :func:`models`).
-    bound_water : float
-        Water that cannot freeze (e.g. bound to protein), kg; taken out of the solvent.
-    range_policy : str
-        Outside the model's validated range: "extrapolate" (compute and warn, default),
-        "nan" (return NaN and warn) or "raise" (:class:`OutOfValidityRangeError`).
-
-    Returns
-    -------
-    float
-        Temperature, K, at which ice starts to form. NaN if the solution does not freeze
-        above 223.15 K.
-    """
-    if isinstance(solution, SolutionBatch):
-        return batch_freezing_point(solution, model, range_policy=range_policy)
-    value, reason = _core.freezing_point(_as_solution(solution), model, range_policy, bound_water)
-    _warn(reason)
-    return value
-
-
-def water_activity(
-    solution: Solution,
-    T: float = 298.15,
-    model: str = "auto",
-    *,
-    range_policy: str = "extrapolate",
-) -> float:
-    """Water activity of a solution (no ice) at temperature ``T``.
-
-    Parameters
-    ----------
-    solution : Solution
-        The solution.
-    T : float
-        Temperature, K (default 298.15 K, 25 C).
-    model : str
-        Activity model id (see :func:`models`).
-    range_policy : str
-        "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
-
-    Returns
-    -------
-    float
-        Water activity, dimensionless, in (0, 1].
-    """
-    if isinstance(solution, SolutionBatch):
-        return batch_water_activity(solution, T, model, range_policy=range_policy)
-    value, reason = _core.water_activity(_as_solution(solution), float(T), model, range_policy)
-    _warn(reason)
-    return value
-
-
-def osmotic_coefficient(
-    solution: Solution,
-    T: float = 298.15,
-    model: str = "auto",
-    *,
-    range_policy: str = "extrapolate",
-) -> float:
-    """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K)."""
-    value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy)
-    _warn(reason)
-    return value
-
-
-def ice_fraction(
-    solution: Solution,
-    T: Temperature,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-    range_policy: str = "extrapolate",
-) -> Union[float, np.ndarray]:
-    """Ice mass over total water mass at temperature(s) ``T``.
-
-    Parameters
-    ----------
-    solution : Solution
-        The solution (or food water phase).
-    T : float or array_like
-        Temperature(s), K. Above the freezing point the ice fraction is 0.
-    model : str
-        Activity model id (see :func:`models`).
-    bound_water : float
-        Water that cannot freeze, kg (neither ice nor solvent).
-    range_policy : str
-        "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
-
-    Returns
-    -------
-    float or numpy.ndarray
-        Ice fraction in [0, 1), same shape as ``T``.
-    """
-    if isinstance(solution, SolutionBatch):
-        return batch_ice_fraction(solution, T, model, range_policy=range_policy)
-    scalar = np.ndim(T) == 0
-    temps = np.asarray(T, dtype=float)
-    values, reason, count = _core.ice_fraction(
-        _as_solution(solution), temps, model, range_policy, bound_water
-    )
-    _warn(reason, count)
-    return float(values) if scalar else values
-
-
-def leighton_freezing_point(solution: Solution) -> float:
-    """Initial freezing point (K) by the dairy method of Leighton (1927) as given by Goff &
-    Hartel (2013), Ice Cream, ch. 6: sugars as sucrose equivalents on their Table 6.1 plus
-    2.37 K per g milk solids-not-fat per 100 g water for the milk salts.
-
-    A cross-check against the figures of the dairy texts, not an activity model; see
-    ``cpp/include/colligate/equilibria/leighton_method.hpp``. Electrolytes other than milk
-    salts are left out with a warning.
-    """
-    value, reason = _core.leighton_freezing_point(_as_solution(solution))
-    _warn(reason)
-    return value
-
-
-def leighton_ice_fraction(solution: Solution, T: Temperature) -> Union[float, np.ndarray]:
-    """Fraction of the water frozen at ``T`` (K, scalar or array) by the Leighton (1927) /
-    Goff & Hartel (2013) dairy method (see :func:`leighton_freezing_point`). Beyond the end
-    of their sucrose table (180 g per 100 g water) the table is extrapolated and a warning
-    says so."""
-    s = _as_solution(solution)
-    temps = np.asarray(T, dtype=float)
-    out = np.empty(temps.shape)
-    reasons = []
-    for idx, t in np.ndenumerate(temps):
-        out[idx], reason = _core.leighton_ice_fraction(s, float(t))
-        if reason:
-            reasons.append(reason)
-    if reasons:
-        _warn(reasons[0], len(reasons))
-    return float(out) if np.ndim(T) == 0 else out
-
-
-def unfrozen_phase(
-    solution: Solution,
-    T: float,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-) -> UnfrozenPhase:
-    """Ice, unfrozen water and the unfrozen solution at temperature ``T`` (K).
-
-    Returns an :class:`UnfrozenPhase` with ``temperature`` (K), ``ice``,
-    ``unfrozen_water``, ``bound_water``, ``total_water`` (kg), ``ice_fraction``,
-    ``water_activity`` and ``solution`` (the unfrozen liquid as a :class:`Solution`).
-    """
-    s = _as_solution(solution)
-    state = _core.unfrozen_phase(s, float(T), model, bound_water)
-    _warn(state.reason)
-    return UnfrozenPhase(state, s.with_water(state.unfrozen_water))
-
-
-class UnfrozenPhase:
-    """State of a partly frozen solution at one temperature (SI units)."""
-
-    def __init__(self, state: UnfrozenPhaseState, liquid: Solution) -> None:
-        self._state = state
-        self.solution: Solution = liquid
-        self.temperature: float = state.temperature
-        self.ice: float = state.ice
-        self.unfrozen_water: float = state.unfrozen_water
-        self.bound_water: float = state.bound_water
-        self.total_water: float = state.total_water
-        self.ice_fraction: float = state.ice_fraction
-        self.water_activity: float = state.water_activity
-        self.status: str = state.status
-        self.reason: str = state.reason
-
-    def __repr__(self) -> str:
-        return (
-            f"UnfrozenPhase(T={self.temperature:.2f} K, ice_fraction={self.ice_fraction:.4f}, "
-            f"unfrozen_water={self.unfrozen_water:.6g} kg, water_activity={self.water_activity:.4f})"
-        )
-
-
-def _thermal_call(core_fn, composition: Mapping[str, float], solution: Any, T: Temperature,
-                  model: str, bound_water: float) -> Union[float, np.ndarray]:
-    """Calls a compiled thermal function over scalar or array T, turning reasons into warnings."""
-    comp = {str(k): float(v) for k, v in dict(composition).items()}
-    scalar = np.ndim(T) == 0
-    values, reason, count = core_fn(comp, _as_solution(solution), np.asarray(T, dtype=float), model, bound_water)
-    _warn(reason, count)
-    return float(values) if scalar else values
-
-
-def enthalpy(
-    composition: Mapping[str, float],
-    solution: Solution,
-    T: Temperature,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-) -> Union[float, np.ndarray]:
-    """Specific enthalpy of a food, J/kg, with H = 0 at 233.15 K (-40 C).
-
-    Parameters
-    ----------
-    composition : mapping
-        Mass fractions (kg per kg of food) of water, protein, fat, carbohydrate, fibre, ash.
-    solution : Solution
-        The aqueous phase whose ice curve applies (any scale; only its composition matters).
-    T : float or array_like
-        Temperature(s), K, 233.15-313.15.
-    model : str
-        Activity model id of the ice curve.
-    bound_water : float
-        Unfreezable water, kg per kg of food.
-    """
-    return _thermal_call(_core.food_enthalpy, composition, solution, T, model, bound_water)
-
-
-def apparent_specific_heat(
-    composition: Mapping[str, float],
-    solution: Solution,
-    T: Temperature,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-) -> Union[float, np.ndarray]:
-    """Apparent specific heat dH/dT of a food, J/(kg K) (arguments as :func:`enthalpy`)."""
-    return _thermal_call(_core.food_apparent_specific_heat, composition, solution, T, model, bound_water)
-
-
-def frozen_specific_heat_chen(
-    water_fraction: float,
-    solids_fraction: float,
-    initial_freezing_point: float,
-    T: float,
-    *,
-    bound_water_fraction: float = 0.0,
-) -> float:
-    """Apparent specific heat of a frozen food by the Chen (1985) correlation, J/(kg K).
-
-    The form presented by the ASHRAE Handbook - Refrigeration (2006), ch. 9, whose table of
-    "specific heat below freezing" is this correlation at -40 C. :func:`apparent_specific_heat`
-    is the physical model (ice heat capacity from IAPWS); use this one to compare with
-    handbook tables.
-
-    Parameters
-    ----------
-    water_fraction, solids_fraction, bound_water_fraction : float
-        Mass fractions of the food.
-    initial_freezing_point, T : float
-        Initial freezing point and temperature, K (T below the freezing point).
-    """
-    return float(_core.chen_frozen_specific_heat(water_fraction, solids_fraction, bound_water_fraction,
-                                                 initial_freezing_point, T))
-
-
-def heat_load(
-    composition: Mapping[str, float],
-    solution: Solution,
-    from_T: float,
-    to_T: float,
-    model: str = "auto",
-    *,
-    bound_water: float = 0.0,
-) -> dict[str, float]:
-    """Heat to remove per kg of food from ``from_T`` to ``to_T`` (K).
-
-    Returns a dict with ``total``, ``sensible`` and ``latent`` (J/kg, positive when
-    cooling) and ``ice_fraction_from``, ``ice_fraction_to``.
-    """
-    comp = {str(k): float(v) for k, v in dict(composition).items()}
-    out = dict(_core.food_heat_load(comp, _as_solution(solution), float(from_T), float(to_T), model, bound_water))
-    _warn(out.pop("reason"))
-    return out
-
-
-def water_activity_of_ice(T: Temperature) -> Union[float, np.ndarray]:
-    """Water activity of a solution in equilibrium with ice at ``T`` (K), one atmosphere."""
-    f = np.vectorize(lambda t: float(np.exp(_core.ln_water_activity_of_ice(float(t)))))
-    out = f(np.asarray(T, dtype=float))
-    return float(out) if np.ndim(T) == 0 else out
-
-
-def models() -> list[str]:
-    """Ids of the available activity models ("auto" picks one per solution)."""
-    return list(_core.models())
-
-
-def describe_model(solution: Solution, model: str = "auto") -> str:
-    """Which model, constants and sources a calculation on ``solution`` uses."""
-    return _core.describe_model(_as_solution(solution), model)
-
-
-def solutes():
-    """The built-in solute table as a pandas DataFrame (SI units, source keys).
-
-    Every source key resolves with :func:`citation`.
-    """
-    import pandas as pd
-
-    df = pd.DataFrame(_core.solute_table()).set_index("id")
-    df["aliases"] = df["aliases"].map(", ".join)
-    return df
-
-
-def citations():
-    """All sources cited by the built-in data, as a pandas DataFrame indexed by key."""
-    import pandas as pd
-
-    return pd.DataFrame(_core.citation_table()).set_index("key")
-
-
-def citation(key: str) -> Mapping[str, Any]:
-    """One source of the citation table, as a dict."""
-    return dict(_core.citation(key))
-
-
-def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.0) -> dict:
-    """Where the ice curve of a salt solution ends because a salt crystallises.
-
-    Returns a dict with ``temperature`` (K; NaN if none found), ``found``, ``phase``
-    (mineral, e.g. "hydrohalite"), ``formula``, ``source`` (citation key) and ``reason``.
-    Brine and ice-salt-bath temperatures are model estimates: see :data:`CAUTIONS`.
-    """
-    t, found, phase, formula, source, reason = _core.eutectic(_as_solution(solution), model, bound_water)
-    return {"temperature": t, "found": found, "phase": phase, "formula": formula,
-            "source": source, "reason": reason}
-
-
-def mean_activity_coefficient(
-    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "spencer_1990_icefit"
-) -> float:
-    """Mean molal activity coefficient of electrolyte ``solute`` at ``T`` (K), Pitzer model."""
-    value, reason = _core.mean_activity_coefficient(_as_solution(solution), solute, float(T), parameter_set)
-    _warn(reason)
-    return value
-
-
-def pitzer_parameter_sets() -> list[str]:
-    """Ids of the Pitzer parameter sets (the first is the default)."""
-    return list(_core.pitzer_parameter_sets())
-
-
-from .ingredients import Ingredient, ingredients  # noqa: E402  (needs the names above)
-from .recipe import Recipe  # noqa: E402

@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -573,6 +573,16 @@ def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex
     """
     Vapour pressure of ice, Pa (Murphy & Koop 2005 eq. 7).
     """
+def lactose_solubility(temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> numpy.typing.NDArray[numpy.float64]:
+    """
+    Solubility of lactose in water, kg anhydrous lactose per kg water, at ``temperature`` (K, scalar or array): linear interpolation in :func:`lactose_solubility_table`, held at the end values outside it.
+    
+    Raises ValueError for a temperature that is not finite and positive.
+    """
+def lactose_solubility_table() -> list:
+    """
+    Points of the lactose solubility curve as a list of dicts with ``temperature`` (K), ``solubility`` (kg anhydrous lactose per kg water), ``source`` (citation key) and ``note``.
+    """
 def latent_heat_of_fusion(composition: typing.Any) -> float:
     """
     Water fraction times the heat of fusion of ice at 0 C, J/kg of food.
@@ -634,6 +644,10 @@ def row_status_reasons() -> list[str]:
 def solute_table() -> list:
     """
     The built-in solute table as a list of dicts (SI units, with source keys).
+    """
+def sweetness_table() -> list:
+    """
+    Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
 def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> UnfrozenPhaseState:
     ...

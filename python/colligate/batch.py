@@ -82,7 +82,7 @@ class SolutionBatch:
 
 
 def _report(status: np.ndarray, what: str) -> None:
-    from . import OutOfValidityRangeWarning
+    from ._warnings import OutOfValidityRangeWarning
 
     n_range = int(np.count_nonzero(status == OUT_OF_RANGE))
     if n_range:

@@ -68,11 +68,9 @@ class _Parser(argparse.ArgumentParser):
 
 def _build_parser() -> argparse.ArgumentParser:
     try:
-        import colligate as cg
-
-        version = str(getattr(cg, "__version__", "unknown"))
-    except Exception:  # pragma: no cover
-        version = "unknown"
+        from ._version import __version__ as version
+    except ImportError:  # pragma: no cover - only in a source tree without a build
+        from ._core import __version__ as version
 
     parser = _Parser(
         prog=PROG,

@@ -47,7 +47,7 @@ def _quiet(fn):
     def run(*args, **kwargs):
         import warnings
 
-        from . import OutOfValidityRangeWarning
+        from ._warnings import OutOfValidityRangeWarning
         from .batch import BatchRowWarning
 
         with warnings.catch_warnings():  # status is carried by NaN in distributed sweeps

@@ -706,7 +706,7 @@ def run_fit_command(args: Any) -> str:
         molar_mass = None if args.model == "pitzer" else args.molar_mass
         fs = res.as_solute(args.name or os.path.basename(stem), molar_mass=molar_mass)
         lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute))}")
-    from . import CAUTIONS
+    from ._warnings import CAUTIONS
 
     lines += ["", "Cautions:"] + [f"- {c}" for c in CAUTIONS]
     return "\n".join(lines) + "\n"

@@ -26,7 +26,7 @@ if sys.version_info >= (3, 11):
 else:  # pragma: no cover
     import tomli as tomllib
 
-import colligate as cg
+from . import api
 
 __all__ = [
     "Ingredient",
@@ -54,7 +54,7 @@ SUM_TOLERANCE = 0.005
 _BASIC = ("water", "fat", "protein", "fibre", "ash", "other_solids", "ethanol")
 
 
-class IngredientError(cg.InvalidInputError):
+class IngredientError(api.InvalidInputError):
     """An ingredient is malformed or unknown; the message names the field and range."""
 
 
@@ -124,7 +124,7 @@ class Ingredient:
             if sid == "ethanol":
                 continue
             try:
-                cg.Solution(water=1.0, solutes={sid: 0.0})
+                api.Solution(water=1.0, solutes={sid: 0.0})
             except ValueError as exc:
                 raise IngredientError(f"ingredient '{self.name}': {exc}") from None
 

@@ -19,9 +19,10 @@ from typing import Iterable, Mapping
 
 import numpy as np
 
-import colligate as cg
-
+from . import api
 from ._files import atomic_write, check_output_path
+from .report_compute import EUTECTIC_MARGIN_K as _EUTECTIC_MARGIN_K
+from .report_compute import IcePath
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
 __all__ = [
@@ -44,9 +45,6 @@ THERMAL_RANGE_C: tuple[float, float] = (10.0, -40.0)
 #: 5 degC (common practice); the report's heat load starts there too.
 FILL_TEMPERATURE_C = 5.0
 
-#: The curves stop this far above a salt eutectic, K, where the ice curve still solves.
-_EUTECTIC_MARGIN_K = 0.01
-
 _MARK_STYLES = ("--", "-.", ":", (0, (5, 2, 1, 2)))
 _MARK_COLOURS = ("#1b7f79", "#c4622d", "#5b4a9e", "#7a7a2e", "#9e3b63")
 _CURVE_COLOUR = "#174a7c"
@@ -56,7 +54,7 @@ _EUTECTIC_COLOUR = "#6b6b6b"
 
 
 def plot_ice_curve(
-    solution: "cg.Solution",
+    solution: "api.Solution",
     path: str | os.PathLike[str],
     marks: Mapping[str, float] | None = None,
     model: str = "auto",
@@ -97,8 +95,9 @@ def plot_ice_curve(
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
 
-    tf = float(cg.freezing_point(solution, model=model, bound_water=bound_water))
-    t_eut = _eutectic_K(solution, model, bound_water)
+    ice_path = IcePath(solution, model, bound_water)
+    tf = ice_path.freezing_point
+    t_eut = _eutectic_K(ice_path)
     warm_c, cold_c = CURVE_RANGE_C
     temps_c = np.linspace(warm_c, cold_c, points)
     freezes = bool(np.isfinite(tf))  # NaN: no freezing point in the library's search range
@@ -110,7 +109,7 @@ def plot_ice_curve(
         stop_c = eut_c + _EUTECTIC_MARGIN_K
         temps_c = np.unique(np.append(temps_c[temps_c > stop_c], stop_c))[::-1]
     temps_k = temps_c + ZERO_CELSIUS_K
-    frac = np.asarray(cg.ice_fraction(solution, temps_k, model=model, bound_water=bound_water), dtype=float)
+    frac = np.asarray(ice_path.ice_fraction(temps_k), dtype=float)
     if freezes:
         frac = np.where(temps_k >= tf, 0.0, frac)
 
@@ -134,7 +133,7 @@ def plot_ice_curve(
                        label=f"{name} {t_c:.1f} °C: below the eutectic")
             continue
         frozen = t_k < tf if freezes else True
-        f = float(cg.ice_fraction(solution, float(t_k), model=model, bound_water=bound_water)) if frozen else 0.0
+        f = float(ice_path.ice_fraction(float(t_k))) if frozen else 0.0
         ax.axvline(t_c, color=colour, linestyle=style, linewidth=1.3,
                    label=f"{name} {t_c:.1f} °C: {100.0 * f:.0f} % ice")
         ax.plot([t_c], [100.0 * f], marker="s", color=colour, zorder=5)
@@ -186,11 +185,10 @@ def _log_axis_plain(ax, values: np.ndarray) -> None:
     ax.yaxis.set_minor_formatter(NullFormatter())
 
 
-def _eutectic_K(solution: "cg.Solution", model: str, bound_water: float) -> float:
+def _eutectic_K(ice_path: IcePath) -> float:
     """Eutectic temperature of the solution, K; NaN when it has none (no salts)."""
-    e = cg.eutectic(solution, model=model, bound_water=bound_water)
-    t = float(e.get("temperature", float("nan")))
-    return t if e.get("found") and np.isfinite(t) else float("nan")
+    t = ice_path.eutectic_temperature
+    return float("nan") if t is None else t
 
 
 def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
@@ -199,7 +197,7 @@ def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
          label=f"eutectic {eut_c:.1f} °C: salt crystallises, curve stops")
 
 
-def _recipe_parts(recipe) -> tuple["cg.Solution", str, float]:
+def _recipe_parts(recipe) -> tuple["api.Solution", str, float]:
     """Solution, model id and bound water (kg, solution scale) of a recipe."""
     return recipe.solution(), recipe.model, float(recipe.bound_water or 0.0)
 
@@ -209,8 +207,9 @@ def _thermal_grid(recipe, warm_c: float, cold_c: float, points: int) -> tuple[np
     node and stopping just above a eutectic; also returns the freezing point and the
     eutectic in K (NaN when absent)."""
     solution, model, bound = _recipe_parts(recipe)
-    tf = float(cg.freezing_point(solution, model=model, bound_water=bound))
-    t_eut = _eutectic_K(solution, model, bound)
+    ice_path = IcePath(solution, model, bound)
+    tf = ice_path.freezing_point
+    t_eut = _eutectic_K(ice_path)
     temps_c = np.linspace(warm_c, cold_c, points)
     if np.isfinite(t_eut):
         stop_c = celsius_from_kelvin(t_eut) + _EUTECTIC_MARGIN_K

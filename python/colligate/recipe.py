@@ -66,7 +66,7 @@ from dataclasses import dataclass, field
 from importlib import resources
 from typing import Any, Mapping
 
-import colligate as cg
+from . import api
 
 from .units import kelvin_from_celsius
 
@@ -110,7 +110,7 @@ _REQUIRED_TABLES = ("recipe",)
 _BASES = ("kg", "percent")
 
 
-class RecipeError(cg.InvalidInputError):
+class RecipeError(api.InvalidInputError):
     """A recipe file is missing, unreadable or does not follow the schema.
 
     The message always starts with ``recipe '<source>':`` and names the table
@@ -236,49 +236,43 @@ class Recipe:
 
     def freezing_point(self) -> float:
         """Initial freezing point, K."""
-        return float(cg.freezing_point(self.solution(), model=self.model, bound_water=self.bound_water))
+        return float(api.freezing_point(self.solution(), model=self.model, bound_water=self.bound_water))
 
     def ice_fraction(self, T):
         """Ice mass / total water at T (K, scalar or array)."""
-        return cg.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
+        return api.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
 
     def leighton_ice_fraction(self, T):
         """Fraction of the water frozen at T (K) by the dairy method of Leighton (1927) /
         Goff & Hartel (2013); a cross-check against the dairy texts (no bound water)."""
-        return cg.leighton_ice_fraction(self.solution(), T)
+        return api.leighton_ice_fraction(self.solution(), T)
 
     def water_activity(self, T: float = 298.15) -> float:
         """Water activity of the unfrozen recipe at T (K), no ice."""
-        return float(cg.water_activity(self.solution(), T=T, model=self.model))
+        return float(api.water_activity(self.solution(), T=T, model=self.model))
 
     def enthalpy(self, T):
         """Specific enthalpy, J/kg, with H = 0 at 233.15 K (-40 C); T in K (scalar or array)."""
-        return cg.enthalpy(self.proximate, self.solution(), T, model=self.model, bound_water=self._bound_fraction())
+        return api.enthalpy(self.proximate, self.solution(), T, model=self.model, bound_water=self._bound_fraction())
 
     def apparent_specific_heat(self, T):
         """Apparent specific heat dH/dT, J/(kg K); T in K (scalar or array)."""
-        return cg.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
+        return api.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
                                          bound_water=self._bound_fraction())
 
     def heat_load(self, from_T: float, to_T: float) -> dict[str, float]:
         """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg)."""
-        return cg.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
+        return api.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
                             bound_water=self._bound_fraction())
-
-    def report(self) -> dict[str, Any]:
-        """The report dict of :func:`colligate.report.build_report`."""
-        from .report import build_report
-
-        return build_report(self)
 
     def _bound_fraction(self) -> float:
         """Bound water per kg of batch."""
         return float(self.bound_water or 0.0) / self.total_mass
 
-    def solution(self) -> "cg.Solution":
+    def solution(self) -> "api.Solution":
         """Return the recipe as a :class:`colligate.Solution` (kg of water, kg of each solute)."""
         solutes = {k: v for k, v in self.solutes.items() if v > 0.0}
-        return cg.Solution(water=self.water, solutes=solutes)
+        return api.Solution(water=self.water, solutes=solutes)
 
     @property
     def total_mass(self) -> float:
@@ -469,7 +463,7 @@ def _parse_options(source: str, doc: Mapping[str, Any], basis: str, water_amount
     opts = _table(source, doc, "options", required=False)
     _unknown_keys(source, "options", opts, _OPTION_KEYS)
     model = _string(source, "options", "model", opts.get("model", "auto")).strip().lower()
-    known_models = list(cg.models())
+    known_models = list(api.models())
     if model not in known_models:
         raise _fail(source, f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
     bound_kg: float | None = 0.0 if water_amount is not None else None
@@ -526,12 +520,12 @@ def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | No
 
 
 def _solute_kinds() -> dict[str, str]:
-    return {str(k): str(v) for k, v in cg.solutes()["kind"].items()}
+    return {str(k): str(v) for k, v in api.solutes()["kind"].items()}
 
 
 def _solute_id(name: str) -> str:
     try:
-        sol = cg.Solution(water=1.0, solutes={name: 0.0})
+        sol = api.Solution(water=1.0, solutes={name: 0.0})
         return sol.species[0] if sol.species else name
     except ValueError:
         return name

@@ -281,7 +281,7 @@ def test_validity_warning_is_one_short_line(tmp_path, capsys, monkeypatch):
         warnings.warn("test: outside the validated range\nsecond line", cg.OutOfValidityRangeWarning)
         return real(*args, **kwargs)
 
-    monkeypatch.setattr(cg, "freezing_point", warning_freezing_point)
+    monkeypatch.setattr(cg.api, "freezing_point", warning_freezing_point)
     code, out, err = run(capsys, "report", str(recipe_file(tmp_path)))
     assert code == 0
     warn_lines = [ln for ln in err.splitlines() if ln.startswith("colligate: warning: ")]

@@ -205,7 +205,7 @@ def test_validity_warnings_are_recorded_and_reissued(monkeypatch):
         warnings.warn("test: outside the validated range", cg.OutOfValidityRangeWarning)
         return real(*args, **kwargs)
 
-    monkeypatch.setattr(cg, "water_activity", warning_water_activity)
+    monkeypatch.setattr(cg.api, "water_activity", warning_water_activity)
     with pytest.warns(cg.OutOfValidityRangeWarning, match="outside the validated range"):
         rep = build_report(sucrose_20())
     assert rep["warnings"] == ["test: outside the validated range"]

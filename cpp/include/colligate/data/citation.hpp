@@ -252,6 +252,26 @@ inline const std::vector<citation>& citations() {
       {"nelson_thompson_1954", "Nelson, K. H.; Thompson, T. G.", 1954,
        "Deposition of salts from sea water by frigid concentration",
        "J. Mar. Res. 13, 166-182 (pages from memory)", "", "fractional freezing path (from memory)"},
+      {"lowe_experimental_cookery", "Lowe, B.", 1932,
+       "Experimental Cookery from the Chemical and Physical Standpoint",
+       "John Wiley & Sons, New York", "first edition 1932; edition of the copy read not recorded",
+       "table \"Solubility of lactose in water (Hudson)\": final solubility 11.9, 16.9, 21.6 "
+       "and 31.5 g per 100 g water at 0, 15, 25 and 39 C (Hudson's values; read in a public "
+       "copy): data/sugar_solubility.hpp"},
+      {"bender_dictionary", "Bender, D. A.", 2009, "A Dictionary of Food and Nutrition",
+       "Oxford University Press, Oxford", "edition of the public copy read not recorded (year from memory)",
+       "entry \"sweeteners\": relative sweetness on sucrose = 100, fructose 173, glucose 74, "
+       "maltose 33, lactose 16: data/sweetness.hpp"},
+      {"gaman_sherrington_1990", "Gaman, P. M.; Sherrington, K. B.", 1990,
+       "The Science of Food: an Introduction to Food Science, Nutrition and Microbiology, "
+       "3rd ed.",
+       "Pergamon Press, Oxford", "ISBN not recorded (from memory)",
+       "relative sweetness on sucrose = 100: fructose 170, glucose 75, maltose 30, lactose 15; "
+       "a second source beside bender_dictionary in data/sweetness.hpp"},
+      {"colligate_sweetness_oligomers", "colligate developers", 2026,
+       "Relative sweetness of starch-hydrolysate oligomers",
+       "maltotriose 0.1 from memory; higher saccharides (DP >= 4) and maltodextrin about 0 by "
+       "common practice", "", "data/sweetness.hpp"},
       {"colligate_milk_salts", "colligate developers", 2026,
        "Effective milk-salts solute derived from Leighton (1927)",
        "colligate source tree, data/detail/builtin_solutes.inc", "",

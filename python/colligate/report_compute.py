@@ -1,0 +1,437 @@
+"""Reports, first layer: the numbers the compiled core gives for one recipe or solution.
+
+Freezing point, water activity at 25 degC, the eutectic of salt solutions, ice and
+unfrozen liquid at the named temperatures, the heat load and the ice/enthalpy table.
+Everything here calls the core through :mod:`colligate.api`; derived figures are in
+:mod:`colligate.report_indicators`, text and tables in :mod:`colligate.report_layout`.
+
+Every query of the ice curve (initial freezing point, eutectic, ice at a temperature)
+goes through :class:`IcePath`, shared with :mod:`colligate.plot`: moving the reports and
+plots onto another ice-curve object of the core changes that class only.
+"""
+
+from __future__ import annotations
+
+import math
+import warnings
+from typing import Any, Mapping
+
+from . import api
+from .recipe import Recipe
+from .units import ZERO_CELSIUS_K as ZERO_C_K
+from .units import celsius_from_kelvin, fahrenheit_from_kelvin, kelvin_from_celsius
+
+__all__ = [
+    "AW_REFERENCE_T_K",
+    "HEAT_LOAD_FROM_C",
+    "THERMAL_MIN_K",
+    "EUTECTIC_MARGIN_K",
+    "VERIFY_NOTE",
+    "WATER_ACTIVITY_NOTE",
+    "TABLE_RANGE_C",
+    "TABLE_COLUMNS",
+    "IcePath",
+    "solute_kinds",
+    "electrolytes",
+    "compute_solution",
+    "dairy_method",
+    "eutectic_entry",
+    "heat_load_end",
+    "heat_load_entry",
+    "report_eutectic_K",
+    "recipe_entries",
+    "ice_enthalpy_table",
+]
+
+#: Temperature at which the shelf-stability water activity is given, K (25 degC).
+AW_REFERENCE_T_K = 298.15
+
+#: Temperature the mix is taken from for the heat load, degC (ageing temperature; common practice).
+HEAT_LOAD_FROM_C = 5.0
+
+#: Coldest temperature of the thermal model, K (-40 degC, the enthalpy reference).
+THERMAL_MIN_K = 233.15
+
+#: Calculations that stop at a eutectic stop this far above it, K (the ice curve is
+#: solved there; at the eutectic itself the salt phase is already saturated).
+EUTECTIC_MARGIN_K = 0.01
+
+#: Closing words of every salt, ethanol and water-activity safety statement.
+VERIFY_NOTE = "verify by measurement and defer to local regulations"
+
+#: Note shown next to the water activity.
+WATER_ACTIVITY_NOTE = (
+    "water activity is a model estimate, not a shelf-stability or safety finding; " + VERIFY_NOTE
+)
+
+
+def _f(x: Any) -> float | None:
+    """Float for JSON: None instead of NaN or infinity."""
+    try:
+        v = float(x)
+    except (TypeError, ValueError):
+        return None
+    return v if math.isfinite(v) else None
+
+
+def solute_kinds() -> dict[str, str]:
+    """Kind of every built-in solute (``electrolyte``, ``non_electrolyte``, ...) by id, from
+    the core's solute table."""
+    return {str(k): str(v) for k, v in api.solutes()["kind"].items()}
+
+
+def electrolytes(solution: "api.Solution") -> list[str]:
+    """Solutes of ``solution`` the core's solute table lists as electrolytes."""
+    kinds = solute_kinds()
+    return [k for k in solution.solutes if kinds.get(k) == "electrolyte"]
+
+
+class IcePath:
+    """The ice-curve queries of reports and plots for one solution, model and bound water.
+
+    Parameters
+    ----------
+    solution : colligate.Solution
+        The solution (or the water phase of a recipe).
+    model : str
+        Activity model id.
+    bound_water : float
+        Water that cannot freeze, kg.
+
+    The freezing point and the eutectic are asked of the core once and kept.
+    """
+
+    def __init__(self, solution: "api.Solution", model: str = "auto", bound_water: float = 0.0) -> None:
+        self.solution = solution
+        self.model = model
+        self.bound_water = float(bound_water or 0.0)
+        self._tf: float | None = None
+        self._eutectic: dict[str, Any] | None = None
+
+    @property
+    def freezing_point(self) -> float:
+        """Initial freezing point, K; NaN when the core finds none in its search range."""
+        if self._tf is None:
+            self._tf = float(api.freezing_point(self.solution, model=self.model, bound_water=self.bound_water))
+        return self._tf
+
+    def eutectic(self) -> dict[str, Any]:
+        """The core's eutectic record (see :func:`colligate.eutectic`)."""
+        if self._eutectic is None:
+            self._eutectic = dict(api.eutectic(self.solution, model=self.model, bound_water=self.bound_water))
+        return self._eutectic
+
+    @property
+    def eutectic_temperature(self) -> float | None:
+        """Temperature, K, where the ice curve ends because a salt crystallises; None if none."""
+        e = self.eutectic()
+        t = _f(e.get("temperature"))
+        return t if e.get("found") and t is not None else None
+
+    def ice_fraction(self, T):
+        """Ice over all the water at ``T`` (K, scalar or array)."""
+        return api.ice_fraction(self.solution, T, model=self.model, bound_water=self.bound_water)
+
+    def unfrozen_phase(self, T: float) -> "api.UnfrozenPhase":
+        """Ice, unfrozen water and liquid at ``T`` (K)."""
+        return api.unfrozen_phase(self.solution, float(T), model=self.model, bound_water=self.bound_water)
+
+
+def eutectic_entry(path: IcePath) -> dict[str, Any] | None:
+    """The eutectic of a salt-containing solution as a report entry; None without salts."""
+    if not electrolytes(path.solution):
+        return None
+    e = path.eutectic()
+    t = _f(e.get("temperature"))
+    found = bool(e.get("found")) and t is not None
+    return {
+        "found": found,
+        "temperature_K": t if found else None,
+        "temperature_C": celsius_from_kelvin(t) if found else None,
+        "temperature_F": fahrenheit_from_kelvin(t) if found else None,
+        "phase": str(e.get("phase") or ""),
+        "formula": str(e.get("formula") or ""),
+        "source": str(e.get("source") or ""),
+        "reason": str(e.get("reason") or ""),
+        "note": "below this temperature the salt hydrate crystallises with the ice and the ice "
+        "curve stops; a model estimate for brines and ice-salt baths: " + VERIFY_NOTE,
+    }
+
+
+def report_eutectic_K(path: IcePath) -> float | None:
+    """Eutectic temperature (K) as the reports use it: salt solutions only, None otherwise."""
+    eut = eutectic_entry(path)
+    return eut["temperature_K"] if eut and eut["found"] else None
+
+
+def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any]:
+    """The core's figures for ``path.solution`` at the named temperatures ``temps`` (K)."""
+    solution, model, bound_water = path.solution, path.model, path.bound_water
+    total = float(solution.total_mass)
+    water = float(solution.water)
+    solids = total - water
+    fractions = solution.mass_fractions()
+    molal = solution.molalities()
+
+    composition = [
+        {"component": "water", "mass_kg": water, "mass_percent": 100.0 * fractions["water"], "molality_mol_per_kg": None}
+    ]
+    for sid, kg in solution.solutes.items():
+        composition.append(
+            {
+                "component": sid,
+                "mass_kg": float(kg),
+                "mass_percent": 100.0 * float(fractions[sid]),
+                "molality_mol_per_kg": _f(molal.get(sid)),
+            }
+        )
+
+    tf = path.freezing_point
+    freezes = math.isfinite(tf)  # NaN: the library found no freezing point in its search range
+    aw = float(api.water_activity(solution, T=AW_REFERENCE_T_K, model=model))
+    eutectic = eutectic_entry(path)
+    t_eut = eutectic["temperature_K"] if eutectic and eutectic["found"] else None
+
+    rows = []
+    for point, t_k in temps.items():
+        t_k = float(t_k)
+        if t_eut is not None and t_k < t_eut:
+            # Below the eutectic ice and the salt hydrate crystallise together; the ice
+            # curve stops at the eutectic, so no number is given.
+            rows.append(
+                {
+                    "name": point,
+                    "temperature_K": t_k,
+                    "temperature_C": celsius_from_kelvin(t_k),
+                    "temperature_F": fahrenheit_from_kelvin(t_k),
+                    "state": "below_eutectic",
+                    "ice_fraction": None,
+                    "ice_percent_of_water": None,
+                    "ice_kg": None,
+                    "ice_mass_percent_of_batch": None,
+                    "unfrozen_water_kg": None,
+                    "unfrozen_solids_mass_percent": None,
+                    "unfrozen_water_activity": None,
+                }
+            )
+            continue
+        if freezes and t_k >= tf:
+            ice = 0.0
+            aw_t = None
+        else:
+            phase = path.unfrozen_phase(t_k)
+            ice = max(0.0, float(phase.ice))
+            aw_t = _f(phase.water_activity)
+        liquid = water - ice
+        rows.append(
+            {
+                "name": point,
+                "temperature_K": t_k,
+                "temperature_C": celsius_from_kelvin(t_k),
+                "temperature_F": fahrenheit_from_kelvin(t_k),
+                "state": "partly_frozen" if ice > 0.0 else "unfrozen",
+                "ice_fraction": ice / water,
+                "ice_percent_of_water": 100.0 * ice / water,
+                "ice_kg": ice,
+                "ice_mass_percent_of_batch": 100.0 * ice / total,
+                "unfrozen_water_kg": liquid,
+                "unfrozen_solids_mass_percent": 100.0 * solids / (solids + liquid),
+                "unfrozen_water_activity": aw_t,
+            }
+        )
+
+    return {
+        "dairy_method": dairy_method(solution, temps),
+        "model": model,
+        "model_description": str(api.describe_model(solution, model=model)),
+        "composition": composition,
+        "total_mass_kg": total,
+        "water_kg": water,
+        "total_solids_mass_percent": float(solution.brix),
+        "bound_water_kg": bound_water,
+        "freezing_point_K": tf if freezes else None,
+        "freezing_point_C": celsius_from_kelvin(tf) if freezes else None,
+        "freezing_point_F": fahrenheit_from_kelvin(tf) if freezes else None,
+        "water_activity_25C": aw,
+        "water_activity_note": WATER_ACTIVITY_NOTE,
+        "eutectic": eutectic,
+        "ice_table": rows,
+    }
+
+
+def dairy_method(solution: "api.Solution", temps: Mapping[str, float]) -> dict[str, Any] | None:
+    """The Leighton (1927) / Goff & Hartel (2013) dairy method beside the model, for mixes
+    of sugars and milk solids only (None otherwise)."""
+    if "milk_salts" not in solution.solutes or [e for e in electrolytes(solution) if e != "milk_salts"]:
+        return None
+    notes: list[str] = []
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        tf = float(api.leighton_freezing_point(solution))
+        rows = [{"name": point, "temperature_K": float(t_k),
+                 "ice_percent_of_water": 100.0 * float(api.leighton_ice_fraction(solution, float(t_k)))}
+                for point, t_k in temps.items()]
+    for w in caught:
+        text = str(w.message)
+        if text not in notes:
+            notes.append(text)
+    return {
+        "method": "Leighton (1927) as given by Goff & Hartel (2013), Ice Cream, ch. 6, Table 6.1",
+        "freezing_point_K": tf,
+        "freezing_point_C": celsius_from_kelvin(tf),
+        "ice_table": rows,
+        "notes": notes,
+    }
+
+
+def recipe_entries(recipe: Recipe) -> dict[str, Any]:
+    """Batch mass (kg) and the ingredient rows of a recipe."""
+    batch = recipe.total_mass
+    out: dict[str, Any] = {"batch_mass_kg": batch}
+    if recipe.ingredients is not None:
+        out["ingredients"] = [
+            {"ingredient": k, "mass_kg": v, "mass_percent": 100.0 * v / batch} for k, v in recipe.ingredients.items()
+        ]
+    return out
+
+
+def heat_load_end(t_storage: float, t_eutectic: float | None) -> tuple[float, str | None]:
+    """Where a cooling calculation towards ``t_storage`` (K) has to stop.
+
+    Returns the end temperature (K) and why it differs from ``t_storage``: ``"eutectic"``
+    (the ice curve stops there), ``"thermal_model_limit"`` (-40 degC) or None.
+    """
+    if t_eutectic is not None and t_storage < t_eutectic + EUTECTIC_MARGIN_K:
+        return float(t_eutectic) + EUTECTIC_MARGIN_K, "eutectic"
+    if t_storage < THERMAL_MIN_K:
+        return THERMAL_MIN_K, "thermal_model_limit"
+    return float(t_storage), None
+
+
+def heat_load_entry(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dict[str, Any]:
+    """Heat to remove per kg from the fill temperature to storage (or the eutectic), kJ/kg."""
+    t_from = kelvin_from_celsius(HEAT_LOAD_FROM_C)
+    t_storage = float(temps.get("storage", kelvin_from_celsius(-18.0)))
+    t_to, stop = heat_load_end(t_storage, report_eutectic_K(path))
+    q = recipe.heat_load(t_from, t_to)
+    return {
+        "from_C": HEAT_LOAD_FROM_C,
+        "to_C": celsius_from_kelvin(t_to),
+        "total_kJ_per_kg": q["total"] / 1e3,
+        "sensible_kJ_per_kg": q["sensible"] / 1e3,
+        "latent_kJ_per_kg": q["latent"] / 1e3,
+        "enthalpy_reference": "H = 0 at -40 C",
+        "stopped_at": stop,
+    }
+
+
+# --------------------------------------------------------------------------- ice / enthalpy table
+
+#: Temperature span and step of the ice/enthalpy table, degC (warm end, cold end, step in K).
+TABLE_RANGE_C: tuple[float, float, float] = (HEAT_LOAD_FROM_C, -40.0, 0.5)
+
+#: Columns of :func:`ice_enthalpy_table`, units in the names.
+TABLE_COLUMNS: tuple[str, ...] = (
+    "point",
+    "temperature_C",
+    "temperature_K",
+    "state",
+    "ice_fraction",
+    "ice_kg",
+    "unfrozen_water_kg",
+    "unfrozen_solids_mass_percent",
+    "enthalpy_J_per_kg",
+    "apparent_cp_J_per_kg_K",
+    "heat_removed_from_fill_J_per_kg",
+)
+
+
+def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
+    """Ice and enthalpy of a recipe over temperature, as a pandas DataFrame.
+
+    Rows run from the fill temperature (:data:`HEAT_LOAD_FROM_C`) down to -40 degC in
+    steps of ``step_K`` (default 0.5 K), plus the named temperatures of the recipe, the
+    initial freezing point and (for salt solutions) the eutectic; the ``point`` column
+    names those rows. Columns (units in the names): see :data:`TABLE_COLUMNS`.
+    ``ice_fraction`` is ice over all the water; ``ice_kg`` and ``unfrozen_water_kg`` are
+    for the recipe's batch (unfrozen water includes water unable to freeze); enthalpy
+    has H = 0 at -40 degC; ``heat_removed_from_fill_J_per_kg`` is H(fill) - H(T).
+
+    Below a salt eutectic the ice curve stops: ``state`` is ``below_eutectic`` and the
+    numbers are NaN (empty cells in CSV).
+    """
+    import numpy as np
+    import pandas as pd
+
+    warm_c, cold_c, default_step = TABLE_RANGE_C
+    step = float(default_step if step_K is None else step_K)
+    if not (math.isfinite(step) and 0.01 <= step <= 10.0):
+        raise ValueError(f"step_K = {step_K}: must be between 0.01 and 10 K")
+    solution = recipe.solution()
+    model = recipe.model
+    bound = float(recipe.bound_water or 0.0)
+    path = IcePath(solution, model, bound)
+    tf = path.freezing_point
+    t_eut = report_eutectic_K(path)
+
+    n = int(round((warm_c - cold_c) / step))
+    points: dict[float, list[str]] = {}
+    for k in range(n + 1):
+        points.setdefault(round(warm_c - k * step, 9), [])
+    points.setdefault(round(warm_c, 9), []).append("fill")
+    for name, t_k in recipe.temperatures.items():
+        points.setdefault(round(celsius_from_kelvin(float(t_k)), 9), []).append(name)
+    if math.isfinite(tf):
+        points.setdefault(celsius_from_kelvin(tf), []).append("initial_freezing_point")
+    if t_eut is not None:
+        points.setdefault(celsius_from_kelvin(t_eut), []).append("eutectic")
+
+    temps_c = np.array(sorted(points, reverse=True), dtype=float)
+    temps_k = temps_c + ZERO_C_K
+    water = float(solution.water)
+    solids = float(solution.total_mass) - water
+    in_range = temps_k >= THERMAL_MIN_K - 1e-9
+    if t_eut is not None:
+        # at the eutectic itself the curve is evaluated a hair above it
+        at_eut = np.isclose(temps_k, t_eut, rtol=0.0, atol=1e-9)
+        temps_eval = np.where(at_eut, temps_k + EUTECTIC_MARGIN_K, temps_k)
+        ok = in_range & (temps_eval > t_eut)
+    else:
+        temps_eval = temps_k
+        ok = in_range
+    nan = np.full(temps_k.shape, np.nan)
+    ice = nan.copy()
+    h = nan.copy()
+    cp = nan.copy()
+    if ok.any():
+        te = np.minimum(temps_eval[ok], 313.15)
+        f = np.asarray(path.ice_fraction(te), dtype=float)
+        if math.isfinite(tf):
+            f = np.where(te >= tf, 0.0, f)
+        ice[ok] = np.maximum(f, 0.0)
+        h[ok] = np.asarray(recipe.enthalpy(te), dtype=float)
+        cp[ok] = np.asarray(recipe.apparent_specific_heat(te), dtype=float)
+    h_fill = float(recipe.enthalpy(kelvin_from_celsius(warm_c)))
+    state = np.where(ice > 0.0, "partly_frozen", "unfrozen").astype(object)
+    if t_eut is not None:
+        state[temps_k < t_eut - 1e-9] = "below_eutectic"
+    state[~in_range] = "outside_thermal_model"
+    ice_kg = ice * water
+    liquid = water - ice_kg
+    df = pd.DataFrame(
+        {
+            "point": [" ".join(points[t]) for t in sorted(points, reverse=True)],
+            "temperature_C": temps_c,
+            "temperature_K": temps_k,
+            "state": state,
+            "ice_fraction": ice,
+            "ice_kg": ice_kg,
+            "unfrozen_water_kg": liquid,
+            "unfrozen_solids_mass_percent": 100.0 * solids / (solids + liquid),
+            "enthalpy_J_per_kg": h,
+            "apparent_cp_J_per_kg_K": cp,
+            "heat_removed_from_fill_J_per_kg": h_fill - h,
+        },
+        columns=list(TABLE_COLUMNS),
+    )
+    return df

@@ -1,0 +1,214 @@
+"""Reports, third layer: the report dict laid out as text, JSON and CSV tables.
+
+Nothing here calls the compiled core: :func:`format_text` and :func:`format_json` take
+the dict of :func:`colligate.report_indicators.build_report`, :func:`write_table_csv` a
+DataFrame such as :func:`colligate.report_compute.ice_enthalpy_table`.
+"""
+
+from __future__ import annotations
+
+import json
+import textwrap
+from typing import Any, Mapping
+
+from ._files import atomic_write_text, check_output_path
+
+__all__ = ["format_text", "format_json", "write_table_csv"]
+
+
+def format_json(report: Mapping[str, Any]) -> str:
+    """Serialise a report to strict JSON (no NaN), indented, ending with a newline."""
+    return json.dumps(report, indent=2, ensure_ascii=False, allow_nan=False) + "\n"
+
+
+# --------------------------------------------------------------------------- text layout
+
+_RULE_CHAR = "="
+_WIDTH = 78
+
+
+def _heading(text: str) -> list[str]:
+    return ["", text, "-" * len(text)]
+
+
+def _wrap(text: str, indent: str = "  ", first: str | None = None) -> list[str]:
+    out: list[str] = []
+    for para in str(text).splitlines() or [""]:
+        out.extend(
+            textwrap.wrap(
+                para,
+                width=_WIDTH,
+                initial_indent=first if first is not None else indent,
+                subsequent_indent=indent,
+            )
+            or [""]
+        )
+        first = None
+    return out
+
+
+def _temp(t_c: float, t_f: float, fahrenheit: bool) -> str:
+    s = f"{t_c:7.2f} °C"
+    if fahrenheit:
+        s += f"  ({t_f:6.1f} °F)"
+    return s
+
+
+def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
+    """Lay out a report dict (from :func:`build_report`) as plain text.
+
+    Temperatures are shown in degC; with ``fahrenheit=True`` also in degF.
+    The initial freezing point is always shown in both. The text ends with
+    the cautions block.
+    """
+    lines: list[str] = []
+    title = f"colligate | freezing and water activity | {report.get('title', '')}"
+    lines.append(_RULE_CHAR * min(_WIDTH, max(len(title), 40)))
+    lines.append(title)
+    if report.get("label"):
+        lines.append(f">>> {str(report['label']).upper()} <<<")
+    lines.append(_RULE_CHAR * min(_WIDTH, max(len(title), 40)))
+    if report.get("note"):
+        lines.extend(_wrap(report["note"], indent="  ", first="  "))
+    if report.get("source"):
+        lines.append(f"  from: {report['source']}")
+
+    # composition
+    if report.get("ingredients") and report.get("batch_mass_kg"):
+        lines += _heading(f"Composition: water and dissolved solids ({report['total_mass_kg']:.4g} kg of the "
+                          f"{report['batch_mass_kg']:.4g} kg batch)")
+    else:
+        lines += _heading(f"Composition (batch {report['total_mass_kg']:.4g} kg)")
+    lines.append(f"  {'component':<20}{'kg':>10}{'mass %':>10}{'mol/kg water':>15}")
+    for row in report["composition"]:
+        m = row["molality_mol_per_kg"]
+        molal = f"{m:15.4f}" if m is not None else f"{'':>15}"
+        lines.append(f"  {row['component']:<20}{row['mass_kg']:10.4f}{row['mass_percent']:10.2f}{molal}")
+    lines.append(f"  {'dissolved solids':<20}{'':>10}{report['total_solids_mass_percent']:10.2f}   (°Brix-like, mass %)")
+    if report.get("bound_water_kg"):
+        lines.append(f"  water counted as unable to freeze: {report['bound_water_kg']:.4g} kg")
+
+    # key numbers
+    lines += _heading("Key figures")
+    if report.get("freezing_point_K") is None:
+        lines.append("  initial freezing point   not found: the model gives no ice in its search range")
+    else:
+        lines.append(
+            f"  initial freezing point   {report['freezing_point_C']:7.2f} °C   "
+            f"{report['freezing_point_F']:6.1f} °F   {report['freezing_point_K']:.2f} K"
+        )
+    lines.append(f"  water activity at 25 °C  {report['water_activity_25C']:8.4f}")
+    if report.get("water_activity_note"):
+        lines.extend(_wrap(f"({report['water_activity_note']})", indent="    ", first="    "))
+    eut = report.get("eutectic")
+    if eut:
+        if eut["found"]:
+            salt = f"{eut['phase']} ({eut['formula']})" if eut["phase"] else "a salt hydrate"
+            lines.append(
+                f"  eutectic                 {eut['temperature_C']:7.2f} °C   "
+                f"{eut['temperature_F']:6.1f} °F   {eut['temperature_K']:.2f} K"
+            )
+            src = f" [{eut['source']}]" if eut.get("source") else ""
+            lines.extend(_wrap(f"{salt} would crystallise there{src}; {eut['note']}",
+                               indent="    ", first="    "))
+        else:
+            lines.extend(_wrap(f"eutectic: not found ({eut['reason'] or 'no salt limit in range'})",
+                               indent="    ", first="  "))
+
+    # ice table
+    unit = "°C" + (" / °F" if fahrenheit else "")
+    lines += _heading(f"Ice at the named temperatures ({unit})")
+    tcol = 24 if fahrenheit else 12
+    lines.append(
+        f"  {'point':<10}{'temperature':>{tcol}}{'ice %':>8}{'ice kg':>9}{'liquid kg':>11}{'liquid solids %':>17}"
+    )
+    for row in report["ice_table"]:
+        t = _temp(row["temperature_C"], row["temperature_F"], fahrenheit)
+        if row.get("state") == "below_eutectic":
+            lines.append(f"  {row['name']:<10}{t:>{tcol}}  below eutectic (salt crystallises; no ice figure)")
+            continue
+        lines.append(
+            f"  {row['name']:<10}{t:>{tcol}}{row['ice_percent_of_water']:8.1f}{row['ice_kg']:9.4f}"
+            f"{row['unfrozen_water_kg']:11.4f}{row['unfrozen_solids_mass_percent']:17.1f}"
+        )
+    lines.append("  ice %: ice as a share of all the water; liquid kg: water still liquid,")
+    lines.append("  including any counted as unable to freeze; liquid solids %: dissolved")
+    lines.append("  solids as a mass share of the unfrozen liquid.")
+    dm = report.get("dairy_method")
+    if dm:
+        shares = ", ".join(f"{r['name']} {r['ice_percent_of_water']:.1f}" for r in dm["ice_table"])
+        lines.extend(_wrap(
+            f"For comparison, the dairy texts' method ({dm['method']}): initial freezing point "
+            f"{dm['freezing_point_C']:.2f} °C; ice % {shares}"
+            + (" (beyond the end of the sucrose table: extrapolated)"
+               if any("beyond" in n for n in dm["notes"]) else "") + ".",
+            indent="  ", first="  "))
+
+    # model
+    lines += _heading(f"Model: {report['model']}")
+    lines.extend(_wrap(report.get("model_description", "")))
+
+    if report.get("ingredients"):
+        lines += _heading("Ingredients")
+        for row in report["ingredients"]:
+            lines.append(f"  {row['ingredient']:<28}{row['mass_kg']:10.4f} kg{row['mass_percent']:9.2f} %")
+    if report.get("heat_load"):
+        q = report["heat_load"]
+        lines += _heading("Heat to remove")
+        lines.append(
+            f"  from {q['from_C']:.1f} °C to {q['to_C']:.1f} °C: {q['total_kJ_per_kg']:.1f} kJ/kg "
+            f"(sensible {q['sensible_kJ_per_kg']:.1f}, latent {q['latent_kJ_per_kg']:.1f})"
+        )
+        if q.get("stopped_at") == "eutectic":
+            lines.extend(_wrap("stops at the eutectic: colder, salt and ice crystallise together, "
+                               "which this model does not follow"))
+        elif q.get("stopped_at"):
+            lines.extend(_wrap("stops at -40 °C, the cold end of the thermal model"))
+    if report.get("indicators"):
+        ind = report["indicators"]
+        lines += _heading("Formulation indicators")
+        lines.append(f"  total solids               {ind['total_solids_mass_percent']:7.2f} % of batch")
+        lines.append(f"  sweetness (as sucrose)     {ind['sweetness_sucrose_equivalent_mass_percent']:7.2f} % of batch")
+        fp = ", ".join(f"{k} {v:.2f}" for k, v in ind["freezing_power_relative_to_sucrose"].items() if v is not None)
+        lines.extend(_wrap(f"freezing power per gram relative to sucrose (this model): {fp}"))
+        for row in ind["unfrozen_phase"]:
+            if row.get("state") == "below_eutectic":
+                lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: below eutectic")
+                continue
+            lines.append(
+                f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: sugars {row['sugars_g_per_100g_water']:.0f} g, "
+                f"salts {row['salts_g_per_100g_water']:.1f} g per 100 g liquid water"
+            )
+            if row["lactose_g_per_100g_water"] > 0:
+                lines.append(
+                    f"           lactose {row['lactose_g_per_100g_water']:.1f} g per 100 g water, "
+                    f"{row['lactose_supersaturation']:.1f} x its solubility (sandiness risk above 1)"
+                )
+    if report.get("files"):
+        lines += _heading("Files written")
+        for what, path in report["files"].items():
+            lines.append(f"  {what}: {path}")
+
+    if report.get("warnings"):
+        lines += _heading("Warnings")
+        for w in report["warnings"]:
+            lines.extend(_wrap(w, indent="    ", first="  - "))
+
+    lines += _heading("Cautions")
+    for c in report["cautions"]:
+        lines.extend(_wrap(c, indent="    ", first="  * "))
+    if report.get("label"):
+        lines.extend(_wrap(f"This report is labelled \"{report['label']}\": its composition is not a "
+                           "tested recipe or a product specification.", indent="    ", first="  * "))
+    return "\n".join(lines) + "\n"
+
+
+def write_table_csv(table, path, inputs=(), what: str = "--csv") -> str:
+    """Write a DataFrame (e.g. :func:`ice_enthalpy_table`) as CSV, atomically.
+
+    Empty cells stand for values not computed (below a eutectic). Refuses a path that
+    names one of ``inputs``. Returns the path written.
+    """
+    check_output_path(path, inputs, what)
+    text = table.to_csv(index=False, float_format="%.10g", lineterminator="\n")
+    return atomic_write_text(path, text, inputs, what)
