@@ -101,6 +101,21 @@ path : str
       .def_property_readonly("end_reason", [](eq::ice_curve& c) { return eq::to_string(c.end_reason()); },
                              "'final_eutectic', 'salt_data_limit', 'search_limit', "
                              "'saturated_before_ice' or 'no_freezing_point'.")
+      .def(
+          "eutectic",
+          [](eq::ice_curve& c) {
+            const auto e = eq::eutectic_of(c);
+            py::dict d;
+            d["temperature"] = e.temperature;
+            d["found"] = e.found;
+            d["phase"] = e.phase;
+            d["formula"] = e.formula;
+            d["source"] = e.source;
+            d["reason"] = e.reason;
+            return d;
+          },
+          "Where the curve ends as a dict: temperature (K), found (a final eutectic), phase, "
+          "formula and source of the salt whose saturation ends it, and reason.")
       .def("at", &eq::ice_curve::at, py::arg("temperature"),
            "The state at ``temperature`` (K).")
       .def(

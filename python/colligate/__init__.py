@@ -19,6 +19,7 @@ except ImportError as exc:  # pragma: no cover - only without a build
 
 from .batch import (  # noqa: E402,F401
     ROW_STATUS,
+    RowStatus,
     BatchRowWarning,
     SolutionBatch,
     batch_freezing_point,
@@ -47,8 +48,11 @@ from .api import (  # noqa: E402,F401
     InvalidInputError,
     OutOfValidityRangeError,
     OutOfValidityRangeWarning,
+    IceCurve,
+    IceCurveState,
     Solution,
     UnfrozenPhase,
+    Validity,
     UnfrozenPhaseState,
     apparent_specific_heat,
     citation,
@@ -79,6 +83,10 @@ from .recipe import Recipe  # noqa: E402
 
 __all__ = [
     "Solution",
+    "IceCurve",
+    "IceCurveState",
+    "Validity",
+    "RowStatus",
     "fit",
     "fit_norrish",
     "fit_pitzer",

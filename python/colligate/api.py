@@ -14,16 +14,22 @@ import numpy as np
 from . import _core
 from ._core import (  # noqa: F401
     ConvergenceError,
+    IceCurve,
+    IceCurveState,
     InvalidInputError,
     OutOfValidityRangeError,
     Solution,
     UnfrozenPhaseState,
+    Validity,
 )
 from ._warnings import CAUTIONS, RANGE_POLICIES, OutOfValidityRangeWarning, _warn  # noqa: F401
 from .batch import SolutionBatch, batch_freezing_point, batch_ice_fraction, batch_water_activity
 
 __all__ = [
     "Solution",
+    "IceCurve",
+    "IceCurveState",
+    "Validity",
     "UnfrozenPhaseState",
     "UnfrozenPhase",
     "freezing_point",
@@ -44,6 +50,7 @@ __all__ = [
     "heat_load",
     "frozen_specific_heat_chen",
     "eutectic",
+    "eutectic_of",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",
     "sweetness_table",
@@ -398,16 +405,26 @@ def citation(key: str) -> Mapping[str, Any]:
     return dict(_core.citation(key))
 
 
-def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.0) -> dict:
-    """Where the ice curve of a salt solution ends because a salt crystallises.
+def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.0,
+             path: str = "equilibrium") -> dict:
+    """Where the ice curve of a salt solution ends: its final eutectic.
 
-    Returns a dict with ``temperature`` (K; NaN if none found), ``found``, ``phase``
-    (mineral, e.g. "hydrohalite"), ``formula``, ``source`` (citation key) and ``reason``.
-    Brine and ice-salt-bath temperatures are model estimates: see :data:`CAUTIONS`.
+    Below it no liquid remains (for a binary brine, the ice + salt hydrate eutectic; for a
+    mixture such as seawater the curve goes on past the first salts, see
+    :class:`IceCurve`). Returns a dict with ``temperature`` (K; NaN if none found),
+    ``found``, ``phase`` (the salt whose saturation ends the curve, e.g. "hydrohalite"),
+    ``formula``, ``source`` (citation key), ``reason`` and ``salts`` (every salt phase of
+    the path with its onset). Brine and ice-salt-bath temperatures are model estimates:
+    see :data:`CAUTIONS`.
     """
-    t, found, phase, formula, source, reason = _core.eutectic(_as_solution(solution), model, bound_water)
-    return {"temperature": t, "found": found, "phase": phase, "formula": formula,
-            "source": source, "reason": reason}
+    return eutectic_of(IceCurve(_as_solution(solution), model, bound_water, path))
+
+
+def eutectic_of(curve: IceCurve) -> dict:
+    """:func:`eutectic` of a prepared :class:`IceCurve`."""
+    out = dict(curve.eutectic())
+    out["salts"] = list(curve.salts)
+    return out
 
 
 def mean_activity_coefficient(

@@ -194,7 +194,7 @@ def _eutectic_K(ice_path: IcePath) -> float:
 def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
     line = ax.axvline if vertical else ax.axhline
     line(eut_c, color=_EUTECTIC_COLOUR, linestyle="-", linewidth=2.2, alpha=0.6,
-         label=f"eutectic {eut_c:.1f} °C: salt crystallises, curve stops")
+         label=f"final eutectic {eut_c:.1f} °C: no liquid below, curve ends")
 
 
 def _recipe_parts(recipe) -> tuple["api.Solution", str, float]:

@@ -16,7 +16,10 @@ import math
 import warnings
 from typing import Any, Mapping
 
+import numpy as np
+
 from . import api
+from ._warnings import _warn
 from .recipe import Recipe
 from .units import ZERO_CELSIUS_K as ZERO_C_K
 from .units import celsius_from_kelvin, fahrenheit_from_kelvin, kelvin_from_celsius
@@ -98,13 +101,15 @@ class IcePath:
     bound_water : float
         Water that cannot freeze, kg.
 
-    The freezing point and the eutectic are asked of the core once and kept.
+    Every figure comes from one prepared :class:`colligate.IceCurve`: freezing point, the
+    salt phases and the end of the curve (the final eutectic), ice at any temperature.
     """
 
     def __init__(self, solution: "api.Solution", model: str = "auto", bound_water: float = 0.0) -> None:
-        self.solution = solution
+        self.solution = api._as_solution(solution)
         self.model = model
         self.bound_water = float(bound_water or 0.0)
+        self.curve = api.IceCurve(self.solution, model, self.bound_water)
         self._tf: float | None = None
         self._eutectic: dict[str, Any] | None = None
 
@@ -112,29 +117,36 @@ class IcePath:
     def freezing_point(self) -> float:
         """Initial freezing point, K; NaN when the core finds none in its search range."""
         if self._tf is None:
-            self._tf = float(api.freezing_point(self.solution, model=self.model, bound_water=self.bound_water))
+            t, status, reason = self.curve.freezing_point
+            _warn(reason)
+            self._tf = float(t) if status == "converged" else math.nan
         return self._tf
 
     def eutectic(self) -> dict[str, Any]:
-        """The core's eutectic record (see :func:`colligate.eutectic`)."""
+        """Where the curve ends (see :func:`colligate.eutectic`), with the salt phases."""
         if self._eutectic is None:
-            self._eutectic = dict(api.eutectic(self.solution, model=self.model, bound_water=self.bound_water))
+            self._eutectic = dict(api.eutectic_of(self.curve))
         return self._eutectic
 
     @property
     def eutectic_temperature(self) -> float | None:
-        """Temperature, K, where the ice curve ends because a salt crystallises; None if none."""
+        """Temperature, K, below which no liquid remains (final eutectic); None if none."""
         e = self.eutectic()
         t = _f(e.get("temperature"))
         return t if e.get("found") and t is not None else None
 
     def ice_fraction(self, T):
         """Ice over all the water at ``T`` (K, scalar or array)."""
-        return api.ice_fraction(self.solution, T, model=self.model, bound_water=self.bound_water)
+        temps = np.asarray(T, dtype=float)
+        values, reason, count = self.curve.ice_fractions(np.atleast_1d(temps))
+        _warn(reason, count)
+        return float(values[0]) if temps.ndim == 0 else values.reshape(temps.shape)
 
     def unfrozen_phase(self, T: float) -> "api.UnfrozenPhase":
         """Ice, unfrozen water and liquid at ``T`` (K)."""
-        return api.unfrozen_phase(self.solution, float(T), model=self.model, bound_water=self.bound_water)
+        state = self.curve.at(float(T))
+        _warn(state.reason)
+        return api.UnfrozenPhase(state, self.solution.with_water(state.unfrozen_water))
 
 
 def eutectic_entry(path: IcePath) -> dict[str, Any] | None:
