@@ -7,7 +7,8 @@
 /// electroneutral by construction. Osmotic coefficient, water activity and ion activity
 /// coefficients follow Pitzer (1973, 1991) with the mixing terms theta and psi and the
 /// unsymmetrical E-theta of Pitzer (1975), in the notation of Harvie, Moller & Weare
-/// (1984); equations in models/detail/pitzer_kernel.hpp.
+/// (1984); equations in models/detail/pitzer_kernel.hpp, evaluated by
+/// detail::pitzer_system (models/detail/pitzer_system.hpp).
 ///
 ///     ln a_w = -M_w sum_i m_i phi
 ///
@@ -28,6 +29,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <limits>
 #include <string>
 
 #include "colligate/core/constants.hpp"
@@ -74,15 +76,27 @@ struct pitzer {
     return m;
   }
 
-  /// The full evaluation: ion sums plus the ideal part.
+  /// The full evaluation: ion sums, ln gamma of each ion of data::pitzer_ions (NaN for an
+  /// ion that no electrolyte of `s` holds) and the ideal particles `other_particles`
+  /// (mol/kg). Prepares a detail::pitzer_system, the one implementation of the sums; a
+  /// caller evaluating one species list many times can hold that system itself.
   static detail::pitzer_sums evaluate(const solution& s, double water_kg, double temperature,
                                       const data::pitzer_parameter_set& set,
                                       double& other_particles) {
-    const auto m = ion_molalities(s, water_kg, other_particles);
-    if (detail::has_record_binaries(s))  // salts carrying their own (fitted) parameters
-      return detail::evaluate(
-          m, detail::evaluate_coefficients(detail::with_record_binaries(s, set), temperature));
-    return detail::evaluate(m, detail::evaluate_coefficients(set, temperature));
+    detail::pitzer_system system(s, set);
+    detail::ion_array m{}, ln_gamma{};
+    system.molalities(s.moles().data(), water_kg, m.data(), other_particles);
+    detail::pitzer_osmotic_sums osm;
+    system.ln_gamma_on_molalities(m.data(), temperature, ln_gamma.data(), &osm);
+    detail::pitzer_sums r;
+    r.ionic_strength = osm.ionic_strength;
+    r.total_molality = osm.total_molality;
+    r.osmotic_excess = osm.osmotic_excess;
+    for (std::size_t g = 0; g < detail::n_ions; ++g) {
+      const auto k = system.slot_of(g);
+      r.ln_gamma[g] = k < system.ion_slots() ? ln_gamma[k] : std::numeric_limits<double>::quiet_NaN();
+    }
+    return r;
   }
 
   /// ln a_w. Prepares the species once (detail::pitzer_system); a solver calling this
@@ -105,16 +119,19 @@ struct pitzer {
     if (rec.kind != data::solute_class::electrolyte || rec.ions.empty())
       throw invalid_input("mean_activity_coefficient: solute '" + rec.id +
                           "' is not an electrolyte with known ions");
+    detail::pitzer_system system(s, set);
+    detail::ion_array m{}, ln_gamma{};
     double other = 0.0;
-    const auto r = evaluate(s, water_kg, temperature, set, other);
+    system.molalities(s.moles().data(), water_kg, m.data(), other);
+    system.ln_gamma_on_molalities(m.data(), temperature, ln_gamma.data());
     double sum = 0.0;
     int nu = 0;
     for (const auto& ion : rec.ions) {
-      const auto k = data::pitzer_ion_index(ion.ion);
-      if (k >= detail::n_ions)
+      const auto k = system.slot_of(data::pitzer_ion_index(ion.ion));
+      if (k >= system.ion_slots())
         throw invalid_input("mean_activity_coefficient: ion '" + ion.ion + "' of '" + rec.id +
                             "' has no Pitzer parameters");
-      sum += ion.count * r.ln_gamma[k];
+      sum += ion.count * ln_gamma[k];
       nu += ion.count;
     }
     return sum / nu;
