@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -166,6 +166,112 @@ class OutOfValidityRangeError(ValueError):
     pass
 class ConvergenceError(RuntimeError):
     pass
+class Validity:
+    """
+    Which limit a result crossed, as a record (code 'in_range' when none); ``reason`` is its text.
+    """
+    def __repr__(self) -> str:
+        ...
+    @property
+    def code(self) -> str:
+        ...
+    @property
+    def in_range(self) -> bool:
+        ...
+    @property
+    def limit(self) -> float:
+        """
+        The bound crossed (NaN if none).
+        """
+    @property
+    def note(self) -> str:
+        ...
+    @property
+    def quantity(self) -> str:
+        ...
+    @property
+    def range_high(self) -> float:
+        ...
+    @property
+    def range_low(self) -> float:
+        ...
+    @property
+    def reason(self) -> str:
+        ...
+    @property
+    def source(self) -> str:
+        """
+        Citation key of the limit.
+        """
+    @property
+    def value(self) -> float:
+        """
+        Value of the quantity (SI, NaN if none).
+        """
+    @property
+    def where(self) -> str:
+        """
+        The model or function that checked.
+        """
+class RowStatus:
+    """
+    Outcome of one row of a batch calculation (the code stored in status arrays).
+    
+    Members:
+    
+      ok
+    
+      out_of_range
+    
+      invalid_input
+    
+      no_freezing_point
+    
+      not_converged
+    
+      below_curve_end
+    """
+    __members__: typing.ClassVar[dict[str, RowStatus]]
+    below_curve_end: typing.ClassVar[RowStatus]
+    invalid_input: typing.ClassVar[RowStatus]
+    no_freezing_point: typing.ClassVar[RowStatus]
+    not_converged: typing.ClassVar[RowStatus]
+    ok: typing.ClassVar[RowStatus]
+    out_of_range: typing.ClassVar[RowStatus]
+    @typing.overload
+    def __eq__(self, other: RowStatus) -> bool:
+        ...
+    @typing.overload
+    def __eq__(self, other: typing.Any) -> bool:
+        ...
+    def __getstate__(self) -> int:
+        ...
+    def __hash__(self) -> int:
+        ...
+    def __index__(self) -> int:
+        ...
+    def __init__(self, value: typing.SupportsInt | typing.SupportsIndex) -> None:
+        ...
+    def __int__(self) -> int:
+        ...
+    @typing.overload
+    def __ne__(self, other: RowStatus) -> bool:
+        ...
+    @typing.overload
+    def __ne__(self, other: typing.Any) -> bool:
+        ...
+    def __repr__(self) -> str:
+        ...
+    def __setstate__(self, state: typing.SupportsInt | typing.SupportsIndex) -> None:
+        ...
+    def __str__(self) -> str:
+        ...
+    @property
+    def name(self) -> str:
+        ...
+    @property
+    def value(self) -> int:
+        ...
 class Solution:
     """
     An aqueous solution: kilograms of water plus moles of each solute. Immutable.
@@ -416,6 +522,11 @@ class IceCurveState:
         Liquid water, kg.
         """
     @property
+    def validity(self) -> Validity:
+        """
+        The limit crossed, as a record (Validity).
+        """
+    @property
     def water_activity(self) -> float:
         """
         Water activity of the unfrozen liquid.
@@ -444,6 +555,10 @@ class IceCurve:
     def at(self, temperature: typing.SupportsFloat | typing.SupportsIndex) -> IceCurveState:
         """
         The state at ``temperature`` (K).
+        """
+    def eutectic(self) -> dict:
+        """
+        Where the curve ends as a dict: temperature (K), found (a final eutectic), phase, formula and source of the salt whose saturation ends it, and reason.
         """
     def ice_fractions(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
         """

@@ -1,4 +1,5 @@
 // Tests of the Pitzer model: published values, identities and validity.
+#include <array>
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <vector>
@@ -57,8 +58,22 @@ TEST_CASE("A_phi of Spencer, Moller & Weare (1990) and the set that uses it", "[
   // Each set uses the A_phi it was fitted with.
   CHECK(data::spencer_1990_parameters().aphi == aphi_correlation::spencer_1990);
   CHECK(data::harvie_1984_parameters().aphi == aphi_correlation::clegg_rard_pitzer_1994);
-  CHECK(models::detail::evaluate_coefficients(data::spencer_1990_parameters(), 240.0).aphi ==
+  CHECK(models::detail::debye_huckel_osmotic_slope(240.0, data::spencer_1990_parameters().aphi) ==
         smw(240.0));
+  // The prepared evaluation uses it: at I = 1e-10 the osmotic sum of NaCl is the
+  // Debye-Hueckel term -2 A_phi I^1.5 / (1 + b sqrt I) alone, up to the B term, whose
+  // relative size is about beta0 sqrt I / A_phi ~ 1e-5 (rel 1e-4). At 240 K the two
+  // slopes differ by several per cent, so this tells them apart.
+  for (const auto* set : {&data::spencer_1990_parameters(), &data::harvie_1984_parameters()}) {
+    const auto s = solution::from_molalities({{"NaCl", 1e-10}});
+    models::detail::pitzer_system system(s, *set);
+    const auto r = system.osmotic(s.moles().data(), 1.0, 240.0);
+    const double I = r.ionic_strength;
+    const double dh = -2.0 * I * std::sqrt(I) / (1.0 + models::detail::pitzer_b * std::sqrt(I));
+    INFO(set->id);
+    CHECK_THAT(r.osmotic_excess / dh,
+               WithinRel(models::detail::debye_huckel_osmotic_slope(240.0, set->aphi), 1e-4));
+  }
   // The check uses the set's A_phi range: 225 K is inside spencer_1990's and flagged for
   // harvie_1984 (whose temperature range is checked first, so test the A_phi range alone).
   CHECK(models::detail::aphi_validity(aphi_correlation::spencer_1990).min_temperature == 219.15);
@@ -122,8 +137,7 @@ TEST_CASE("water activity of saturated NaCl and KCl at 25 C vs Greenspan (1977)"
         if (ph.name != phase) continue;
         double other;
         const auto ions = pitzer::ion_molalities(s, 1.0, other);
-        const auto ev = models::detail::evaluate(
-            ions, models::detail::evaluate_coefficients(pitzer::default_parameters(), 298.15));
+        const auto ev = pitzer::evaluate(s, 1.0, 298.15, pitzer::default_parameters(), other);
         double ln_iap = ph.water * lnaw;
         for (const auto& [ion, count] : ph.ions) {
           const auto k = data::pitzer_ion_index(ion);
@@ -181,17 +195,20 @@ TEST_CASE("Gibbs-Duhem in a mixture with unsymmetrical mixing", "[models][pitzer
   const auto& set = pitzer::default_parameters();
   const std::vector<std::pair<std::string, double>> base = {
       {"NaCl", 1.2}, {"CaCl2", 0.3}, {"MgSO4", 0.2}, {"K2SO4", 0.1}};
+  // Evaluated on the prepared system (slots: the ions present, the same for every state).
   auto state = [&](std::size_t which, double dn, double& osm, models::detail::ion_array& lng,
                    models::detail::ion_array& m) {
     std::vector<named_amount> mol;
     for (std::size_t i = 0; i < base.size(); ++i)
       mol.emplace_back(base[i].first, base[i].second + (i == which ? dn : 0.0));
     const auto s = solution::from_molalities(mol);
+    models::detail::pitzer_system system(s, set);
+    REQUIRE(system.ion_slots() == 6);
     double other;
-    m = pitzer::ion_molalities(s, 1.0, other);
-    const auto r = models::detail::evaluate(m, models::detail::evaluate_coefficients(set, T));
+    system.molalities(s.moles().data(), 1.0, m.data(), other);
+    models::detail::pitzer_osmotic_sums r;
+    system.ln_gamma_on_molalities(m.data(), T, lng.data(), &r);
     osm = r.osmotic_excess;
-    lng = r.ln_gamma;
   };
   for (std::size_t which = 0; which < base.size(); ++which) {
     const double h = 1e-5;
@@ -358,12 +375,14 @@ TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points
   // Archer (1992) Table 2 as copied: the set's parameters at 25 C lie near the
   // Pitzer & Mayorga (1973) values of the usual form (beta0 0.0765, beta1 0.2664): Archer's
   // beta0 differs because his C1 term takes part of it (our evaluation: 0.0806, 0.2631).
-  const auto p25 = models::detail::evaluate_coefficients(set, 298.15);
-  const auto na = data::pitzer_ion_index("Na+"), cl = data::pitzer_ion_index("Cl-");
-  CHECK_THAT(p25.beta0[na][cl], WithinAbs(0.0765, 0.005));
-  CHECK_THAT(p25.beta1[na][cl], WithinAbs(0.2664, 0.005));
-  CHECK(p25.c1[na][cl] != 0.0);
-  CHECK(p25.omega[na][cl] == 2.5);
+  const auto* row = set.find_binary("Na+", "Cl-");
+  REQUIRE(row != nullptr);
+  REQUIRE(row->extended != nullptr);
+  const auto& p25 = *row->extended;
+  CHECK_THAT(p25.beta0(298.15), WithinAbs(0.0765, 0.005));
+  CHECK_THAT(p25.beta1(298.15), WithinAbs(0.2664, 0.005));
+  CHECK(p25.c1(298.15) != 0.0);
+  CHECK(p25.omega == 2.5);
   // Gibbs-Duhem for one salt: ln gamma_pm = (phi - 1) + integral_0^m (phi - 1)/m' dm'
   // (as in the test above; Simpson in u = sqrt m, 4000 panels; abs 1e-6).
   for (double T : {255.0, 298.15}) {
@@ -384,8 +403,8 @@ TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points
                  WithinAbs(phi_m1(m) + integral, 1e-6));
     }
   }
-  // The prepared path (detail::pitzer_system, used by pitzer::ln_water_activity) equals the
-  // full kernel bit for bit (identity).
+  // The osmotic sums of the ln gamma evaluation (pitzer::evaluate) equal those of the
+  // osmotic-only evaluation (pitzer::ln_water_activity) bit for bit: one routine (identity).
   for (double T : {252.0, 273.15, 298.15}) {
     for (double m : {0.01, 1.0, 5.5}) {
       const auto s = solution::from_molalities({{"NaCl", m}});
@@ -424,4 +443,153 @@ TEST_CASE("Archer (1992) NaCl(aq): extended form, identities and freezing points
              Contains("250-373.15 K"));
   CHECK_THAT(pitzer::check(solution::from_molalities({{"KCl", 1.0}}), 1.0, 273.15, set).reason(),
              Contains("no Pitzer parameters"));
+}
+
+TEST_CASE("ln gamma equals the previous implementation", "[models][pitzer][regression]") {
+  // Values of the previous implementation (regression, not a published check): ln gamma
+  // (molal) of every ion present and sum_i m_i (phi - 1), printed to 17 digits by the
+  // ion-by-ion kernel that detail::pitzer_system replaced, before it was removed. Cases: a
+  // 1:1, a 2:1 and a 2:2 salt (beta2 and alpha 1.4/12), seawater (E-theta and psi active),
+  // a trace ion, and NaCl in Archer's extended form (C1, omega). Tolerance rel 1e-12: the
+  // two implementations differ only in the order of the sums and in evaluating P(T) as a
+  // dot product with its basis (largest difference seen 2.8e-14 relative, NaCl 6 mol/kg).
+  struct row {
+    const char* label;
+    const char* set;
+    double temperature;
+    std::vector<named_amount> molalities;  // empty: seawater of absolute salinity `sa`
+    double sa;
+    std::vector<std::pair<const char*, double>> ln_gamma;
+    double osmotic_excess;
+  };
+  const std::vector<row> rows = {
+      {"NaCl 1 mol/kg", "spencer_1990_icefit", 263.15, {{"NaCl", 1.0}}, 0.0,
+       {{"Na+", -0.48448561643922239}, {"Cl-", -0.48448561643922239}}, -0.19448811728997928},
+      {"NaCl 6 mol/kg", "spencer_1990_icefit", 298.15, {{"NaCl", 6.0}}, 0.0,
+       {{"Na+", -0.0080409626189883454}, {"Cl-", -0.0080409626189883454}}, 3.2688424358564876},
+      {"CaCl2 2 mol/kg", "spencer_1990_icefit", 253.15, {{"CaCl2", 2.0}}, 0.0,
+       {{"Ca+2", -1.4346319329341686}, {"Cl-", 0.55871907996293713}}, 2.2324085199220933},
+      {"MgSO4 1 mol/kg", "spencer_1990_icefit", 273.15, {{"MgSO4", 1.0}}, 0.0,
+       {{"Mg+2", -3.0325944502938684}, {"SO4-2", -3.0325944502938684}}, -1.151526845228424},
+      {"MgSO4 0.05 mol/kg", "harvie_1984", 298.15, {{"MgSO4", 0.05}}, 0.0,
+       {{"Mg+2", -1.4881399529330952}, {"SO4-2", -1.4881399529330952}}, -0.036393499145154259},
+      {"seawater SA 35.16504 g/kg", "spencer_1990_icefit", 271.15, {}, 35.16504,
+       {{"Na+", -0.47301423209737203}, {"K+", -0.52779630674813593}, {"Ca+2", -1.520762872380885},
+        {"Mg+2", -1.6061524538897061}, {"Cl-", -0.39295185809185923}, {"SO4-2", -2.2440724304495445}},
+       -0.1282168253696592},
+      {"seawater SA 35.16504 g/kg", "harvie_1984", 298.15, {}, 35.16504,
+       {{"Na+", -0.44848095430161433}, {"K+", -0.52903933827764904}, {"Ca+2", -1.6709556509928365},
+        {"Mg+2", -1.5779725961502105}, {"Cl-", -0.37161363828107713}, {"SO4-2", -2.2415327103164593}},
+       -0.11157634276937727},
+      {"Na+ at trace in CaCl2 0.5 mol/kg", "spencer_1990_icefit", 263.15,
+       {{"NaCl", 0.0}, {"CaCl2", 0.5}}, 0.0,
+       {{"Na+", -0.7353605013899146}, {"Ca+2", -1.8751105087153912}, {"Cl-", -0.091204999145507393}},
+       -0.092248277541111756},
+      {"NaCl 1 mol/kg", "archer_1992", 255.0, {{"NaCl", 1.0}}, 0.0,
+       {{"Na+", -0.53213769050373194}, {"Cl-", -0.53213769050373194}}, -0.24386142876449884},
+      {"NaCl 5 mol/kg", "archer_1992", 298.15, {{"NaCl", 5.0}}, 0.0,
+       {{"Na+", -0.1308308163252907}, {"Cl-", -0.1308308163252907}}, 1.9178190172907041},
+  };
+  for (const auto& r : rows) {
+    const auto& set = data::find_pitzer_parameter_set(r.set);
+    const auto s = r.molalities.empty() ? solution::seawater(r.sa) : solution::from_molalities(r.molalities);
+    INFO(r.label << ", " << r.set << ", " << r.temperature << " K");
+    double other = 0.0;
+    const auto e = pitzer::evaluate(s, s.water_mass(), r.temperature, set, other);
+    CHECK_THAT(e.osmotic_excess, WithinRel(r.osmotic_excess, 1e-12));
+    // Directly on the prepared system, slot by slot.
+    models::detail::pitzer_system system(s, set);
+    CHECK(system.ion_slots() == r.ln_gamma.size());
+    models::detail::ion_array m{}, lng{};
+    system.molalities(s.moles().data(), s.water_mass(), m.data(), other);
+    system.ln_gamma_on_molalities(m.data(), r.temperature, lng.data());
+    for (const auto& [ion, expected] : r.ln_gamma) {
+      INFO(ion);
+      const auto g = data::pitzer_ion_index(ion);
+      CHECK_THAT(e.ln_gamma[g], WithinRel(expected, 1e-12));
+      REQUIRE(system.slot_of(g) < system.ion_slots());
+      CHECK_THAT(lng[system.slot_of(g)], WithinRel(expected, 1e-12));
+    }
+  }
+}
+
+TEST_CASE("pitzer_system: ion slots, ln gamma and the one osmotic routine", "[models][pitzer]") {
+  using models::detail::pitzer_osmotic_sums;
+  using models::detail::pitzer_system;
+  const auto& set = pitzer::default_parameters();
+  const double T = 263.15;
+
+  // Slots: the ions present, in the order of data::pitzer_ions, each with its charge;
+  // absent or unknown ions map to ion_slots().
+  const auto sea = solution::seawater(35.16504);
+  pitzer_system all(sea, set);
+  REQUIRE(all.ion_slots() == data::pitzer_ion_count);
+  for (std::size_t k = 0; k < all.ion_slots(); ++k) {
+    CHECK(all.global_ion(k) == k);
+    CHECK(all.slot_of(k) == k);
+    CHECK(all.charge_of_slot(k) == data::pitzer_ions[k].charge);
+  }
+  const auto mix = solution::from_molalities({{"MgCl2", 0.4}, {"sucrose", 0.2}});
+  pitzer_system two(mix, set);
+  REQUIRE(two.ion_slots() == 2);
+  CHECK(two.global_ion(0) == data::pitzer_ion_index("Mg+2"));
+  CHECK(two.global_ion(1) == data::pitzer_ion_index("Cl-"));
+  CHECK(two.charge_of_slot(0) == 2);
+  CHECK(two.charge_of_slot(1) == -1);
+  CHECK(two.slot_of(data::pitzer_ion_index("Na+")) == 2);
+  CHECK(two.slot_of(data::pitzer_ion_count) == 2);
+  CHECK_THROWS_AS(two.global_ion(2), invalid_input);
+  CHECK_THROWS_WITH(two.charge_of_slot(5), Contains("slot") && Contains("[0, 2)"));
+
+  // Molalities per slot, sucrose as an ideal particle (mol/kg; exact sums of the inputs).
+  std::array<double, data::pitzer_ion_count> m{}, lng{};
+  double other = 0.0;
+  two.molalities(mix.moles().data(), 1.0, m.data(), other);
+  CHECK(m[0] == 0.4);
+  CHECK(m[1] == 0.8);
+  CHECK(other == 0.2);
+
+  // One osmotic routine: the sums from osmotic_on_molalities, from ln_gamma_on_molalities
+  // and from osmotic() are equal bit for bit (identity).
+  const auto o1 = two.osmotic_on_molalities(m.data(), T);
+  pitzer_osmotic_sums o2;
+  two.ln_gamma_on_molalities(m.data(), T, lng.data(), &o2);
+  const auto o3 = two.osmotic(mix.moles().data(), 1.0, T);
+  CHECK_THAT(o1.ionic_strength, WithinRel(1.2, 4e-16));  // 0.8 + 0.4, one rounding
+  CHECK(o1.osmotic_excess == o2.osmotic_excess);
+  CHECK(o1.osmotic_excess == o3.osmotic_excess);
+  CHECK(o1.total_molality == o2.total_molality);
+  CHECK(o1.other_particles == 0.0);
+  CHECK(o3.other_particles == 0.2);
+  // ...and ln gamma is the same without the optional osmotic output (identity).
+  std::array<double, data::pitzer_ion_count> lng2{};
+  two.ln_gamma_on_molalities(m.data(), T, lng2.data());
+  CHECK(lng2 == lng);
+  // Mean activity coefficient from the slots, as pitzer::ln_mean_activity_coefficient
+  // combines them (identity).
+  CHECK(pitzer::ln_mean_activity_coefficient(mix, 0, 1.0, T, set) == (lng[0] + 2.0 * lng[1]) / 3.0);
+
+  // No ions dissolved: I = 0, ln gamma = 0 and no osmotic excess (the limiting law).
+  const std::array<double, data::pitzer_ion_count> none{};
+  two.ln_gamma_on_molalities(none.data(), T, lng.data(), &o2);
+  CHECK(lng[0] == 0.0);
+  CHECK(lng[1] == 0.0);
+  CHECK(o2.osmotic_excess == 0.0);
+
+  // A trace ion's ln gamma is the limit of its ln gamma as its molality goes to zero:
+  // Na+ at 0 and at 1e-10 mol/kg NaCl in 0.5 mol/kg CaCl2 differ by O(1e-10) (abs 1e-8).
+  const auto at = [&](double m_nacl) {
+    const auto s = solution::from_molalities({{"NaCl", m_nacl}, {"CaCl2", 0.5}});
+    double o = 0.0;
+    return pitzer::evaluate(s, 1.0, T, set, o).ln_gamma[data::pitzer_ion_index("Na+")];
+  };
+  CHECK(std::isfinite(at(0.0)));
+  CHECK_THAT(at(0.0), WithinAbs(at(1e-10), 1e-8));
+  // pitzer::evaluate gives NaN (not a number that looks valid) for an ion that no
+  // electrolyte of the solution holds.
+  double o = 0.0;
+  const auto r = pitzer::evaluate(mix, 1.0, T, set, o);
+  CHECK(std::isnan(r.ln_gamma[data::pitzer_ion_index("Na+")]));
+  CHECK(std::isnan(r.ln_gamma[data::pitzer_ion_index("SO4-2")]));
+  CHECK(std::isfinite(r.ln_gamma[data::pitzer_ion_index("Mg+2")]));
 }

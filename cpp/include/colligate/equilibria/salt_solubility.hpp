@@ -106,20 +106,21 @@ inline saturation most_saturated_phase(const solution& s, double water_kg, doubl
   if (!s.has_electrolytes()) return out;
   double other = 0.0;
   const auto ions = s.only(data::solute_class::electrolyte);
-  const auto m = models::pitzer::ion_molalities(ions, water_kg, other);
-  // pitzer::evaluate applies the parameters a fitted salt record carries (same ion sums).
-  const auto r = models::pitzer::evaluate(ions, water_kg, T,
-                                          models::pitzer::default_parameters(), other);
+  // The prepared system applies the parameters a fitted salt record carries.
+  models::detail::pitzer_system system(ions, models::pitzer::default_parameters());
+  std::array<double, models::detail::n_ions> m{}, ln_gamma{};
+  system.molalities(ions.moles().data(), water_kg, m.data(), other);
+  system.ln_gamma_on_molalities(m.data(), T, ln_gamma.data());
   for (const auto& ph : salt_phases()) {
     double ln_iap = ph.water * ln_aw;
     bool present = true;
     for (const auto& [ion, count] : ph.ions) {
-      const auto k = data::pitzer_ion_index(ion);
-      if (k >= models::detail::n_ions || !(m[k] > 0.0)) {
+      const auto k = system.slot_of(data::pitzer_ion_index(ion));
+      if (k >= system.ion_slots() || !(m[k] > 0.0)) {
         present = false;
         break;
       }
-      ln_iap += count * (std::log(m[k]) + r.ln_gamma[k]);
+      ln_iap += count * (std::log(m[k]) + ln_gamma[k]);
     }
     if (!present) continue;
     const double si = ln_iap - ph.ln_k(T);

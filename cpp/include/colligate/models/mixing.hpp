@@ -34,7 +34,6 @@
 #include "colligate/models/norrish.hpp"
 #include "colligate/models/pitzer.hpp"
 #include "colligate/models/detail/describe_constants.hpp"
-#include "colligate/models/detail/pitzer_ion_activities.hpp"
 #include "colligate/models/evaluator.hpp"
 #include "colligate/models/registry.hpp"
 
@@ -64,6 +63,8 @@ class ross_system {
   }
 
   bool has_electrolytes() const noexcept { return electrolytes_.has_value(); }
+  /// The Pitzer system of the electrolytes (requires has_electrolytes()).
+  pitzer_system& electrolytes() { return *electrolytes_; }
   bool has_non_electrolytes() const noexcept { return !non_electrolytes_.empty(); }
 
   /// ln a_w of the electrolytes alone in `water_kg` (Pitzer); requires has_electrolytes().
@@ -199,43 +200,37 @@ struct ross {
 
 namespace detail {
 
-/// Model 'ross' prepared for one species list (ross_system); the ion activities of its
-/// electrolytes prepared on first use.
+/// Model 'ross' prepared for one species list (ross_system); the ion activities on the
+/// Pitzer system of its electrolytes.
 class ross_evaluator final : public activity_evaluator, public ion_activity_model {
  public:
-  explicit ross_evaluator(const solution& s) : s_(&s), system_(s, pitzer::default_parameters()) {}
+  explicit ross_evaluator(const solution& s) : s_(&s), system_(s, pitzer::default_parameters()) {
+    if (system_.has_electrolytes()) ions_.emplace(system_.electrolytes(), s);
+  }
   double ln_water_activity(double water_kg, double temperature) override {
     return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
   }
   validity check(double water_kg, double temperature) override {
     return ross::check(*s_, water_kg, temperature, system_);
   }
-  ion_activity_model* ions() noexcept override {
-    return system_.has_electrolytes() ? this : nullptr;
-  }
+  ion_activity_model* ions() noexcept override { return ions_ ? this : nullptr; }
 
-  std::size_t ion_slots() const override { return activities().ion_slots(); }
-  std::size_t global_ion(std::size_t slot) const override { return activities().global_ion(slot); }
-  std::size_t slot_of(std::size_t g) const override { return activities().slot_of(g); }
-  void ion_moles(double* n) const override { activities().ion_moles(n); }
+  std::size_t ion_slots() const override { return ions_->ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const override { return ions_->global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const override { return ions_->slot_of(g); }
+  void ion_moles(double* n) const override { ions_->ion_moles(n); }
   /// Ross: the ions (Pitzer, with the ions that have no parameters as ideal particles)
   /// times the non-electrolytes (Norrish), each in `water_kg`.
   double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
                                    double* ln_activity) override {
-    auto& a = activities();
-    const double sum = a.osmotic_sum(n, water_kg, temperature, ln_activity);
-    return -constants::molar_mass_water * (sum + a.unknown_ion_moles() / water_kg) +
+    return -constants::molar_mass_water * ions_->particle_sum(n, water_kg, temperature, ln_activity) +
            system_.ln_non_electrolytes(s_->moles().data(), water_kg);
   }
 
  private:
-  pitzer_ion_activities& activities() const {
-    if (!activities_) activities_.emplace(*s_, pitzer::default_parameters());
-    return *activities_;
-  }
   const solution* s_;
   ross_system system_;
-  mutable std::optional<pitzer_ion_activities> activities_;
+  std::optional<pitzer_system_ions> ions_;
 };
 
 }  // namespace detail

@@ -46,21 +46,13 @@ struct norrish {
   static constexpr double max_ionic_strength = 0.3;  // counted as Raoult particles
 
   static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
-    const double nw = water_kg / constants::molar_mass_water;
-    double n_total = nw;
-    for (std::size_t i = 0; i < s.size(); ++i) n_total += s.species()[i].particles * s.moles()[i];
-    double sqrt_sum = 0.0, extra = 0.0;
-    for (std::size_t i = 0; i < s.size(); ++i) {
-      const auto& nc = s.species()[i].norrish;
-      if (!nc.available) continue;
-      const double x = s.moles()[i] / n_total;
-      if (nc.k > 0.0)
-        sqrt_sum += std::sqrt(nc.k) * x;
-      else
-        extra -= nc.k * x * x;
-      extra -= x * x * x * (nc.k3 + nc.k4 * x);
-    }
-    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
+    const auto& species = s.species();
+    const double* moles = s.moles().data();
+    return sum(s.size(), water_kg, [&](std::size_t i) {
+      const auto& rec = species[i];
+      return solute_view{static_cast<double>(rec.particles), moles[i], rec.norrish.available,
+                         rec.norrish.k, rec.norrish.k3, rec.norrish.k4};
+    });
   }
 
   /// The constants of one solute, copied out of its record, for evaluations on a subset of
@@ -79,26 +71,14 @@ struct norrish {
   }
 
   /// ln a_w of the solutes `terms[0..n)` alone with `water_kg` of water, `moles` indexed
-  /// like the solution the terms were taken from. The same arithmetic, in the same order,
-  /// as ln_water_activity() on a solution holding those solutes only (bit-identical); no
-  /// allocation.
+  /// like the solution the terms were taken from. The same sum as ln_water_activity() on a
+  /// solution holding those solutes only, so bit-identical to it; no allocation.
   static double ln_water_activity(const term* terms, std::size_t n, const double* moles,
                                   double water_kg) {
-    const double nw = water_kg / constants::molar_mass_water;
-    double n_total = nw;
-    for (std::size_t i = 0; i < n; ++i) n_total += terms[i].particles * moles[terms[i].species];
-    double sqrt_sum = 0.0, extra = 0.0;
-    for (std::size_t i = 0; i < n; ++i) {
-      const auto& nc = terms[i];
-      if (!nc.available) continue;
-      const double x = moles[nc.species] / n_total;
-      if (nc.k > 0.0)
-        sqrt_sum += std::sqrt(nc.k) * x;
-      else
-        extra -= nc.k * x * x;
-      extra -= x * x * x * (nc.k3 + nc.k4 * x);
-    }
-    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
+    return sum(n, water_kg, [&](std::size_t i) {
+      const auto& t = terms[i];
+      return solute_view{t.particles, moles[t.species], t.available, t.k, t.k3, t.k4};
+    });
   }
 
   static validity check(const solution& s, double water_kg, double temperature) {
@@ -132,6 +112,42 @@ struct norrish {
       v = beyond_limit("model 'norrish'", "ionic strength (mol/kg)", I, max_ionic_strength,
                        " mol/kg", "electrolytes are counted as ideal ions, which fails beyond that");
     return v;
+  }
+
+ private:
+  /// One solute as the sum reads it: particles per formula unit, amount (mol) and the
+  /// Norrish constants.
+  struct solute_view {
+    double particles;
+    double moles;
+    bool available;
+    double k, k3, k4;
+  };
+
+  /// The one implementation of the sum in the file comment (Norrish 1966 eq. 7; Chirife,
+  /// Ferro Fontan & Benmergui 1980 eq. 4, extended as described there) over solutes
+  /// 0..n-1, read through `view(i)` -> solute_view. Two passes: the mole total, then the
+  /// terms, in index order (so every caller gets the same rounding).
+  template <class View>
+  static double sum(std::size_t n, double water_kg, const View& view) {
+    const double nw = water_kg / constants::molar_mass_water;
+    double n_total = nw;
+    for (std::size_t i = 0; i < n; ++i) {
+      const solute_view v = view(i);
+      n_total += v.particles * v.moles;
+    }
+    double sqrt_sum = 0.0, extra = 0.0;
+    for (std::size_t i = 0; i < n; ++i) {
+      const solute_view v = view(i);
+      if (!v.available) continue;
+      const double x = v.moles / n_total;
+      if (v.k > 0.0)
+        sqrt_sum += std::sqrt(v.k) * x;
+      else
+        extra -= v.k * x * x;
+      extra -= x * x * x * (v.k3 + v.k4 * x);
+    }
+    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
   }
 };
 

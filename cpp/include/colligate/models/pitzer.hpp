@@ -7,7 +7,8 @@
 /// electroneutral by construction. Osmotic coefficient, water activity and ion activity
 /// coefficients follow Pitzer (1973, 1991) with the mixing terms theta and psi and the
 /// unsymmetrical E-theta of Pitzer (1975), in the notation of Harvie, Moller & Weare
-/// (1984); equations in models/detail/pitzer_kernel.hpp.
+/// (1984); equations in models/detail/pitzer_kernel.hpp, evaluated by
+/// detail::pitzer_system (models/detail/pitzer_system.hpp).
 ///
 ///     ln a_w = -M_w sum_i m_i phi
 ///
@@ -28,8 +29,9 @@
 
 #include <cmath>
 #include <cstdio>
+#include <array>
+#include <limits>
 #include <memory>
-#include <optional>
 #include <string>
 
 #include "colligate/core/constants.hpp"
@@ -40,7 +42,6 @@
 #include "colligate/models/detail/pitzer_record_parameters.hpp"
 #include "colligate/models/detail/pitzer_system.hpp"
 #include "colligate/models/detail/describe_constants.hpp"
-#include "colligate/models/detail/pitzer_ion_activities.hpp"
 #include "colligate/models/evaluator.hpp"
 #include "colligate/models/registry.hpp"
 
@@ -82,15 +83,27 @@ struct pitzer {
     return m;
   }
 
-  /// The full evaluation: ion sums plus the ideal part.
+  /// The full evaluation: ion sums, ln gamma of each ion of data::pitzer_ions (NaN for an
+  /// ion that no electrolyte of `s` holds) and the ideal particles `other_particles`
+  /// (mol/kg). Prepares a detail::pitzer_system, the one implementation of the sums; a
+  /// caller evaluating one species list many times can hold that system itself.
   static detail::pitzer_sums evaluate(const solution& s, double water_kg, double temperature,
                                       const data::pitzer_parameter_set& set,
                                       double& other_particles) {
-    const auto m = ion_molalities(s, water_kg, other_particles);
-    if (detail::has_record_binaries(s))  // salts carrying their own (fitted) parameters
-      return detail::evaluate(
-          m, detail::evaluate_coefficients(detail::with_record_binaries(s, set), temperature));
-    return detail::evaluate(m, detail::evaluate_coefficients(set, temperature));
+    detail::pitzer_system system(s, set);
+    detail::ion_array m{}, ln_gamma{};
+    system.molalities(s.moles().data(), water_kg, m.data(), other_particles);
+    detail::pitzer_osmotic_sums osm;
+    system.ln_gamma_on_molalities(m.data(), temperature, ln_gamma.data(), &osm);
+    detail::pitzer_sums r;
+    r.ionic_strength = osm.ionic_strength;
+    r.total_molality = osm.total_molality;
+    r.osmotic_excess = osm.osmotic_excess;
+    for (std::size_t g = 0; g < detail::n_ions; ++g) {
+      const auto k = system.slot_of(g);
+      r.ln_gamma[g] = k < system.ion_slots() ? ln_gamma[k] : std::numeric_limits<double>::quiet_NaN();
+    }
+    return r;
   }
 
   /// ln a_w. Prepares the species once (detail::pitzer_system); a solver calling this
@@ -113,16 +126,19 @@ struct pitzer {
     if (rec.kind != data::solute_class::electrolyte || rec.ions.empty())
       throw invalid_input("mean_activity_coefficient: solute '" + rec.id +
                           "' is not an electrolyte with known ions");
+    detail::pitzer_system system(s, set);
+    detail::ion_array m{}, ln_gamma{};
     double other = 0.0;
-    const auto r = evaluate(s, water_kg, temperature, set, other);
+    system.molalities(s.moles().data(), water_kg, m.data(), other);
+    system.ln_gamma_on_molalities(m.data(), temperature, ln_gamma.data());
     double sum = 0.0;
     int nu = 0;
     for (const auto& ion : rec.ions) {
-      const auto k = data::pitzer_ion_index(ion.ion);
-      if (k >= detail::n_ions)
+      const auto k = system.slot_of(data::pitzer_ion_index(ion.ion));
+      if (k >= system.ion_slots())
         throw invalid_input("mean_activity_coefficient: ion '" + ion.ion + "' of '" + rec.id +
                             "' has no Pitzer parameters");
-      sum += ion.count * r.ln_gamma[k];
+      sum += ion.count * ln_gamma[k];
       nu += ion.count;
     }
     return sum / nu;
@@ -200,24 +216,52 @@ struct pitzer {
 
 namespace detail {
 
-/// Non-electrolyte particles and ions without parameters of `s`, mol: the ideal part of
-/// the Pitzer model (pitzer::ion_molalities).
-inline double pitzer_ideal_particle_moles(const solution& s, const pitzer_ion_activities& ions) {
-  double n = ions.unknown_ion_moles();
-  for (std::size_t i = 0; i < s.size(); ++i) {
-    const auto& rec = s.species()[i];
-    if (rec.kind != data::solute_class::electrolyte || rec.ions.empty())
-      n += rec.particles * s.moles()[i];
+/// The ion activities of a prepared pitzer_system (models::ion_activity_model's work):
+/// ion amounts per slot of the solution it was prepared for, and ln a_w and ln(m gamma)
+/// for other ion amounts in any water. Ideal particles (non-electrolytes in model
+/// 'pitzer', ions without parameters) keep the solution's amounts.
+class pitzer_system_ions {
+ public:
+  pitzer_system_ions(pitzer_system& system, const solution& s) : system_(&system), s_(&s) {}
+  std::size_t ion_slots() const noexcept { return system_->ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const { return system_->global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const noexcept { return system_->slot_of(g); }
+  void ion_moles(double* n) const {
+    double other = 0.0;
+    system_->molalities(s_->moles().data(), 1.0, n, other);
   }
-  return n;
-}
+  /// sum_i m_i phi of the ions plus the ideal particles, mol/kg, for `n` mol per slot in
+  /// `water_kg`; ln(m_i gamma_i) per slot into `ln_activity` if not null.
+  double particle_sum(const double* n, double water_kg, double T, double* ln_activity) {
+    std::array<double, n_ions> m{}, scratch{};
+    double ideal = 0.0;
+    system_->molalities(s_->moles().data(), 1.0, scratch.data(), ideal);  // ideal: mol
+    const std::size_t k_max = ion_slots();
+    for (std::size_t k = 0; k < k_max; ++k) m[k] = n[k] / water_kg;
+    pitzer_osmotic_sums osm;
+    if (ln_activity) {
+      std::array<double, n_ions> ln_gamma{};
+      system_->ln_gamma_on_molalities(m.data(), T, ln_gamma.data(), &osm);
+      for (std::size_t k = 0; k < k_max; ++k)
+        ln_activity[k] = m[k] > 0.0 ? std::log(m[k]) + ln_gamma[k]
+                                    : -std::numeric_limits<double>::infinity();
+    } else {
+      osm = system_->osmotic_on_molalities(m.data(), T);
+    }
+    return osm.total_molality + osm.osmotic_excess + ideal / water_kg;
+  }
 
-/// Model 'pitzer' prepared for one species list: the osmotic sum on the prepared system,
-/// the ion activities prepared on first use.
+ private:
+  pitzer_system* system_;
+  const solution* s_;
+};
+
+/// Model 'pitzer' prepared for one species list: the osmotic sum and the ion activities
+/// on one prepared system.
 class pitzer_evaluator final : public activity_evaluator, public ion_activity_model {
  public:
   pitzer_evaluator(const solution& s, const data::pitzer_parameter_set& set)
-      : s_(&s), set_(&set), system_(s, set) {}
+      : s_(&s), set_(&set), system_(s, set), ions_(system_, s) {}
   double ln_water_activity(double water_kg, double temperature) override {
     return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
   }
@@ -226,26 +270,20 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
   }
   ion_activity_model* ions() noexcept override { return this; }
 
-  std::size_t ion_slots() const override { return activities().ion_slots(); }
-  std::size_t global_ion(std::size_t slot) const override { return activities().global_ion(slot); }
-  std::size_t slot_of(std::size_t g) const override { return activities().slot_of(g); }
-  void ion_moles(double* n) const override { activities().ion_moles(n); }
+  std::size_t ion_slots() const override { return ions_.ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const override { return ions_.global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const override { return ions_.slot_of(g); }
+  void ion_moles(double* n) const override { ions_.ion_moles(n); }
   double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
                                    double* ln_activity) override {
-    auto& a = activities();
-    const double sum = a.osmotic_sum(n, water_kg, temperature, ln_activity);
-    return -constants::molar_mass_water * (sum + pitzer_ideal_particle_moles(*s_, a) / water_kg);
+    return -constants::molar_mass_water * ions_.particle_sum(n, water_kg, temperature, ln_activity);
   }
 
  private:
-  pitzer_ion_activities& activities() const {
-    if (!activities_) activities_.emplace(*s_, *set_);
-    return *activities_;
-  }
   const solution* s_;
   const data::pitzer_parameter_set* set_;
   pitzer_system system_;
-  mutable std::optional<pitzer_ion_activities> activities_;
+  pitzer_system_ions ions_;
 };
 
 }  // namespace detail

@@ -1,8 +1,9 @@
 #pragma once
 /// \file pitzer_kernel.hpp
-/// Internals of the Pitzer model: the Debye-Hueckel slopes A_phi(T) (one per parameter
-/// set, see data::aphi_correlation), the unsymmetrical
-/// mixing function J(x) and the osmotic and activity-coefficient sums on ion molalities.
+/// Internals of the Pitzer model shared by its evaluation: the Debye-Hueckel slopes
+/// A_phi(T) (one per parameter set, see data::aphi_correlation), the unsymmetrical mixing
+/// function J(x) and E-theta, and the functions g, g', h of the pair terms. The sums
+/// below are evaluated in one place, detail::pitzer_system (pitzer_system.hpp).
 ///
 /// Equations (Harvie, Moller & Weare 1984, eqs. 1-8; Pitzer 1991, ch. 3):
 ///
@@ -15,7 +16,9 @@
 ///   F = -A_phi [sqrt I / (1 + b sqrt I) + (2/b) ln(1 + b sqrt I)]
 ///        + sum_c sum_a m_c m_a B'_ca + sum_c<c' m_c m_c' Phi'_cc' + sum_a<a' m_a m_a' Phi'_aa'
 ///
-/// with b = 1.2, Z = sum_i m_i |z_i|, C = C-phi / (2 sqrt|z_M z_X|),
+/// with b = 1.2, Z = sum_i m_i |z_i|, C = C-phi / (2 sqrt|z_M z_X|) (for the extended form
+/// of Archer 1991, 1992, C^T = C0 + 4 C1 h(omega sqrt I) in ln gamma, C0 + C1 e^-(omega sqrt I)
+/// in the osmotic sum, and F gains sum_c sum_a m_c m_a (Z/2) dC^T/dI),
 /// B^phi = beta0 + beta1 exp(-alpha1 sqrt I) + beta2 exp(-alpha2 sqrt I),
 /// B = beta0 + beta1 g(alpha1 sqrt I) + beta2 g(alpha2 sqrt I), g(x) = 2 [1 - (1 + x) e^-x] / x^2,
 /// B' = [beta1 g'(alpha1 sqrt I) + beta2 g'(alpha2 sqrt I)] / I,
@@ -145,29 +148,27 @@ inline void mixing_j(double x, double& J, double& dJ) {
   dJ = 0.25 + 0.5 * dz * (d0 - d2);
 }
 
-/// E-theta and E-theta' for ions of charges zi, zj (same sign) at ionic strength I.
-inline void e_theta(int zi, int zj, double I, double aphi, double& et, double& etp) {
-  et = 0.0;
-  etp = 0.0;
-  if (zi == zj || !(I > 0.0)) return;
-  const double s = 6.0 * aphi * std::sqrt(I);
-  const double xij = s * zi * zj, xii = s * zi * zi, xjj = s * zj * zj;
-  double Jij, dJij, Jii, dJii, Jjj, dJjj;
-  mixing_j(xij, Jij, dJij);
-  mixing_j(xii, Jii, dJii);
-  mixing_j(xjj, Jjj, dJjj);
-  const double zz = static_cast<double>(zi * zj);
-  et = zz / (4.0 * I) * (Jij - 0.5 * Jii - 0.5 * Jjj);
-  etp = -et / I + zz / (8.0 * I * I) * (xij * dJij - 0.5 * xii * dJii - 0.5 * xjj * dJjj);
+/// E-theta and E-theta' (Pitzer 1975, eqs. 23-24) of two like-signed ions whose charge
+/// product is zz (|z_i z_j|, z_i != z_j), at ionic strength I > 0, from J(x) and x J'(x) at
+/// x_ij, x_ii and x_jj (x = 6 z z' A_phi sqrt I; mixing_j):
+///   E-theta  = zz / (4 I) [J(x_ij) - J(x_ii)/2 - J(x_jj)/2]
+///   E-theta' = -E-theta / I + zz / (8 I^2) [x_ij J'(x_ij) - x_ii J'(x_ii)/2 - x_jj J'(x_jj)/2]
+inline void e_theta(double zz, double I, double J_ij, double J_ii, double J_jj, double xdJ_ij,
+                    double xdJ_ii, double xdJ_jj, double& et, double& etp) {
+  et = zz / (4.0 * I) * (J_ij - 0.5 * J_ii - 0.5 * J_jj);
+  etp = -et / I + zz / (8.0 * I * I) * (xdJ_ij - 0.5 * xdJ_ii - 0.5 * xdJ_jj);
 }
 
-inline double pitzer_g(double x) {
+/// g(x) = 2 [1 - (1 + x) e^-x] / x^2 and g'(x) = -2 [1 - (1 + x + x^2/2) e^-x] / x^2 of
+/// B and B' (Pitzer 1991, ch. 3), given `exp_minus_x` = e^-x (the caller has it from
+/// B^phi); below x = 1e-3 their series to x^2, which avoids the cancellation.
+inline double pitzer_g(double x, double exp_minus_x) {
   if (x < 1e-3) return 1.0 - 2.0 * x / 3.0 + x * x / 4.0;
-  return 2.0 * (1.0 - (1.0 + x) * std::exp(-x)) / (x * x);
+  return 2.0 * (1.0 - (1.0 + x) * exp_minus_x) / (x * x);
 }
-inline double pitzer_gp(double x) {
+inline double pitzer_gp(double x, double exp_minus_x) {
   if (x < 1e-3) return -x / 3.0 + x * x / 4.0;
-  return -2.0 * (1.0 - (1.0 + x + 0.5 * x * x) * std::exp(-x)) / (x * x);
+  return -2.0 * (1.0 - (1.0 + x + 0.5 * x * x) * exp_minus_x) / (x * x);
 }
 
 /// h(x) = [6 - (6 + 6x + 3x^2 + x^3) e^-x] / x^4 of the extended third-virial term (Archer
@@ -185,183 +186,15 @@ inline double pitzer_h(double x) {
   return (6.0 - (6.0 + x * (6.0 + x * (3.0 + x))) * std::exp(-x)) / (x * x * x * x);
 }
 
-/// Parameters of one set evaluated at one temperature, indexed by ion.
-struct pitzer_coefficients {
-  double aphi = 0.0;
-  std::array<std::array<double, n_ions>, n_ions> beta0{}, beta1{}, beta2{}, c{}, alpha1{}, alpha2{};
-  /// Extended form (data::extended_binary): C1 and omega; c1 = 0 for the usual form.
-  std::array<std::array<double, n_ions>, n_ions> c1{}, omega{};
-  std::array<std::array<bool, n_ions>, n_ions> has_pair{};
-  std::array<std::array<double, n_ions>, n_ions> theta{};
-  std::array<std::array<std::array<double, n_ions>, n_ions>, n_ions> psi{};
-};
-
-inline pitzer_coefficients evaluate_coefficients(const data::pitzer_parameter_set& set, double T) {
-  pitzer_coefficients p;
-  p.aphi = debye_huckel_osmotic_slope(T, set.aphi);
-  const auto idx = [](const std::string& n) { return data::pitzer_ion_index(n); };
-  for (const auto& b : set.binaries) {
-    const auto i = idx(b.cation), j = idx(b.anion);
-    if (i >= n_ions || j >= n_ions) continue;
-    const int zc = data::pitzer_ions[i].charge, za = data::pitzer_ions[j].charge;
-    const bool two_two = std::abs(zc) == 2 && std::abs(za) == 2;
-    p.has_pair[i][j] = true;
-    if (b.extended != nullptr) {
-      const auto& e = *b.extended;
-      p.beta0[i][j] = e.beta0(T);
-      p.beta1[i][j] = e.beta1(T);
-      p.beta2[i][j] = 0.0;
-      p.c[i][j] = e.c0(T);
-      p.c1[i][j] = e.c1(T);
-      p.omega[i][j] = e.omega;
-      p.alpha1[i][j] = 2.0;
-      p.alpha2[i][j] = 0.0;
-      continue;
-    }
-    p.beta0[i][j] = b.beta0(T);
-    p.beta1[i][j] = b.beta1(T);
-    p.beta2[i][j] = two_two ? b.beta2(T) : 0.0;
-    p.c[i][j] = b.cphi(T) / (2.0 * std::sqrt(std::abs(zc * za)));
-    p.alpha1[i][j] = two_two ? 1.4 : 2.0;
-    p.alpha2[i][j] = two_two ? 12.0 : 0.0;
-  }
-  for (const auto& t : set.thetas) {
-    const auto i = idx(t.ion1), j = idx(t.ion2);
-    if (i >= n_ions || j >= n_ions) continue;
-    p.theta[i][j] = p.theta[j][i] = t.theta(T);
-  }
-  for (const auto& s : set.psis) {
-    const auto i = idx(s.ion1), j = idx(s.ion2), k = idx(s.ion3);
-    if (i >= n_ions || j >= n_ions || k >= n_ions) continue;
-    p.psi[i][j][k] = p.psi[j][i][k] = s.psi(T);
-  }
-  return p;
-}
-
-/// Result of one evaluation on ion molalities m (mol/kg).
+/// Result of one evaluation (pitzer::evaluate), indexed by the ions of data::pitzer_ions.
 struct pitzer_sums {
   double ionic_strength = 0.0;
   double total_molality = 0.0;   ///< sum_i m_i
   double osmotic_excess = 0.0;   ///< sum_i m_i (phi - 1)
-  ion_array ln_gamma{};          ///< ln gamma_i (molal scale)
+  ion_array ln_gamma{};          ///< ln gamma_i (molal scale); NaN for an ion not in the solution's species
   double osmotic_coefficient() const {
     return total_molality > 0.0 ? 1.0 + osmotic_excess / total_molality : 1.0;
   }
 };
-
-inline bool is_cation(std::size_t i) { return data::pitzer_ions[i].charge > 0; }
-inline int charge(std::size_t i) { return data::pitzer_ions[i].charge; }
-
-inline pitzer_sums evaluate(const ion_array& m, const pitzer_coefficients& p) {
-  pitzer_sums r;
-  double I = 0.0, Z = 0.0, mt = 0.0;
-  for (std::size_t i = 0; i < n_ions; ++i) {
-    I += 0.5 * m[i] * charge(i) * charge(i);
-    Z += m[i] * std::abs(charge(i));
-    mt += m[i];
-  }
-  r.ionic_strength = I;
-  r.total_molality = mt;
-  if (!(I > 0.0)) return r;
-  const double sI = std::sqrt(I);
-  const double b = pitzer_b;
-  const double A = p.aphi;
-
-  // Pair functions.
-  std::array<std::array<double, n_ions>, n_ions> B{}, Bphi{}, Bp{}, Phi{}, Phip{}, Phiphi{};
-  // Third-virial terms: C^T (G_ex, ln gamma), C^T_phi (osmotic), dC^T/dI; all equal to C
-  // (derivative 0) for the usual form.
-  std::array<std::array<double, n_ions>, n_ions> CT = p.c, CTphi = p.c, CTp{};
-  for (std::size_t c = 0; c < n_ions; ++c) {
-    if (!is_cation(c)) continue;
-    for (std::size_t a = 0; a < n_ions; ++a) {
-      if (is_cation(a) || !p.has_pair[c][a]) continue;
-      const double x1 = p.alpha1[c][a] * sI, x2 = p.alpha2[c][a] * sI;
-      B[c][a] = p.beta0[c][a] + p.beta1[c][a] * pitzer_g(x1) +
-                (p.beta2[c][a] != 0.0 ? p.beta2[c][a] * pitzer_g(x2) : 0.0);
-      Bphi[c][a] = p.beta0[c][a] + p.beta1[c][a] * std::exp(-x1) +
-                   (p.beta2[c][a] != 0.0 ? p.beta2[c][a] * std::exp(-x2) : 0.0);
-      Bp[c][a] = (p.beta1[c][a] * pitzer_gp(x1) +
-                  (p.beta2[c][a] != 0.0 ? p.beta2[c][a] * pitzer_gp(x2) : 0.0)) /
-                 I;
-      if (p.c1[c][a] != 0.0) {
-        // C^T = C0 + 4 C1 h(w), C^T_phi = C^T + I dC^T/dI / 2 = C0 + C1 e^-w (because
-        // 4 h + x h' = e^-x), dC^T/dI = 2 C1 (e^-w - 4 h(w)) / I, w = omega sqrt I.
-        const double w = p.omega[c][a] * sI, ew = std::exp(-w), hw = pitzer_h(w);
-        CT[c][a] = p.c[c][a] + 4.0 * p.c1[c][a] * hw;
-        CTphi[c][a] = p.c[c][a] + p.c1[c][a] * ew;
-        CTp[c][a] = 2.0 * p.c1[c][a] * (ew - 4.0 * hw) / I;
-      }
-    }
-  }
-  for (std::size_t i = 0; i < n_ions; ++i) {
-    for (std::size_t j = i + 1; j < n_ions; ++j) {
-      if (is_cation(i) != is_cation(j)) continue;
-      double et, etp;
-      e_theta(std::abs(charge(i)), std::abs(charge(j)), I, A, et, etp);
-      Phi[i][j] = Phi[j][i] = p.theta[i][j] + et;
-      Phip[i][j] = Phip[j][i] = etp;
-      Phiphi[i][j] = Phiphi[j][i] = p.theta[i][j] + et + I * etp;
-    }
-  }
-
-  // Osmotic sum and F.
-  double osm = -A * I * sI / (1.0 + b * sI);
-  double F = -A * (sI / (1.0 + b * sI) + 2.0 / b * std::log1p(b * sI));
-  double sum_mmC = 0.0;
-  for (std::size_t c = 0; c < n_ions; ++c) {
-    if (!is_cation(c) || m[c] == 0.0) continue;
-    for (std::size_t a = 0; a < n_ions; ++a) {
-      if (is_cation(a) || m[a] == 0.0) continue;
-      const double mm = m[c] * m[a];
-      osm += mm * (Bphi[c][a] + Z * CTphi[c][a]);
-      F += mm * Bp[c][a];
-      // d(Z C^T)/dm_M through I gives z_M^2 (Z/2) m_c m_a dC^T/dI: carried in F.
-      if (CTp[c][a] != 0.0) F += mm * 0.5 * Z * CTp[c][a];
-      sum_mmC += mm * CT[c][a];
-    }
-  }
-  for (std::size_t i = 0; i < n_ions; ++i) {
-    if (m[i] == 0.0) continue;
-    for (std::size_t j = i + 1; j < n_ions; ++j) {
-      if (m[j] == 0.0 || is_cation(i) != is_cation(j)) continue;
-      double psum = 0.0;
-      for (std::size_t k = 0; k < n_ions; ++k)
-        if (is_cation(k) != is_cation(i)) psum += m[k] * p.psi[i][j][k];
-      osm += m[i] * m[j] * (Phiphi[i][j] + psum);
-      F += m[i] * m[j] * Phip[i][j];
-    }
-  }
-  r.osmotic_excess = 2.0 * osm;
-
-  // Activity coefficients.
-  for (std::size_t M = 0; M < n_ions; ++M) {
-    const int zM = charge(M);
-    double lg = zM * zM * F + std::abs(zM) * sum_mmC;
-    for (std::size_t k = 0; k < n_ions; ++k) {
-      if (m[k] == 0.0) continue;
-      if (is_cation(k) != is_cation(M)) {
-        // opposite sign: binary terms
-        const std::size_t c = is_cation(M) ? M : k, a = is_cation(M) ? k : M;
-        lg += m[k] * (2.0 * B[c][a] + Z * CT[c][a]);
-      } else if (k != M) {
-        double psum = 0.0;
-        for (std::size_t a = 0; a < n_ions; ++a)
-          if (is_cation(a) != is_cation(M)) psum += m[a] * p.psi[M][k][a];
-        lg += m[k] * (2.0 * Phi[M][k] + psum);
-      }
-    }
-    // sum over pairs of ions of the opposite sign: psi_{k k' M}
-    for (std::size_t k = 0; k < n_ions; ++k) {
-      if (m[k] == 0.0 || is_cation(k) == is_cation(M)) continue;
-      for (std::size_t l = k + 1; l < n_ions; ++l) {
-        if (m[l] == 0.0 || is_cation(l) == is_cation(M)) continue;
-        lg += m[k] * m[l] * p.psi[k][l][M];
-      }
-    }
-    r.ln_gamma[M] = lg;
-  }
-  return r;
-}
 
 }  // namespace colligate::models::detail

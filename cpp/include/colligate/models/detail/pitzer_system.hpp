@@ -1,17 +1,28 @@
 #pragma once
 /// \file pitzer_system.hpp
-/// The Pitzer osmotic sum of models/detail/pitzer_kernel.hpp prepared once for one species
-/// list: the ions present (with their charges), which species feed which ion, and the
-/// parameter rows of every cation-anion pair, like-charged pair and triplet among them.
-/// Evaluating it does no name lookup and no heap allocation, so a solver that calls the
-/// model many times on one solution (freezing point, ice curve, batch rows with one
-/// species list) pays the preparation once.
+/// The Pitzer model prepared once for one species list: the ions present (with their
+/// charges), which species feed which ion, and the parameter rows of every cation-anion
+/// pair, like-charged pair and triplet among them. Evaluating it does no name lookup and
+/// no heap allocation, so a solver that calls the model many times on one solution
+/// (freezing point, ice curve, salt saturation, batch rows with one species list) pays the
+/// preparation once. This is the only implementation of the Pitzer sums; pitzer::evaluate
+/// and the equilibria call it.
 ///
-/// Same equations as pitzer_kernel.hpp (Harvie, Moller & Weare 1984, eqs. 1-8; Pitzer
-/// 1991, ch. 3), osmotic part only:
+/// Equations (Harvie, Moller & Weare 1984, eqs. 1-8; Pitzer 1991, ch. 3), with the
+/// symbols and the pair functions B, B^phi, B', C^T, E-theta given in
+/// models/detail/pitzer_kernel.hpp:
 ///
-///   sum_i m_i (phi - 1) = 2 [ -A_phi I^1.5 / (1 + b sqrt I) + sum_c sum_a m_c m_a (B^phi_ca + Z C_ca)
+///   sum_i m_i (phi - 1) = 2 [ -A_phi I^1.5 / (1 + b sqrt I) + sum_c sum_a m_c m_a (B^phi_ca + Z C^T_phi,ca)
 ///        + sum_i<j (like sign) m_i m_j (theta_ij + E-theta_ij + I E-theta'_ij + sum_k m_k psi_ijk) ]
+///   ln gamma_M = z_M^2 F + sum_a m_a (2 B_Ma + Z C^T_Ma) + sum_c m_c (2 Phi_Mc + sum_a m_a psi_Mca)
+///        + sum_a<a' m_a m_a' psi_aa'M + |z_M| sum_c sum_a m_c m_a C^T_ca           (anions alike)
+///   F = -A_phi [sqrt I / (1 + b sqrt I) + (2/b) ln(1 + b sqrt I)] + sum_c sum_a m_c m_a B'_ca
+///        + sum_i<j (like sign) m_i m_j E-theta'_ij + sum_c sum_a m_c m_a (Z/2) dC^T_ca/dI
+///
+/// The last term of F carries the ionic-strength dependence of the extended third virial
+/// coefficient (Archer 1991, 1992); it is zero for the usual form, where C^T = C^T_phi = C.
+/// ln gamma is computed on the same pass as the osmotic sum (osmotic_on_molalities and
+/// ln_gamma_on_molalities run one routine), so the two share every pair function.
 ///
 /// Work done once per temperature: A_phi(T) and the parameters P(T) of the pairs and
 /// triplets present, as dot products with the basis of the analytic form
@@ -26,8 +37,10 @@
 #include <cmath>
 #include <cstddef>
 #include <limits>
+#include <string>
 #include <vector>
 
+#include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/data/pitzer_parameters.hpp"
 #include "colligate/models/detail/pitzer_kernel.hpp"
@@ -133,8 +146,31 @@ class pitzer_system {
     for (auto& t : terms_) t.species = species_of_part.at(t.species);
   }
 
-  /// Ion molalities (per slot) and ideal particles for `moles` (one per species of the
-  /// solution it was prepared for) in `water_kg` of water.
+  /// Number of ions present (slots), in the order of data::pitzer_ions: the ions of the
+  /// electrolytes of the species list that the parameter tables know.
+  std::size_t ion_slots() const noexcept { return n_; }
+
+  /// Slot of ion `global_ion` (an index of data::pitzer_ions, as data::pitzer_ion_index
+  /// gives it), or ion_slots() when that ion is absent or the index unknown.
+  std::size_t slot_of(std::size_t global_ion) const noexcept {
+    return global_ion < n_ions ? slot_of_[global_ion] : n_;
+  }
+
+  /// Index in data::pitzer_ions of the ion in `slot` (0 <= slot < ion_slots()).
+  std::size_t global_ion(std::size_t slot) const {
+    check_slot("pitzer_system::global_ion", slot);
+    return global_[slot];
+  }
+
+  /// Charge number of the ion in `slot` (0 <= slot < ion_slots()).
+  int charge_of_slot(std::size_t slot) const {
+    check_slot("pitzer_system::charge_of_slot", slot);
+    return z_[slot];
+  }
+
+  /// Ion molalities `m` (mol/kg, one per slot) and ideal particles `other` (mol/kg:
+  /// non-electrolytes and ions the tables do not know) for `moles` (one per species of
+  /// the solution it was prepared for) in `water_kg` of water.
   void molalities(const double* moles, double water_kg, double* m, double& other) const {
     for (std::size_t k = 0; k < n_; ++k) m[k] = 0.0;
     other = 0.0;
@@ -147,12 +183,32 @@ class pitzer_system {
     }
   }
 
+  /// The osmotic sums on ion molalities `m_slots` (mol/kg, one per slot) at temperature
+  /// T (K). other_particles is left 0: the caller knows its ideal particles.
+  pitzer_osmotic_sums osmotic_on_molalities(const double* m_slots, double T) {
+    pitzer_osmotic_sums r;
+    sums<false>(m_slots, T, r, nullptr);
+    return r;
+  }
+
+  /// ln gamma (molal scale) of every ion present, `ln_gamma_slots[k]` for slot k, on ion
+  /// molalities `m_slots` (mol/kg, one per slot) at temperature T (K); an ion of zero
+  /// molality gets its trace activity coefficient. If `osm` is given it receives the
+  /// osmotic sums of the same evaluation, equal bit for bit to osmotic_on_molalities().
+  void ln_gamma_on_molalities(const double* m_slots, double T, double* ln_gamma_slots,
+                              pitzer_osmotic_sums* osm = nullptr) {
+    pitzer_osmotic_sums r;
+    sums<true>(m_slots, T, r, ln_gamma_slots);
+    if (osm != nullptr) *osm = r;
+  }
+
   /// The osmotic sums for `moles` in `water_kg` of water at temperature T (K).
   pitzer_osmotic_sums osmotic(const double* moles, double water_kg, double T) {
     std::array<double, n_ions> m{};
-    pitzer_osmotic_sums r;
-    molalities(moles, water_kg, m.data(), r.other_particles);
-    osmotic_on_molalities(m.data(), T, r);
+    double other = 0.0;
+    molalities(moles, water_kg, m.data(), other);
+    auto r = osmotic_on_molalities(m.data(), T);
+    r.other_particles = other;
     return r;
   }
 
@@ -205,15 +261,16 @@ class pitzer_system {
         if (k < n_ions) present[k] = true;
       }
     }
-    std::array<std::size_t, n_ions + 1> slot_of{};
     for (std::size_t g = 0; g < n_ions; ++g) {
-      slot_of[g] = n_ions;
+      slot_of_[g] = n_ions;
       if (!present[g]) continue;
-      slot_of[g] = n_;
+      slot_of_[g] = n_;
+      global_[n_] = g;
       z_[n_] = data::pitzer_ions[g].charge;
       ++n_;
     }
-    const auto slot = [&](std::size_t g) { return g < n_ions && slot_of[g] < n_ ? slot_of[g] : n_; };
+    for (auto& k : slot_of_) k = k < n_ ? k : n_;  // absent ions: n_
+    const auto slot = [&](std::size_t g) { return g < n_ions ? slot_of_[g] : n_; };
     // Species -> ion molalities, in the order of pitzer::ion_molalities.
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
@@ -224,7 +281,7 @@ class pitzer_system {
       for (const auto& ion : rec.ions)
         terms_.push_back({i, slot(data::pitzer_ion_index(ion.ion)), static_cast<double>(ion.count)});
     }
-    // Cation-anion rows (the last row of a pair wins, as in evaluate_coefficients).
+    // Cation-anion rows (the last row of a pair wins).
     for (const auto& b : set.binaries) {
       const auto c = slot(b.c), a = slot(b.a);
       if (c >= n_ || a >= n_) continue;
@@ -277,7 +334,7 @@ class pitzer_system {
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& p = pairs_[k];
       if (p.ext != nullptr) {
-        // Extended form: the same functions pitzer_kernel.hpp evaluates (C0 is C already).
+        // Extended form (data::extended_binary): C0 is C already; beta2 unused.
         coef_.beta0[k] = p.ext->beta0(T);
         coef_.beta1[k] = p.ext->beta1(T);
         coef_.beta2[k] = 0.0;
@@ -296,7 +353,18 @@ class pitzer_system {
     return coef_;
   }
 
-  void osmotic_on_molalities(const double* m, double T, pitzer_osmotic_sums& r) {
+  void check_slot(const char* where, std::size_t slot) const {
+    if (slot >= n_)
+      throw invalid_input(colligate::detail::describe(
+          where, "slot", static_cast<double>(slot),
+          "must be in [0, " + std::to_string(n_) + "), the ions present"));
+  }
+
+  /// The one evaluation of the sums in the file comment on slot molalities `m`: the
+  /// osmotic sums into `r` always, ln gamma into `lng` (one per slot) when WithGamma. The
+  /// osmotic part does the same arithmetic in both instantiations.
+  template <bool WithGamma>
+  void sums(const double* m, double T, pitzer_osmotic_sums& r, double* lng) {
     double I = 0.0, Z = 0.0, mt = 0.0;
     for (std::size_t k = 0; k < n_; ++k) {
       I += 0.5 * m[k] * z_[k] * z_[k];
@@ -305,6 +373,8 @@ class pitzer_system {
     }
     r.ionic_strength = I;
     r.total_molality = mt;
+    if constexpr (WithGamma)
+      for (std::size_t k = 0; k < n_; ++k) lng[k] = 0.0;
     if (!(I > 0.0)) return;
     const auto& p = at(T);
     const double sI = std::sqrt(I);
@@ -314,19 +384,66 @@ class pitzer_system {
     const double e2 = need_alpha_2_ ? std::exp(-2.0 * sI) : 0.0;
     const double e14 = need_alpha_14_ ? std::exp(-1.4 * sI) : 0.0;
     const double e12 = need_alpha_12_ ? std::exp(-12.0 * sI) : 0.0;
+    // ln gamma only: F without its pair sums, sum_c sum_a m_c m_a C^T, and g(x), g'(x)
+    // at x = alpha sqrt I from the same exponentials.
+    double F = 0.0, sum_mmC = 0.0;
+    double g2 = 0.0, g14 = 0.0, g12 = 0.0, gp2 = 0.0, gp14 = 0.0, gp12 = 0.0;
+    if constexpr (WithGamma) {
+      F = -A * (sI / (1.0 + pitzer_b * sI) + 2.0 / pitzer_b * std::log1p(pitzer_b * sI));
+      if (need_alpha_2_) {
+        g2 = pitzer_g(2.0 * sI, e2);
+        gp2 = pitzer_gp(2.0 * sI, e2);
+      }
+      if (need_alpha_14_) {
+        g14 = pitzer_g(1.4 * sI, e14);
+        gp14 = pitzer_gp(1.4 * sI, e14);
+      }
+      if (need_alpha_12_) {
+        g12 = pitzer_g(12.0 * sI, e12);
+        gp12 = pitzer_gp(12.0 * sI, e12);
+      }
+    }
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& row = pairs_[k];
-      const double mm = m[row.c] * m[row.a];
-      if (mm == 0.0) continue;
-      double Bphi = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? e2 : e14);
-      if (row.two_two && p.beta2[k] != 0.0) Bphi += p.beta2[k] * e12;
-      if (row.ext != nullptr && p.c1[k] != 0.0) {
-        // C^T_phi = C0 + C1 exp(-omega sqrt I), as in pitzer_kernel.hpp.
-        const double CTphi = p.c[k] + p.c1[k] * std::exp(-(row.ext->omega * sI));
-        osm += mm * (Bphi + Z * CTphi);
-        continue;
+      const double mc = m[row.c], ma = m[row.a];
+      const double mm = mc * ma;
+      if constexpr (WithGamma) {
+        if (mc == 0.0 && ma == 0.0) continue;
+      } else {
+        if (mm == 0.0) continue;
       }
-      osm += mm * (Bphi + Z * p.c[k]);
+      const bool beta2 = row.two_two && p.beta2[k] != 0.0;
+      double Bphi = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? e2 : e14);
+      if (beta2) Bphi += p.beta2[k] * e12;
+      // C^T_phi = C0 + C1 exp(-omega sqrt I) for the extended form, else C.
+      const bool extended = row.ext != nullptr && p.c1[k] != 0.0;
+      const double ew = extended ? std::exp(-(row.ext->omega * sI)) : 0.0;
+      const double CTphi = extended ? p.c[k] + p.c1[k] * ew : p.c[k];
+      if (mm != 0.0) osm += mm * (Bphi + Z * CTphi);
+      if constexpr (WithGamma) {
+        double B = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? g2 : g14);
+        double Bp = p.beta1[k] * (row.alpha1 == 0 ? gp2 : gp14);
+        if (beta2) {
+          B += p.beta2[k] * g12;
+          Bp += p.beta2[k] * gp12;
+        }
+        Bp /= I;
+        // C^T = C0 + 4 C1 h(w) and dC^T/dI = 2 C1 (e^-w - 4 h(w)) / I, w = omega sqrt I
+        // (C^T_phi = C^T + I dC^T/dI / 2 because 4 h + x h' = e^-x).
+        double CT = p.c[k], CTp = 0.0;
+        if (extended) {
+          const double hw = pitzer_h(row.ext->omega * sI);
+          CT = p.c[k] + 4.0 * p.c1[k] * hw;
+          CTp = 2.0 * p.c1[k] * (ew - 4.0 * hw) / I;
+        }
+        if (mm != 0.0) {
+          F += mm * (Bp + 0.5 * Z * CTp);
+          sum_mmC += mm * CT;
+        }
+        const double w = 2.0 * B + Z * CT;
+        lng[row.c] += ma * w;
+        lng[row.a] += mc * w;
+      }
     }
     // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4.
     std::array<double, 5> J{}, dJ{}, x{};
@@ -341,31 +458,49 @@ class pitzer_system {
     };
     for (std::size_t k = 0; k < n_like_; ++k) {
       const auto& L = like_[k];
-      const double mm = m[L.i] * m[L.j];
-      if (mm == 0.0) continue;
-      double phiphi = p.theta[k];
+      const double mi = m[L.i], mj = m[L.j];
+      const double mm = mi * mj;
+      if constexpr (WithGamma) {
+        if (mi == 0.0 && mj == 0.0) continue;
+      } else {
+        if (mm == 0.0) continue;
+      }
+      double phiphi = p.theta[k], et = 0.0, etp = 0.0;
       if (L.zi != L.zj) {
-        // E-theta, E-theta' (Pitzer 1975, eqs. 23-24), as in e_theta().
+        // E-theta, E-theta' (Pitzer 1975, eqs. 23-24).
         const int ij = L.zi * L.zj, ii = L.zi * L.zi, jj = L.zj * L.zj;
         j_of(ij);
         j_of(ii);
         j_of(jj);
-        const double zz = static_cast<double>(ij);
-        const double et = zz / (4.0 * I) * (J[ij] - 0.5 * J[ii] - 0.5 * J[jj]);
-        const double etp = -et / I + zz / (8.0 * I * I) *
-                                         (x[ij] * dJ[ij] - 0.5 * x[ii] * dJ[ii] -
-                                          0.5 * x[jj] * dJ[jj]);
+        e_theta(static_cast<double>(ij), I, J[ij], J[ii], J[jj], x[ij] * dJ[ij], x[ii] * dJ[ii],
+                x[jj] * dJ[jj], et, etp);
         phiphi = p.theta[k] + et + I * etp;
       }
       double psum = 0.0;
       for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) psum += m[triplets_[t].k] * p.psi[t];
-      osm += mm * (phiphi + psum);
+      if (mm != 0.0) osm += mm * (phiphi + psum);
+      if constexpr (WithGamma) {
+        // Phi = theta + E-theta, Phi' = E-theta'.
+        if (mm != 0.0) {
+          F += mm * etp;
+          for (std::size_t t = L.psi_begin; t < L.psi_end; ++t)
+            lng[triplets_[t].k] += mm * p.psi[t];
+        }
+        const double w = 2.0 * (p.theta[k] + et) + psum;
+        lng[L.i] += mj * w;
+        lng[L.j] += mi * w;
+      }
     }
     r.osmotic_excess = 2.0 * osm;
+    if constexpr (WithGamma)
+      for (std::size_t k = 0; k < n_; ++k)
+        lng[k] += z_[k] * z_[k] * F + std::abs(z_[k]) * sum_mmC;
   }
 
   std::size_t n_ = 0;
   std::array<int, n_ions> z_{};
+  std::array<std::size_t, n_ions> global_{};   ///< slot -> index in data::pitzer_ions
+  std::array<std::size_t, n_ions> slot_of_{};  ///< index in data::pitzer_ions -> slot, n_ if absent
   std::vector<term> terms_;
   std::array<pair_row, max_pairs> pairs_{};
   std::size_t n_pairs_ = 0;
