@@ -66,10 +66,15 @@ def test_above_freezing_point_no_ice_and_validity_record():
     st = curve.at(290.0)
     assert st.state == "liquid" and st.ice == 0.0
     assert st.validity.in_range and st.validity.code == "in_range"
-    cold = curve.at(220.0)  # below the ice model's validated range (Murphy & Koop 2005)
+    # Below the Norrish constants' range (checked 233.15-323.15 K, norrish.hpp): the first
+    # limit crossed is reported as a record.
+    cold = curve.at(220.0)
     assert cold.validity.code == "temperature_out_of_range"
-    assert cold.validity.source == "murphy_koop_2005"
+    assert "norrish" in cold.validity.where
+    assert cold.validity.value == 220.0
     assert cold.validity.range_low == pytest.approx(233.15)
+    assert cold.validity.limit == pytest.approx(233.15)
+    assert "233.15-323.15 K" in cold.reason
 
 
 def test_unknown_path_names_the_valid_values():
