@@ -96,7 +96,10 @@ void register_thermal(py::module_& m) {
          const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
          const std::string& model, double bound_water) {
         const auto f = make_food(composition, s, bound_water, model);
-        return over_array(temperature, [&](double T) { return th::enthalpy(f, T); });
+        auto curve = th::ice_curve_of(f);  // one curve for every temperature
+        return over_array(temperature, [&](double T) {
+          return th::enthalpy(f, curve, T, colligate::range_policy::extrapolate);
+        });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
       py::arg("model") = "auto", py::arg("bound_water") = 0.0,
@@ -107,7 +110,10 @@ void register_thermal(py::module_& m) {
          const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
          const std::string& model, double bound_water) {
         const auto f = make_food(composition, s, bound_water, model);
-        return over_array(temperature, [&](double T) { return th::apparent_specific_heat(f, T); });
+        auto curve = th::ice_curve_of(f);
+        return over_array(temperature, [&](double T) {
+          return th::apparent_specific_heat(f, curve, T, colligate::range_policy::extrapolate);
+        });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
       py::arg("model") = "auto", py::arg("bound_water") = 0.0,

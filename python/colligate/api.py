@@ -7,6 +7,7 @@ tables). No physics and no data tables here; ``colligate`` re-exports every publ
 """
 from __future__ import annotations
 
+import math
 from typing import Any, Mapping, Union
 
 import numpy as np
@@ -244,15 +245,24 @@ def unfrozen_phase(
     s = _as_solution(solution)
     state = _core.unfrozen_phase(s, float(T), model, bound_water)
     _warn(state.reason)
-    return UnfrozenPhase(state, s.with_water(state.unfrozen_water))
+    return UnfrozenPhase(state, unfrozen_liquid(s, state))
+
+
+def unfrozen_liquid(solution: Solution, state: Any) -> Union[Solution, None]:
+    """The unfrozen liquid of ``solution`` in a curve state as a :class:`Solution`, or None
+    where the state has no liquid computed (below the end of the curve, not solved).
+    With salts crystallised it holds the dissolved amounts before crystallisation (the
+    ions left in the liquid are in :class:`IceCurve`)."""
+    w = float(state.unfrozen_water)
+    return solution.with_water(w) if math.isfinite(w) and w > 0.0 else None
 
 
 class UnfrozenPhase:
     """State of a partly frozen solution at one temperature (SI units)."""
 
-    def __init__(self, state: UnfrozenPhaseState, liquid: Solution) -> None:
+    def __init__(self, state: UnfrozenPhaseState, liquid: Union[Solution, None]) -> None:
         self._state = state
-        self.solution: Solution = liquid
+        self.solution: Union[Solution, None] = liquid
         self.temperature: float = state.temperature
         self.ice: float = state.ice
         self.unfrozen_water: float = state.unfrozen_water

@@ -146,7 +146,7 @@ class IcePath:
         """Ice, unfrozen water and liquid at ``T`` (K)."""
         state = self.curve.at(float(T))
         _warn(state.reason)
-        return api.UnfrozenPhase(state, self.solution.with_water(state.unfrozen_water))
+        return api.UnfrozenPhase(state, api.unfrozen_liquid(self.solution, state))
 
 
 def eutectic_entry(path: IcePath) -> dict[str, Any] | None:

@@ -34,6 +34,7 @@
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/thermal/components.hpp"
@@ -105,31 +106,43 @@ inline double latent_heat(double T) {
 
 }  // namespace detail
 
-/// Liquid share of the water at T and d(phi)/dT from the ice equilibrium
-/// g(u, T) = ln a_w(W_u = e^u, T) - ln a_w,ice(T) = 0:  du/dT = -g_T / g_u.
-inline liquid_share liquid_water_share(const food& f, double temperature) {
+/// The ice curve of a food's water phase (model and bound water of the food). Thermal
+/// functions prepare one per call and ask it at every temperature.
+inline equilibria::ice_curve ice_curve_of(const food& f) {
+  return equilibria::ice_curve(f.water_phase(), f.model(), f.bound_water_in_phase());
+}
+
+/// Liquid share of the water at T and d(phi)/dT, read from the food's ice curve. With
+/// ice alone, from the ice equilibrium g(u, T) = ln a_w(W_u = e^u, T) - ln a_w,ice(T) = 0:
+/// du/dT = -g_T / g_u; with salts crystallising, by a central difference on the curve.
+inline liquid_share liquid_water_share(const food& f, equilibria::ice_curve& curve,
+                                       double temperature) {
   liquid_share out;
   if (temperature >= constants::ice_point) return out;
   const solution& s = f.water_phase();
-  const auto u = equilibria::unfrozen_phase_at(s, temperature, f.model(), f.bound_water_in_phase());
+  const auto u = curve.at(temperature);
   out.check = u.check;
   if (u.status == equilibria::solve_status::not_frozen) return out;
   if (!u.success())
     throw convergence_error(std::string("liquid_water_share: ice curve solve stopped: ") +
-                            equilibria::to_string(u.status));
+                            equilibria::to_string(u.status) + ": " + u.check.reason());
   const double W = s.water_mass();
   out.phi = 1.0 - u.ice / W;
   if (!(u.unfrozen_water > 0.0)) return out;  // pure water: all freezable water is ice
-  const auto m = f.model();
   const double T = temperature;
+  if (u.state == equilibria::phase_state::ice_salts_liquid) {
+    const double h = 1e-3;  // K; the salt path is smooth between onsets
+    const auto up = curve.at(T + h), down = curve.at(T - h);
+    if (up.success() && down.success()) out.dphi_dT = -(up.ice - down.ice) / (2.0 * h * W);
+    return out;
+  }
+  const auto& m = f.model();
   const double ln_wu = std::log(u.unfrozen_water);
   const double hu = 1e-6, ht = 1e-4;
-  const double g_u = (models::ln_water_activity(m, s, std::exp(ln_wu + hu), T) -
-                      models::ln_water_activity(m, s, std::exp(ln_wu - hu), T)) /
-                     (2.0 * hu);
-  const double dlnaw_dT = (models::ln_water_activity(m, s, u.unfrozen_water, T + ht) -
-                           models::ln_water_activity(m, s, u.unfrozen_water, T - ht)) /
-                          (2.0 * ht);
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  const double g_u = (ln_aw(std::exp(ln_wu + hu), T) - ln_aw(std::exp(ln_wu - hu), T)) / (2.0 * hu);
+  const double dlnaw_dT =
+      (ln_aw(u.unfrozen_water, T + ht) - ln_aw(u.unfrozen_water, T - ht)) / (2.0 * ht);
   // d ln a_w,ice / dT = dH_fus(T) / (R T^2) (water/ice.hpp)
   const double dlnaice_dT =
       water::enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
@@ -138,16 +151,21 @@ inline liquid_share liquid_water_share(const food& f, double temperature) {
   return out;
 }
 
+/// Liquid share of the water at T (one ice curve prepared for this call).
+inline liquid_share liquid_water_share(const food& f, double temperature) {
+  auto curve = ice_curve_of(f);
+  return liquid_water_share(f, curve, temperature);
+}
+
 namespace detail {
 
 /// Liquid share of the water in the reference state (see the file comment).
-inline double reference_liquid_share(const food& f) {
+inline double reference_liquid_share(const food& f, equilibria::ice_curve& curve) {
   const solution& s = f.water_phase();
-  const auto u = equilibria::unfrozen_phase_at(s, reference_temperature, f.model(),
-                                               f.bound_water_in_phase());
+  const auto u = curve.at(reference_temperature);
   if (u.status == equilibria::solve_status::below_eutectic)
     return f.bound_water_in_phase() / s.water_mass();
-  return liquid_water_share(f, reference_temperature).phi;
+  return liquid_water_share(f, curve, reference_temperature).phi;
 }
 
 /// Enthalpy before the reference is subtracted, J/kg of food.
@@ -167,12 +185,12 @@ inline double raw_enthalpy(const food& f, double T, double phi) {
 
 }  // namespace detail
 
-/// Specific enthalpy of the food at T (K), J/kg, with H = 0 at 233.15 K (-40 C).
-inline checked_value enthalpy(const food& f, double temperature,
-                              range_policy policy = range_policy::extrapolate) {
+/// enthalpy() on a prepared ice curve of the food (ice_curve_of).
+inline checked_value enthalpy(const food& f, equilibria::ice_curve& curve, double temperature,
+                              range_policy policy) {
   detail::check_temperature("enthalpy", temperature);
-  const double ref_phi = detail::reference_liquid_share(f);
-  const auto now = liquid_water_share(f, temperature);
+  const double ref_phi = detail::reference_liquid_share(f, curve);
+  const auto now = liquid_water_share(f, curve, temperature);
   // Only the validity at T is reported: the reference state (-40 C) lies outside the
   // constants' range for most sugar solutions and would flag every temperature.
   const validity v = now.check;
@@ -181,17 +199,25 @@ inline checked_value enthalpy(const food& f, double temperature,
   return apply_policy(h, v, policy);
 }
 
+/// Specific enthalpy of the food at T (K), J/kg, with H = 0 at 233.15 K (-40 C).
+inline checked_value enthalpy(const food& f, double temperature,
+                              range_policy policy = range_policy::extrapolate) {
+  detail::check_temperature("enthalpy", temperature);
+  auto curve = ice_curve_of(f);
+  return enthalpy(f, curve, temperature, policy);
+}
+
 /// Apparent specific heat dH/dT at T (K), J/(kg K): sensible heat of every component plus
 /// the latent heat of the ice that forms or melts per kelvin.
-inline checked_value apparent_specific_heat(const food& f, double temperature,
-                                            range_policy policy = range_policy::extrapolate) {
+inline checked_value apparent_specific_heat(const food& f, equilibria::ice_curve& curve,
+                                            double temperature, range_policy policy) {
   detail::check_temperature("apparent_specific_heat", temperature);
   const auto& x = f.composition();
   const double T = temperature;
   double cp = solids_specific_heat(x, T);
   validity v;
   if (T <= constants::ice_point) {
-    const auto ls = liquid_water_share(f, T);
+    const auto ls = liquid_water_share(f, curve, T);
     v = ls.check;
     const double dL_dT = water::delta_heat_capacity_of_fusion(T) / constants::molar_mass_water;
     cp += x.water * (specific_heat(component::ice, T) + ls.phi * dL_dT +
@@ -200,6 +226,13 @@ inline checked_value apparent_specific_heat(const food& f, double temperature,
     cp += x.water * specific_heat(component::water, T);
   }
   return apply_policy(cp, v, policy);
+}
+
+/// apparent_specific_heat() with one ice curve prepared for this call.
+inline checked_value apparent_specific_heat(const food& f, double temperature,
+                                            range_policy policy = range_policy::extrapolate) {
+  auto curve = ice_curve_of(f);
+  return apparent_specific_heat(f, curve, temperature, policy);
 }
 
 /// Heat to remove per kg of food to cool it from `from_temperature` to `to_temperature`
@@ -223,8 +256,9 @@ inline heat_load_result heat_load(const food& f, double from_temperature, double
     throw invalid_input(colligate::detail::describe("heat_load", "steps", steps,
                                                     "must be between 10 and 100000"));
   heat_load_result r;
-  const auto h_from = enthalpy(f, from_temperature);
-  const auto h_to = enthalpy(f, to_temperature);
+  auto curve = ice_curve_of(f);
+  const auto h_from = enthalpy(f, curve, from_temperature, range_policy::extrapolate);
+  const auto h_to = enthalpy(f, curve, to_temperature, range_policy::extrapolate);
   r.total = h_from.value - h_to.value;
   r.check = h_from.check;
   r.check.merge(h_to.check);
@@ -234,14 +268,14 @@ inline heat_load_result heat_load(const food& f, double from_temperature, double
   const double lo = std::min(from_temperature, to_temperature);
   std::vector<double> grid;
   for (int k = 0; k <= steps; ++k) grid.push_back(hi - (hi - lo) * k / steps);
-  const auto fp = equilibria::freezing_point(f.water_phase(), f.model(), f.bound_water_in_phase());
+  const auto& fp = curve.initial_freezing_point();
   if (fp.success() && fp.temperature < hi && fp.temperature > lo) grid.push_back(fp.temperature);
   std::sort(grid.begin(), grid.end(), std::greater<double>());
   const double W = f.composition().water;
   double latent = 0.0;
-  double prev_phi = liquid_water_share(f, grid.front()).phi;
+  double prev_phi = liquid_water_share(f, curve, grid.front()).phi;
   for (std::size_t k = 1; k < grid.size(); ++k) {
-    const auto ls = liquid_water_share(f, grid[k]);
+    const auto ls = liquid_water_share(f, curve, grid[k]);
     r.check.merge(ls.check);
     const double mid = 0.5 * (grid[k - 1] + grid[k]);
     latent += W * (prev_phi - ls.phi) * detail::latent_heat(std::min(mid, constants::ice_point));
@@ -249,8 +283,8 @@ inline heat_load_result heat_load(const food& f, double from_temperature, double
   }
   r.latent = from_temperature >= to_temperature ? latent : -latent;
   r.sensible = r.total - r.latent;
-  r.ice_fraction_from = 1.0 - liquid_water_share(f, from_temperature).phi;
-  r.ice_fraction_to = 1.0 - liquid_water_share(f, to_temperature).phi;
+  r.ice_fraction_from = 1.0 - liquid_water_share(f, curve, from_temperature).phi;
+  r.ice_fraction_to = 1.0 - liquid_water_share(f, curve, to_temperature).phi;
   return r;
 }
 
