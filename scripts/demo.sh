@@ -1,7 +1,10 @@
 #!/usr/bin/env bash
-# Fresh machine -> installed colligate -> the built-in demo report and plot.
+# Fresh machine -> colligate installed into the project environment (.venv) -> the demo.
 set -euo pipefail
 cd "$(dirname "$0")/.."
-bash scripts/install_deps.sh
-CMAKE_BUILD_PARALLEL_LEVEL=2 python3 -m pip install -q --no-build-isolation .
+source scripts/common.sh
+
+bash scripts/install_deps.sh   # system check, .venv, build and runtime packages
+use_env                        # that environment first on PATH
+install_colligate              # skipped when the sources are unchanged
 colligate demo
