@@ -65,14 +65,15 @@ void register_core(py::module_& m) {
                                   "when none); ``reason`` is its text.")
       .def_property_readonly("code", [](const colligate::validity& v) { return colligate::to_string(v.code); })
       .def_property_readonly("in_range", &colligate::validity::in_range)
-      .def_readonly("where", &colligate::validity::where, "The model or function that checked.")
-      .def_readonly("quantity", &colligate::validity::quantity)
+      .def_property_readonly("where", &colligate::validity::where,
+                             "The model or function that checked.")
+      .def_property_readonly("quantity", &colligate::validity::quantity)
       .def_readonly("value", &colligate::validity::value, "Value of the quantity (SI, NaN if none).")
       .def_readonly("limit", &colligate::validity::limit, "The bound crossed (NaN if none).")
       .def_readonly("range_low", &colligate::validity::range_low)
       .def_readonly("range_high", &colligate::validity::range_high)
-      .def_readonly("source", &colligate::validity::source, "Citation key of the limit.")
-      .def_readonly("note", &colligate::validity::note)
+      .def_property_readonly("source", &colligate::validity::source, "Citation key of the limit.")
+      .def_property_readonly("note", &colligate::validity::note)
       .def_property_readonly("reason", &colligate::validity::reason)
       .def("__repr__", [](const colligate::validity& v) {
         return "Validity(" + std::string(colligate::to_string(v.code)) +

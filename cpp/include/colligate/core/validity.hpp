@@ -11,6 +11,7 @@
 #include <cstdint>
 #include <cstdio>
 #include <limits>
+#include <memory>
 #include <string>
 #include <utility>
 
@@ -61,48 +62,67 @@ inline const char* to_string(validity_code c) {
 
 /// Outcome of a validity check as a record: the code, which quantity, its value, the
 /// limit it crossed (and the validated range when there is one), and the citation key
-/// that sets the limit. Text is made from it only on request (reason()), at the edge;
-/// a check that passes builds no strings.
+/// that sets the limit. Text is made from it only on request (reason()), at the edge.
+/// A check that passes is a code and four numbers: its words are held behind a shared
+/// pointer that stays null, so passing, copying and merging it allocates nothing.
 struct validity {
+  /// The words of a record outside its range.
+  struct words_t {
+    std::string where;     ///< the model or function that checked ("model 'norrish'")
+    std::string quantity;  ///< "temperature", "molality of 'sodium_chloride' (mol/kg)"
+    std::string unit;      ///< unit of the limits in the text (" K", " mol/kg"), may be empty
+    std::string note;      ///< what the limit means or what happens beyond it
+    std::string source;    ///< citation key of the limit (data/citation.hpp), may be empty
+  };
+
   validity_code code = validity_code::in_range;
-  std::string where;     ///< the model or function that checked ("model 'norrish'")
-  std::string quantity;  ///< "temperature", "molality of 'sodium_chloride' (mol/kg)"
   double value = std::numeric_limits<double>::quiet_NaN();
   double limit = std::numeric_limits<double>::quiet_NaN();  ///< the bound crossed
   double range_low = std::numeric_limits<double>::quiet_NaN();   ///< validated range, if any
   double range_high = std::numeric_limits<double>::quiet_NaN();
-  std::string unit;    ///< unit of the limits in the text (" K", " mol/kg"), may be empty
-  std::string note;    ///< what the limit means or what happens beyond it
-  std::string source;  ///< citation key of the limit (data/citation.hpp), may be empty
+  std::shared_ptr<const words_t> words;  ///< null when in range
 
   bool in_range() const noexcept { return code == validity_code::in_range; }
   /// Keeps the first limit found.
   void merge(const validity& other) {
     if (in_range()) *this = other;
   }
+  const std::string& where() const noexcept { return words ? words->where : empty(); }
+  const std::string& quantity() const noexcept { return words ? words->quantity : empty(); }
+  const std::string& unit() const noexcept { return words ? words->unit : empty(); }
+  const std::string& note() const noexcept { return words ? words->note : empty(); }
+  const std::string& source() const noexcept { return words ? words->source : empty(); }
+
   /// Readable text: "" when in range.
   std::string reason() const {
     if (in_range()) return {};
-    const std::string src = source.empty() ? "" : " [" + source + "]";
+    const std::string src = source().empty() ? "" : " [" + source() + "]";
     const bool has_limit = code == validity_code::temperature_out_of_range ||
                            code == validity_code::concentration_out_of_range;
     if (!has_limit) {
-      if (std::isnan(value)) return where + ": " + quantity + (note.empty() ? "" : ": " + note) + src;
-      return colligate::detail::describe(where, quantity, value, note + src);
+      if (std::isnan(value))
+        return where() + ": " + quantity() + (note().empty() ? "" : ": " + note()) + src;
+      return colligate::detail::describe(where(), quantity(), value, note() + src);
     }
     std::string why;
     if (!std::isnan(range_low) && !std::isnan(range_high))
-      why = "outside " + fmt(range_low) + "-" + fmt(range_high) + unit;
+      why = "outside " + fmt(range_low) + "-" + fmt(range_high) + unit();
     else if (!std::isnan(limit))
-      why = std::string(value < limit ? "below " : "above ") + fmt(limit) + unit;
-    if (!note.empty()) why += (why.empty() ? "" : ", ") + note;
-    return colligate::detail::describe(where, quantity, value, why + src);
+      why = std::string(value < limit ? "below " : "above ") + fmt(limit) + unit();
+    if (!note().empty()) why += (why.empty() ? "" : ", ") + note();
+    return colligate::detail::describe(where(), quantity(), value, why + src);
   }
 
   static std::string fmt(double x) {
     char buf[32];
     std::snprintf(buf, sizeof buf, "%.6g", x);
     return buf;
+  }
+
+ private:
+  static const std::string& empty() noexcept {
+    static const std::string e;
+    return e;
   }
 };
 
@@ -113,15 +133,12 @@ inline validity outside_range(std::string where, std::string quantity, double va
                               validity_code code = validity_code::temperature_out_of_range) {
   validity v;
   v.code = code;
-  v.where = std::move(where);
-  v.quantity = std::move(quantity);
   v.value = value;
   v.limit = value < low ? low : high;
   v.range_low = low;
   v.range_high = high;
-  v.unit = std::move(unit);
-  v.note = std::move(note);
-  v.source = std::move(source);
+  v.words = std::make_shared<const validity::words_t>(validity::words_t{
+      std::move(where), std::move(quantity), std::move(unit), std::move(note), std::move(source)});
   return v;
 }
 
@@ -130,13 +147,10 @@ inline validity beyond_limit(std::string where, std::string quantity, double val
                              validity_code code = validity_code::concentration_out_of_range) {
   validity v;
   v.code = code;
-  v.where = std::move(where);
-  v.quantity = std::move(quantity);
   v.value = value;
   v.limit = limit;
-  v.unit = std::move(unit);
-  v.note = std::move(note);
-  v.source = std::move(source);
+  v.words = std::make_shared<const validity::words_t>(validity::words_t{
+      std::move(where), std::move(quantity), std::move(unit), std::move(note), std::move(source)});
   return v;
 }
 
@@ -145,10 +159,8 @@ inline validity flagged(validity_code code, std::string where, std::string what,
                         std::string source = {}) {
   validity v;
   v.code = code;
-  v.where = std::move(where);
-  v.quantity = std::move(what);
-  v.note = std::move(note);
-  v.source = std::move(source);
+  v.words = std::make_shared<const validity::words_t>(validity::words_t{
+      std::move(where), std::move(what), std::string(), std::move(note), std::move(source)});
   return v;
 }
 
