@@ -165,8 +165,20 @@ def eutectic_entry(path: IcePath) -> dict[str, Any] | None:
         "formula": str(e.get("formula") or ""),
         "source": str(e.get("source") or ""),
         "reason": str(e.get("reason") or ""),
-        "note": "below this temperature the salt hydrate crystallises with the ice and the ice "
-        "curve stops; a model estimate for brines and ice-salt baths: " + VERIFY_NOTE,
+        "note": "below this temperature no liquid remains (the last salt crystallises with the "
+        "ice) and the ice curve stops; a model estimate for brines and ice-salt baths: "
+        + VERIFY_NOTE,
+        "salts": [
+            {
+                "phase": str(s["name"]),
+                "formula": str(s["formula"]),
+                "source": str(s["source"]),
+                "onset_temperature_C": celsius_from_kelvin(float(s["onset_temperature_K"])),
+                "ends_temperature_C": (celsius_from_kelvin(float(s["ends_temperature_K"]))
+                                       if math.isfinite(float(s["ends_temperature_K"])) else None),
+            }
+            for s in e.get("salts", [])
+        ],
     }
 
 

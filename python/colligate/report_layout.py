@@ -114,6 +114,14 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         else:
             lines.extend(_wrap(f"eutectic: not found ({eut['reason'] or 'no salt limit in range'})",
                                indent="    ", first="  "))
+        earlier = [s for s in eut.get("salts", []) if not (eut["found"] and s["phase"] == eut.get("phase"))]
+        if earlier:
+            steps = "; ".join(
+                f"{s['phase']} ({s['formula']}) from {s['onset_temperature_C']:.1f} °C"
+                + (f" to {s['ends_temperature_C']:.1f} °C" if s.get("ends_temperature_C") is not None else "")
+                for s in earlier)
+            lines.extend(_wrap(f"salts crystallising on the way down (equilibrium path): {steps}",
+                               indent="    ", first="    "))
 
     # ice table
     unit = "°C" + (" / °F" if fahrenheit else "")
