@@ -6,9 +6,10 @@
 PYBIND11_MODULE(_core, m) {
   m.doc() = "colligate compiled core: activity models, ice equilibrium, freezing points.";
   m.attr("__version__") = COLLIGATE_VERSION;
-  // fit first: it registers SoluteTable, which the Solution factories take as table=
-  colligate_bindings::register_fit(m);
+  // Types first, then the areas in any order (each only adds definitions).
+  colligate_bindings::declare_types(m);
   colligate_bindings::register_core(m);
+  colligate_bindings::register_fit(m);
   colligate_bindings::register_equilibria(m);
   colligate_bindings::register_thermal(m);
   colligate_bindings::register_batch(m);

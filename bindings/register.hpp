@@ -15,6 +15,15 @@ namespace py = pybind11;
 /// One solute record as a dict (SI units, source keys).
 py::dict solute_row(const colligate::data::solute_record& r);
 
+/// Declares every bound class (name, docstring) before any definition (declare_types.cpp).
+void declare_types(py::module_& m);
+
+/// The class declared for T under `name`, to add methods and properties to.
+template <class T>
+py::class_<T> bound_class(py::module_& m, const char* name) {
+  return py::reinterpret_borrow<py::class_<T>>(m.attr(name));
+}
+
 void register_core(py::module_& m);
 void register_equilibria(py::module_& m);
 void register_thermal(py::module_& m);

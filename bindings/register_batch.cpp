@@ -41,8 +41,7 @@ colligate::batch::options make_options(int threads, const std::string& policy, d
 }  // namespace
 
 void register_batch(py::module_& m) {
-  py::class_<solution_batch>(m, "SolutionBatchCore",
-                             "Many solutions with one species list (molalities, mol/kg water).")
+  bound_class<solution_batch>(m, "SolutionBatchCore")
       .def_static(
           "from_molalities",
           [](const std::vector<std::string>& species, const array_in& data) {

@@ -60,9 +60,7 @@ void register_core(py::module_& m) {
                                                            PyExc_ValueError);
   py::register_exception<colligate::convergence_error>(m, "ConvergenceError", PyExc_RuntimeError);
 
-  py::class_<colligate::validity>(m, "Validity",
-                                  "Which limit a result crossed, as a record (code 'in_range' "
-                                  "when none); ``reason`` is its text.")
+  bound_class<colligate::validity>(m, "Validity")
       .def_property_readonly("code", [](const colligate::validity& v) { return colligate::to_string(v.code); })
       .def_property_readonly("in_range", &colligate::validity::in_range)
       .def_property_readonly("where", &colligate::validity::where,
@@ -80,30 +78,8 @@ void register_core(py::module_& m) {
                (v.in_range() ? "" : ": " + v.reason()) + ")";
       });
 
-  py::enum_<colligate::batch::row_status>(m, "RowStatus",
-                                          "Outcome of one row of a batch calculation (the code "
-                                          "stored in status arrays).")
-      .value("ok", colligate::batch::row_status::ok)
-      .value("out_of_range", colligate::batch::row_status::out_of_range)
-      .value("invalid_input", colligate::batch::row_status::invalid_input)
-      .value("no_freezing_point", colligate::batch::row_status::no_freezing_point)
-      .value("not_converged", colligate::batch::row_status::not_converged)
-      .value("below_curve_end", colligate::batch::row_status::below_curve_end);
 
-  py::class_<solution>(m, "Solution", R"doc(
-An aqueous solution: kilograms of water plus moles of each solute. Immutable.
-
-Parameters
-----------
-water : float
-    Mass of water, kg (> 0).
-solutes : mapping of str to float
-    Mass of each solute, kg (>= 0). Names are case-insensitive; ids, common names,
-    formulas and aliases are accepted ("sucrose", "NaCl", "dextrose").
-table : SoluteTable, optional (keyword)
-    Where solute names are looked up (default: the built-in table). Every factory takes
-    it; use ``colligate.fit.SoluteLibrary`` to add fitted solutes to the built-ins.
-)doc")
+  bound_class<solution>(m, "Solution")
       .def(py::init([](double water, const py::object& solutes,
                        const colligate::data::solute_table* table) {
              return solution::from_masses(water, to_named_amounts(solutes, "solutes"),

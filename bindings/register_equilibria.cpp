@@ -55,8 +55,7 @@ void register_equilibria(py::module_& m) {
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate");
   // The dairy method of Leighton (1927) / Goff & Hartel (2013) (equilibria/leighton_method.hpp).
-  py::class_<eq::leighton::mix_terms>(m, "LeightonTerms",
-                                      "Inputs of the Leighton dairy method, g per 100 g of mix.")
+  bound_class<eq::leighton::mix_terms>(m, "LeightonTerms")
       .def_readonly("sucrose_equivalent", &eq::leighton::mix_terms::sucrose_equivalent)
       .def_readonly("milk_solids", &eq::leighton::mix_terms::milk_solids)
       .def_readonly("water", &eq::leighton::mix_terms::water)
@@ -119,8 +118,7 @@ void register_equilibria(py::module_& m) {
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0);
 
-  py::class_<eq::unfrozen_phase>(m, "UnfrozenPhaseState",
-                                 "State of a partly frozen solution at one temperature (SI).")
+  bound_class<eq::unfrozen_phase>(m, "UnfrozenPhaseState")
       .def_readonly("temperature", &eq::unfrozen_phase::temperature, "Temperature, K.")
       .def_readonly("total_water", &eq::unfrozen_phase::total_water, "Water in the food, kg.")
       .def_readonly("bound_water", &eq::unfrozen_phase::bound_water, "Unfreezable water, kg.")

@@ -82,11 +82,7 @@ py::dict record_row(const data::solute_record& r) {
 }  // namespace
 
 void register_fit(py::module_& m) {
-  py::class_<fit::fit_result>(m, "FitResult", R"doc(
-Result of a least-squares fit (SI units of the fitted model).
-
-Non-convergence is a status, not an exception: check ``success`` or ``status``.
-)doc")
+  bound_class<fit::fit_result>(m, "FitResult")
       .def_readonly("params", &fit::fit_result::params, "Fitted parameters.")
       .def_readonly("parameter_names", &fit::fit_result::parameter_names,
                     "Parameter names (empty for curve_fit).")
@@ -115,7 +111,7 @@ Non-convergence is a status, not an exception: check ``success`` or ``status``.
       .def("confidence_intervals", &fit::fit_result::confidence_intervals, py::arg("level") = 0.95,
            "(k, 2) array of lower and upper limits at ``level`` (Student t, n - k dof).");
 
-  py::class_<data::solute_record>(m, "SoluteRecord", "One solute: identity, molar mass, model constants.")
+  bound_class<data::solute_record>(m, "SoluteRecord")
       .def_readonly("id", &data::solute_record::id)
       .def_readonly("name", &data::solute_record::name)
       .def_readonly("molar_mass", &data::solute_record::molar_mass, "kg/mol")
@@ -135,10 +131,7 @@ Non-convergence is a status, not an exception: check ``success`` or ``status``.
                              "d/dT per K, max_molality mol/kg, temperature range K), or None.")
       .def("as_dict", &record_row);
 
-  py::class_<data::solute_table>(m, "SoluteTable", R"doc(
-A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
-table; pass one to the ``table=`` argument of the Solution factories to use fitted solutes.
-)doc")
+  bound_class<data::solute_table>(m, "SoluteTable")
       .def(py::init([](bool include_builtin) {
              return include_builtin ? data::builtin_solutes() : data::solute_table();
            }),

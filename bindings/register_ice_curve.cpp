@@ -17,8 +17,7 @@ void register_ice_curve(py::module_& m) {
   namespace eq = colligate::equilibria;
   using colligate::solution;
 
-  py::class_<eq::ice_curve_state>(m, "IceCurveState",
-                                  "A solution on its ice curve at one temperature (SI: K, kg, mol).")
+  bound_class<eq::ice_curve_state>(m, "IceCurveState")
       .def_readonly("temperature", &eq::ice_curve_state::temperature, "Temperature, K.")
       .def_property_readonly("state", [](const eq::ice_curve_state& s) { return eq::to_string(s.state); },
                              "'liquid', 'ice_and_liquid', 'ice_salts_liquid', 'below_curve_end' or 'not_solved'.")
@@ -41,24 +40,7 @@ void register_ice_curve(py::module_& m) {
       .def_readonly("validity", &eq::ice_curve_state::check,
                     "The limit crossed, as a record (Validity).");
 
-  py::class_<eq::ice_curve>(m, "IceCurve", R"doc(
-The ice curve of one solution under one activity model, prepared once.
-
-Knows the initial freezing point and the solid phases along the freezing path (ice, then
-each salt or salt hydrate as the unfrozen brine saturates in it), and answers for any
-temperature (K): phase state, ice, salts crystallised, the unfrozen liquid, a_w.
-
-Parameters
-----------
-solution : Solution
-model : str
-    Activity model id ('auto' chooses for the solutes present).
-bound_water : float
-    Water that cannot freeze, kg (same scale as the solution's water).
-path : str
-    'equilibrium' (crystallised salts stay in contact with the brine and may
-    redissolve) or 'fractional' (each salt is removed as it forms).
-)doc")
+  bound_class<eq::ice_curve>(m, "IceCurve")
       .def(py::init([](const solution& s, const std::string& model, double bound_water,
                        const std::string& path) {
              return std::make_unique<eq::ice_curve>(s, colligate::models::model_choice(model),

@@ -7,165 +7,22 @@ import numpy
 import numpy.typing
 import typing
 __all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
-class FitResult:
+class SolutionBatchCore:
     """
-    Result of a least-squares fit (SI units of the fitted model).
-    
-    Non-convergence is a status, not an exception: check ``success`` or ``status``.
+    Many solutions with one species list (molalities, mol/kg water).
     """
-    def confidence_intervals(self, level: typing.SupportsFloat | typing.SupportsIndex = 0.95) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
-        """
-        (k, 2) array of lower and upper limits at ``level`` (Student t, n - k dof).
-        """
-    @property
-    def at_bound(self) -> list[bool]:
+    @staticmethod
+    def from_mass_fractions(species: collections.abc.Sequence[str], mass_fractions: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+        ...
+    @staticmethod
+    def from_molalities(species: collections.abc.Sequence[str], molalities: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
         ...
     @property
-    def chi_square(self) -> float:
-        """
-        Sum of weighted squared residuals.
-        """
-    @property
-    def contradictory_duplicates(self) -> list[list[int]]:
-        """
-        Groups of row indices with equal x but contradictory y.
-        """
-    @property
-    def covariance(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
-        """
-        Covariance of the parameters (NaN if singular or dof = 0).
-        """
-    @property
-    def degrees_of_freedom(self) -> int:
+    def rows(self) -> int:
         ...
     @property
-    def fitted(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
-        """
-        Model values at the data points.
-        """
-    @property
-    def function_evaluations(self) -> int:
+    def species(self) -> list[str]:
         ...
-    @property
-    def iterations(self) -> int:
-        ...
-    @property
-    def jacobian_evaluations(self) -> int:
-        ...
-    @property
-    def message(self) -> str:
-        ...
-    @property
-    def n_points(self) -> int:
-        ...
-    @property
-    def parameter_names(self) -> list[str]:
-        """
-        Parameter names (empty for curve_fit).
-        """
-    @property
-    def params(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
-        """
-        Fitted parameters.
-        """
-    @property
-    def r_squared(self) -> float:
-        ...
-    @property
-    def reciprocal_condition(self) -> float:
-        """
-        Reciprocal condition number of the column-scaled weighted Jacobian.
-        """
-    @property
-    def residual_variance(self) -> float:
-        """
-        chi_square / dof.
-        """
-    @property
-    def residuals(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
-        """
-        Data minus model, unweighted.
-        """
-    @property
-    def standard_errors(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
-        ...
-    @property
-    def status(self) -> str:
-        """
-        'converged', 'max_iterations', 'max_evaluations', 'singular' or 'non_finite'.
-        """
-    @property
-    def success(self) -> bool:
-        ...
-class SoluteRecord:
-    """
-    One solute: identity, molar mass, model constants.
-    """
-    def as_dict(self) -> dict:
-        ...
-    @property
-    def formula(self) -> str:
-        ...
-    @property
-    def id(self) -> str:
-        ...
-    @property
-    def kind(self) -> str:
-        ...
-    @property
-    def max_mass_fraction(self) -> float:
-        ...
-    @property
-    def molar_mass(self) -> float:
-        """
-        kg/mol
-        """
-    @property
-    def name(self) -> str:
-        ...
-    @property
-    def norrish_k(self) -> float:
-        ...
-    @property
-    def norrish_k3(self) -> float:
-        ...
-    @property
-    def note(self) -> str:
-        ...
-    @property
-    def pitzer(self) -> typing.Any:
-        """
-        The record's own Pitzer binary parameters (dict: values at 298.15 K, d/dT per K, max_molality mol/kg, temperature range K), or None.
-        """
-class SoluteTable:
-    """
-    A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
-    table; pass one to the ``table=`` argument of the Solution factories to use fitted solutes.
-    """
-    def __contains__(self, arg0: str) -> bool:
-        ...
-    def __init__(self, include_builtin: bool = True) -> None:
-        ...
-    def __len__(self) -> int:
-        ...
-    def add(self, record: SoluteRecord) -> None:
-        """
-        Adds a record; raises if its id or a name is already taken.
-        """
-    def find(self, name: str) -> SoluteRecord:
-        """
-        The record for a name (case-insensitive; ids, names, aliases).
-        """
-    def rows(self) -> list:
-        """
-        All records as a list of dicts.
-        """
-class InvalidInputError(ValueError):
-    pass
-class OutOfValidityRangeError(ValueError):
-    pass
-class ConvergenceError(RuntimeError):
-    pass
 class Validity:
     """
     Which limit a result crossed, as a record (code 'in_range' when none); ``reason`` is its text.
@@ -213,65 +70,6 @@ class Validity:
         """
         The model or function that checked.
         """
-class RowStatus:
-    """
-    Outcome of one row of a batch calculation (the code stored in status arrays).
-    
-    Members:
-    
-      ok
-    
-      out_of_range
-    
-      invalid_input
-    
-      no_freezing_point
-    
-      not_converged
-    
-      below_curve_end
-    """
-    __members__: typing.ClassVar[dict[str, RowStatus]]
-    below_curve_end: typing.ClassVar[RowStatus]
-    invalid_input: typing.ClassVar[RowStatus]
-    no_freezing_point: typing.ClassVar[RowStatus]
-    not_converged: typing.ClassVar[RowStatus]
-    ok: typing.ClassVar[RowStatus]
-    out_of_range: typing.ClassVar[RowStatus]
-    @typing.overload
-    def __eq__(self, other: RowStatus) -> bool:
-        ...
-    @typing.overload
-    def __eq__(self, other: typing.Any) -> bool:
-        ...
-    def __getstate__(self) -> int:
-        ...
-    def __hash__(self) -> int:
-        ...
-    def __index__(self) -> int:
-        ...
-    def __init__(self, value: typing.SupportsInt | typing.SupportsIndex) -> None:
-        ...
-    def __int__(self) -> int:
-        ...
-    @typing.overload
-    def __ne__(self, other: RowStatus) -> bool:
-        ...
-    @typing.overload
-    def __ne__(self, other: typing.Any) -> bool:
-        ...
-    def __repr__(self) -> str:
-        ...
-    def __setstate__(self, state: typing.SupportsInt | typing.SupportsIndex) -> None:
-        ...
-    def __str__(self) -> str:
-        ...
-    @property
-    def name(self) -> str:
-        ...
-    @property
-    def value(self) -> int:
-        ...
 class Solution:
     """
     An aqueous solution: kilograms of water plus moles of each solute. Immutable.
@@ -445,22 +243,159 @@ class UnfrozenPhaseState:
         """
         Water activity of the unfrozen phase.
         """
-class SolutionBatchCore:
+class FitResult:
     """
-    Many solutions with one species list (molalities, mol/kg water).
+    Result of a least-squares fit (SI units of the fitted model).
+    
+    Non-convergence is a status, not an exception: check ``success`` or ``status``.
     """
-    @staticmethod
-    def from_mass_fractions(species: collections.abc.Sequence[str], mass_fractions: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
-        ...
-    @staticmethod
-    def from_molalities(species: collections.abc.Sequence[str], molalities: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+    def confidence_intervals(self, level: typing.SupportsFloat | typing.SupportsIndex = 0.95) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
+        """
+        (k, 2) array of lower and upper limits at ``level`` (Student t, n - k dof).
+        """
+    @property
+    def at_bound(self) -> list[bool]:
         ...
     @property
-    def rows(self) -> int:
+    def chi_square(self) -> float:
+        """
+        Sum of weighted squared residuals.
+        """
+    @property
+    def contradictory_duplicates(self) -> list[list[int]]:
+        """
+        Groups of row indices with equal x but contradictory y.
+        """
+    @property
+    def covariance(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
+        """
+        Covariance of the parameters (NaN if singular or dof = 0).
+        """
+    @property
+    def degrees_of_freedom(self) -> int:
         ...
     @property
-    def species(self) -> list[str]:
+    def fitted(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Model values at the data points.
+        """
+    @property
+    def function_evaluations(self) -> int:
         ...
+    @property
+    def iterations(self) -> int:
+        ...
+    @property
+    def jacobian_evaluations(self) -> int:
+        ...
+    @property
+    def message(self) -> str:
+        ...
+    @property
+    def n_points(self) -> int:
+        ...
+    @property
+    def parameter_names(self) -> list[str]:
+        """
+        Parameter names (empty for curve_fit).
+        """
+    @property
+    def params(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Fitted parameters.
+        """
+    @property
+    def r_squared(self) -> float:
+        ...
+    @property
+    def reciprocal_condition(self) -> float:
+        """
+        Reciprocal condition number of the column-scaled weighted Jacobian.
+        """
+    @property
+    def residual_variance(self) -> float:
+        """
+        chi_square / dof.
+        """
+    @property
+    def residuals(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        """
+        Data minus model, unweighted.
+        """
+    @property
+    def standard_errors(self) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]:
+        ...
+    @property
+    def status(self) -> str:
+        """
+        'converged', 'max_iterations', 'max_evaluations', 'singular' or 'non_finite'.
+        """
+    @property
+    def success(self) -> bool:
+        ...
+class SoluteRecord:
+    """
+    One solute: identity, molar mass, model constants.
+    """
+    def as_dict(self) -> dict:
+        ...
+    @property
+    def formula(self) -> str:
+        ...
+    @property
+    def id(self) -> str:
+        ...
+    @property
+    def kind(self) -> str:
+        ...
+    @property
+    def max_mass_fraction(self) -> float:
+        ...
+    @property
+    def molar_mass(self) -> float:
+        """
+        kg/mol
+        """
+    @property
+    def name(self) -> str:
+        ...
+    @property
+    def norrish_k(self) -> float:
+        ...
+    @property
+    def norrish_k3(self) -> float:
+        ...
+    @property
+    def note(self) -> str:
+        ...
+    @property
+    def pitzer(self) -> typing.Any:
+        """
+        The record's own Pitzer binary parameters (dict: values at 298.15 K, d/dT per K, max_molality mol/kg, temperature range K), or None.
+        """
+class SoluteTable:
+    """
+    A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
+    table; pass one to the ``table=`` argument of the Solution factories to use fitted solutes.
+    """
+    def __contains__(self, arg0: str) -> bool:
+        ...
+    def __init__(self, include_builtin: bool = True) -> None:
+        ...
+    def __len__(self) -> int:
+        ...
+    def add(self, record: SoluteRecord) -> None:
+        """
+        Adds a record; raises if its id or a name is already taken.
+        """
+    def find(self, name: str) -> SoluteRecord:
+        """
+        The record for a name (case-insensitive; ids, names, aliases).
+        """
+    def rows(self) -> list:
+        """
+        All records as a list of dicts.
+        """
 class IceCurveState:
     """
     A solution on its ice curve at one temperature (SI: K, kg, mol).
@@ -597,6 +532,71 @@ class IceCurve:
         """
         The salt phases along the path, in the order they form (onset and end in K; end NaN if the phase stays to the end of the curve).
         """
+class RowStatus:
+    """
+    Outcome of one row of a batch calculation (the code stored in status arrays).
+    
+    Members:
+    
+      ok
+    
+      out_of_range
+    
+      invalid_input
+    
+      no_freezing_point
+    
+      not_converged
+    
+      below_curve_end
+    """
+    __members__: typing.ClassVar[dict[str, RowStatus]]
+    below_curve_end: typing.ClassVar[RowStatus]
+    invalid_input: typing.ClassVar[RowStatus]
+    no_freezing_point: typing.ClassVar[RowStatus]
+    not_converged: typing.ClassVar[RowStatus]
+    ok: typing.ClassVar[RowStatus]
+    out_of_range: typing.ClassVar[RowStatus]
+    @typing.overload
+    def __eq__(self, other: RowStatus) -> bool:
+        ...
+    @typing.overload
+    def __eq__(self, other: typing.Any) -> bool:
+        ...
+    def __getstate__(self) -> int:
+        ...
+    def __hash__(self) -> int:
+        ...
+    def __index__(self) -> int:
+        ...
+    def __init__(self, value: typing.SupportsInt | typing.SupportsIndex) -> None:
+        ...
+    def __int__(self) -> int:
+        ...
+    @typing.overload
+    def __ne__(self, other: RowStatus) -> bool:
+        ...
+    @typing.overload
+    def __ne__(self, other: typing.Any) -> bool:
+        ...
+    def __repr__(self) -> str:
+        ...
+    def __setstate__(self, state: typing.SupportsInt | typing.SupportsIndex) -> None:
+        ...
+    def __str__(self) -> str:
+        ...
+    @property
+    def name(self) -> str:
+        ...
+    @property
+    def value(self) -> int:
+        ...
+class InvalidInputError(ValueError):
+    pass
+class OutOfValidityRangeError(ValueError):
+    pass
+class ConvergenceError(RuntimeError):
+    pass
 def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:

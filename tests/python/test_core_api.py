@@ -121,3 +121,20 @@ def test_solute_table_and_citations():
         assert used <= keys, used - keys
     assert cg.citation("murphy_koop_2005")["year"] == 2005
     assert "Norrish" in cg.describe_model(cg.Solution.from_brix(20))
+
+
+def test_bound_signatures_name_python_types_only():
+    # The binding areas register in any order (bindings/declare_types.cpp declares every
+    # class first): no signature of the compiled module falls back to a C++ type name.
+    import inspect
+
+    from colligate import _core
+
+    texts = []
+    for name, obj in vars(_core).items():
+        doc = getattr(obj, "__doc__", None) or ""
+        texts.append(doc)
+        if inspect.isclass(obj):
+            texts.extend((getattr(v, "__doc__", None) or "") for v in vars(obj).values())
+    joined = "\n".join(texts)
+    assert "colligate::" not in joined and "std::" not in joined
