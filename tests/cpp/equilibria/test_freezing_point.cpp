@@ -89,7 +89,7 @@ TEST_CASE("freezing point edge cases", "[equilibria]") {
   const auto water = solution::from_molalities({});
   CHECK(equilibria::freezing_point(water).temperature == constants::ice_point);
   // 60 wt% ethanol does not freeze above -50 C? It freezes near -45 C (CRC: 44.93 K at 60 wt%),
-  // outside the model's 40 wt% range: flagged, not silent.
+  // below the 233.15 K where the ice equilibrium is validated: flagged, not silent.
   const auto strong = solution::from_mass_fractions({{"ethanol", 0.6}});
   const auto r = equilibria::freezing_point(strong);
   CHECK_FALSE(r.check.in_range());

@@ -76,7 +76,7 @@ TEST_CASE("models declare their validity and the policy applies it", "[models][v
   CHECK(std::isnan(models::water_activity(salty, 298.15, "norrish", range_policy::nan).value));
   CHECK_THROWS_AS(models::water_activity(salty, 298.15, "norrish", range_policy::raise),
                   out_of_validity_range);
-  const auto syrup = solution::from_mass_fractions({{"ethanol", 0.6}});
+  const auto syrup = solution::from_mass_fractions({{"ethanol", 0.75}});  // above its 0.68
   CHECK_THAT(models::water_activity(syrup, 298.15).check.reason(), Contains("ethanol"));
   CHECK_THROWS_WITH(models::model_choice("pitzr"), Contains("valid models"));
 }

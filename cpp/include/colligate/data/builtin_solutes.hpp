@@ -70,6 +70,16 @@ inline norrish_constants norrish(double k, const char* k_source, double k3, doub
   return n;
 }
 
+/// The same, with K, K3 and K4 taken in the effective volume fraction of ratio
+/// `volume_ratio` (norrish_constants::volume_ratio).
+inline norrish_constants norrish(double k, const char* k_source, double k3, double k4,
+                                 double volume_ratio, const char* k3_source,
+                                 double max_mass_fraction, const char* note) {
+  norrish_constants n = norrish(k, k_source, k3, k4, k3_source, max_mass_fraction, note);
+  n.volume_ratio = volume_ratio;
+  return n;
+}
+
 }  // namespace detail
 
 /// The built-in table; built once, immutable afterwards (thread-safe initialisation).

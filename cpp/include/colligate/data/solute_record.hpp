@@ -19,11 +19,16 @@ enum class solute_class { non_electrolyte, electrolyte };
 /// Sign convention (ours): ln a_w = ln x_w - K x_s^2 - K3 x_s^3 - K4 x_s^4 for a single solute,
 /// so K > 0 for sugars (activity below Raoult's law). Norrish (1966) and Chirife et al.
 /// (1980) print the same constants with the opposite sign.
+/// With volume_ratio r != 1 the three terms are taken in the effective volume fraction
+/// z_s = x_s / (x_s + r (1 - x_s)) instead of x_s (models/norrish.hpp).
 struct norrish_constants {
   bool available = false;
   double k = 0.0;                 ///< quadratic constant K (dimensionless)
   double k3 = 0.0;                ///< cubic constant K3 (dimensionless, 0 if unused)
   double k4 = 0.0;                ///< quartic constant K4 (dimensionless, 0 if unused)
+  /// r = q_water / q_solute of the effective volume fraction (Wohl 1946) in which K, K3, K4
+  /// are taken; 1 (default) is Norrish's mole-fraction form. Source: k3_source.
+  double volume_ratio = 1.0;
   double max_mass_fraction = 0.0; ///< highest solute mass fraction (binary) validated
   std::string k_source;           ///< citation key for K
   std::string k3_source;          ///< citation key for K3 and K4 (empty if both are 0)

@@ -13,8 +13,23 @@
 ///                     - sum_i (K3_i x_i^3 + K4_i x_i^4)
 ///
 /// The published extension covers K > 0; solutes whose water activity lies above Raoult's
-/// law (K < 0, e.g. ethanol) and the higher-order terms are added per solute (colligate's
-/// choice; it reduces to the single-solute form exactly). Mole fractions count every
+/// law (K < 0, e.g. lactic acid) and the higher-order terms are added per solute (colligate's
+/// choice; it reduces to the single-solute form exactly).
+///
+/// Effective volume fraction (per solute, records with norrish_constants::volume_ratio
+/// r != 1; only ethanol among the built-in solutes): the solute's K, K3 and K4 are taken in
+/// z_i = x_i / (x_i + r (1 - x_i)), the effective volume fraction of Wohl's expansion
+/// (Wohl 1946, Trans. AIChE 42, 215; r = q_water / q_solute), and the whole term is added
+/// per solute, whatever the sign of K:
+///
+///     ln a_w = ... - (K_i z_i^2 + K3_i z_i^3 + K4_i z_i^4)
+///
+/// With r = 1, z = x and the term is the mole-fraction one; records with r = 1 go through
+/// the mole-fraction code unchanged. Ethanol-water needs it: in x, three constants follow the
+/// freezing curve only to 40 wt% and turn ln a_w upward beyond; in z they follow it to
+/// 68 wt% with ln a_w falling strictly in x on [0, 1) (tools/fit_crc_norrish.py). A term
+/// with d(ln a_w)/dx < 0 in its binary stays so in any mixture whose other terms do not rise
+/// as water is removed (tests/cpp/models/test_ethanol.cpp). Mole fractions count every
 /// dissolved particle: x_w = n_w / (n_w + sum nu_i n_i), so electrolytes, which have no
 /// Norrish constant, contribute their ions as ideal particles until the electrolyte model
 /// takes over.
@@ -51,7 +66,7 @@ struct norrish {
     return sum(s.size(), water_kg, [&](std::size_t i) {
       const auto& rec = species[i];
       return solute_view{static_cast<double>(rec.particles), moles[i], rec.norrish.available,
-                         rec.norrish.k, rec.norrish.k3, rec.norrish.k4};
+                         rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
     });
   }
 
@@ -62,12 +77,13 @@ struct norrish {
     double particles;
     bool available;
     double k, k3, k4;
+    double volume_ratio;  ///< 1: mole-fraction terms; else effective volume fraction
   };
 
   static term term_of(const solution& s, std::size_t i) {
     const auto& rec = s.species()[i];
     return {i, static_cast<double>(rec.particles), rec.norrish.available, rec.norrish.k,
-            rec.norrish.k3, rec.norrish.k4};
+            rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
   }
 
   /// ln a_w of the solutes `terms[0..n)` alone with `water_kg` of water, `moles` indexed
@@ -77,7 +93,8 @@ struct norrish {
                                   double water_kg) {
     return sum(n, water_kg, [&](std::size_t i) {
       const auto& t = terms[i];
-      return solute_view{t.particles, moles[t.species], t.available, t.k, t.k3, t.k4};
+      return solute_view{t.particles, moles[t.species], t.available, t.k, t.k3, t.k4,
+                         t.volume_ratio};
     });
   }
 
@@ -122,7 +139,15 @@ struct norrish {
     double moles;
     bool available;
     double k, k3, k4;
+    double volume_ratio;
   };
+
+  /// K z^2 + K3 z^3 + K4 z^4 of one solute at mole fraction x, z = x / (x + r (1 - x)).
+  static double volume_fraction_terms(const solute_view& v, double x) {
+    const double r = v.volume_ratio;
+    const double z = x / (x + r * (1.0 - x));
+    return z * z * (v.k + z * (v.k3 + v.k4 * z));
+  }
 
   /// The one implementation of the sum in the file comment (Norrish 1966 eq. 7; Chirife,
   /// Ferro Fontan & Benmergui 1980 eq. 4, extended as described there) over solutes
@@ -141,6 +166,10 @@ struct norrish {
       const solute_view v = view(i);
       if (!v.available) continue;
       const double x = v.moles / n_total;
+      if (v.volume_ratio != 1.0) {  // per-solute term in the effective volume fraction
+        extra -= volume_fraction_terms(v, x);
+        continue;
+      }
       if (v.k > 0.0)
         sqrt_sum += std::sqrt(v.k) * x;
       else
