@@ -23,6 +23,7 @@ py::dict solute_row(const colligate::data::solute_record& r) {
   d["particles"] = r.particles;
   d["norrish_k"] = r.norrish.available ? py::cast(r.norrish.k) : py::none();
   d["norrish_k3"] = r.norrish.available ? py::cast(r.norrish.k3) : py::none();
+  d["norrish_volume_ratio"] = r.norrish.available ? py::cast(r.norrish.volume_ratio) : py::none();
   d["norrish_k4"] = r.norrish.available ? py::cast(r.norrish.k4) : py::none();
   d["norrish_max_mass_fraction"] =
       r.norrish.available ? py::cast(r.norrish.max_mass_fraction) : py::none();

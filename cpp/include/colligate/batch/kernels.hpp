@@ -19,6 +19,7 @@
 
 #include "colligate/batch/solution_batch.hpp"
 #include "colligate/core/solution.hpp"
+#include "colligate/core/solution_workspace.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_curve.hpp"
@@ -35,17 +36,12 @@ struct options {
 
 namespace detail {
 
-/// One solution whose moles are overwritten row by row (friend of colligate::solution).
+/// A thread's rows: one solution overwritten row by row (core/solution_workspace.hpp) and
+/// the evaluator and ice curve prepared for its species.
 class workspace {
  public:
-  explicit workspace(const solution_batch& b) : s_(solution::from_molalities({}, 1.0)) {
-    s_.species_ = b.species();  // the batch's records, built-in or fitted, as given
-    s_.moles_.assign(b.n_species(), 0.0);
-  }
-  const solution& load(const double* molalities) {
-    for (std::size_t j = 0; j < s_.moles_.size(); ++j) s_.moles_[j] = molalities[j];
-    return s_;
-  }
+  explicit workspace(const solution_batch& b) : rows_(b.species()), s_(rows_.get()) {}
+  const solution& load(const double* molalities) { return rows_.load(molalities); }
   /// ln a_w evaluator for model `m` on this workspace's solution, prepared on first use
   /// (the species list is the same for every row; the evaluator reads each row's amounts).
   models::ln_water_activity_evaluator& evaluator(const models::model_choice& m) {
@@ -70,7 +66,8 @@ class workspace {
   }
 
  private:
-  solution s_;
+  solution_workspace rows_;
+  const solution& s_;
   std::optional<models::ln_water_activity_evaluator> evaluator_;
   models::model_choice requested_ = "auto";
   std::optional<equilibria::ice_curve> curve_;

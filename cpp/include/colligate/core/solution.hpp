@@ -24,9 +24,7 @@ namespace colligate {
 /// A named amount given by a caller: (solute name, value in the factory's unit).
 using named_amount = std::pair<std::string, double>;
 
-namespace batch::detail {
-class workspace;
-}
+class solution_workspace;
 
 class solution {
  public:
@@ -244,7 +242,7 @@ class solution {
   }
 
  private:
-  friend class batch::detail::workspace;  // reuses one solution per thread, no allocation per row
+  friend class solution_workspace;  // one solution whose amounts are overwritten in place
   solution() = default;
 
   double total_formula_moles() const noexcept {

@@ -27,6 +27,15 @@ inline std::string describe_norrish_constants(const data::solute_record& rec) {
                   rec.norrish.k3_source.c_str());
     out += buf;
   }
+  if (rec.norrish.k4 != 0.0) {
+    std::snprintf(buf, sizeof buf, ", K4 = %.4g", rec.norrish.k4);
+    out += buf;
+  }
+  if (rec.norrish.volume_ratio != 1.0) {
+    std::snprintf(buf, sizeof buf, ", in the effective volume fraction with r = %.4g",
+                  rec.norrish.volume_ratio);
+    out += buf;
+  }
   return out;
 }
 
