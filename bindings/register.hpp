@@ -1,12 +1,16 @@
 #pragma once
 // Private helpers shared by the binding files. No physics here.
+#include <pybind11/numpy.h>
 #include <pybind11/pybind11.h>
 
+#include <cstddef>
 #include <string>
+#include <tuple>
 #include <utility>
 #include <vector>
 
 #include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
 
 namespace colligate_bindings {
 
@@ -32,6 +36,36 @@ void register_fit(py::module_& m);
 void register_electrolytes(py::module_& m);
 void register_ice_curve(py::module_& m);
 void register_data(py::module_& m);
+
+using array_in = py::array_t<double, py::array::c_style | py::array::forcecast>;
+
+/// f(T) (a checked_value) at every temperature of an array: (values, first reason, count
+/// out of range). With `release_gil` the loop runs without the GIL (f must not touch
+/// Python objects or state shared with other Python threads).
+template <class F>
+std::tuple<py::array_t<double>, std::string, std::size_t> checked_over_array(
+    const array_in& temperature, F&& f, bool release_gil = true) {
+  py::array_t<double> out(temperature.request().shape);
+  const double* t = temperature.data();
+  double* o = out.mutable_data();
+  const auto n = static_cast<std::size_t>(temperature.size());
+  std::string first_reason;
+  std::size_t count = 0;
+  auto loop = [&] {
+    for (std::size_t i = 0; i < n; ++i) {
+      const colligate::checked_value v = f(t[i]);
+      o[i] = v.value;
+      if (!v.check.in_range() && count++ == 0) first_reason = v.check.reason();
+    }
+  };
+  if (release_gil) {
+    py::gil_scoped_release release;
+    loop();
+  } else {
+    loop();
+  }
+  return {out, first_reason, count};
+}
 
 /// Converts any mapping with .items() (dict, pandas Series) to named amounts.
 inline std::vector<colligate::named_amount> to_named_amounts(const py::object& mapping,

@@ -18,7 +18,6 @@ namespace colligate_bindings {
 namespace {
 
 using colligate::batch::solution_batch;
-using array_in = py::array_t<double, py::array::c_style | py::array::forcecast>;
 
 const double* check_matrix(const array_in& a, std::size_t n_species, const char* what) {
   if (a.ndim() != 2 || static_cast<std::size_t>(a.shape(1)) != n_species)

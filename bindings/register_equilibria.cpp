@@ -92,28 +92,13 @@ void register_equilibria(py::module_& m) {
   m.def(
       "ice_fraction",
       [](const solution& s,
-         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const array_in& temperature,
          const std::string& model, const std::string& policy, double bound_water) {
         const auto id = colligate::models::model_choice(model);
         const auto pol = colligate::range_policy_from_string(policy);
-        py::array_t<double> out(temperature.request().shape);
-        const double* t = temperature.data();
-        double* o = out.mutable_data();
-        const auto n = static_cast<std::size_t>(temperature.size());
-        std::string first_reason;
-        std::size_t n_out_of_range = 0;
-        {
-          py::gil_scoped_release release;
-          eq::ice_curve curve(s, id, bound_water);  // one curve for every temperature
-          for (std::size_t i = 0; i < n; ++i) {
-            const auto v = eq::ice_fraction_of(curve.at(t[i]), pol);
-            o[i] = v.value;
-            if (!v.check.in_range()) {
-              if (n_out_of_range++ == 0) first_reason = v.check.reason();
-            }
-          }
-        }
-        return std::make_tuple(out, first_reason, n_out_of_range);
+        eq::ice_curve curve(s, id, bound_water);  // one curve for every temperature
+        return checked_over_array(temperature,
+                                  [&](double T) { return eq::ice_fraction_of(curve.at(T), pol); });
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0);

@@ -103,21 +103,12 @@ void register_ice_curve(py::module_& m) {
       .def(
           "ice_fractions",
           [](eq::ice_curve& c,
-             const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+             const array_in& temperature,
              const std::string& policy) {
             const auto pol = colligate::range_policy_from_string(policy);
-            py::array_t<double> out(temperature.request().shape);
-            const double* t = temperature.data();
-            double* o = out.mutable_data();
-            const auto n = static_cast<std::size_t>(temperature.size());
-            std::string first_reason;
-            std::size_t n_out_of_range = 0;
-            for (std::size_t i = 0; i < n; ++i) {
-              const auto v = eq::ice_fraction_of(c.at(t[i]), pol);
-              o[i] = v.value;
-              if (!v.check.in_range() && n_out_of_range++ == 0) first_reason = v.check.reason();
-            }
-            return std::make_tuple(out, first_reason, n_out_of_range);
+            // The curve caches its path: keep the GIL (one Python thread per curve).
+            return checked_over_array(
+                temperature, [&](double T) { return eq::ice_fraction_of(c.at(T), pol); }, false);
           },
           py::arg("temperature"), py::arg("range_policy") = "extrapolate",
           "(ice fractions, first reason, count out of range) at each temperature (K).");

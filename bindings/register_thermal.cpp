@@ -40,26 +40,6 @@ th::food make_food(const py::object& composition, const colligate::solution& s,
                   colligate::models::model_choice(model));
 }
 
-template <class F>
-std::tuple<py::array_t<double>, std::string, std::size_t> over_array(
-    const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature, F&& f) {
-  py::array_t<double> out(temperature.request().shape);
-  const double* t = temperature.data();
-  double* o = out.mutable_data();
-  const auto n = static_cast<std::size_t>(temperature.size());
-  std::string first_reason;
-  std::size_t count = 0;
-  {
-    py::gil_scoped_release release;
-    for (std::size_t i = 0; i < n; ++i) {
-      const auto v = f(t[i]);
-      o[i] = v.value;
-      if (!v.check.in_range() && count++ == 0) first_reason = v.check.reason();
-    }
-  }
-  return {out, first_reason, count};
-}
-
 }  // namespace
 
 void register_thermal(py::module_& m) {
@@ -93,11 +73,11 @@ void register_thermal(py::module_& m) {
   m.def(
       "food_enthalpy",
       [](const py::object& composition, const colligate::solution& s,
-         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const array_in& temperature,
          const std::string& model, double bound_water) {
         const auto f = make_food(composition, s, bound_water, model);
         auto curve = th::ice_curve_of(f);  // one curve for every temperature
-        return over_array(temperature, [&](double T) {
+        return checked_over_array(temperature, [&](double T) {
           return th::enthalpy(f, curve, T, colligate::range_policy::extrapolate);
         });
       },
@@ -107,11 +87,11 @@ void register_thermal(py::module_& m) {
   m.def(
       "food_apparent_specific_heat",
       [](const py::object& composition, const colligate::solution& s,
-         const py::array_t<double, py::array::c_style | py::array::forcecast>& temperature,
+         const array_in& temperature,
          const std::string& model, double bound_water) {
         const auto f = make_food(composition, s, bound_water, model);
         auto curve = th::ice_curve_of(f);
-        return over_array(temperature, [&](double T) {
+        return checked_over_array(temperature, [&](double T) {
           return th::apparent_specific_heat(f, curve, T, colligate::range_policy::extrapolate);
         });
       },

@@ -47,18 +47,9 @@ struct ideal {
 
 /// The registry entry of model 'ideal' (models/builtin_models.hpp).
 inline model_descriptor ideal::descriptor() {
-  model_descriptor d;
-  d.id = id;
-  d.summary = "ideal dilute solution, ln a_w = -M_w sum nu_i m_i";
-  d.traits = {false, false};
-  d.auto_rank = nullptr;
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
-    return std::make_unique<detail::static_model_evaluator<ideal>>(s);
-  };
-  d.describe = [](const solution& s) {
-    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_ideal_particles(r); });
-  };
-  return d;
+  return detail::static_model_descriptor<ideal>(
+      "ideal dilute solution, ln a_w = -M_w sum nu_i m_i", {false, false},
+      nullptr, &detail::describe_ideal_particles);
 }
 
 }  // namespace colligate::models

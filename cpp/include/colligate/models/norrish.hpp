@@ -183,18 +183,9 @@ struct norrish {
 
 /// The registry entry of model 'norrish' (models/builtin_models.hpp).
 inline model_descriptor norrish::descriptor() {
-  model_descriptor d;
-  d.id = id;
-  d.summary = "Norrish (1966) with the multi-solute extension of Chirife et al. (1980)";
-  d.traits = {false, false};
-  d.auto_rank = [](const solution& s) { return s.has_electrolytes() ? 0 : 10; };
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
-    return std::make_unique<detail::static_model_evaluator<norrish>>(s);
-  };
-  d.describe = [](const solution& s) {
-    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_norrish_constants(r); });
-  };
-  return d;
+  return detail::static_model_descriptor<norrish>(
+      "Norrish (1966) with the multi-solute extension of Chirife et al. (1980)", {false, false},
+      [](const solution& s) { return s.has_electrolytes() ? 0 : 10; }, &detail::describe_norrish_constants);
 }
 
 }  // namespace colligate::models

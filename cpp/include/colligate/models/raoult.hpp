@@ -47,18 +47,9 @@ struct raoult {
 
 /// The registry entry of model 'raoult' (models/builtin_models.hpp).
 inline model_descriptor raoult::descriptor() {
-  model_descriptor d;
-  d.id = id;
-  d.summary = "Raoult's law with dissociated particles counted, a_w = x_w";
-  d.traits = {false, false};
-  d.auto_rank = nullptr;
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
-    return std::make_unique<detail::static_model_evaluator<raoult>>(s);
-  };
-  d.describe = [](const solution& s) {
-    return detail::describe_each(s, [](const data::solute_record& r) { return detail::describe_ideal_particles(r); });
-  };
-  return d;
+  return detail::static_model_descriptor<raoult>(
+      "Raoult's law with dissociated particles counted, a_w = x_w", {false, false},
+      nullptr, &detail::describe_ideal_particles);
 }
 
 }  // namespace colligate::models

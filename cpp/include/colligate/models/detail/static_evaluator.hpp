@@ -4,8 +4,15 @@
 /// `ln_water_activity(solution, water_kg, T)` and `check(solution, water_kg, T)` with
 /// nothing to prepare (ideal, Raoult, Norrish).
 
+#include <functional>
+#include <memory>
+#include <string>
+#include <utility>
+
 #include "colligate/core/solution.hpp"
+#include "colligate/models/detail/describe_constants.hpp"
 #include "colligate/models/evaluator.hpp"
+#include "colligate/models/registry.hpp"
 
 namespace colligate::models::detail {
 
@@ -23,5 +30,23 @@ class static_model_evaluator final : public activity_evaluator {
  private:
   const solution* s_;
 };
+
+/// The registry entry of a static-function model: id, summary and traits, which solutions
+/// 'auto' gives it (nullptr: never), and the text describing one solute's constants.
+template <class Model>
+model_descriptor static_model_descriptor(std::string summary, model_traits traits,
+                                         std::function<int(const solution&)> auto_rank,
+                                         std::string (*describe_solute)(const data::solute_record&)) {
+  model_descriptor d;
+  d.id = Model::id;
+  d.summary = std::move(summary);
+  d.traits = traits;
+  d.auto_rank = std::move(auto_rank);
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<static_model_evaluator<Model>>(s);
+  };
+  d.describe = [describe_solute](const solution& s) { return describe_each(s, describe_solute); };
+  return d;
+}
 
 }  // namespace colligate::models::detail
