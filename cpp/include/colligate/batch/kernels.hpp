@@ -11,6 +11,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <exception>
 #include <limits>
 #include <memory>
 #include <optional>
@@ -74,12 +75,24 @@ class workspace {
   models::model_choice curve_model_ = "auto";
 };
 
+/// Most threads a batch call starts: eight per hardware thread (at least 8), never more
+/// than rows. A larger request is capped, not refused (more threads than that only add
+/// start-up cost).
+inline unsigned max_threads() {
+  return 8u * std::max(1u, std::thread::hardware_concurrency());
+}
+
 inline unsigned thread_count(unsigned requested, std::size_t rows) {
   unsigned n = requested ? requested : std::max(1u, std::thread::hardware_concurrency());
+  n = std::min(n, max_threads());
   return static_cast<unsigned>(std::min<std::size_t>(n, std::max<std::size_t>(rows, 1)));
 }
 
 /// Runs body(workspace&, row) over all rows in contiguous chunks, one chunk per thread.
+/// An exception in a worker (a caller mistake found while preparing the model, say)
+/// reaches the caller as the same exception the serial path throws: each worker keeps its
+/// first one (std::exception_ptr), every started thread is joined, then the first is
+/// rethrown.
 template <class Body>
 void parallel_rows(const solution_batch& b, unsigned threads, Body body) {
   const std::size_t N = b.rows();
@@ -92,14 +105,31 @@ void parallel_rows(const solution_batch& b, unsigned threads, Body body) {
     run(0, N);
     return;
   }
+  std::vector<std::exception_ptr> errors(T);
   std::vector<std::thread> pool;
+  pool.reserve(T);
   const std::size_t chunk = (N + T - 1) / T;
+  std::exception_ptr start_error;
   for (unsigned t = 0; t < T; ++t) {
     const std::size_t lo = t * chunk, hi = std::min(N, lo + chunk);
     if (lo >= hi) break;
-    pool.emplace_back(run, lo, hi);
+    try {
+      pool.emplace_back([&run, &errors, t, lo, hi] {
+        try {
+          run(lo, hi);
+        } catch (...) {
+          errors[t] = std::current_exception();
+        }
+      });
+    } catch (...) {  // the system refused a thread: finish what started, then report
+      start_error = std::current_exception();
+      break;
+    }
   }
   for (auto& th : pool) th.join();
+  for (const auto& e : errors)
+    if (e) std::rethrow_exception(e);
+  if (start_error) std::rethrow_exception(start_error);
 }
 
 constexpr double nan = std::numeric_limits<double>::quiet_NaN();
