@@ -7,6 +7,7 @@
 
 #include <string>
 #include <tuple>
+#include <vector>
 
 #include "colligate/colligate.hpp"
 #include "register.hpp"
@@ -98,6 +99,41 @@ void register_ice_curve(py::module_& m) {
           },
           "Where the curve ends as a dict: temperature (K), found (a final eutectic), phase, "
           "formula and source of the salt whose saturation ends it, and reason.")
+      .def(
+          "table",
+          [](eq::ice_curve& c, const array_in& temperature) {
+            const auto n = static_cast<std::size_t>(temperature.size());
+            const double* t = temperature.data();
+            std::vector<eq::ice_curve_state> states;
+            states.reserve(n);
+            for (std::size_t i = 0; i < n; ++i) states.push_back(c.at(t[i]));
+            const auto& salts = c.salts();  // the whole path: one column per salt phase
+            auto column = [&](auto get) {
+              py::array_t<double> a(static_cast<py::ssize_t>(n));
+              double* o = a.mutable_data();
+              for (std::size_t i = 0; i < n; ++i) o[i] = get(states[i]);
+              return a;
+            };
+            py::dict d;
+            d["temperature_K"] = column([](const eq::ice_curve_state& s) { return s.temperature; });
+            py::list state;
+            for (const auto& s : states) state.append(eq::to_string(s.state));
+            d["state"] = state;
+            d["ice_fraction"] = column([](const eq::ice_curve_state& s) { return s.ice_fraction(); });
+            d["ice_kg"] = column([](const eq::ice_curve_state& s) { return s.ice; });
+            d["unfrozen_water_kg"] = column([](const eq::ice_curve_state& s) { return s.unfrozen_water; });
+            d["hydrate_water_kg"] = column([](const eq::ice_curve_state& s) { return s.hydrate_water; });
+            d["water_activity"] = column([](const eq::ice_curve_state& s) { return s.water_activity; });
+            for (std::size_t j = 0; j < salts.size(); ++j)
+              d[py::str(salts[j].phase->name + "_mol")] = column([j](const eq::ice_curve_state& s) {
+                return j < s.precipitated.size() ? s.precipitated[j] : 0.0;
+              });
+            return d;
+          },
+          py::arg("temperature"),
+          "The curve at each temperature (K) as columns (a dict of arrays, units in the keys): "
+          "state, ice fraction, ice, unfrozen and hydrate water (kg), a_w, and the amount of "
+          "each salt phase crystallised (mol). ``pandas.DataFrame(curve.table(T))`` gives a table.")
       .def("at", &eq::ice_curve::at, py::arg("temperature"),
            "The state at ``temperature`` (K).")
       .def(

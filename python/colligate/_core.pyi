@@ -499,6 +499,10 @@ class IceCurve:
         """
         (ice fractions, first reason, count out of range) at each temperature (K).
         """
+    def table(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> dict:
+        """
+        The curve at each temperature (K) as columns (a dict of arrays, units in the keys): state, ice fraction, ice, unfrozen and hydrate water (kg), a_w, and the amount of each salt phase crystallised (mol). ``pandas.DataFrame(curve.table(T))`` gives a table.
+        """
     @property
     def bound_water(self) -> float:
         """

@@ -80,3 +80,22 @@ def test_above_freezing_point_no_ice_and_validity_record():
 def test_unknown_path_names_the_valid_values():
     with pytest.raises(ValueError, match="equilibrium"):
         cg.IceCurve(cg.Solution.seawater(SA), path="sideways")
+
+
+def test_table_columns_match_point_queries():
+    import pandas as pd
+
+    curve = cg.IceCurve(cg.Solution.seawater(SA))
+    temps = np.array([275.0, 270.15, 265.15, 250.15, 230.0])
+    df = pd.DataFrame(curve.table(temps))
+    assert list(df["state"]) == ["liquid", "ice_and_liquid", "ice_salts_liquid", "ice_salts_liquid",
+                                 "below_curve_end"]
+    for i, t in enumerate(temps[:-1]):
+        st = curve.at(float(t))
+        assert df["ice_kg"][i] == st.ice  # the same states (bit-identical)
+        assert df["hydrate_water_kg"][i] == st.hydrate_water
+    # mass balance of the water (identity): ice + liquid + hydrate water = all the water
+    ok = df["state"] != "below_curve_end"
+    total = df["ice_kg"] + df["unfrozen_water_kg"] + df["hydrate_water_kg"]
+    assert np.allclose(total[ok], cg.Solution.seawater(SA).water, rtol=0, atol=1e-12)
+    assert (df["mirabilite_mol"][ok] >= 0).all() and df["mirabilite_mol"][3] > 0
