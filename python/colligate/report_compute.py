@@ -253,13 +253,15 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
                 "temperature_K": t_k,
                 "temperature_C": celsius_from_kelvin(t_k),
                 "temperature_F": fahrenheit_from_kelvin(t_k),
-                "state": "partly_frozen" if ice > 0.0 else "unfrozen",
+                "state": ("frozen" if liquid <= 0.0 else "partly_frozen") if ice > 0.0 else "unfrozen",
                 "ice_fraction": ice / water,
                 "ice_percent_of_water": 100.0 * ice / water,
                 "ice_kg": ice,
                 "ice_mass_percent_of_batch": 100.0 * ice / total,
                 "unfrozen_water_kg": liquid,
-                "unfrozen_solids_mass_percent": 100.0 * solids / (solids + liquid),
+                # pure water below 0 C is all ice: no liquid, so no liquid composition
+                "unfrozen_solids_mass_percent": (100.0 * solids / (solids + liquid)
+                                                 if solids + liquid > 0.0 else None),
                 "unfrozen_water_activity": aw_t,
             }
         )
@@ -451,7 +453,9 @@ def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
             "ice_fraction": ice,
             "ice_kg": ice_kg,
             "unfrozen_water_kg": liquid,
-            "unfrozen_solids_mass_percent": 100.0 * solids / (solids + liquid),
+            "unfrozen_solids_mass_percent": np.divide(100.0 * solids, solids + liquid,
+                                                      out=np.full_like(liquid, np.nan),
+                                                      where=(solids + liquid) > 0.0),
             "enthalpy_J_per_kg": h,
             "apparent_cp_J_per_kg_K": cp,
             "heat_removed_from_fill_J_per_kg": h_fill - h,

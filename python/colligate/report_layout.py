@@ -135,9 +135,10 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         if row.get("state") == "below_eutectic":
             lines.append(f"  {row['name']:<10}{t:>{tcol}}  below eutectic (salt crystallises; no ice figure)")
             continue
+        solids = row["unfrozen_solids_mass_percent"]
         lines.append(
             f"  {row['name']:<10}{t:>{tcol}}{row['ice_percent_of_water']:8.1f}{row['ice_kg']:9.4f}"
-            f"{row['unfrozen_water_kg']:11.4f}{row['unfrozen_solids_mass_percent']:17.1f}"
+            f"{row['unfrozen_water_kg']:11.4f}" + (f"{solids:17.1f}" if solids is not None else f"{'all ice':>17}")
         )
     lines.append("  ice %: ice as a share of all the water; liquid kg: water still liquid,")
     lines.append("  including any counted as unable to freeze; liquid solids %: dissolved")

@@ -275,3 +275,15 @@ def test_plots_refuse_input_and_bad_arguments(tmp_path):
     with pytest.raises(ValueError, match="below from_T"):
         plot_cooling_curve(r, tmp_path / "x.png", from_T=260.0, to_T=270.0)
     assert sorted(os.listdir(tmp_path)) == ["brine.toml"]
+
+
+def test_water_alone_is_all_ice_below_zero():
+    # Pure water below 0 C is all ice (common practice): the report says so instead of
+    # failing, and the liquid-composition figure is left empty.
+    recipe = parse_recipe('[recipe]\nname = "water"\nbasis = "kg"\n[composition]\nwater = 1.0\n', "water")
+    rep = quiet(build_report, recipe)
+    storage = next(r for r in rep["ice_table"] if r["name"] == "storage")
+    assert storage["ice_fraction"] == 1.0 and storage["state"] == "frozen"
+    assert storage["unfrozen_solids_mass_percent"] is None
+    assert "all ice" in format_text(rep)
+    json.loads(format_json(rep))  # strict JSON (null, not NaN)
