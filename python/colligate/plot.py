@@ -123,6 +123,7 @@ def plot_ice_curve(
                 label=f"initial freezing point {tf_c:.2f} °C")
     if np.isfinite(eut_c) and cold_c < eut_c < warm_c:
         _mark_eutectic(ax, eut_c, vertical=True)
+    _mark_salt_onsets(ax, ice_path, cold_c, warm_c)
 
     for i, (name, t_k) in enumerate((marks or {}).items()):
         t_c = celsius_from_kelvin(float(t_k))
@@ -189,6 +190,28 @@ def _eutectic_K(ice_path: IcePath) -> float:
     """Eutectic temperature of the solution, K; NaN when it has none (no salts)."""
     t = ice_path.eutectic_temperature
     return float("nan") if t is None else t
+
+
+def _mark_salt_onsets(ax, ice_path: IcePath, cold_c: float, warm_c: float) -> None:
+    """A thin line and a label where each salt of the freezing path starts to crystallise
+    (the last one, which ends the curve, is marked as the eutectic)."""
+    e = ice_path.eutectic() if ice_path.eutectic_temperature is not None or ice_path.curve.salts else None
+    salts = list(e.get("salts", [])) if e else []
+    if e and e.get("found") and salts:
+        salts = salts[:-1]
+    groups: list[tuple[float, list[str]]] = []  # onsets within 0.5 K share one label
+    for s in salts:
+        t_c = celsius_from_kelvin(float(s["onset_temperature_K"]))
+        if not cold_c < t_c < warm_c:
+            continue
+        if groups and abs(groups[-1][0] - t_c) < 0.5:
+            groups[-1][1].append(s["name"])
+        else:
+            groups.append((t_c, [s["name"]]))
+    for t_c, names in groups:
+        ax.axvline(t_c, color=_EUTECTIC_COLOUR, linestyle=":", linewidth=0.8, alpha=0.7)
+        ax.annotate(f"{' + '.join(names)} from {t_c:.1f} °C", xy=(t_c, 2.0), xycoords=("data", "data"),
+                    rotation=90, fontsize=7, color=_EUTECTIC_COLOUR, ha="right", va="bottom")
 
 
 def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
