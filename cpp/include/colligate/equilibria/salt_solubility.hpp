@@ -77,7 +77,7 @@ inline const std::vector<salt_phase>& salt_phases() {
        "spencer_1990"},
       {"mirabilite", "Na2SO4.10H2O", {{"Na+", 2}, {"SO4-2", 1}}, 10,
        {-20.12422, 0.07613508, 0, 0, 0, -4.26568E-05}, "marion_farren_1999"},
-      {"meridianite", "MgSO4.11H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 11,
+      {"meridianiite", "MgSO4.11H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 11,
        {-13.417432, 0.04061372, 0, 0, 0, 0}, "marion_farren_1999"},
       {"epsomite", "MgSO4.7H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 7,
        {1.718069, 0, -1073.1417, 0, 0, 0}, "marion_farren_1999"},
