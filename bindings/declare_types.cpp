@@ -35,8 +35,6 @@ table : SoluteTable, optional (keyword)
 )doc");
   py::class_<colligate::equilibria::leighton::mix_terms>(m, "LeightonTerms",
     "Inputs of the Leighton dairy method, g per 100 g of mix.");
-  py::class_<colligate::equilibria::unfrozen_phase>(m, "UnfrozenPhaseState",
-    "State of a partly frozen solution at one temperature (SI).");
   py::class_<colligate::fit::fit_result>(m, "FitResult",
     R"doc(
 Result of a least-squares fit (SI units of the fitted model).

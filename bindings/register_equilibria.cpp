@@ -103,28 +103,16 @@ void register_equilibria(py::module_& m) {
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0);
 
-  bound_class<eq::unfrozen_phase>(m, "UnfrozenPhaseState")
-      .def_readonly("temperature", &eq::unfrozen_phase::temperature, "Temperature, K.")
-      .def_readonly("total_water", &eq::unfrozen_phase::total_water, "Water in the food, kg.")
-      .def_readonly("bound_water", &eq::unfrozen_phase::bound_water, "Unfreezable water, kg.")
-      .def_readonly("unfrozen_water", &eq::unfrozen_phase::unfrozen_water, "Liquid water, kg.")
-      .def_readonly("ice", &eq::unfrozen_phase::ice, "Ice, kg.")
-      .def_readonly("water_activity", &eq::unfrozen_phase::water_activity,
-                    "Water activity of the unfrozen phase.")
-      .def_readonly("iterations", &eq::unfrozen_phase::iterations)
-      .def_property_readonly("ice_fraction", &eq::unfrozen_phase::ice_fraction,
-                             "Ice mass / total water mass.")
-      .def_property_readonly("status", [](const eq::unfrozen_phase& u) { return eq::to_string(u.status); })
-      .def_property_readonly("success", &eq::unfrozen_phase::success)
-      .def_property_readonly("reason", [](const eq::unfrozen_phase& u) { return u.check.reason(); },
-                             "Why the result is outside the validated range ('' if inside).");
   m.def(
       "unfrozen_phase",
       [](const solution& s, double T, const std::string& model, double bound_water) {
         return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model), bound_water);
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("bound_water") = 0.0);
+      py::arg("bound_water") = 0.0,
+      "The ice curve's state (IceCurveState) at ``temperature`` (K).");
+  // The former name of the state class, kept for callers that name it.
+  m.attr("UnfrozenPhaseState") = m.attr("IceCurveState");
 }
 
 }  // namespace colligate_bindings

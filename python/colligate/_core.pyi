@@ -190,59 +190,6 @@ class LeightonTerms:
     @property
     def water(self) -> float:
         ...
-class UnfrozenPhaseState:
-    """
-    State of a partly frozen solution at one temperature (SI).
-    """
-    @property
-    def bound_water(self) -> float:
-        """
-        Unfreezable water, kg.
-        """
-    @property
-    def ice(self) -> float:
-        """
-        Ice, kg.
-        """
-    @property
-    def ice_fraction(self) -> float:
-        """
-        Ice mass / total water mass.
-        """
-    @property
-    def iterations(self) -> int:
-        ...
-    @property
-    def reason(self) -> str:
-        """
-        Why the result is outside the validated range ('' if inside).
-        """
-    @property
-    def status(self) -> str:
-        ...
-    @property
-    def success(self) -> bool:
-        ...
-    @property
-    def temperature(self) -> float:
-        """
-        Temperature, K.
-        """
-    @property
-    def total_water(self) -> float:
-        """
-        Water in the food, kg.
-        """
-    @property
-    def unfrozen_water(self) -> float:
-        """
-        Liquid water, kg.
-        """
-    @property
-    def water_activity(self) -> float:
-        """
-        Water activity of the unfrozen phase.
-        """
 class FitResult:
     """
     Result of a least-squares fit (SI units of the fitted model).
@@ -768,8 +715,10 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> UnfrozenPhaseState:
-    ...
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+    """
+    The ice curve's state (IceCurveState) at ``temperature`` (K).
+    """
 def unfrozen_specific_heat(composition: typing.Any, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).
@@ -782,3 +731,4 @@ GAS_CONSTANT: float = 8.314462618
 ICE_POINT: float = 273.15
 MOLAR_MASS_WATER: float = 0.018015268
 __version__: str = '0.1.0'
+UnfrozenPhaseState = IceCurveState

@@ -23,39 +23,9 @@
 
 namespace colligate::equilibria {
 
-/// State of a partly frozen solution at one temperature. Masses in kg.
-struct unfrozen_phase {
-  double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K
-  double total_water = 0.0;      ///< water in the food, kg
-  double bound_water = 0.0;      ///< water that cannot freeze, kg
-  double unfrozen_water = 0.0;   ///< liquid (solvent) water, kg
-  double ice = 0.0;              ///< ice, kg
-  double water_activity = std::numeric_limits<double>::quiet_NaN();
-  solve_status status = solve_status::converged;
-  int iterations = 0;
-  validity check;
-
-  /// Ice mass over total water mass.
-  double ice_fraction() const noexcept { return ice / total_water; }
-  bool success() const noexcept {
-    return status == solve_status::converged || status == solve_status::not_frozen;
-  }
-};
-
-/// The unfrozen_phase view of an ice-curve state.
-inline unfrozen_phase as_unfrozen_phase(const ice_curve_state& s) {
-  unfrozen_phase r;
-  r.temperature = s.temperature;
-  r.total_water = s.total_water;
-  r.bound_water = s.bound_water;
-  r.unfrozen_water = s.unfrozen_water;
-  r.ice = s.ice;
-  r.water_activity = s.water_activity;
-  r.status = s.status;
-  r.iterations = s.iterations;
-  r.check = s.check;
-  return r;
-}
+/// State of a partly frozen solution at one temperature: the ice curve's state (masses in
+/// kg; ice_curve.hpp).
+using unfrozen_phase = ice_curve_state;
 
 /// Where the ice curve of a solution ends.
 struct eutectic_result {
@@ -119,7 +89,7 @@ inline unfrozen_phase unfrozen_phase_at(const solution& s, double temperature,
                                         double bound_water_kg = 0.0) {
   models::check_temperature_argument("ice_fraction", temperature);
   ice_curve curve(s, m, bound_water_kg);
-  return as_unfrozen_phase(curve.at(temperature));
+  return curve.at(temperature);
 }
 
 /// A curve state with the caller's range policy applied to its ice fraction.
