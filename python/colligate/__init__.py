@@ -80,6 +80,26 @@ from .api import (  # noqa: E402,F401
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
 from .recipe import Recipe  # noqa: E402
+from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
+from .freezing_time import (  # noqa: E402,F401
+    FREEZING_TIME_CAUTION,
+    FreezingSimulation,
+    boiling_point,
+    boiling_point_elevation,
+    brick_shape_factor,
+    concentration_for_boiling_point,
+    finite_cylinder_shape_factor,
+    freezing_inputs,
+    pham_estimate,
+    pham_time,
+    pham_times,
+    plank_time,
+    rod_shape_factor,
+    saturation_pressure,
+    saturation_temperature,
+    simulate_freezing,
+    thermal_properties,
+)
 
 __all__ = [
     "Solution",
@@ -133,5 +153,22 @@ __all__ = [
     "ConvergenceError",
     "CAUTIONS",
     "RANGE_POLICIES",
+    "FREEZING_TIME_CAUTION",
+    "FreezingSimulation",
+    "boiling_point",
+    "boiling_point_elevation",
+    "brick_shape_factor",
+    "concentration_for_boiling_point",
+    "finite_cylinder_shape_factor",
+    "freezing_inputs",
+    "pham_estimate",
+    "pham_time",
+    "pham_times",
+    "plank_time",
+    "rod_shape_factor",
+    "saturation_pressure",
+    "saturation_temperature",
+    "simulate_freezing",
+    "thermal_properties",
     "__version__",
 ]

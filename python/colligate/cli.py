@@ -7,6 +7,8 @@ Subcommands::
     colligate report RECIPE.toml [--plot PNG] [--enthalpy-plot PNG] [--cooling-plot PNG]
                      [--csv FILE] [--save FILE] [--json] [--fahrenheit]
     colligate fit DATA.csv --model norrish|effective|pitzer [--salt NaCl] [--plot PNG] [--save-solute FILE]
+    colligate freeze-time RECIPE.toml|demo --size M --initial C --medium C --h W_M2K --target C
+                     [--shape slab|cylinder|sphere] [--plot PNG] [--json]
 
 ``demo`` evaluates a built-in demo recipe (an invented demo scenario: a
 strawberry ice cream made of library ingredients, or ``--scenario sorbet``),
@@ -120,6 +122,9 @@ def _build_parser() -> argparse.ArgumentParser:
     p_fit.add_argument("--name", help="name of the fitted solute (with --save-solute)")
     p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol")
     p_fit.add_argument("--save-solute", metavar="FILE", help="write the fitted solute as TOML")
+    from .cli_freeze_time import add_parser as add_freeze_time
+
+    add_freeze_time(sub)
     return parser
 
 
@@ -139,6 +144,12 @@ def _run(args: argparse.Namespace) -> int:
 
         sys.stdout.write(run_fit_command(args))
         sys.stdout.flush()
+        return EXIT_OK
+    if args.command == "freeze-time":
+        from .cli_freeze_time import run as run_freeze_time
+
+        recipe = load_demo_recipe() if args.recipe == "demo" else load_recipe(args.recipe)
+        sys.stdout.write(run_freeze_time(args, recipe, [] if args.recipe == "demo" else [args.recipe]))
         return EXIT_OK
     # outputs: key in the report's "files" -> (path, option name for messages)
     outputs: dict[str, tuple[str, str]] = {}
