@@ -28,7 +28,7 @@ C = [76.02 - 37.77, -0.1571134, -0.01728863, -0.00096686]
 MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
               "lactose": 0.3422965, "maltose": 0.3422965, "glycerol": 0.0920938,
               "ethanol": 0.0460684, "citric_acid": 0.1921235, "lactic_acid": 0.0900779,
-              "mannitol": 0.1821718}
+              "mannitol": 0.1821718, "acetic_acid": 0.060052}
 
 
 def enthalpy_of_fusion(T):
@@ -65,7 +65,7 @@ PLAN = {
     "sucrose": (6.47, 42, 0), "glucose": (2.25, 30, 0), "fructose": (2.25, 28, 0),
     "maltose": (None, 44, 0), "lactose": (None, 100, 0), "glycerol": (None, 40, 1),
     "ethanol": None, "citric_acid": (None, 100, 0), "lactic_acid": (None, 100, 0),
-    "mannitol": (0.906, 100, 0),
+    "mannitol": (0.906, 100, 0), "acetic_acid": (None, 100, 0),
 }
 
 

@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -446,9 +446,17 @@ class IceCurve:
         """
         (ice fractions, first reason, count out of range) at each temperature (K).
         """
+    def reachable_ice(self) -> dict:
+        """
+        The span of the curve as a dict: freezing_point_K, lowest_temperature_K (where the curve ends), largest_ice_fraction (there) and end (why it ends there).
+        """
     def table(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> dict:
         """
         The curve at each temperature (K) as columns (a dict of arrays, units in the keys): state, ice fraction, ice, unfrozen and hydrate water (kg), a_w, and the amount of each salt phase crystallised (mol). ``pandas.DataFrame(curve.table(T))`` gives a table.
+        """
+    def temperature_for_ice_fraction(self, ice_fraction: typing.SupportsFloat | typing.SupportsIndex, range_policy: str = 'extrapolate') -> tuple[float, str]:
+        """
+        (temperature K, reason) at which the curve has ``ice_fraction`` (ice mass over all the water, in [0, 1)); a fraction the curve cannot reach raises ValueError naming the reachable range.
         """
     @property
     def bound_water(self) -> float:
@@ -770,6 +778,10 @@ def solute_table() -> list:
 def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
+    """
+def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+    """
+    (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
     """
 def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """

@@ -9,6 +9,8 @@ Subcommands::
     colligate fit DATA.csv --model norrish|effective|pitzer [--salt NaCl] [--plot PNG] [--save-solute FILE]
     colligate freeze-time RECIPE.toml|demo --size M --initial C --medium C --h W_M2K --target C
                      [--shape slab|cylinder|sphere] [--plot PNG] [--json]
+    colligate side-by-side A.toml B.toml [MORE.toml ...] [--at TEMP ...] [--frozen SHARE ...]
+                     [--plot FILE] [--save FILE] [--json] [--fahrenheit]
 
 ``demo`` evaluates a built-in demo recipe (an invented demo scenario: a
 strawberry ice cream made of library ingredients, or ``--scenario sorbet``),
@@ -19,6 +21,12 @@ table (default name ``colligate_demo_table.csv`` in ``--out``).
 ``report`` does the same for a recipe file (see ``docs/recipe_format.md``);
 it writes only the files asked for (``--plot``, ``--enthalpy-plot``,
 ``--cooling-plot``, ``--csv``).
+
+``side-by-side`` compares two or more recipe files: one column per recipe (freezing
+point, water activity, dissolved solids, sweetness, ice at common temperatures given with
+``--at`` such as ``-12C``, ``10F`` or ``261K``, and the temperature at which a share of
+the water given with ``--frozen`` is frozen); ``--plot`` draws their ice curves on one set
+of axes; ``--json`` prints the comparison (schema: ``colligate/data/comparison.schema.json``).
 
 ``--json`` prints the machine-readable report (units in the keys) instead of
 text; ``--fahrenheit`` adds degF to the text report; ``--save FILE`` also
@@ -34,6 +42,7 @@ from __future__ import annotations
 
 import argparse
 import os
+import re
 import sys
 import warnings
 from typing import Sequence
@@ -84,7 +93,7 @@ def _build_parser() -> argparse.ArgumentParser:
 
     def common(p: argparse.ArgumentParser) -> None:
         p.add_argument("--json", action="store_true", help="print the report as JSON (units in the keys)")
-        p.add_argument("--fahrenheit", action="store_true", help="also show temperatures in degF in the text report")
+        p.add_argument("--fahrenheit", action="store_true", help="also show temperatures in degF in the text report and on the ice-curve plot")
         p.add_argument("--save", metavar="FILE", help="also write the printed report (text or JSON) to FILE")
 
     from .recipe import DEFAULT_DEMO_SCENARIO, DEMO_SCENARIOS
@@ -106,7 +115,22 @@ def _build_parser() -> argparse.ArgumentParser:
     p_rep.add_argument("--cooling-plot", metavar="PNG",
                        help="write the cooling curve (temperature vs heat removed) to this PNG file")
     p_rep.add_argument("--csv", metavar="FILE", help="write the ice/enthalpy table to this CSV file")
+    p_rep.add_argument("--contributions-plot", metavar="FILE",
+                       help="write each ingredient's share of the freezing-point depression, sweetness "
+                       "and water kept liquid at the serving temperature to this plot file")
     common(p_rep)
+
+    p_cmp = sub.add_parser("side-by-side", help="compare two or more recipe files (TOML) side by side")
+    p_cmp.add_argument("recipes", metavar="RECIPE.toml", nargs="+", help="two or more recipe files")
+    p_cmp.add_argument("--at", metavar="TEMP", action="append",
+                       help="a temperature at which to compare the ice, e.g. -12C, 10F or 261K (a bare "
+                       "number is degC); repeat for more (default -6, -12 and -18 C)")
+    p_cmp.add_argument("--frozen", metavar="SHARE", action="append", type=float,
+                       help="a share of the water frozen (0-1) whose temperature is compared; repeat "
+                       "for more (default 0.5 and 0.7)")
+    p_cmp.add_argument("--plot", metavar="FILE", help="write the ice curves of all the recipes to one plot "
+                       "(.png, .svg, .pdf ...)")
+    common(p_cmp)
 
     p_fit = sub.add_parser("fit", help="fit model constants to a CSV of your own data (see colligate.fit)")
     p_fit.add_argument("data", metavar="DATA.csv", help="CSV with SI columns (molality, water_activity or "
@@ -128,14 +152,14 @@ def _build_parser() -> argparse.ArgumentParser:
     return parser
 
 
-def _short(message: object) -> str:
+def _short(message: object, limit: int = 300) -> str:
     text = " ".join(str(message).split())
-    return text if len(text) <= 300 else text[:297] + "..."
+    return text if len(text) <= limit else text[: limit - 3] + "..."
 
 
 def _run(args: argparse.Namespace) -> int:
     from ._files import atomic_write_text, check_output_path
-    from .plot import plot_cooling_curve, plot_enthalpy, plot_ice_curve
+    from .plot import check_plot_path, plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
     from .recipe import load_demo_recipe, load_recipe
     from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
 
@@ -151,6 +175,8 @@ def _run(args: argparse.Namespace) -> int:
         recipe = load_demo_recipe() if args.recipe == "demo" else load_recipe(args.recipe)
         sys.stdout.write(run_freeze_time(args, recipe, [] if args.recipe == "demo" else [args.recipe]))
         return EXIT_OK
+    if args.command == "side-by-side":
+        return _run_side_by_side(args)
     # outputs: key in the report's "files" -> (path, option name for messages)
     outputs: dict[str, tuple[str, str]] = {}
     if args.command == "demo":
@@ -174,6 +200,7 @@ def _run(args: argparse.Namespace) -> int:
             ("enthalpy_png", args.enthalpy_plot, "--enthalpy-plot"),
             ("cooling_curve_png", args.cooling_plot, "--cooling-plot"),
             ("table_csv", args.csv, "--csv"),
+            ("contributions_png", args.contributions_plot, "--contributions-plot"),
         ):
             if value is not None:
                 outputs[key] = (value, option)
@@ -181,8 +208,11 @@ def _run(args: argparse.Namespace) -> int:
     # Check every output path before computing, so a bad path fails fast.
     checks = list(outputs.values()) + ([(args.save, "--save")] if args.save is not None else [])
     seen: dict[str, str] = {}
-    for path, option in checks:
-        check_output_path(path, inputs, option)
+    for key, (path, option) in list(outputs.items()) + [("save", c) for c in checks[len(outputs):]]:
+        if key.endswith("_png"):
+            check_plot_path(path, inputs, option)
+        else:
+            check_output_path(path, inputs, option)
         full = os.path.abspath(path)
         if full in seen:
             raise ValueError(f"{option} '{path}' is the same file as {seen[full]}")
@@ -203,12 +233,16 @@ def _run(args: argparse.Namespace) -> int:
                 title=f"Ice curve: {title}",
                 label=label,
                 inputs=inputs,
+                fahrenheit=args.fahrenheit,
             )
         elif key == "enthalpy_png":
             done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
                                  label=label, inputs=inputs)
         elif key == "cooling_curve_png":
             done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label, inputs=inputs)
+        elif key == "contributions_png":
+            done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
+                                      inputs=inputs)
         else:
             done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option)
         written[key] = os.path.abspath(done)
@@ -218,6 +252,50 @@ def _run(args: argparse.Namespace) -> int:
         report["cautions"] = cautions  # cautions stay last
 
     text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
+    if args.save is not None:
+        atomic_write_text(args.save, text, inputs, "--save")
+    sys.stdout.write(text)
+    sys.stdout.flush()
+    return EXIT_OK
+
+
+def _run_side_by_side(args: argparse.Namespace) -> int:
+    """``colligate side-by-side``: compare recipe files (paths and outputs checked first)."""
+    from ._files import atomic_write_text, check_output_path
+    from .compare import compare_recipes, format_comparison_json, format_comparison_text, plot_comparison
+    from .plot import check_plot_path
+    from .recipe import load_recipe
+    from .units import parse_temperature
+
+    if len(args.recipes) < 2:
+        raise ValueError(f"side-by-side: got {len(args.recipes)} recipe file(s); give at least two")
+    temps = None if not args.at else [parse_temperature(t) for t in args.at]
+    fractions = args.frozen if args.frozen else None
+    inputs = list(args.recipes)
+    if args.plot is not None:
+        check_plot_path(args.plot, inputs, "--plot")
+    if args.save is not None:
+        check_output_path(args.save, inputs, "--save")
+        if args.plot is not None and os.path.abspath(args.plot) == os.path.abspath(args.save):
+            raise ValueError(f"--save '{args.save}' is the same file as --plot")
+    recipes, problems = [], []
+    for path in args.recipes:
+        try:
+            recipes.append(load_recipe(path))
+        except ValueError as exc:
+            problems.append(str(exc))
+    if problems:
+        raise ValueError("; ".join(problems))
+    kwargs = {} if fractions is None else {"ice_fractions": fractions}
+    comparison = compare_recipes(recipes, temperatures=temps, **kwargs)
+    if args.plot is not None:
+        done = plot_comparison(recipes, args.plot, temperatures=comparison["temperatures_K"],
+                               fahrenheit=args.fahrenheit, inputs=inputs)
+        cautions = comparison.pop("cautions")
+        comparison["files"] = {"ice_curves_plot": os.path.abspath(done)}
+        comparison["cautions"] = cautions
+    text = (format_comparison_json(comparison) if args.json
+            else format_comparison_text(comparison, fahrenheit=args.fahrenheit))
     if args.save is not None:
         atomic_write_text(args.save, text, inputs, "--save")
     sys.stdout.write(text)
@@ -241,9 +319,24 @@ def _print_warnings(caught: Sequence[warnings.WarningMessage]) -> None:
         print(f"{PROG}: warning: ... and {len(lines) - _MAX_WARNING_LINES} more distinct warning(s)", file=sys.stderr)
 
 
+def _join_negative_values(argv: list[str]) -> list[str]:
+    """``--at -12C`` as ``--at=-12C``: argparse would take a value starting with '-' for an
+    option; a temperature below zero is the usual case here."""
+    out: list[str] = []
+    i = 0
+    while i < len(argv):
+        if argv[i] == "--at" and i + 1 < len(argv) and re.match(r"-\.?\d", argv[i + 1]):
+            out.append(f"--at={argv[i + 1]}")
+            i += 2
+            continue
+        out.append(argv[i])
+        i += 1
+    return out
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line program; returns the exit status (0 ok, 2 error)."""
-    argv = list(sys.argv[1:] if argv is None else argv)
+    argv = _join_negative_values(list(sys.argv[1:] if argv is None else argv))
     try:
         parser = _build_parser()
         args = parser.parse_args(argv)
@@ -269,7 +362,8 @@ def main(argv: Sequence[str] | None = None) -> int:
         # RecipeError, colligate.InvalidInputError and OutOfValidityRangeError
         # are ValueErrors; their messages already name the field and range. A
         # solver failure (RuntimeError) is reported the same way.
-        print(f"{PROG}: error: {_short(exc)}", file=sys.stderr)
+        # every problem of a recipe is listed, so errors get more room than warnings
+        print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
         return EXIT_ERROR
 
 

@@ -78,6 +78,27 @@ def latin_hypercube(ranges: Mapping[str, Range], n: int, seed: Optional[int] = N
     return _apply(df, constraints)
 
 
+def _check_target_units(targets: Mapping[str, object]) -> None:
+    """Refuses targets given in the wrong unit before anything is computed: a temperature
+    below 150 K is degC or degF typed where K is expected; an ice fraction above 1 is a
+    percentage."""
+    def kelvin(name: str, value: object) -> None:
+        t = float(value)  # type: ignore[arg-type]
+        if not np.isfinite(t) or t < 150.0:
+            raise _core.InvalidInputError(
+                f"targets[{name!r}] = {value!r}: looks like degC or degF, not K; give kelvin "
+                f"(e.g. {t + 273.15:g} K for {t:g} degC)")
+
+    if "freezing_point" in targets:
+        kelvin("freezing_point", targets["freezing_point"])
+    if "ice_fraction" in targets:
+        T, f = targets["ice_fraction"]  # type: ignore[misc]
+        kelvin("ice_fraction", T)
+        if not 0.0 <= float(f) < 1.0:
+            raise _core.InvalidInputError(
+                f"targets['ice_fraction'] = ({T}, {f}): the fraction must be in [0, 1) (0.7, not 70)")
+
+
 @dataclass
 class FormulationResult:
     """Outcome of :func:`solve_formulation` (amounts as mass fractions)."""
@@ -118,6 +139,7 @@ def solve_formulation(
     from scipy.optimize import minimize
 
     _check_ranges(variables)
+    _check_target_units(targets)
     fixed = dict(fixed or {})
     cost = dict(cost or {})
     names = list(variables)

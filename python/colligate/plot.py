@@ -26,9 +26,11 @@ from .report_compute import IcePath
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
 __all__ = [
+    "check_plot_path",
     "plot_ice_curve",
     "plot_enthalpy",
     "plot_cooling_curve",
+    "plot_contributions",
     "CURVE_RANGE_C",
     "THERMAL_RANGE_C",
     "FILL_TEMPERATURE_C",
@@ -64,6 +66,7 @@ def plot_ice_curve(
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
     points: int = 421,
+    fahrenheit: bool = False,
 ) -> str:
     """Write a PNG of ice fraction (% of the water) against temperature (degC).
 
@@ -85,13 +88,15 @@ def plot_ice_curve(
         Input files that must never be overwritten.
     points : int
         Number of temperatures on the curve (>= 10).
+    fahrenheit : bool
+        Also show a degF scale along the top.
 
     Returns
     -------
     str
-        The path written.
+        The path written (the file type follows the extension: .png, .svg, .pdf ...).
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
 
@@ -139,18 +144,65 @@ def plot_ice_curve(
                    label=f"{name} {t_c:.1f} °C: {100.0 * f:.0f} % ice")
         ax.plot([t_c], [100.0 * f], marker="s", color=colour, zorder=5)
 
-    ax.set_xlim(warm_c, cold_c)  # warm on the left, as the product cools to the right
-    ax.set_ylim(0.0, 100.0)
-    ax.set_xlabel("temperature (°C)")
-    ax.set_ylabel("ice (% of total water)")
-    ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Ice curve")
-    ax.legend(loc="best", fontsize=8, framealpha=0.9)
+    _ice_axes(ax, warm_c, cold_c, title or "Ice curve", fahrenheit, "best")
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs)
 
 
 # --------------------------------------------------------------------------- helpers
+
+
+def plot_formats() -> dict[str, str]:
+    """File extensions matplotlib can write (without the dot) and what they are."""
+    from matplotlib.backend_bases import FigureCanvasBase
+
+    return dict(FigureCanvasBase.get_supported_filetypes())
+
+
+def check_plot_path(path: str | os.PathLike[str], inputs: Iterable[str | os.PathLike[str]] = (),
+                    what: str = "plot") -> str:
+    """Validate a plot path before anything is computed: the checks of
+    :func:`colligate._files.check_output_path` plus an extension matplotlib can write
+    (``.png``, ``.svg``, ``.pdf`` ...). Returns the path as ``str``."""
+    target = check_output_path(path, inputs, what)
+    ext = os.path.splitext(target)[1].lower().lstrip(".")
+    formats = plot_formats()
+    if ext not in formats:
+        from ._files import OutputPathError
+
+        shown = f"'.{ext}'" if ext else "no extension"
+        raise OutputPathError(
+            f"{what} path '{target}': {shown} is not a file type matplotlib can write; "
+            f"use one of {', '.join('.' + k for k in sorted(formats))}")
+    return target
+
+
+def _ice_axes(ax, warm_c: float, cold_c: float, title: str, fahrenheit: bool, legend: str) -> None:
+    """Axes of an ice-curve plot: warm on the left (the product cools to the right), ice as
+    % of the water, degC below and, on request, degF on top."""
+    ax.set_xlim(warm_c, cold_c)
+    ax.set_ylim(0.0, 100.0)
+    ax.set_xlabel("temperature (°C)")
+    ax.set_ylabel("ice (% of total water)")
+    if fahrenheit:
+        _fahrenheit_axis(ax)
+    ax.grid(True, color="#d9d9d9", linewidth=0.6)
+    ax.set_title(title)
+    ax.legend(loc=legend, fontsize=8, framealpha=0.9)
+
+
+def _fahrenheit_axis(ax) -> None:
+    """A degF scale along the top of an axis whose x is degC."""
+    top = ax.secondary_xaxis("top", functions=(lambda c: c * 1.8 + 32.0, lambda f: (f - 32.0) / 1.8))
+    top.set_xlabel("temperature (°F)")
+
+
+def _save(fig, target: str, inputs: Iterable[str | os.PathLike[str]]) -> str:
+    """Writes the figure atomically in the format its file extension names."""
+    fmt = os.path.splitext(target)[1].lower().lstrip(".")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format=fmt), inputs, "plot")
+
+
 
 
 def _figure(width: float, height: float):
@@ -290,7 +342,7 @@ def plot_enthalpy(
     kelvin; it jumps at the initial freezing point, and the axis is logarithmic so both
     the frozen and the unfrozen ranges read.
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
     marks = dict(recipe.temperatures if marks is None else marks)
@@ -340,7 +392,7 @@ def plot_enthalpy(
     ax_h.legend(loc="upper right", fontsize=8, framealpha=0.9)
     ax_c.legend(loc="upper left", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs)
 
 
 # --------------------------------------------------------------------------- cooling curve
@@ -368,13 +420,13 @@ def plot_cooling_curve(
 
     Parameters are as for :func:`plot_enthalpy`. Returns the path written.
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
     marks = dict(recipe.temperatures if marks is None else marks)
     model = recipe.model
     t_from = float(FILL_TEMPERATURE_C + ZERO_CELSIUS_K if from_T is None else from_T)
-    t_to = float(marks.get("storage", ZERO_CELSIUS_K - 18.0) if to_T is None else to_T)
+    t_to = float(marks.get("storage", min(marks.values(), default=ZERO_CELSIUS_K - 18.0)) if to_T is None else to_T)
     if not t_to < t_from:
         raise ValueError(f"to_T = {t_to} K: must be below from_T = {t_from} K (a cooling curve)")
     cold_limit_c = THERMAL_RANGE_C[1]
@@ -423,4 +475,54 @@ def plot_cooling_curve(
     ax.set_title(title or "Cooling curve")
     ax.legend(loc="upper right", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs)
+
+
+# --------------------------------------------------------------------------- contributions
+
+
+def plot_contributions(
+    recipe,
+    path: str | os.PathLike[str],
+    temperature: float | str = "serving",
+    *,
+    title: str | None = None,
+    label: str | None = None,
+    inputs: Iterable[str | os.PathLike[str]] = (),
+) -> str:
+    """Write a PNG with three horizontal bar panels: each ingredient's share (%) of the
+    freezing-point depression, of the sweetness and of the water kept liquid at
+    ``temperature`` (K or a named temperature). Returns the path written."""
+    from .contributions import contribution_table, contribution_temperature
+
+    target = check_plot_path(path, inputs)
+    t = contribution_temperature(recipe, temperature)
+    df, totals = contribution_table(recipe, t)
+    df = df[(df["depression_percent"] > 0) | (df["sweetness_percent"] > 0) | (df["liquid_water_held_percent"] > 0)]
+    names = list(df.index)[::-1]
+    fig = _figure(11.0, 1.6 + 0.35 * max(len(names), 3))
+    panels = (
+        ("depression_percent", f"freezing-point depression\n(total {totals['depression_K']:.2f} K)", "#174a7c"),
+        ("sweetness_percent", "sweetness as sucrose\n(total {:.3g} kg)".format(totals["sweetness_sucrose_equivalent_kg"]),
+         "#c4622d"),
+        ("liquid_water_held_percent",
+         f"water kept liquid at {celsius_from_kelvin(t):.1f} °C\n(total {totals['liquid_water_held_kg']:.3g} kg)",
+         "#1b7f79"),
+    )
+    y = np.arange(len(names))
+    for i, (column, heading, colour) in enumerate(panels):
+        ax = fig.add_subplot(1, 3, i + 1)
+        values = df[column].to_numpy()[::-1]
+        ax.barh(y, values, color=colour)
+        for yy, v in zip(y, values):
+            if v > 0:
+                ax.text(v, yy, f" {v:.0f} %", va="center", fontsize=7)
+        ax.set_yticks(y)
+        ax.set_yticklabels(names if i == 0 else [""] * len(names), fontsize=8)
+        ax.set_xlim(0, 115)
+        ax.set_xlabel("share (%)")
+        ax.set_title(heading, fontsize=9)
+        ax.grid(True, axis="x", color="#d9d9d9", linewidth=0.6)
+    fig.suptitle(title or f"What each ingredient does: {recipe.name}", fontsize=11)
+    _footer(fig, recipe.model, label if label is not None else (recipe.label or None))
+    return _save(fig, target, inputs)

@@ -13,6 +13,7 @@ from typing import Any, Mapping
 
 from . import api
 from ._warnings import CAUTIONS, OutOfValidityRangeWarning
+from .contributions import contributions_entry
 from .recipe import DEFAULT_TEMPERATURES_C, Recipe
 from .report_compute import (
     VERIFY_NOTE,
@@ -76,7 +77,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
         "unfrozen_phase": [],
     }
     t_eut = report_eutectic_K(path)
-    for point in ("serving", "storage"):
+    for point in ("serving", "scooping", "holding", "storage", "frozen_storage", "lowest_use"):
         if point not in temps:
             continue
         t_k = float(temps[point])
@@ -212,6 +213,7 @@ def build_report(
                 own = path
             body["indicators"] = indicators(subject, own, temps)
             body["heat_load"] = heat_load_entry(subject, own, temps)
+            body["contributions"] = contributions_entry(subject)
 
     messages: list[str] = []
     for w in caught:

@@ -193,6 +193,8 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
                     f"           lactose {row['lactose_g_per_100g_water']:.1f} g per 100 g water, "
                     f"{row['lactose_supersaturation']:.1f} x its solubility (sandiness risk above 1)"
                 )
+    if report.get("contributions"):
+        lines += _contributions_text(report["contributions"])
     if report.get("files"):
         lines += _heading("Files written")
         for what, path in report["files"].items():
@@ -210,6 +212,30 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         lines.extend(_wrap(f"This report is labelled \"{report['label']}\": its composition is not a "
                            "tested recipe or a product specification.", indent="    ", first="  * "))
     return "\n".join(lines) + "\n"
+
+
+def _contributions_text(c: Mapping[str, Any]) -> list[str]:
+    """The per-ingredient contributions of a report as text lines."""
+    where = f"{c['temperature_C']:.1f} °C" + (f" ({c['named']})" if c.get("named") else "")
+    lines = _heading(f"What each ingredient does (water kept liquid at {where})")
+    lines.append(f"  {'ingredient':<26}{'depression':>12}{'sweetness':>11}{'liquid water':>14}{'ice from':>10}")
+    lines.append(f"  {'':<26}{'K (%)':>12}{'% of total':>11}{'held, kg (%)':>14}{'it, kg':>10}")
+    for r in c["rows"]:
+        dep = r["depression_K"]
+        held = r["liquid_water_held_kg"]
+        dep_s = f"{dep:.2f} ({r['depression_percent']:.0f})" if dep is not None else "-"
+        held_s = f"{held:.3f} ({r['liquid_water_held_percent']:.0f})" if held is not None else "-"
+        ice = r["ice_from_its_water_kg"]
+        lines.append(f"  {r['ingredient'][:25]:<26}{dep_s:>12}{r['sweetness_percent']:>11.0f}{held_s:>14}"
+                     + (f"{ice:>10.3f}" if ice is not None else f"{'-':>10}"))
+    t = c["totals"]
+    total_dep = t.get("depression_K")
+    lines.append(
+        f"  {'whole recipe':<26}{(f'{total_dep:.2f}' if total_dep is not None else '-'):>12}{100:>11.0f}"
+        + (f"{t['liquid_water_held_kg']:>14.3f}" if t.get("liquid_water_held_kg") is not None else f"{'-':>14}")
+        + (f"{t['ice_kg']:>10.3f}" if t.get("ice_kg") is not None else f"{'-':>10}"))
+    lines.extend(_wrap("How the shares are counted: " + c["definition"] + "."))
+    return lines
 
 
 def write_table_csv(table, path, inputs=(), what: str = "--csv") -> str:
