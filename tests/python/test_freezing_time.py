@@ -134,3 +134,35 @@ def test_thermal_properties_frame():
     frame = cg.thermal_properties(composition=comp, solution=sol, T=[C0 + 5.0, C0 - 20.0])
     assert frame.loc[C0 - 20.0, "conductivity_W_mK"] > 2 * frame.loc[C0 + 5.0, "conductivity_W_mK"]
     assert frame.loc[C0 + 5.0, "ice_fraction"] == 0.0
+
+
+def test_cli_freeze_time(tmp_path, capsys):
+    import json
+
+    from colligate.cli import main
+
+    png = tmp_path / "ft.png"
+    rc = main(["freeze-time", "demo", "--size", "0.05", "--initial", "5", "--medium", "-30", "--h", "20",
+               "--target", "-18", "--plot", str(png), "--json"])
+    out = capsys.readouterr().out
+    assert rc == 0 and png.stat().st_size > 1000
+    data = json.loads(out)
+    assert data["plank_s"] < data["pham_s"]  # Plank leaves out precooling and subcooling
+    assert data["simulation_status"] == "reached_target"
+    assert "validated process controls" in data["caution"]
+    rc = main(["freeze-time", "demo", "--size", "0.05", "--initial", "5", "--medium", "-30", "--h", "20",
+               "--target", "-18"])
+    text = capsys.readouterr().out
+    assert rc == 0 and "Pham (1986)" in text and "local codes" in text
+
+
+def test_cli_freeze_time_bad_input(capsys):
+    from colligate.cli import main
+
+    rc = main(["freeze-time", "demo", "--size", "0.05", "--initial", "5", "--medium", "-10", "--h", "20",
+               "--target", "-18"])
+    err = capsys.readouterr().err
+    assert rc == 2 and "T_medium" in err
+    rc = main(["freeze-time", "demo", "--size", "-1", "--initial", "5", "--medium", "-30", "--h", "20",
+               "--target", "-18"])
+    assert rc == 2 and "size" in capsys.readouterr().err
