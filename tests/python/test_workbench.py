@@ -458,3 +458,15 @@ def test_report_command_writes_contributions_plot_and_fahrenheit_csv(tmp_path, c
     table = pd.read_csv(tmp_path / "t.csv")
     # degF = degC * 9/5 + 32 (definition of the scales), every row
     assert np.allclose(table["temperature_F"], table["temperature_C"] * 1.8 + 32.0, atol=1e-9)
+
+
+def test_ingredient_problems_are_reported_at_once():
+    with pytest.raises(RecipeError) as info:
+        cg.Recipe(ingredients={"whole milk": -1.0, "suggar": 0.1, "cream_36": 0.2, "lemon jiuce": 0.1})
+    msg = str(info.value)
+    assert "3 problems" in msg and "-1.0" in msg and "suggar" in msg and "lemon jiuce" in msg
+    assert "nearest names" in msg  # unknown names list the nearest ones
+    text = ('[recipe]\nname = "d"\n[ingredients]\nsucrose = 0.1\n"sucrose (white sugar)" = 0.1\n'
+            "whole_milk = 0.8\n")
+    with pytest.raises(RecipeError, match=r"same ingredient \(sucrose\)"):
+        parse_recipe(text, "dup.toml")
