@@ -80,7 +80,7 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
-from .recipe import Recipe  # noqa: E402
+from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
 
 __all__ = [
     "Solution",
@@ -123,6 +123,7 @@ __all__ = [
     "Ingredient",
     "ingredients",
     "Recipe",
+    "SuspectUnitWarning",
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",

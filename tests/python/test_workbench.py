@@ -470,3 +470,15 @@ def test_ingredient_problems_are_reported_at_once():
             "whole_milk = 0.8\n")
     with pytest.raises(RecipeError, match=r"same ingredient \(sucrose\)"):
         parse_recipe(text, "dup.toml")
+
+
+def test_solute_formulation_solver_names_the_blocking_bound():
+    from colligate.design import solve_formulation
+
+    # 10-15 % sucrose cannot freeze at -10 C (CRC Handbook: 15 wt% sucrose depresses the
+    # freezing point by about 0.9 K)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        res = solve_formulation({"sucrose": (0.10, 0.15)}, {"freezing_point": T0 - 10.0})
+    assert not res.success
+    assert "target freezing_point" in res.message and "sucrose at its upper bound 0.15" in res.message
