@@ -80,7 +80,7 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
-from .recipe import Recipe  # noqa: E402
+from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
 from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
 from .freezing_time import (  # noqa: E402,F401
     FREEZING_TIME_CAUTION,
@@ -143,6 +143,7 @@ __all__ = [
     "Ingredient",
     "ingredients",
     "Recipe",
+    "SuspectUnitWarning",
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",

@@ -119,7 +119,11 @@ def _one(recipe: Recipe, temps_k: Sequence[float], fractions: Sequence[float]) -
         "source": recipe.source,
         "model": recipe.model,
         "batch_mass_kg": batch,
-        "dissolved_solids_mass_percent": 100.0 * float(sum(solution.solutes.values())) / batch,
+        # ethanol is a volatile liquid, not a solid: shown apart
+        "dissolved_solids_mass_percent": 100.0 * float(sum(v for k, v in solution.solutes.items()
+                                                           if _solute_id(k) != "ethanol")) / batch,
+        "ethanol_mass_percent": 100.0 * float(sum(v for k, v in solution.solutes.items()
+                                                  if _solute_id(k) == "ethanol")) / batch,
         "sweetness_sucrose_equivalent_mass_percent": 100.0 * _sweetness_kg(solution) / batch,
         "bound_water_kg": bound,
         "freezing_point_K": _f(tf),
@@ -274,8 +278,10 @@ def format_comparison_text(comparison: Mapping[str, Any], fahrenheit: bool = Fal
     if fahrenheit:
         out.append(line("", rows[1]))
     out.append(line("water activity at 25 °C", [_cell(e["water_activity_25C"], ".4f") for e in entries]))
-    out.append(line("dissolved solids (% of batch)", [_cell(e["dissolved_solids_mass_percent"], ".2f")
+    out.append(line("dissolved solids, no ethanol (%)", [_cell(e["dissolved_solids_mass_percent"], ".2f")
                                                       for e in entries]))
+    if any(e["ethanol_mass_percent"] > 0 for e in entries):
+        out.append(line("ethanol (% of batch, by mass)", [_cell(e["ethanol_mass_percent"], ".2f") for e in entries]))
     out.append(line("sweetness as sucrose (% of batch)",
                     [_cell(e["sweetness_sucrose_equivalent_mass_percent"], ".2f") for e in entries]))
     if any(e["eutectic_K"] is not None for e in entries):

@@ -135,6 +135,9 @@ def solve_formulation(
       - ``"total_solids"``: mass fraction of all solutes
       - ``"weighted_sum"``: ``(weights_dict, value)`` — e.g. sweetness with relative factors
     Solved with scipy.optimize.minimize (SLSQP) with the targets as equality constraints.
+    Targets are checked for their units first (a temperature below 150 K is refused as
+    degC or degF typed for K). When the targets cannot be met, the result holds the nearest
+    amounts within the ranges and its message names the ranges that block the targets.
     """
     from scipy.optimize import minimize
 
@@ -208,12 +211,31 @@ def solve_formulation(
     achieved = {k: float(q[k][0]) for k in keys}
     misfit = max((abs(achieved[k] - target_value(k)) / scale[k] for k in keys), default=0.0)
     ok = bool(res.success) and misfit < tolerance / min(scale.values())
+    message = str(res.message)
+    x_out = res.x
+    if not ok:
+        # Where the targets are nearest within the ranges (bounded least squares on the
+        # misfit) tells which range blocks them.
+        near = minimize(lambda x: 0.5 * float(np.sum(residuals_and_jacobian(x)[0] ** 2)), x0,
+                        jac=lambda x: residuals_and_jacobian(x)[1].T @ residuals_and_jacobian(x)[0],
+                        method="L-BFGS-B", bounds=list(zip(lo, hi)))
+        x_out = near.x  # the nearest reachable amounts are the ones returned
+        q_near = quantities(near.x)
+        achieved = {k: float(q_near[k][0]) for k in keys}
+        at_bounds = [f"{k} at its {'lower' if abs(v - a) <= abs(v - b) else 'upper'} bound "
+                     f"{a if abs(v - a) <= abs(v - b) else b:g}"
+                     for k, v, a, b in zip(names, near.x, lo, hi) if min(abs(v - a), abs(v - b)) <= 1e-9]
+        worst = max(keys, key=lambda k: abs(achieved[k] - target_value(k)) / scale[k])
+        message = (f"target {worst} = {target_value(worst):g} not reached (achieved {achieved[worst]:.6g}); "
+                   + (f"blocked by {', '.join(at_bounds)}" if at_bounds
+                      else "no bound is active: the targets conflict with each other")
+                   + f" ({res.message}; largest scaled misfit {misfit:.2e})")
     return FormulationResult(
-        amounts={k: float(v) for k, v in zip(names, res.x)} | fixed,
+        amounts={k: float(v) for k, v in zip(names, x_out)} | fixed,
         achieved=achieved,
         targets={k: target_value(k) for k in keys},
-        cost=float(price @ res.x),
+        cost=float(price @ x_out),
         success=ok,
-        message=str(res.message) if ok else f"{res.message}; largest scaled misfit {misfit:.2e}",
+        message=message,
         iterations=int(res.nit),
     )

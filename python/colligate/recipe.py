@@ -224,14 +224,19 @@ class Recipe:
             prox = dict.fromkeys(("water", "protein", "fat", "carbohydrate", "fibre", "ash"), 0.0)
             kg_by_key: dict[str, float] = {}
             records: dict[str, Any] = dict(self.ingredient_records)
+            problems = _Problems(self.source)
+            rule = "amount must be finite and >= 0 (kg)"
             for name, kg in self.ingredients.items():
-                x = _number(self.source, f"ingredients['{name}']", kg, "amount must be finite and >= 0 (kg)")
-                if x < 0.0:
-                    raise RecipeError(f"recipe '{self.source}': ingredients['{name}'] = {kg}: amount must be finite and >= 0 (kg)")
+                x = problems.guard(_number, self.source, f"ingredients['{name}']", kg, rule)
+                if x is not None and x < 0.0:
+                    problems.add(f"ingredients['{name}'] = {kg}", rule)
                 try:
                     ing = records[name] if isinstance(name, str) and name in records else _lookup(name)
                 except ValueError as exc:
-                    raise _fail(self.source, f"[ingredients].{name}", str(exc)) from None
+                    problems.add(f"[ingredients].{name}", str(exc))
+                    continue
+                if x is None or x < 0.0:
+                    continue
                 kg_by_key[ing.key or ing.name] = kg_by_key.get(ing.key or ing.name, 0.0) + x
                 records[ing.key or ing.name] = ing
                 water += x * ing.water
@@ -239,6 +244,7 @@ class Recipe:
                     solutes[sid] = solutes.get(sid, 0.0) + x * w
                 for k, v in ing.proximate().items():
                     prox[k] += x * v
+            problems.raise_if_any()
             total = sum(kg_by_key.values())
             if not total > 0.0:
                 raise _fail(self.source, "[ingredients]", "the amounts add up to 0 kg; a recipe needs a positive batch")
@@ -626,11 +632,16 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
             problems.add("[ingredients]", "empty table: list at least one ingredient with its amount")
         from .ingredients import ingredient as _lookup
 
+        seen_ingredient: dict[str, str] = {}
         for key in amounts:
             try:
-                _lookup(key)
+                ing = _lookup(key)
             except ValueError as exc:
                 problems.add(f"[ingredients].{key}", str(exc))
+                continue
+            first = seen_ingredient.setdefault(ing.key or ing.name, key)
+            if first != key and _key_form(first) != _key_form(key):
+                problems.add(f"[ingredients].{key}", f"names the same ingredient ({ing.key}) as {first!r}; keep one")
         total = sum(amounts.values())
         if basis == "percent" and amounts and abs(total - 100.0) > PERCENT_TOLERANCE:
             problems.add("[ingredients]", f"amounts add up to {total:.6g} %; with basis = \"percent\" they must "

@@ -458,3 +458,39 @@ def test_report_command_writes_contributions_plot_and_fahrenheit_csv(tmp_path, c
     table = pd.read_csv(tmp_path / "t.csv")
     # degF = degC * 9/5 + 32 (definition of the scales), every row
     assert np.allclose(table["temperature_F"], table["temperature_C"] * 1.8 + 32.0, atol=1e-9)
+
+
+def test_ingredient_problems_are_reported_at_once():
+    with pytest.raises(RecipeError) as info:
+        cg.Recipe(ingredients={"whole milk": -1.0, "suggar": 0.1, "cream_36": 0.2, "lemon jiuce": 0.1})
+    msg = str(info.value)
+    assert "3 problems" in msg and "-1.0" in msg and "suggar" in msg and "lemon jiuce" in msg
+    assert "nearest names" in msg  # unknown names list the nearest ones
+    text = ('[recipe]\nname = "d"\n[ingredients]\nsucrose = 0.1\n"sucrose (white sugar)" = 0.1\n'
+            "whole_milk = 0.8\n")
+    with pytest.raises(RecipeError, match=r"same ingredient \(sucrose\)"):
+        parse_recipe(text, "dup.toml")
+
+
+def test_solute_formulation_solver_names_the_blocking_bound():
+    from colligate.design import solve_formulation
+
+    # 10-15 % sucrose cannot freeze at -10 C (CRC Handbook: 15 wt% sucrose depresses the
+    # freezing point by about 0.9 K)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        res = solve_formulation({"sucrose": (0.10, 0.15)}, {"freezing_point": T0 - 10.0})
+    assert not res.success
+    assert "target freezing_point" in res.message and "sucrose at its upper bound 0.15" in res.message
+
+
+def test_comparison_keeps_ethanol_out_of_the_solids():
+    # USDA SR NDB 14037: an 80 proof spirit is 33.4 g ethanol per 100 g; 0.15 kg of it in a
+    # 1 kg batch is 5.01 % ethanol by mass, and none of it counts as dissolved solids.
+    r = cg.Recipe(ingredients={"spirit_40": 0.15, "sucrose": 0.12, "water": 0.73}, kind="frozen_cocktail")
+    cmp_, _ = quiet(compare_recipes, [r, r.with_changes({"spirit_40": 0.10, "water": 0.78})])
+    jsonschema.validate(cmp_, comparison_schema())
+    first = cmp_["recipes"][0]
+    assert first["ethanol_mass_percent"] == pytest.approx(5.01, abs=1e-9)
+    assert first["dissolved_solids_mass_percent"] == pytest.approx(12.0, abs=1e-9)
+    assert "ethanol (% of batch, by mass)" in format_comparison_text(cmp_)
