@@ -20,7 +20,7 @@ from typing import Iterable, Mapping
 import numpy as np
 
 from . import api
-from ._files import atomic_write, check_output_path
+from ._files import OutputSet, atomic_write, check_output_path
 from .report_compute import EUTECTIC_MARGIN_K as _EUTECTIC_MARGIN_K
 from .report_compute import IcePath
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
@@ -63,6 +63,7 @@ def plot_ice_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 421,
 ) -> str:
     """Write a PNG of ice fraction (% of the water) against temperature (degC).
@@ -83,6 +84,9 @@ def plot_ice_curve(
         Plot title, and a label (e.g. "invented demo scenario") printed in the corner.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curve (>= 10).
 
@@ -144,10 +148,10 @@ def plot_ice_curve(
     ax.set_xlabel("temperature (°C)")
     ax.set_ylabel("ice (% of total water)")
     ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Ice curve")
+    ax.set_title(_one_line(title) or "Ice curve")
     ax.legend(loc="best", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot", into=outputs)
 
 
 # --------------------------------------------------------------------------- helpers
@@ -163,10 +167,27 @@ def _figure(width: float, height: float):
     return fig
 
 
+#: Longest title or label drawn on a plot, characters; longer ones are cut with "...".
+#: Text layout in matplotlib grows with the length of a string, and a recipe name may be
+#: anything up to the input size limit.
+_MAX_PLOT_TEXT = 120
+
+
+def _one_line(text: str | None, limit: int = _MAX_PLOT_TEXT) -> str:
+    """``text`` on one line, at most ``limit`` characters (cut with "...")."""
+    if not text:
+        return ""
+    head = str(text)[: 4 * limit]  # bounded work whatever the length
+    flat = " ".join(head.split())
+    if len(flat) > limit or len(text) > 4 * limit:
+        flat = flat[: limit - 3].rstrip() + "..."
+    return flat
+
+
 def _footer(fig, model: str, label: str | None) -> None:
     footer = f"colligate, model: {model}; estimates only, verify by measurement"
     if label:
-        footer = f"{label.upper()}  |  " + footer
+        footer = f"{_one_line(label).upper()}  |  " + footer
     fig.text(0.01, 0.01, footer, fontsize=7, color="#555555")
     fig.tight_layout(rect=(0, 0.03, 1, 1))
 
@@ -258,6 +279,7 @@ def plot_enthalpy(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a two-panel PNG: enthalpy H(T) (kJ/kg) and apparent specific heat (kJ/(kg K)).
@@ -275,6 +297,9 @@ def plot_enthalpy(
         Plot title, and a label (e.g. "invented demo scenario") printed in the footer.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curves (>= 10).
 
@@ -336,11 +361,11 @@ def plot_enthalpy(
     ax_c.set_xlabel("temperature (°C)")
     for ax in (ax_h, ax_c):
         ax.grid(True, color="#d9d9d9", linewidth=0.6, which="major")
-    ax_h.set_title(title or "Enthalpy and apparent specific heat")
+    ax_h.set_title(_one_line(title) or "Enthalpy and apparent specific heat")
     ax_h.legend(loc="upper right", fontsize=8, framealpha=0.9)
     ax_c.legend(loc="upper left", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot", into=outputs)
 
 
 # --------------------------------------------------------------------------- cooling curve
@@ -356,6 +381,7 @@ def plot_cooling_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a PNG of temperature (degC) against the heat removed per kg (kJ/kg).
@@ -420,7 +446,7 @@ def plot_cooling_curve(
     ax.set_xlabel("heat removed from the fill temperature (kJ per kg of product)")
     ax.set_ylabel("temperature (°C)")
     ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Cooling curve")
+    ax.set_title(_one_line(title) or "Cooling curve")
     ax.legend(loc="upper right", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot", into=outputs)

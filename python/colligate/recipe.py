@@ -38,7 +38,8 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 Rules checked when a recipe is loaded (each error names the file, the table
 and key, and the valid range):
 
-* the file exists, is UTF-8 and is valid TOML (syntax errors give the line);
+* the file exists, is at most 10 MB, is UTF-8 and is valid TOML (syntax errors give
+  the line; nesting too deep for the reader is named as such);
 * only the tables and keys above appear (solute names excepted);
 * every amount is a finite number >= 0; water is > 0;
 * with ``basis = "percent"`` the amounts, water included, add up to
@@ -67,7 +68,7 @@ from importlib import resources
 from typing import Any, Mapping
 
 from . import api
-
+from ._files import MAX_INPUT_BYTES, InputFileError, read_input_bytes
 from .units import kelvin_from_celsius
 
 __all__ = [
@@ -358,10 +359,16 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         On any schema violation; the message names ``source``, the table/key
         and the valid range.
     """
+    if len(text) > MAX_INPUT_BYTES:
+        raise _fail(source, "", f"text of {len(text)} characters; recipes are limited to {MAX_INPUT_BYTES} "
+                    "characters (10 MB)")
     try:
         doc = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise _fail(source, "", f"TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise _fail(source, "", "arrays or inline tables nested too deeply for the TOML reader; a recipe "
+                    "holds only plain numbers and strings in its tables (no nesting)") from None
 
     extra = [k for k in doc if k not in _TABLES]
     if extra:
@@ -550,14 +557,9 @@ def load_recipe(path: str | os.PathLike[str]) -> Recipe:
     """
     source = os.fspath(path)
     try:
-        with open(source, "rb") as fh:
-            raw = fh.read()
-    except FileNotFoundError:
-        raise _fail(source, "", "file not found") from None
-    except IsADirectoryError:
-        raise _fail(source, "", "is a directory, expected a .toml file") from None
-    except OSError as exc:
-        raise _fail(source, "", f"cannot read file ({exc.strerror or exc})") from None
+        raw = read_input_bytes(source, "recipe")
+    except InputFileError as exc:
+        raise RecipeError(str(exc)) from None
     try:
         text = raw.decode("utf-8")
     except UnicodeDecodeError as exc:
