@@ -34,8 +34,11 @@ writes the printed report to FILE. Every file is written atomically and an
 input file is never overwritten.
 
 Exit status: 0 on success, 2 on a usage or input error (a one-line message on
-stderr, no traceback). Validity-range warnings are printed as one line each on
-stderr and do not change the exit status.
+stderr, no traceback), 130 after Ctrl-C (``colligate: interrupted``), 3 on an
+internal error (a bug: one line; ``COLLIGATE_TRACEBACK=1`` shows where).
+Validity-range warnings are printed as one line each on stderr and do not change
+the exit status. A command writes all its files or none: each goes to a temporary
+file, and all are renamed into place only once everything has been computed.
 """
 
 from __future__ import annotations
@@ -55,6 +58,8 @@ __all__ = [
     "DEMO_CSV_NAME",
     "EXIT_OK",
     "EXIT_ERROR",
+    "EXIT_INTERNAL",
+    "EXIT_INTERRUPTED",
 ]
 
 PROG = "colligate"
@@ -64,6 +69,8 @@ DEMO_COOLING_PLOT_NAME = "colligate_demo_cooling_curve.png"
 DEMO_CSV_NAME = "colligate_demo_table.csv"
 EXIT_OK = 0
 EXIT_ERROR = 2
+EXIT_INTERNAL = 3
+EXIT_INTERRUPTED = 130  # 128 + SIGINT, as shells report a Ctrl-C
 
 
 class _UsageError(Exception):
@@ -158,10 +165,7 @@ def _short(message: object, limit: int = 300) -> str:
 
 
 def _run(args: argparse.Namespace) -> int:
-    from ._files import atomic_write_text, check_output_path
-    from .plot import check_plot_path, plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
-    from .recipe import load_demo_recipe, load_recipe
-    from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
+    from ._files import OutputSet
 
     if args.command == "fit":
         from .fit import run_fit_command
@@ -177,6 +181,11 @@ def _run(args: argparse.Namespace) -> int:
         return EXIT_OK
     if args.command == "side-by-side":
         return _run_side_by_side(args)
+
+    from .plot import check_plot_path, plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
+    from .recipe import load_demo_recipe, load_recipe
+    from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
+
     # outputs: key in the report's "files" -> (path, option name for messages)
     outputs: dict[str, tuple[str, str]] = {}
     if args.command == "demo":
@@ -205,55 +214,56 @@ def _run(args: argparse.Namespace) -> int:
             if value is not None:
                 outputs[key] = (value, option)
 
-    # Check every output path before computing, so a bad path fails fast.
-    checks = list(outputs.values()) + ([(args.save, "--save")] if args.save is not None else [])
-    seen: dict[str, str] = {}
-    for key, (path, option) in list(outputs.items()) + [("save", c) for c in checks[len(outputs):]]:
-        if key.endswith("_png"):
-            check_plot_path(path, inputs, option)
-        else:
-            check_output_path(path, inputs, option)
-        full = os.path.abspath(path)
-        if full in seen:
-            raise ValueError(f"{option} '{path}' is the same file as {seen[full]}")
-        seen[full] = option
+    # All outputs of the command or none: every path is checked (and a path used twice
+    # refused) before computing; files go to temporary files and are renamed into place
+    # together at the end. A failure or Ctrl-C before that leaves no file behind.
+    with OutputSet(inputs) as out:
+        for key, (path, option) in outputs.items():
+            if key.endswith("_png"):
+                check_plot_path(path, inputs, option)  # a format matplotlib can write
+            out.plan(path, option)
+        if args.save is not None:
+            out.plan(args.save, "--save")
 
-    report = build_report(recipe)
-    title = recipe.name
-    label = recipe.label or None
-    written: dict[str, str] = {}
-    for key, (path, option) in outputs.items():
-        if key == "ice_curve_png":
-            done = plot_ice_curve(
-                recipe.solution(),
-                path,
-                marks=recipe.temperatures,
-                model=recipe.model,
-                bound_water=recipe.bound_water,
-                title=f"Ice curve: {title}",
-                label=label,
-                inputs=inputs,
-                fahrenheit=args.fahrenheit,
-            )
-        elif key == "enthalpy_png":
-            done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
-                                 label=label, inputs=inputs)
-        elif key == "cooling_curve_png":
-            done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label, inputs=inputs)
-        elif key == "contributions_png":
-            done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
-                                      inputs=inputs)
-        else:
-            done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option)
-        written[key] = os.path.abspath(done)
-    if written:
-        cautions = report.pop("cautions")
-        report["files"] = written
-        report["cautions"] = cautions  # cautions stay last
+        report = build_report(recipe)
+        title = recipe.name
+        label = recipe.label or None
+        written: dict[str, str] = {}
+        for key, (path, option) in outputs.items():
+            if key == "ice_curve_png":
+                done = plot_ice_curve(
+                    recipe.solution(),
+                    path,
+                    marks=recipe.temperatures,
+                    model=recipe.model,
+                    bound_water=recipe.bound_water,
+                    title=f"Ice curve: {title}",
+                    label=label,
+                    inputs=inputs,
+                    outputs=out,
+                    fahrenheit=args.fahrenheit,
+                )
+            elif key == "enthalpy_png":
+                done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
+                                     label=label, inputs=inputs, outputs=out)
+            elif key == "cooling_curve_png":
+                done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label,
+                                          inputs=inputs, outputs=out)
+            elif key == "contributions_png":
+                done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
+                                          inputs=inputs, outputs=out)
+            else:
+                done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option, outputs=out)
+            written[key] = os.path.abspath(done)
+        if written:
+            cautions = report.pop("cautions")
+            report["files"] = written
+            report["cautions"] = cautions  # cautions stay last
 
-    text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
-    if args.save is not None:
-        atomic_write_text(args.save, text, inputs, "--save")
+        text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
+        if args.save is not None:
+            out.write_text(args.save, text)
+        out.commit()
     sys.stdout.write(text)
     sys.stdout.flush()
     return EXIT_OK
@@ -334,10 +344,30 @@ def _join_negative_values(argv: list[str]) -> list[str]:
     return out
 
 
-def main(argv: Sequence[str] | None = None) -> int:
-    """Run the command line program; returns the exit status (0 ok, 2 error)."""
-    argv = _join_negative_values(list(sys.argv[1:] if argv is None else argv))
+def _interrupted() -> int:
     try:
+        print(f"{PROG}: interrupted", file=sys.stderr)
+    except Exception:  # stderr closed: nothing more to say
+        pass
+    return EXIT_INTERRUPTED
+
+
+def _stdout_gone() -> int:
+    """stdout was closed by its reader (``colligate demo | head``): stop quietly. Point
+    stdout at the null device so the interpreter's final flush does not fail again."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError, AttributeError):
+        pass
+    return EXIT_ERROR
+
+
+def main(argv: Sequence[str] | None = None) -> int:
+    """Run the command line program; returns the exit status (0 ok, 2 error, 130 Ctrl-C,
+    3 internal error)."""
+    try:
+        argv = _join_negative_values(list(sys.argv[1:] if argv is None else argv))
         parser = _build_parser()
         args = parser.parse_args(argv)
         if args.command is None:
@@ -350,21 +380,33 @@ def main(argv: Sequence[str] | None = None) -> int:
             finally:
                 _print_warnings(caught)
         return status
+    except KeyboardInterrupt:
+        return _interrupted()
     except _UsageError as exc:
         print(f"{PROG}: error: {_short(exc)} (see '{PROG} --help')", file=sys.stderr)
         return EXIT_ERROR
     except SystemExit as exc:  # --help / --version
         return int(exc.code or 0) if not isinstance(exc.code, str) else EXIT_ERROR
-    except KeyboardInterrupt:
-        print(f"{PROG}: interrupted", file=sys.stderr)
-        return 130
+    except BrokenPipeError:
+        return _stdout_gone()
     except (ValueError, OSError, RuntimeError, ArithmeticError) as exc:
-        # RecipeError, colligate.InvalidInputError and OutOfValidityRangeError
-        # are ValueErrors; their messages already name the field and range. A
-        # solver failure (RuntimeError) is reported the same way.
-        # every problem of a recipe is listed, so errors get more room than warnings
-        print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
+        # RecipeError, colligate.InvalidInputError, OutputPathError, InputFileError and
+        # OutOfValidityRangeError are ValueErrors; their messages already name the field
+        # and range. A solver failure (RuntimeError) is reported the same way. Every problem
+        # of a recipe is listed, so errors get more room than warnings.
+        try:
+            print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
+        except KeyboardInterrupt:
+            return _interrupted()
         return EXIT_ERROR
+    except Exception as exc:  # a bug in colligate: one line, details on request
+        if os.environ.get("COLLIGATE_TRACEBACK"):
+            import traceback
+
+            traceback.print_exc()
+        print(f"{PROG}: internal error: {type(exc).__name__}: {_short(exc)} (please report it; set "
+              "COLLIGATE_TRACEBACK=1 to see where)", file=sys.stderr)
+        return EXIT_INTERNAL
 
 
 if __name__ == "__main__":  # pragma: no cover

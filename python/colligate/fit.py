@@ -38,7 +38,7 @@ from typing import Any, Iterable, Optional, Sequence
 import numpy as np
 
 from . import _core
-from ._files import atomic_write, atomic_write_text
+from ._files import InputFileError, OutputSet, atomic_write, atomic_write_text, read_input_bytes
 
 __all__ = [
     "FitResult",
@@ -151,7 +151,9 @@ class FitResult:
     def raise_if_failed(self) -> "FitResult":
         """Raise :class:`colligate.ConvergenceError` unless the fit converged."""
         if not self.success:
-            raise _core.ConvergenceError(f"fit ({self.model}) ended with status '{self.status}': {self.message}")
+            raise _core.ConvergenceError(
+                f"fit ({self.model}): status = '{self.status}' after {int(self._core.iterations)} iteration(s): "
+                f"{self.message}; a usable fit needs status 'converged'")
         return self
 
     def summary(self, level: float = 0.95):
@@ -181,9 +183,10 @@ class FitResult:
         parts = ", ".join(f"{n}={self.params[n]:.6g}±{self.stderr[n]:.2g}" for n in self.names)
         return f"FitResult({self.model}: {parts}; status={self.status})"
 
-    def plot(self, path: str | os.PathLike[str], *, inputs: Iterable[Any] = ()) -> str:
-        """Data and fitted curve, with a residual panel, as PNG (written atomically).
-        Returns the path written."""
+    def plot(self, path: str | os.PathLike[str], *, inputs: Iterable[Any] = (),
+             outputs: Optional[OutputSet] = None) -> str:
+        """Data and fitted curve, with a residual panel, as PNG (written atomically; with
+        ``outputs``, into that set of a command's files). Returns the path written."""
         from matplotlib.backends.backend_agg import FigureCanvasAgg
         from matplotlib.figure import Figure
 
@@ -208,7 +211,7 @@ class FitResult:
         def write(fh):
             fig.savefig(fh, format="png", dpi=110)
 
-        return atomic_write(path, write, inputs=inputs, what="plot")
+        return atomic_write(path, write, inputs=inputs, what="plot", into=outputs)
 
     def as_solute(self, name: str, *, molar_mass: Optional[float] = None,
                   id: Optional[str] = None) -> "FittedSolute":
@@ -349,63 +352,142 @@ class FittedSolute:
             lines.append(f"{k} = {q(v)}")
         return "\n".join(lines) + "\n"
 
-    def save(self, path: str | os.PathLike[str]) -> str:
-        """Write the fitted solute as TOML (atomically). Returns the path."""
-        return atomic_write_text(path, self.to_toml(), what="fitted-solute file")
+    def save(self, path: str | os.PathLike[str], *, outputs: Optional[OutputSet] = None) -> str:
+        """Write the fitted solute as TOML (atomically; with ``outputs``, into that set of a
+        command's files). Returns the path."""
+        return atomic_write_text(path, self.to_toml(), what="fitted-solute file", into=outputs)
 
     @classmethod
     def load(cls, path: str | os.PathLike[str]) -> "FittedSolute":
         return load_solute(path)
 
 
+def _solute_file_error(path: str, where: str, message: str) -> Exception:
+    return _core.InvalidInputError(f"fitted-solute file '{path}': {where}{': ' if where else ''}{message}")
+
+
+def _toml_table(path: str, parent: Any, key: str, where: str, required: bool = True) -> Optional[dict]:
+    value = parent.get(key) if isinstance(parent, dict) else None
+    if value is None:
+        if required:
+            raise _solute_file_error(path, f"[{where}]", "missing table (required)")
+        return None
+    if not isinstance(value, dict):
+        raise _solute_file_error(path, f"{where} = {value!r}"[:200], f"must be a table [{where}]")
+    return value
+
+
+def _toml_number(path: str, table: dict, key: str, where: str, rule: str, default: Optional[float] = None,
+                 finite: bool = True) -> float:
+    if key not in table:
+        if default is None:
+            raise _solute_file_error(path, f"[{where}] {key}", f"missing key ({rule})")
+        return default
+    value = table[key]
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}"[:200], f"must be a number ({rule})")
+    x = float(value)
+    if finite and not math.isfinite(x):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}", f"must be finite ({rule})")
+    return x
+
+
+def _toml_text(path: str, table: dict, key: str, where: str, default: Optional[str] = None) -> str:
+    if key not in table:
+        if default is None:
+            raise _solute_file_error(path, f"[{where}] {key}", "missing key (a string)")
+        return default
+    value = table[key]
+    if not isinstance(value, str):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}"[:200], "must be a string")
+    return value
+
+
 def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
-    """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`."""
+    """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`.
+
+    Raises
+    ------
+    colligate.InvalidInputError
+        The file is missing, larger than 10 MB, not UTF-8 TOML, or a field is missing or
+        of the wrong type or range; the message names the file, the table and key, the
+        value and what is expected.
+    """
     try:
         import tomllib  # Python >= 3.11
     except ImportError:  # pragma: no cover
         import tomli as tomllib  # type: ignore[no-redef]
-    with open(path, "rb") as fh:
-        doc = tomllib.load(fh)
+    source = os.fspath(path)
+    try:
+        raw = read_input_bytes(source, "fitted-solute file")
+    except InputFileError as exc:
+        raise _core.InvalidInputError(str(exc)) from None
+    try:
+        doc = tomllib.loads(raw.decode("utf-8"))
+    except UnicodeDecodeError as exc:
+        raise _solute_file_error(source, "", f"not UTF-8 text (byte {exc.start})") from None
+    except tomllib.TOMLDecodeError as exc:
+        raise _solute_file_error(source, "", f"TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise _solute_file_error(source, "", "arrays or inline tables nested too deeply for the TOML "
+                                 "reader; the file holds flat tables of numbers and strings") from None
     if doc.get("format") != FORMAT_NAME:
         raise _core.InvalidInputError(
-            f"{os.fspath(path)}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
+            f"{source}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
             f"(expected format = '{FORMAT_NAME}')")
-    if int(doc.get("version", 0)) > FORMAT_VERSION:
+    version = doc.get("version", 1)
+    if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= FORMAT_VERSION:
         raise _core.InvalidInputError(
-            f"{os.fspath(path)}: version = {doc.get('version')}: this colligate reads up to {FORMAT_VERSION}")
-    s = doc.get("solute", {})
-    pz = s.get("pitzer")
-    for key in ("id", "salt") if pz is not None else ("id", "molar_mass", "norrish_k"):
-        if key not in s:
-            raise _core.InvalidInputError(f"{os.fspath(path)}: [solute] {key} is missing")
+            f"{source}: version = {version!r}: this colligate reads versions 1 to {FORMAT_VERSION}")
+    s = _toml_table(source, doc, "solute", "solute")
+    pz = _toml_table(source, s, "pitzer", "solute.pitzer", required=False)
+    sid = _toml_text(source, s, "id", "solute")
+    name = _toml_text(source, s, "name", "solute", default=sid)
+    note = _toml_text(source, s, "note", "solute", default="")
     if pz is not None:
-        for key in ("beta0", "beta1", "cphi", "max_molality", "min_temperature", "max_temperature"):
-            if key not in pz:
-                raise _core.InvalidInputError(f"{os.fspath(path)}: [solute.pitzer] {key} is missing")
+        salt = _toml_text(source, s, "salt", "solute")
+        where = "solute.pitzer"
+        params = {k: _toml_number(source, pz, k, where, "kg/mol, kg^2/mol^2 or their d/dT",
+                                  default=None if k in ("beta0", "beta1", "cphi") else 0.0)
+                  for k in _PITZER_KEYS}
         rec = _core.make_pitzer_solute_record(
-            str(s["salt"]), str(s["id"]), str(s.get("name", s["id"])),
-            **{k: float(pz.get(k, 0.0)) for k in _PITZER_KEYS},
-            max_molality=float(pz["max_molality"]), min_temperature=float(pz["min_temperature"]),
-            max_temperature=float(pz["max_temperature"]),
-            source=str(pz.get("source", "colligate_fit_user")), note=str(s.get("note", "")))
+            salt, sid, name, **params,
+            max_molality=_toml_number(source, pz, "max_molality", where, "mol/kg, > 0"),
+            min_temperature=_toml_number(source, pz, "min_temperature", where, "K, > 0"),
+            max_temperature=_toml_number(source, pz, "max_temperature", where, "K, above min_temperature"),
+            source=_toml_text(source, pz, "source", where, default="colligate_fit_user"), note=note)
     else:
-        rec = _core.make_solute_record(str(s["id"]), str(s.get("name", s["id"])), float(s["molar_mass"]),
-                                       float(s["norrish_k"]), float(s.get("norrish_k3", 0.0)),
-                                       float(s.get("max_mass_fraction", 0.9)), str(s.get("note", "")))
+        salt = None
+        rec = _core.make_solute_record(
+            sid, name, _toml_number(source, s, "molar_mass", "solute", "kg/mol, > 0"),
+            _toml_number(source, s, "norrish_k", "solute", "Norrish K, dimensionless"),
+            _toml_number(source, s, "norrish_k3", "solute", "Norrish K3, dimensionless", default=0.0),
+            _toml_number(source, s, "max_mass_fraction", "solute", "kg/kg, in (0, 1]", default=0.9),
+            note)
+    bound = _toml_number(source, s, "bound_water_per_solids", "solute", "kg per kg of solute, >= 0", default=0.0)
+    if bound < 0.0:
+        raise _solute_file_error(source, f"[solute] bound_water_per_solids = {bound!r}", "must be >= 0 (kg per kg of solute)")
     fit_df = None
-    if "fit" in doc:
+    f = _toml_table(source, doc, "fit", "fit", required=False)
+    if f is not None:
         import pandas as pd
 
-        f = doc["fit"]
-        params = f.get("parameters", {})
-        fit_df = pd.DataFrame({"value": [p["value"] for p in params.values()],
-                               "stderr": [p["stderr"] for p in params.values()],
-                               "unit": [p.get("unit", "") for p in params.values()]},
-                              index=pd.Index(list(params), name="parameter"))
+        params_t = _toml_table(source, f, "parameters", "fit.parameters", required=False) or {}
+        rows = {}
+        for pname in params_t:
+            p = _toml_table(source, params_t, pname, f"fit.parameters.{pname}")
+            where = f"fit.parameters.{pname}"
+            rows[pname] = (_toml_number(source, p, "value", where, "the fitted value", finite=False),
+                           _toml_number(source, p, "stderr", where, "its standard error", finite=False),
+                           _toml_text(source, p, "unit", where, default=""))
+        fit_df = pd.DataFrame({"value": [r[0] for r in rows.values()],
+                               "stderr": [r[1] for r in rows.values()],
+                               "unit": [r[2] for r in rows.values()]},
+                              index=pd.Index(list(rows), name="parameter"))
         fit_df.attrs.update({k: v for k, v in f.items() if k != "parameters"})
-    return FittedSolute(rec, bound_water_per_solids=float(s.get("bound_water_per_solids", 0.0)),
-                        fit=fit_df, source={k: str(v) for k, v in doc.get("provenance", {}).items()},
-                        salt=str(s["salt"]) if pz is not None else None)
+    prov = _toml_table(source, doc, "provenance", "provenance", required=False) or {}
+    return FittedSolute(rec, bound_water_per_solids=bound, fit=fit_df,
+                        source={str(k): str(v) for k, v in prov.items()}, salt=salt)
 
 
 class SoluteLibrary(_core.SoluteTable):
@@ -635,19 +717,91 @@ def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=Non
                      extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
 
 
-def run_fit_command(args: Any) -> str:
-    """The ``colligate fit`` subcommand: fit, write the plot, return the printed summary."""
+#: Columns the ``colligate fit`` command reads from a data file (SI units); each one
+#: present must hold a finite number on every data line.
+FIT_DATA_COLUMNS = ("molality", "water_activity", "freezing_point_K", "osmotic_coefficient",
+                    "temperature_K", "water_fraction", "ice_fraction", "weight")
+
+
+def read_fit_data(path: str | os.PathLike[str]):
+    """Read a data file of the ``colligate fit`` command: CSV, UTF-8, a header line of
+    column names, at most 10 MB. Every column of :data:`FIT_DATA_COLUMNS` present is
+    converted to float; other columns stay text. Blank lines are skipped.
+
+    Raises
+    ------
+    colligate._files.InputFileError
+        The file is missing, too large, not UTF-8 or not a table; or a cell of a data
+        column is empty, not a number or not finite. The message names the file, the line
+        (counting the header as line 1) and the column.
+    """
+    import io
+
     import pandas as pd
 
-    from ._files import check_output_path
+    source = os.fspath(path)
+    prefix = f"data file '{source}'"
+    raw = read_input_bytes(source, "data file")
+    try:
+        text = raw.decode("utf-8-sig")
+    except UnicodeDecodeError as exc:
+        raise InputFileError(f"{prefix}: not UTF-8 text (byte {exc.start})") from None
+    if "\0" in text:
+        raise InputFileError(f"{prefix}: line {text[:text.index(chr(0))].count(chr(10)) + 1}: "
+                             "contains a NUL byte; expected CSV text")
+    try:
+        df = pd.read_csv(io.StringIO(text), dtype=str, keep_default_na=False, skip_blank_lines=False)
+    except pd.errors.EmptyDataError:
+        raise InputFileError(f"{prefix}: empty; expected a header line of column names "
+                             f"({', '.join(FIT_DATA_COLUMNS[:3])}, ...) and data lines") from None
+    except (pd.errors.ParserError, ValueError) as exc:
+        detail = " ".join(str(exc).split())[:200]
+        raise InputFileError(f"{prefix}: not a CSV table ({detail})") from None
+    # Row i of the frame is line i + 2 of the file (line 1 is the header); quoted cells
+    # spanning lines would shift this, and data files have none.
+    lines = np.arange(len(df)) + 2
+    blank = (df == "").all(axis=1).to_numpy() if len(df.columns) else np.zeros(len(df), bool)
+    df = df[~blank].reset_index(drop=True)
+    lines = lines[~blank]
+    for col in FIT_DATA_COLUMNS:
+        if col not in df.columns:
+            continue
+        cells = df[col].to_numpy()
+        values = np.empty(len(cells))
+        for i, cell in enumerate(cells):
+            where = f"{prefix}, line {lines[i]}, column '{col}'"
+            text_cell = str(cell).strip()
+            if not text_cell:
+                raise InputFileError(f"{where}: empty cell; expected a finite number (SI units)")
+            try:
+                x = float(text_cell)
+            except ValueError:
+                raise InputFileError(f"{where}: {text_cell[:40]!r} is not a number; expected a finite "
+                                     "number (SI units)") from None
+            if not math.isfinite(x):
+                raise InputFileError(f"{where}: {text_cell[:40]!r} is not finite; expected a finite number")
+            values[i] = x
+        df[col] = values
+    return df
 
+
+def run_fit_command(args: Any) -> str:
+    """The ``colligate fit`` subcommand: fit, write the plot (and the solute file), return
+    the printed summary. All files or none: both are written together at the end."""
     data_path = os.fspath(args.data)
-    df = pd.read_csv(data_path)
     stem = os.path.splitext(data_path)[0]
     plot_path = args.plot or f"{stem}_fit.png"
-    check_output_path(plot_path, [data_path], "--plot")
-    if args.save_solute:
-        check_output_path(args.save_solute, [data_path], "--save-solute")
+    with OutputSet([data_path]) as out:
+        out.plan(plot_path, "--plot")
+        if args.save_solute:
+            out.plan(args.save_solute, "--save-solute")
+        text = _fit_from_file(args, data_path, stem, plot_path, out)
+        out.commit()
+    return text
+
+
+def _fit_from_file(args: Any, data_path: str, stem: str, plot_path: str, out: OutputSet) -> str:
+    df = read_fit_data(data_path)
     cols = set(df.columns)
     weights = "weight" if "weight" in cols else None
     name = os.path.basename(data_path)
@@ -693,7 +847,7 @@ def run_fit_command(args: Any) -> str:
             res = fit_effective_solute("water_fraction", freezing_point="freezing_point_K",
                                        weights=weights, data=df, data_name=name)
     summary = res.summary()
-    written = res.plot(plot_path, inputs=[data_path])
+    written = res.plot(plot_path, inputs=[data_path], outputs=out)
     a = summary.attrs
     lines = [f"fit: {a['model']} to {a['n_points']} points from {data_path}",
              f"status: {a['status']} ({a['message']}); chi-square {a['chi_square']:.6g}, "
@@ -705,7 +859,7 @@ def run_fit_command(args: Any) -> str:
     if args.save_solute:
         molar_mass = None if args.model == "pitzer" else args.molar_mass
         fs = res.as_solute(args.name or os.path.basename(stem), molar_mass=molar_mass)
-        lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute))}")
+        lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute, outputs=out))}")
     from ._warnings import CAUTIONS
 
     lines += ["", "Cautions:"] + [f"- {c}" for c in CAUTIONS]

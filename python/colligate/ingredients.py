@@ -198,16 +198,38 @@ _LIBRARY_FILE = "ingredients.toml"
 _ALLOWED = set(_BASIC) | {"msnf", "sugars", "acids", "salts", "other_solutes", "name", "category", "source", "note"}
 
 
-def _parse_library(text: str) -> dict[str, Ingredient]:
-    doc = tomllib.loads(text)
+_TEXT_KEYS = ("name", "category", "source", "note")
+
+
+def _parse_library(text: str, source: str = "ingredient library") -> dict[str, Ingredient]:
+    """Ingredients of a library file (TOML: one table per ingredient). Every problem is
+    an :class:`IngredientError` naming ``source``, the table and key."""
+    try:
+        doc = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise IngredientError(f"{source}: TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise IngredientError(f"{source}: arrays or inline tables nested too deeply for the TOML reader; "
+                              "an ingredient is a flat table of mass fractions") from None
     out: dict[str, Ingredient] = {}
     for key, entry in doc.items():
+        if not isinstance(entry, dict):
+            raise IngredientError(f"{source}: {key} = {entry!r}"[:200] + f": must be a table [{key}] of mass fractions")
         extra = set(entry) - _ALLOWED
         if extra:
-            raise IngredientError(f"ingredient library: [{key}].{sorted(extra)[0]}: unknown key")
+            raise IngredientError(f"{source}: [{key}].{sorted(extra)[0]}: unknown key; allowed keys are "
+                                  f"{', '.join(sorted(_ALLOWED))}")
+        if "name" not in entry:
+            raise IngredientError(f"{source}: [{key}].name: missing key (a non-empty string)")
+        for k in _TEXT_KEYS:
+            if k in entry and not isinstance(entry[k], str):
+                raise IngredientError(f"{source}: [{key}].{k} = {entry[k]!r}"[:200] + ": must be a string")
         if not entry.get("source"):
-            raise IngredientError(f"ingredient library: [{key}]: every ingredient needs a source")
-        out[key] = Ingredient(key=key, **entry)
+            raise IngredientError(f"{source}: [{key}]: every ingredient needs a source")
+        try:
+            out[key] = Ingredient(key=key, **entry)
+        except IngredientError as exc:
+            raise IngredientError(f"{source}: [{key}]: {exc}") from None
     return out
 
 

@@ -20,7 +20,7 @@ from typing import Iterable, Mapping
 import numpy as np
 
 from . import api
-from ._files import atomic_write, check_output_path
+from ._files import OutputSet, atomic_write, check_output_path
 from .report_compute import EUTECTIC_MARGIN_K as _EUTECTIC_MARGIN_K
 from .report_compute import IcePath
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
@@ -65,6 +65,7 @@ def plot_ice_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 421,
     fahrenheit: bool = False,
 ) -> str:
@@ -86,6 +87,9 @@ def plot_ice_curve(
         Plot title, and a label (e.g. "invented demo scenario") printed in the corner.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curve (>= 10).
     fahrenheit : bool
@@ -144,9 +148,9 @@ def plot_ice_curve(
                    label=f"{name} {t_c:.1f} °C: {100.0 * f:.0f} % ice")
         ax.plot([t_c], [100.0 * f], marker="s", color=colour, zorder=5)
 
-    _ice_axes(ax, warm_c, cold_c, title or "Ice curve", fahrenheit, "best")
+    _ice_axes(ax, warm_c, cold_c, _one_line(title) or "Ice curve", fahrenheit, "best")
     _footer(fig, model, label)
-    return _save(fig, target, inputs)
+    return _save(fig, target, inputs, outputs)
 
 
 # --------------------------------------------------------------------------- helpers
@@ -197,10 +201,11 @@ def _fahrenheit_axis(ax) -> None:
     top.set_xlabel("temperature (°F)")
 
 
-def _save(fig, target: str, inputs: Iterable[str | os.PathLike[str]]) -> str:
-    """Writes the figure atomically in the format its file extension names."""
+def _save(fig, target: str, inputs: Iterable[str | os.PathLike[str]], outputs: OutputSet | None = None) -> str:
+    """Writes the figure atomically in the format its file extension names (into a command's
+    set of outputs when one is given: renamed into place when the set is committed)."""
     fmt = os.path.splitext(target)[1].lower().lstrip(".")
-    return atomic_write(target, lambda fh: fig.savefig(fh, format=fmt), inputs, "plot")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format=fmt), inputs, "plot", into=outputs)
 
 
 
@@ -215,10 +220,27 @@ def _figure(width: float, height: float):
     return fig
 
 
+#: Longest title or label drawn on a plot, characters; longer ones are cut with "...".
+#: Text layout in matplotlib grows with the length of a string, and a recipe name may be
+#: anything up to the input size limit.
+_MAX_PLOT_TEXT = 120
+
+
+def _one_line(text: str | None, limit: int = _MAX_PLOT_TEXT) -> str:
+    """``text`` on one line, at most ``limit`` characters (cut with "...")."""
+    if not text:
+        return ""
+    head = str(text)[: 4 * limit]  # bounded work whatever the length
+    flat = " ".join(head.split())
+    if len(flat) > limit or len(text) > 4 * limit:
+        flat = flat[: limit - 3].rstrip() + "..."
+    return flat
+
+
 def _footer(fig, model: str, label: str | None) -> None:
     footer = f"colligate, model: {model}; estimates only, verify by measurement"
     if label:
-        footer = f"{label.upper()}  |  " + footer
+        footer = f"{_one_line(label).upper()}  |  " + footer
     fig.text(0.01, 0.01, footer, fontsize=7, color="#555555")
     fig.tight_layout(rect=(0, 0.03, 1, 1))
 
@@ -310,6 +332,7 @@ def plot_enthalpy(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a two-panel PNG: enthalpy H(T) (kJ/kg) and apparent specific heat (kJ/(kg K)).
@@ -327,6 +350,9 @@ def plot_enthalpy(
         Plot title, and a label (e.g. "invented demo scenario") printed in the footer.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curves (>= 10).
 
@@ -388,11 +414,11 @@ def plot_enthalpy(
     ax_c.set_xlabel("temperature (°C)")
     for ax in (ax_h, ax_c):
         ax.grid(True, color="#d9d9d9", linewidth=0.6, which="major")
-    ax_h.set_title(title or "Enthalpy and apparent specific heat")
+    ax_h.set_title(_one_line(title) or "Enthalpy and apparent specific heat")
     ax_h.legend(loc="upper right", fontsize=8, framealpha=0.9)
     ax_c.legend(loc="upper left", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return _save(fig, target, inputs)
+    return _save(fig, target, inputs, outputs)
 
 
 # --------------------------------------------------------------------------- cooling curve
@@ -408,6 +434,7 @@ def plot_cooling_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a PNG of temperature (degC) against the heat removed per kg (kJ/kg).
@@ -472,10 +499,10 @@ def plot_cooling_curve(
     ax.set_xlabel("heat removed from the fill temperature (kJ per kg of product)")
     ax.set_ylabel("temperature (°C)")
     ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Cooling curve")
+    ax.set_title(_one_line(title) or "Cooling curve")
     ax.legend(loc="upper right", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return _save(fig, target, inputs)
+    return _save(fig, target, inputs, outputs)
 
 
 # --------------------------------------------------------------------------- contributions
@@ -489,6 +516,7 @@ def plot_contributions(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
 ) -> str:
     """Write a PNG with three horizontal bar panels: each ingredient's share (%) of the
     freezing-point depression, of the sweetness and of the water kept liquid at
@@ -523,6 +551,6 @@ def plot_contributions(
         ax.set_xlabel("share (%)")
         ax.set_title(heading, fontsize=9)
         ax.grid(True, axis="x", color="#d9d9d9", linewidth=0.6)
-    fig.suptitle(title or f"What each ingredient does: {recipe.name}", fontsize=11)
+    fig.suptitle(_one_line(title) or _one_line(f"What each ingredient does: {recipe.name}"), fontsize=11)
     _footer(fig, recipe.model, label if label is not None else (recipe.label or None))
-    return _save(fig, target, inputs)
+    return _save(fig, target, inputs, outputs)

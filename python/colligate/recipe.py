@@ -44,7 +44,8 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 Rules checked when a recipe is loaded (each error names the file, the table
 and key, and the valid range; every problem of a file is reported at once):
 
-* the file exists, is UTF-8 and is valid TOML (syntax errors give the line);
+* the file exists, is at most 10 MB, is UTF-8 and is valid TOML (syntax errors give
+  the line; nesting too deep for the reader is named as such);
 * only the tables and keys above appear (solute names excepted); two keys of one
   table that differ only by case, spaces, hyphens or underscores are an error, and so
   are two names of the same solute;
@@ -79,6 +80,7 @@ from typing import Any, Mapping
 
 from . import api
 
+from ._files import MAX_INPUT_BYTES, InputFileError, read_input_bytes
 from .units import (
     celsius_from_kelvin,
     fahrenheit_from_kelvin,
@@ -565,10 +567,16 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         On any schema violation; the message names ``source``, the table/key
         and the valid range.
     """
+    if len(text) > MAX_INPUT_BYTES:
+        raise _fail(source, "", f"text of {len(text)} characters; recipes are limited to {MAX_INPUT_BYTES} "
+                    "characters (10 MB)")
     try:
         doc = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise _fail(source, "", f"TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise _fail(source, "", "arrays or inline tables nested too deeply for the TOML reader; a recipe "
+                    "holds only plain numbers and strings in its tables (no nesting)") from None
 
     problems = _Problems(source)
     _duplicate_keys(problems, doc)
@@ -834,14 +842,9 @@ def load_recipe(path: str | os.PathLike[str]) -> Recipe:
     """
     source = os.fspath(path)
     try:
-        with open(source, "rb") as fh:
-            raw = fh.read()
-    except FileNotFoundError:
-        raise _fail(source, "", "file not found") from None
-    except IsADirectoryError:
-        raise _fail(source, "", "is a directory, expected a .toml file") from None
-    except OSError as exc:
-        raise _fail(source, "", f"cannot read file ({exc.strerror or exc})") from None
+        raw = read_input_bytes(source, "recipe")
+    except InputFileError as exc:
+        raise RecipeError(str(exc)) from None
     try:
         text = raw.decode("utf-8")
     except UnicodeDecodeError as exc:

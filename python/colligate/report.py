@@ -31,7 +31,7 @@ from .report_compute import (  # noqa: F401
     ice_enthalpy_table,
 )
 from .report_indicators import REPORT_FORMAT, build_report  # noqa: F401
-from .report_layout import format_json, format_text, write_table_csv  # noqa: F401
+from .report_layout import NonFiniteValueWarning, format_json, format_text, write_table_csv  # noqa: F401
 
 __all__ = [
     "REPORT_FORMAT",
@@ -42,4 +42,5 @@ __all__ = [
     "format_json",
     "ice_enthalpy_table",
     "write_table_csv",
+    "NonFiniteValueWarning",
 ]
