@@ -25,6 +25,7 @@ import numpy as np
 
 from . import api
 from ._warnings import CAUTIONS, OutOfValidityRangeWarning
+from .contributions import sucrose_equivalent_kg
 from .recipe import Recipe, _solute_id
 from .report_compute import AW_REFERENCE_T_K, EUTECTIC_MARGIN_K, IcePath, _f, electrolytes
 from .report_indicators import extra_cautions
@@ -56,11 +57,6 @@ DEFAULT_ICE_FRACTIONS: tuple[float, ...] = (0.5, 0.7)
 def _temps(t_k: float) -> dict[str, float]:
     return {"temperature_K": t_k, "temperature_C": celsius_from_kelvin(t_k),
             "temperature_F": fahrenheit_from_kelvin(t_k)}
-
-
-def _sweetness_kg(solution: "api.Solution") -> float:
-    rel = {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
-    return sum(rel.get(_solute_id(k), 0.0) * float(v) for k, v in solution.solutes.items())
 
 
 def _one(recipe: Recipe, temps_k: Sequence[float], fractions: Sequence[float]) -> dict[str, Any]:
@@ -124,7 +120,7 @@ def _one(recipe: Recipe, temps_k: Sequence[float], fractions: Sequence[float]) -
                                                            if _solute_id(k) != "ethanol")) / batch,
         "ethanol_mass_percent": 100.0 * float(sum(v for k, v in solution.solutes.items()
                                                   if _solute_id(k) == "ethanol")) / batch,
-        "sweetness_sucrose_equivalent_mass_percent": 100.0 * _sweetness_kg(solution) / batch,
+        "sweetness_sucrose_equivalent_mass_percent": 100.0 * sucrose_equivalent_kg(solution.solutes) / batch,
         "bound_water_kg": bound,
         "freezing_point_K": _f(tf),
         "freezing_point_C": _f(celsius_from_kelvin(tf)) if math.isfinite(tf) else None,

@@ -37,6 +37,7 @@ from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
 __all__ = [
     "CONTRIBUTION_COLUMNS",
+    "sucrose_equivalent_kg",
     "ingredient_solutes",
     "contribution_table",
     "contributions",
@@ -58,6 +59,14 @@ CONTRIBUTION_COLUMNS: tuple[str, ...] = (
     "liquid_water_held_percent",
     "ice_from_its_water_kg",
 )
+
+
+def sucrose_equivalent_kg(solutes: Mapping[str, float]) -> float:
+    """Sweetness of dissolved solutes (name -> kg) as kg of sucrose: each solute's mass
+    times its relative sweetness from the core's table (sucrose = 1; solutes not in the
+    table count as not sweet)."""
+    rel = {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
+    return float(sum(rel.get(_solute_id(k), 0.0) * float(v) for k, v in solutes.items()))
 
 
 def ingredient_solutes(recipe: Recipe) -> dict[str, tuple[float, float, dict[str, float]]]:
@@ -128,9 +137,7 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
     dt_share = _split(depression, dt_alone)
 
     # sweetness (additive)
-    rel = {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
-    sweet = {key: sum(rel.get(_solute_id(n), 0.0) * kg for n, kg in solutes.items())
-             for key, (_, _, solutes) in parts.items()}
+    sweet = {key: sucrose_equivalent_kg(solutes) for key, (_, _, solutes) in parts.items()}
     sweet_total = sum(sweet.values())
 
     # water kept liquid and ice at the temperature

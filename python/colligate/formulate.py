@@ -23,7 +23,8 @@ from typing import Mapping, Optional, Sequence
 import numpy as np
 
 from . import api
-from .recipe import Recipe, RecipeError, _solute_id
+from .contributions import sucrose_equivalent_kg
+from .recipe import Recipe, RecipeError
 
 __all__ = ["RecipeSolution", "TARGETS", "solve_recipe"]
 
@@ -170,8 +171,6 @@ def solve_recipe(
         raise api.InvalidInputError("solve_recipe: " + "; ".join(problems))
     lo_a, hi_a = np.array(lo), np.array(hi)
 
-    rel = {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
-
     def candidate(x: np.ndarray) -> Recipe:
         return recipe.with_changes({k: float(v) for k, v in zip(keys, x)}, name=recipe.name)
 
@@ -192,8 +191,7 @@ def solve_recipe(
                 if "dissolved_solids" in parsed:
                     out["dissolved_solids"][i] = float(sum(solutes.values())) / r.total_mass
                 if "sweetness" in parsed:
-                    out["sweetness"][i] = sum(rel.get(_solute_id(k), 0.0) * float(v)
-                                              for k, v in solutes.items()) / r.total_mass
+                    out["sweetness"][i] = sucrose_equivalent_kg(solutes) / r.total_mass
         return out
 
     goal = {k: v[-1] for k, v in parsed.items()}

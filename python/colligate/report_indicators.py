@@ -13,7 +13,7 @@ from typing import Any, Mapping
 
 from . import api
 from ._warnings import CAUTIONS, OutOfValidityRangeWarning
-from .contributions import contributions_entry
+from .contributions import contributions_entry, sucrose_equivalent_kg
 from .recipe import DEFAULT_TEMPERATURES_C, Recipe
 from .report_compute import (
     VERIFY_NOTE,
@@ -39,11 +39,6 @@ __all__ = [
 #: Identifier and version of the dict layout produced by :func:`build_report`.
 REPORT_FORMAT = "colligate-report/1"
 
-def _sweetness() -> dict[str, float]:
-    """Relative sweetness by solute id (sucrose = 1), from the core's table."""
-    return {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
-
-
 def _lactose_solubility_g_per_100g(t_k: float) -> float:
     """Lactose solubility at ``t_k`` (K) from the core, in g per 100 g water for display."""
     return 100.0 * float(api.lactose_solubility(t_k))
@@ -65,8 +60,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
     batch = recipe.total_mass
     solution = path.solution
     solutes = dict(solution.solutes)
-    sweetness = _sweetness()
-    sweet = sum(sweetness.get(k, 0.0) * v for k, v in solutes.items())
+    sweet = sucrose_equivalent_kg(solutes)
     kinds = solute_kinds()
     out: dict[str, Any] = {
         "total_solids_mass_percent": 100.0 * (1.0 - recipe.water / batch),
