@@ -175,6 +175,7 @@ def _run(args: argparse.Namespace) -> int:
         return EXIT_OK
     if args.command == "freeze-time":
         from .cli_freeze_time import run as run_freeze_time
+        from .recipe import load_demo_recipe, load_recipe
 
         recipe = load_demo_recipe() if args.recipe == "demo" else load_recipe(args.recipe)
         sys.stdout.write(run_freeze_time(args, recipe, [] if args.recipe == "demo" else [args.recipe]))
