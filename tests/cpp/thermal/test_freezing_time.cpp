@@ -268,6 +268,11 @@ TEST_CASE("Food density and conductivity (Choi & Okos 1986)", "[thermal][conduct
   // pure components: the table rows at 0 C (Choi & Okos 1986, as in ASHRAE ch. 9 Table 1)
   CHECK_THAT(thermal::component_conductivity(thermal::component::ice, C0), WithinRel(2.2196, 1e-12));
   CHECK_THAT(thermal::component_density(thermal::component::water, C0), WithinRel(997.18, 1e-12));
+  // against measured pure-substance values: ice 2.22 W/(m K) at 0 C (CRC Handbook, from
+  // memory; 3 figures), liquid water 0.5984 W/(m K) at 20 C (IAPWS 2011 conductivity
+  // formulation, Huber et al. 2012); the polynomial is a fit to food data, 1 % allowed
+  CHECK_THAT(thermal::component_conductivity(thermal::component::ice, C0), WithinRel(2.22, 5e-3));
+  CHECK_THAT(thermal::component_conductivity(thermal::component::water, C0 + 20.0), WithinRel(0.5984, 0.01));
   thermal::food_composition x;
   x.water = 0.75;
   x.protein = 0.2;

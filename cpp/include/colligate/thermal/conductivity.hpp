@@ -5,8 +5,8 @@
 ///
 /// Choi & Okos (1986), as tabulated in ASHRAE Handbook - Refrigeration (2006), ch. 9
 /// "Thermal properties of foods", Table 1 (source key choi_okos_1986; coefficients from
-/// memory, cross-checked against the CoolProp copy named in the project's references where
-/// it carries them), t in degC, valid -40 to 150 C:
+/// memory, not yet cross-checked against a re-read copy of the table; the ice and water rows
+/// are tested against measured conductivities), t in degC, valid -40 to 150 C:
 ///
 /// | component    | k, W/(m K)                                  | rho, kg/m^3                    |
 /// |--------------|---------------------------------------------|--------------------------------|
