@@ -305,6 +305,7 @@ def test_cli_json_report_with_an_infinite_value(tmp_path, capsys, monkeypatch):
 @pytest.mark.parametrize("content, line, column, what", [
     ("molality,water_activity\n0.5,0.99\n1.0,0.98\n1.5,abc\n", 4, "water_activity", "'abc' is not a number"),
     ("molality,water_activity\n0.5,0.99\n\n1.0,\n", 4, "water_activity", "empty cell"),
+    ("molality,water_activity\n0.5,0.99\n  \n\n1.0,0.98\n2.0, \n", 6, "water_activity", "empty cell"),
     ("molality,water_activity\n0.5,0.99\ninf,0.98\n", 3, "molality", "'inf' is not finite"),
     ("molality,water_activity\n0.5,0.99\n1e999,0.98\n", 3, "molality", "'1e999' is not finite"),
 ])
