@@ -34,8 +34,10 @@ writes the printed report to FILE. Every file is written atomically and an
 input file is never overwritten.
 
 Exit status: 0 on success, 2 on a usage or input error (a one-line message on
-stderr, no traceback), 130 after Ctrl-C (``colligate: interrupted``), 3 on an
-internal error (a bug: one line; ``COLLIGATE_TRACEBACK=1`` shows where).
+stderr, no traceback), 130 after Ctrl-C (``colligate: interrupted``; also while
+Python is still importing, through the launcher ``_colligate_cli``), 143 after SIGTERM
+(the installed command), 3 on an internal error (a bug: one line;
+``COLLIGATE_TRACEBACK=1`` shows where).
 Validity-range warnings are printed as one line each on stderr and do not change
 the exit status. A command writes all its files or none: each goes to a temporary
 file, and all are renamed into place only once everything has been computed.

@@ -760,7 +760,8 @@ def read_fit_data(path: str | os.PathLike[str]):
     # Row i of the frame is line i + 2 of the file (line 1 is the header); quoted cells
     # spanning lines would shift this, and data files have none.
     lines = np.arange(len(df)) + 2
-    blank = (df == "").all(axis=1).to_numpy() if len(df.columns) else np.zeros(len(df), bool)
+    blank = (df.apply(lambda c: c.str.strip()) == "").all(axis=1).to_numpy() if len(df.columns) \
+        else np.zeros(len(df), bool)  # blank and whitespace-only lines
     df = df[~blank].reset_index(drop=True)
     lines = lines[~blank]
     for col in FIT_DATA_COLUMNS:

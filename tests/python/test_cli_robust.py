@@ -305,6 +305,7 @@ def test_cli_json_report_with_an_infinite_value(tmp_path, capsys, monkeypatch):
 @pytest.mark.parametrize("content, line, column, what", [
     ("molality,water_activity\n0.5,0.99\n1.0,0.98\n1.5,abc\n", 4, "water_activity", "'abc' is not a number"),
     ("molality,water_activity\n0.5,0.99\n\n1.0,\n", 4, "water_activity", "empty cell"),
+    ("molality,water_activity\n0.5,0.99\n  \n\n1.0,0.98\n2.0, \n", 6, "water_activity", "empty cell"),
     ("molality,water_activity\n0.5,0.99\ninf,0.98\n", 3, "molality", "'inf' is not finite"),
     ("molality,water_activity\n0.5,0.99\n1e999,0.98\n", 3, "molality", "'1e999' is not finite"),
 ])
@@ -335,3 +336,50 @@ def test_molar_mass_start_names_the_bounds_of_the_fit():
     with pytest.raises(cg.InvalidInputError,
                        match=r"bound_water_start = -1: must lie within the bounds of the fit, \[0, 3\] kg per kg"):
         cg.fit_effective_solute(wf, tf, bound_water_start=-1.0)
+
+
+@posix_signals
+def test_report_save_to_a_named_pipe_is_refused_and_through_a_link_is_written(tmp_path, capsys):
+    # The case of `colligate report good.toml --save /dev/null` run as root, with a named
+    # pipe standing in for the device: refused before computing, the pipe left as it is.
+    import stat
+
+    src = write_recipe(tmp_path)
+    fifo = tmp_path / "pipe"
+    os.mkfifo(fifo)
+    code, out, err = run(capsys, "report", str(src), "--save", str(fifo))
+    one_line_error(code, err, "--save", str(fifo), "named pipe")
+    assert stat.S_ISFIFO(os.lstat(fifo).st_mode) and out == ""
+    assert sorted(os.listdir(tmp_path)) == ["pipe", "r.toml"]
+
+    real = tmp_path / "reports" / "r.txt"
+    real.parent.mkdir()
+    real.write_text("old report\n")
+    link = tmp_path / "latest.txt"
+    link.symlink_to(real)
+    code, out, err = run(capsys, "report", str(src), "--save", str(link))
+    assert code == 0, err
+    assert os.path.islink(link) and real.read_text(encoding="utf-8") == out
+    assert sorted(os.listdir(real.parent)) == ["r.txt"]
+
+
+@posix_signals
+def test_sigterm_while_the_demo_writes_its_files_leaves_none(tmp_path):
+    exe = console_script()
+    for attempt in range(3):
+        out = tmp_path / f"attempt{attempt}"
+        out.mkdir()
+        proc = subprocess.Popen([exe, "demo", "--csv", "--out", str(out)], stdout=subprocess.PIPE,
+                                stderr=subprocess.PIPE, text=True)
+        while proc.poll() is None and not any(n.endswith(".tmp") for n in os.listdir(out)):
+            time.sleep(0.005)
+        if proc.poll() is not None:
+            proc.communicate()
+            continue
+        proc.send_signal(signal.SIGTERM)
+        _, stderr = proc.communicate(timeout=300)
+        assert proc.returncode == 128 + signal.SIGTERM, stderr
+        assert "Traceback" not in stderr
+        assert os.listdir(out) == []
+        return
+    pytest.fail("the demo never showed a temporary file before finishing")
