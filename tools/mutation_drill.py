@@ -151,7 +151,7 @@ def main(argv=None) -> int:
             return 2
     env = dict(os.environ)
     if run(["cmake", "-S", ".", "-B", str(build), "-G", "Ninja", "-DCOLLIGATE_BUILD_TESTS=ON",
-            "-DCMAKE_BUILD_TYPE=Release", "-DCMAKE_CXX_COMPILER_LAUNCHER=ccache"], scratch, log, env) != 0:
+            "-DCMAKE_CXX_COMPILER_LAUNCHER=ccache"], scratch, log, env) != 0:
         print("configure failed; see the log", file=sys.stderr)
         return 2
     t = time.time()
