@@ -83,7 +83,8 @@ TEST_CASE("fitted Norrish constants against held-out CRC rows", "[validation][he
   // row may not be worse than the fit allows.
   const std::map<std::string, double> fit_row_worst = {
       {"lactose", 0.005}, {"maltose", 0.046}, {"glycerol", 0.019},
-      {"citric_acid", 0.084}, {"lactic_acid", 0.120}, {"ethanol", 0.346}};
+      {"citric_acid", 0.084}, {"lactic_acid", 0.120}, {"ethanol", 0.346},
+      {"acetic_acid", 0.049}};
   std::map<std::string, int> fit_rows, checked;
   for (const auto& r : read_reference("crc_freezing_points.csv")) {
     const auto it = fit_row_worst.find(r.at("solute"));
