@@ -77,7 +77,8 @@ path : str
       .value("invalid_input", colligate::batch::row_status::invalid_input)
       .value("no_freezing_point", colligate::batch::row_status::no_freezing_point)
       .value("not_converged", colligate::batch::row_status::not_converged)
-      .value("below_curve_end", colligate::batch::row_status::below_curve_end);
+      .value("below_curve_end", colligate::batch::row_status::below_curve_end)
+      .value("no_physical_value", colligate::batch::row_status::no_physical_value);
 }
 
 }  // namespace colligate_bindings

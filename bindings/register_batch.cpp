@@ -26,10 +26,35 @@ const double* check_matrix(const array_in& a, std::size_t n_species, const char*
   return a.data();
 }
 
+/// Runs a batch kernel with the GIL released. The kernel's interruption hook reacquires
+/// the GIL about every 50 ms and lets Python run its signal handlers (PyErr_CheckSignals,
+/// on the calling thread, which holds the interpreter's main-thread role); when a handler
+/// raises (Ctrl-C: KeyboardInterrupt) the batch stops and that exception reaches Python.
+template <class Kernel>
+void run_interruptible(colligate::batch::options& opt, Kernel kernel) {
+  bool python_error = false;
+  opt.interrupted = [&python_error] {
+    py::gil_scoped_acquire gil;
+    if (PyErr_CheckSignals() != 0) {
+      python_error = true;  // the exception stays set in the interpreter
+      return true;
+    }
+    return false;
+  };
+  try {
+    py::gil_scoped_release release;
+    kernel();
+  } catch (const colligate::batch::interrupted&) {
+    if (python_error) throw py::error_already_set();
+    throw;
+  }
+}
+
 colligate::batch::options make_options(int threads, const std::string& policy, double bound) {
   if (threads < 0) throw colligate::invalid_input("threads = " + std::to_string(threads) + ": must be >= 0 (0 = all cores)");
   if (!(bound >= 0.0 && bound < 1.0))
-    throw colligate::invalid_input("bound_water_fraction must lie in [0, 1)");
+    throw colligate::invalid_input(colligate::detail::describe(
+        "batch", "bound_water_fraction", bound, "must lie in [0, 1) (a share of each row's water)"));
   colligate::batch::options o;
   o.threads = static_cast<unsigned>(threads);
   o.policy = colligate::range_policy_from_string(policy);
@@ -74,15 +99,12 @@ void register_batch(py::module_& m) {
       [](const solution_batch& b, const std::string& model, int threads, const std::string& policy,
          double bound) {
         const auto id = colligate::models::model_choice(model);
-        const auto opt = make_options(threads, policy, bound);
+        auto opt = make_options(threads, policy, bound);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
         double* o = out.mutable_data();
         std::uint8_t* st = status.mutable_data();
-        {
-          py::gil_scoped_release release;
-          colligate::batch::freezing_points(b, id, opt, o, st);
-        }
+        run_interruptible(opt, [&] { colligate::batch::freezing_points(b, id, opt, o, st); });
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("model") = "auto", py::arg("threads") = 0,
@@ -93,15 +115,12 @@ void register_batch(py::module_& m) {
       [](const solution_batch& b, double T, const std::string& model, int threads,
          const std::string& policy) {
         const auto id = colligate::models::model_choice(model);
-        const auto opt = make_options(threads, policy, 0.0);
+        auto opt = make_options(threads, policy, 0.0);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
         double* o = out.mutable_data();
         std::uint8_t* st = status.mutable_data();
-        {
-          py::gil_scoped_release release;
-          colligate::batch::water_activities(b, T, id, opt, o, st);
-        }
+        run_interruptible(opt, [&] { colligate::batch::water_activities(b, T, id, opt, o, st); });
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperature"), py::arg("model") = "auto", py::arg("threads") = 0,
@@ -112,7 +131,7 @@ void register_batch(py::module_& m) {
       [](const solution_batch& b, const array_in& temperatures, const std::string& model,
          int threads, const std::string& policy, double bound) {
         const auto id = colligate::models::model_choice(model);
-        const auto opt = make_options(threads, policy, bound);
+        auto opt = make_options(threads, policy, bound);
         if (temperatures.ndim() != 1)
           throw colligate::invalid_input("temperatures must be a 1-D array (K)");
         const auto nT = static_cast<std::size_t>(temperatures.shape(0));
@@ -121,10 +140,7 @@ void register_batch(py::module_& m) {
         const double* t = temperatures.data();
         double* o = out.mutable_data();
         std::uint8_t* st = status.mutable_data();
-        {
-          py::gil_scoped_release release;
-          colligate::batch::ice_fractions(b, t, nT, id, opt, o, st);
-        }
+        run_interruptible(opt, [&] { colligate::batch::ice_fractions(b, t, nT, id, opt, o, st); });
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperatures"), py::arg("model") = "auto", py::arg("threads") = 0,

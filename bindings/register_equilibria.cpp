@@ -30,6 +30,16 @@ void register_equilibria(py::module_& m) {
   m.def("ln_water_activity_of_ice", &colligate::water::ln_water_activity_of_ice,
         py::arg("temperature"),
         "ln a_w of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere.");
+  m.def(
+      "water_activity_of_ice",
+      [](double T, const std::string& policy) {
+        return as_tuple(colligate::water::water_activity_of_ice_checked(
+            T, colligate::range_policy_from_string(policy)));
+      },
+      py::arg("temperature"), py::arg("range_policy") = "extrapolate",
+      "Water activity of a solution in equilibrium with ice at ``temperature`` (K), one "
+      "atmosphere, and the reason when outside 233.15-273.15 K (value, reason). No value "
+      "below 215 K or above the ice point (NaN, or OutOfValidityRangeError with 'raise').");
   m.def("enthalpy_of_fusion", &colligate::water::enthalpy_of_fusion, py::arg("temperature"),
         "Molar enthalpy of fusion of ice at ``temperature`` (K), J/mol.");
   m.def("ice_vapour_pressure", &colligate::water::ice_vapour_pressure, py::arg("temperature"),

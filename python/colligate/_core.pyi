@@ -508,11 +508,14 @@ class RowStatus:
       not_converged
     
       below_curve_end
+    
+      no_physical_value
     """
     __members__: typing.ClassVar[dict[str, RowStatus]]
     below_curve_end: typing.ClassVar[RowStatus]
     invalid_input: typing.ClassVar[RowStatus]
     no_freezing_point: typing.ClassVar[RowStatus]
+    no_physical_value: typing.ClassVar[RowStatus]
     not_converged: typing.ClassVar[RowStatus]
     ok: typing.ClassVar[RowStatus]
     out_of_range: typing.ClassVar[RowStatus]
@@ -793,6 +796,10 @@ def unfrozen_specific_heat(composition: typing.Any, temperature: typing.Supports
     """
 def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
+def water_activity_of_ice(temperature: typing.SupportsFloat | typing.SupportsIndex, range_policy: str = 'extrapolate') -> tuple[float, str]:
+    """
+    Water activity of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere, and the reason when outside 233.15-273.15 K (value, reason). No value below 215 K or above the ice point (NaN, or OutOfValidityRangeError with 'raise').
+    """
 CRYOSCOPIC_CONSTANT: float = 1.8604572278991671
 ENTHALPY_REFERENCE_TEMPERATURE: float = 233.15
 GAS_CONSTANT: float = 8.314462618

@@ -422,10 +422,22 @@ def heat_load(
     return out
 
 
-def water_activity_of_ice(T: Temperature) -> Union[float, np.ndarray]:
-    """Water activity of a solution in equilibrium with ice at ``T`` (K), one atmosphere."""
-    f = np.vectorize(lambda t: float(np.exp(_core.ln_water_activity_of_ice(float(t)))))
-    out = f(np.asarray(T, dtype=float))
+def water_activity_of_ice(T: Temperature, *, range_policy: str = "extrapolate") -> Union[float, np.ndarray]:
+    """Water activity of a solution in equilibrium with ice at ``T`` (K), one atmosphere.
+
+    Validated 233.15-273.15 K; extrapolated (with a warning, or per ``range_policy``) down
+    to 215 K. Below 215 K and above the ice point there is no value: NaN with a warning,
+    or :class:`OutOfValidityRangeError` with ``range_policy="raise"``.
+    """
+    temps = np.asarray(T, dtype=float)
+    out = np.empty(temps.shape)
+    reasons = []
+    for idx, t in np.ndenumerate(temps):
+        out[idx], reason = _core.water_activity_of_ice(float(t), range_policy)
+        if reason:
+            reasons.append(reason)
+    if reasons:
+        _warn(reasons[0], len(reasons))
     return float(out) if np.ndim(T) == 0 else out
 
 

@@ -35,7 +35,14 @@ def _columns(table: Any) -> tuple[list[str], np.ndarray, Optional[Any]]:
         return [str(c) for c in table.columns], np.ascontiguousarray(table.to_numpy(dtype=float)), table.index
     if isinstance(table, Mapping):
         names = [str(k) for k in table]
-        cols = [np.asarray(table[k], dtype=float).ravel() for k in table]
+        cols = []
+        for k in table:
+            col = np.asarray(table[k], dtype=float)
+            if col.ndim > 1:
+                raise _core.InvalidInputError(
+                    f"column '{k}' has shape {col.shape}: each column must be 1-D (one value per "
+                    "row); give one column per solute")
+            cols.append(col.ravel())
         lengths = {len(c) for c in cols}
         if len(lengths) > 1:
             raise _core.InvalidInputError(f"all columns must have the same length, got {sorted(lengths)}")

@@ -190,8 +190,9 @@ TEST_CASE("ethanol in mixtures: ln a_w falls as water is removed, to the last dr
     INFO(s.size() << " solutes; first water mass where ln a_w does not rise: " << first_bad_W);
     CHECK(bad == 0);
     // and so the ice equilibrium has a root at every temperature: the unfrozen water at
-    // -60 C is finite and positive.
-    const auto u = equilibria::unfrozen_phase_at(s, constants::ice_point - 60.0, "norrish");
+    // -57.65 C (215.5 K, just above the 215 K end of a_w,ice, water/ice.hpp) is finite and
+    // positive.
+    const auto u = equilibria::unfrozen_phase_at(s, water::ice_model_lowest_temperature + 0.5, "norrish");
     CHECK(u.success());
     CHECK(u.unfrozen_water > 0.0);
     CHECK(u.ice_fraction() < 1.0);

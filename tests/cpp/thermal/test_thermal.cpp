@@ -154,8 +154,9 @@ TEST_CASE("brine enthalpy is defined down to the eutectic", "[thermal]") {
   const double T = e.temperature + 2.0, h = 1e-3;
   const double numeric = (thermal::enthalpy(f, T + h).value - thermal::enthalpy(f, T - h).value) / (2.0 * h);
   CHECK_THAT(thermal::apparent_specific_heat(f, T).value, WithinRel(numeric, 1e-4));
-  // below the eutectic the ice curve stops, and so does the enthalpy
-  CHECK_THROWS_AS(thermal::enthalpy(f, e.temperature - 1.0), convergence_error);
+  // below the eutectic the ice curve stops, and so does the enthalpy: an error that names
+  // the temperature and the eutectic (issue 16), not a solver status
+  CHECK_THROWS_AS(thermal::enthalpy(f, e.temperature - 1.0), out_of_validity_range);
 }
 
 TEST_CASE("thermal inputs are validated", "[thermal]") {

@@ -7,14 +7,27 @@
 /// each is computed by the same scalar code as a single call, so results are bit-identical
 /// whatever the thread count. A row that fails gets NaN and a row_status; it never aborts
 /// the batch.
+///
+/// Interruption. A caller may give options::interrupted, a hook called from the calling
+/// thread about every 50 ms while the rows run (the Python bindings check for Ctrl-C
+/// there). When it returns true the workers stop after their current row (or
+/// temperature), every thread is joined and batch::interrupted is thrown; the outputs are
+/// then incomplete. The hook may also throw: the workers are stopped the same way and its
+/// exception reaches the caller.
 
 #include <algorithm>
+#include <atomic>
+#include <chrono>
 #include <cmath>
+#include <condition_variable>
 #include <cstdint>
 #include <exception>
+#include <functional>
 #include <limits>
 #include <memory>
+#include <mutex>
 #include <optional>
+#include <stdexcept>
 #include <thread>
 #include <vector>
 
@@ -33,6 +46,15 @@ struct options {
   unsigned threads = 0;  ///< 0: all hardware threads
   range_policy policy = range_policy::extrapolate;
   double bound_water_fraction = 0.0;  ///< unfreezable water as a fraction of each row's water
+  /// Called from the calling thread between pieces of work (about every 50 ms); true
+  /// stops the batch (batch::interrupted). Empty: never interrupted.
+  std::function<bool()> interrupted;
+};
+
+/// A batch stopped by options::interrupted; its outputs are incomplete.
+class interrupted : public std::runtime_error {
+ public:
+  interrupted() : std::runtime_error("batch calculation interrupted") {}
 };
 
 namespace detail {
@@ -41,8 +63,14 @@ namespace detail {
 /// the evaluator and ice curve prepared for its species.
 class workspace {
  public:
-  explicit workspace(const solution_batch& b) : rows_(b.species()), s_(rows_.get()) {}
-  const solution& load(const double* molalities) { return rows_.load(molalities); }
+  workspace(const solution_batch& b, const std::atomic<bool>* stop)
+      : rows_(b.species()), s_(rows_.get()), stop_(stop) {}
+  /// Row i of the batch (its amounts and water, as the scalar factory builds them).
+  const solution& load(const solution_batch& b, std::size_t i) {
+    return rows_.load(b.row(i), b.water(i));
+  }
+  /// True once the batch was interrupted: a long row stops early (its outputs are lost).
+  bool stopped() const noexcept { return stop_ && stop_->load(std::memory_order_relaxed); }
   /// ln a_w evaluator for model `m` on this workspace's solution, prepared on first use
   /// (the species list is the same for every row; the evaluator reads each row's amounts).
   models::ln_water_activity_evaluator& evaluator(const models::model_choice& m) {
@@ -69,6 +97,7 @@ class workspace {
  private:
   solution_workspace rows_;
   const solution& s_;
+  const std::atomic<bool>* stop_ = nullptr;
   std::optional<models::ln_water_activity_evaluator> evaluator_;
   models::model_choice requested_ = "auto";
   std::optional<equilibria::ice_curve> curve_;
@@ -88,48 +117,121 @@ inline unsigned thread_count(unsigned requested, std::size_t rows) {
   return static_cast<unsigned>(std::min<std::size_t>(n, std::max<std::size_t>(rows, 1)));
 }
 
-/// Runs body(workspace&, row) over all rows in contiguous chunks, one chunk per thread.
-/// An exception in a worker (a caller mistake found while preparing the model, say)
-/// reaches the caller as the same exception the serial path throws: each worker keeps its
-/// first one (std::exception_ptr), every started thread is joined, then the first is
-/// rethrown.
+/// Runs body(workspace&, row) over all rows. Without an interruption hook: contiguous
+/// chunks, one per thread (the calling thread alone when one thread is asked). With one:
+/// the rows go out in pieces of `piece` rows to worker threads while the calling thread
+/// waits and calls the hook about every 50 ms. Rows are independent, so the results do
+/// not depend on how they are split. An exception in a worker (a caller mistake found
+/// while preparing the model, say) reaches the caller as the same exception the serial
+/// path throws: each worker keeps its first one (std::exception_ptr), every started
+/// thread is joined, then the first is rethrown.
 template <class Body>
-void parallel_rows(const solution_batch& b, unsigned threads, Body body) {
+void parallel_rows(const solution_batch& b, unsigned threads,
+                   const std::function<bool()>& interrupted_hook, Body body) {
   const std::size_t N = b.rows();
   const unsigned T = thread_count(threads, N);
-  auto run = [&](std::size_t lo, std::size_t hi) {
-    workspace ws(b);
-    for (std::size_t i = lo; i < hi; ++i) body(ws, i);
-  };
-  if (T <= 1) {
-    run(0, N);
+  std::atomic<bool> stop{false};
+  if (!interrupted_hook) {
+    auto run = [&](std::size_t lo, std::size_t hi) {
+      workspace ws(b, nullptr);
+      for (std::size_t i = lo; i < hi; ++i) body(ws, i);
+    };
+    if (T <= 1) {
+      run(0, N);
+      return;
+    }
+    std::vector<std::exception_ptr> errors(T);
+    std::vector<std::thread> pool;
+    pool.reserve(T);
+    const std::size_t chunk = (N + T - 1) / T;
+    std::exception_ptr start_error;
+    for (unsigned t = 0; t < T; ++t) {
+      const std::size_t lo = t * chunk, hi = std::min(N, lo + chunk);
+      if (lo >= hi) break;
+      try {
+        pool.emplace_back([&run, &errors, t, lo, hi] {
+          try {
+            run(lo, hi);
+          } catch (...) {
+            errors[t] = std::current_exception();
+          }
+        });
+      } catch (...) {  // the system refused a thread: finish what started, then report
+        start_error = std::current_exception();
+        break;
+      }
+    }
+    for (auto& th : pool) th.join();
+    for (const auto& e : errors)
+      if (e) std::rethrow_exception(e);
+    if (start_error) std::rethrow_exception(start_error);
     return;
   }
+  // With the hook: workers take pieces of rows from a shared counter.
+  constexpr std::size_t piece = 16;
+  std::atomic<std::size_t> next{0};
+  std::mutex mutex;
+  std::condition_variable done_cv;
+  unsigned running = 0;
   std::vector<std::exception_ptr> errors(T);
   std::vector<std::thread> pool;
   pool.reserve(T);
-  const std::size_t chunk = (N + T - 1) / T;
-  std::exception_ptr start_error;
-  for (unsigned t = 0; t < T; ++t) {
-    const std::size_t lo = t * chunk, hi = std::min(N, lo + chunk);
-    if (lo >= hi) break;
+  auto worker = [&](unsigned t) {
     try {
-      pool.emplace_back([&run, &errors, t, lo, hi] {
-        try {
-          run(lo, hi);
-        } catch (...) {
-          errors[t] = std::current_exception();
-        }
-      });
-    } catch (...) {  // the system refused a thread: finish what started, then report
-      start_error = std::current_exception();
+      workspace ws(b, &stop);
+      for (;;) {
+        if (stop.load(std::memory_order_relaxed)) break;
+        const std::size_t lo = next.fetch_add(piece);
+        if (lo >= N) break;
+        const std::size_t hi = std::min(N, lo + piece);
+        for (std::size_t i = lo; i < hi && !stop.load(std::memory_order_relaxed); ++i) body(ws, i);
+      }
+    } catch (...) {
+      errors[t] = std::current_exception();
+      stop = true;
+    }
+    std::lock_guard<std::mutex> lock(mutex);
+    --running;
+    done_cv.notify_all();
+  };
+  std::exception_ptr caller_error;
+  bool was_interrupted = false;
+  for (unsigned t = 0; t < T; ++t) {
+    try {
+      {
+        std::lock_guard<std::mutex> lock(mutex);
+        ++running;
+      }
+      pool.emplace_back(worker, t);
+    } catch (...) {
+      std::lock_guard<std::mutex> lock(mutex);
+      --running;
+      if (pool.empty()) caller_error = std::current_exception();
       break;
     }
   }
+  for (;;) {
+    {
+      std::unique_lock<std::mutex> lock(mutex);
+      if (done_cv.wait_for(lock, std::chrono::milliseconds(50), [&] { return running == 0; }))
+        break;
+    }
+    if (caller_error || was_interrupted) continue;
+    try {
+      if (interrupted_hook()) {
+        was_interrupted = true;
+        stop = true;
+      }
+    } catch (...) {
+      caller_error = std::current_exception();
+      stop = true;
+    }
+  }
   for (auto& th : pool) th.join();
+  if (caller_error) std::rethrow_exception(caller_error);
+  if (was_interrupted) throw interrupted();
   for (const auto& e : errors)
     if (e) std::rethrow_exception(e);
-  if (start_error) std::rethrow_exception(start_error);
 }
 
 constexpr double nan = std::numeric_limits<double>::quiet_NaN();
@@ -148,14 +250,15 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
                         "use 'extrapolate' or 'nan' and read the row status");
-  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+  detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     row_status st = b.input_status(i);
     double v = detail::nan;
     if (st == row_status::ok) {
-      const solution& s = ws.load(b.row(i));
+      const solution& s = ws.load(b, i);
       const auto r = equilibria::freezing_point(s, m, opt.bound_water_fraction * s.water_mass(),
                                                 ws.evaluator(m));
       if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
+      else if (r.check.code == validity_code::outside_physical_bounds) st = row_status::no_physical_value;
       else if (!r.success()) st = row_status::not_converged;
       else v = detail::policy_value(r.temperature, r.check.in_range(), opt.policy, st);
     }
@@ -170,14 +273,17 @@ inline void water_activities(const solution_batch& b, double temperature, const 
   models::check_temperature_argument("water_activities", temperature);
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches");
-  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+  detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     row_status st = b.input_status(i);
     double v = detail::nan;
     if (st == row_status::ok) {
-      const solution& s = ws.load(b.row(i));
-      const double lnaw = ws.evaluator(m)(s.water_mass(), temperature);
-      v = detail::policy_value(std::exp(lnaw), ws.evaluator(m).check(s.water_mass(), temperature).in_range(),
-                               opt.policy, st);
+      const solution& s = ws.load(b, i);
+      const double aw = std::exp(ws.evaluator(m)(s.water_mass(), temperature));
+      if (!(aw > 0.0 && aw <= 1.0))
+        st = row_status::no_physical_value;
+      else
+        v = detail::policy_value(aw, ws.evaluator(m).check(s.water_mass(), temperature).in_range(),
+                                 opt.policy, st);
     }
     out[i] = v;
     status[i] = static_cast<std::uint8_t>(st);
@@ -193,17 +299,18 @@ inline void ice_fractions(const solution_batch& b, const double* temperatures,
     models::check_temperature_argument("ice_fractions", temperatures[k]);
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches");
-  detail::parallel_rows(b, opt.threads, [&](detail::workspace& ws, std::size_t i) {
+  detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     const row_status input = b.input_status(i);
-    const solution* s = input == row_status::ok ? &ws.load(b.row(i)) : nullptr;
+    const solution* s = input == row_status::ok ? &ws.load(b, i) : nullptr;
     equilibria::ice_curve* curve =
         s ? &ws.curve(m, opt.bound_water_fraction * s->water_mass()) : nullptr;
     for (std::size_t k = 0; k < n_temperatures; ++k) {
       row_status st = input;
       double v = detail::nan;
-      if (curve) {
+      if (curve && !ws.stopped()) {
         const auto u = curve->at(temperatures[k]);
         if (u.status == equilibria::solve_status::below_eutectic) st = row_status::below_curve_end;
+        else if (u.check.code == validity_code::outside_physical_bounds) st = row_status::no_physical_value;
         else if (!u.success()) st = row_status::not_converged;
         else v = detail::policy_value(u.ice_fraction(), u.check.in_range(), opt.policy, st);
       }

@@ -1,8 +1,11 @@
 #pragma once
 /// \file solution_batch.hpp
-/// Many solutions with one species list: an N x S row-major array of molalities
-/// (mol per kg of water), validated row by row. A bad row never aborts the batch: it is
-/// marked with a row_status and skipped by the kernels (its results are NaN).
+/// Many solutions with one species list: an N x S row-major array of solute amounts (mol)
+/// and the water of each row (kg), validated row by row. Each row holds the numbers the
+/// scalar factory of the same input holds (solution::from_molalities with 1 kg of water,
+/// solution::from_mass_fractions with 1 kg in total), so the kernels give bit-identical
+/// results to scalar calls. A bad row never aborts the batch: it is marked with a
+/// row_status and skipped by the kernels (its results are NaN).
 
 #include <cmath>
 #include <cstdint>
@@ -10,6 +13,7 @@
 #include <vector>
 
 #include "colligate/core/errors.hpp"
+#include "colligate/core/solution.hpp"
 #include "colligate/data/builtin_solutes.hpp"
 #include "colligate/data/solute_record.hpp"
 #include "colligate/data/solute_table.hpp"
@@ -24,9 +28,10 @@ enum class row_status : std::uint8_t {
   no_freezing_point = 3,  ///< does not freeze above the lowest temperature searched
   not_converged = 4,      ///< the solver stopped before its tolerance
   below_curve_end = 5,    ///< below the end of the ice curve (final eutectic, data limit)
+  no_physical_value = 6,  ///< the formulation gives no physical value here (a_w > 1, say)
 };
 /// Number of row_status values (codes 0 .. row_status_count - 1).
-inline constexpr int row_status_count = 6;
+inline constexpr int row_status_count = 7;
 
 inline const char* describe(row_status s) {
   switch (s) {
@@ -35,7 +40,8 @@ inline const char* describe(row_status s) {
     case row_status::invalid_input: return "invalid input: negative or non-finite amount, or mass fractions summing to 1 or more";
     case row_status::no_freezing_point: return "does not freeze above -50 C";
     case row_status::not_converged: return "solver did not converge";
-    case row_status::below_curve_end: return "below the end of the ice curve (the final eutectic of a brine, or the lower limit of the salt data): no liquid is computed";
+    case row_status::below_curve_end: return "below the end of the ice curve (the final eutectic of a brine, the lower limit of the salt data, or 215 K, where the ice water activity ends): no liquid is computed";
+    case row_status::no_physical_value: return "the activity model gives no physical value for this row (water activity above 1 or not above 0): extrapolated too far";
   }
   return "unknown";
 }
@@ -52,9 +58,10 @@ class solution_batch {
       bool ok = true;
       for (std::size_t j = 0; j < S; ++j) {
         const double m = data[i * S + j];
-        if (!std::isfinite(m) || m < 0.0) ok = false;
-        b.molalities_[i * S + j] = m;
+        if (!std::isfinite(m) || m < 0.0 || m > solution::max_amount) ok = false;
+        b.moles_[i * S + j] = m * 1.0;  // as solution::from_molalities: m * water_kg
       }
+      b.water_[i] = 1.0;
       if (!ok) b.mark_invalid(i);
     }
     return b;
@@ -75,9 +82,11 @@ class solution_batch {
         sum += w;
       }
       if (!(sum < 1.0)) ok = false;
-      const double water = 1.0 - sum;
+      // As solution::from_mass_fractions with 1 kg in total: water (1 - sum) kg, each
+      // solute (w * 1) kg, moles = kg / molar mass (the same operations in the same order).
+      b.water_[i] = ok ? (1.0 - sum) * 1.0 : 1.0;
       for (std::size_t j = 0; j < S; ++j)
-        b.molalities_[i * S + j] = ok ? data[i * S + j] / (b.species_[j].molar_mass * water) : 0.0;
+        b.moles_[i * S + j] = ok ? (data[i * S + j] * 1.0) / b.species_[j].molar_mass : 0.0;
       if (!ok) b.mark_invalid(i);
     }
     return b;
@@ -86,14 +95,18 @@ class solution_batch {
   std::size_t rows() const noexcept { return rows_; }
   std::size_t n_species() const noexcept { return species_.size(); }
   const std::vector<data::solute_record>& species() const noexcept { return species_; }
-  const double* row(std::size_t i) const noexcept { return molalities_.data() + i * species_.size(); }
+  /// Solute amounts of row i, mol (one per species).
+  const double* row(std::size_t i) const noexcept { return moles_.data() + i * species_.size(); }
+  /// Water of row i, kg.
+  double water(std::size_t i) const noexcept { return water_[i]; }
   bool valid(std::size_t i) const noexcept { return input_status_[i] == row_status::ok; }
   row_status input_status(std::size_t i) const noexcept { return input_status_[i]; }
 
  private:
   solution_batch(const std::vector<std::string>& species, std::size_t rows,
                  const data::solute_table& table)
-      : rows_(rows), molalities_(rows * species.size()), input_status_(rows, row_status::ok) {
+      : rows_(rows), moles_(rows * species.size()), water_(rows, 1.0),
+        input_status_(rows, row_status::ok) {
     for (const auto& name : species) {
       const auto& rec = table.find(name);
       for (const auto& existing : species_)
@@ -106,7 +119,8 @@ class solution_batch {
 
   std::size_t rows_;
   std::vector<data::solute_record> species_;
-  std::vector<double> molalities_;
+  std::vector<double> moles_;  ///< mol, row-major
+  std::vector<double> water_;  ///< kg per row
   std::vector<row_status> input_status_;
 };
 

@@ -8,10 +8,16 @@
 /// sign change is reported as a status (the callers turn it into an error where it is
 /// a caller mistake).
 
+#include <boost/math/policies/error_handling.hpp>
 #include <boost/math/tools/roots.hpp>
 #include <cmath>
 #include <cstdint>
+#include <exception>
 #include <limits>
+#include <stdexcept>
+#include <utility>
+
+#include "colligate/core/errors.hpp"
 
 namespace colligate {
 
@@ -35,9 +41,22 @@ root_result toms748_root(F&& f, double lo, double hi, double f_lo, double f_hi, 
                          int max_iterations = 100) {
   root_result r;
   if (!(f_lo * f_hi < 0.0)) return r;
+  if (!(lo < hi)) return r;
   std::uintmax_t it = static_cast<std::uintmax_t>(max_iterations);
   boost::math::tools::eps_tolerance<double> tol(bits);
-  const auto [a, b] = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, tol, it);
+  std::pair<double, double> ab;
+  try {
+    // Boost reports a lost bracket (f NaN inside, say) by throwing its own text; the
+    // callers get a status and phrase the error in their own terms.
+    ab = boost::math::tools::toms748_solve(f, lo, hi, f_lo, f_hi, tol, it);
+  } catch (const out_of_validity_range&) {
+    throw;  // a colligate error from f: not Boost's
+  } catch (const std::domain_error&) {
+    return r;
+  } catch (const boost::math::evaluation_error&) {
+    return r;
+  }
+  const auto [a, b] = ab;
   r.lo = a;
   r.hi = b;
   r.x = 0.5 * (a + b);

@@ -28,6 +28,11 @@ class solution_workspace;
 
 class solution {
  public:
+  /// Largest amount a factory accepts, in its own unit (kg, mol/kg): far beyond any food
+  /// batch, and small enough that every derived sum (total mass, moles, mole fractions)
+  /// stays finite in double precision.
+  static constexpr double max_amount = 1e15;
+
   /// Water plus solute masses, kg.
   static solution from_masses(double water_kg, const std::vector<named_amount>& solute_kg,
                               const data::solute_table& table = data::builtin_solutes()) {
@@ -253,10 +258,10 @@ class solution {
 
   static void check_amount(const char* where, const std::string& field, double value,
                            const char* unit) {
-    if (!std::isfinite(value) || value < 0.0)
-      throw invalid_input(detail::describe(where, field, value,
-                                           std::string("must be finite and >= 0") +
-                                               (*unit ? std::string(" ") + unit : "")));
+    if (!std::isfinite(value) || value < 0.0 || value > max_amount)
+      throw invalid_input(detail::describe(
+          where, field, value,
+          std::string("must be finite, >= 0 and <= 1e15") + (*unit ? std::string(" ") + unit : "")));
   }
 
   void add_species(const data::solute_record& rec, double moles, const std::string& given) {

@@ -43,7 +43,9 @@ enum class validity_code : std::uint8_t {
   rules_disagree,              ///< two combining rules differ by more than accepted
   below_curve_end,             ///< below the end of the ice curve (eutectic, data limit)
   no_freezing_point,           ///< does not freeze above the lowest temperature searched
-  not_converged                ///< a solver stopped before its tolerance
+  not_converged,               ///< a solver stopped before its tolerance
+  outside_physical_bounds      ///< the formulation gives no physical value here (a_w > 1,
+                               ///< ice fraction outside [0, 1], T <= 0): never returned as a value
 };
 
 inline const char* to_string(validity_code c) {
@@ -56,6 +58,7 @@ inline const char* to_string(validity_code c) {
     case validity_code::below_curve_end: return "below_curve_end";
     case validity_code::no_freezing_point: return "no_freezing_point";
     case validity_code::not_converged: return "not_converged";
+    case validity_code::outside_physical_bounds: return "outside_physical_bounds";
   }
   return "unknown";
 }
@@ -98,7 +101,9 @@ struct validity {
     if (in_range()) return {};
     const std::string src = source().empty() ? "" : " [" + source() + "]";
     const bool has_limit = code == validity_code::temperature_out_of_range ||
-                           code == validity_code::concentration_out_of_range;
+                           code == validity_code::concentration_out_of_range ||
+                           (code == validity_code::outside_physical_bounds &&
+                            !std::isnan(range_low));
     if (!has_limit) {
       if (std::isnan(value))
         return where() + ": " + quantity() + (note().empty() ? "" : ": " + note()) + src;
@@ -170,13 +175,36 @@ struct checked_value {
   validity check;
 };
 
-/// Applies the policy: raise throws, nan replaces the value, extrapolate keeps it.
+/// A value outside the physical bounds of its quantity: the record that says so.
+/// `quantity` names it ("water activity"), [low, high] is the physical range.
+inline validity outside_physical_bounds(std::string where, std::string quantity, double value,
+                                        double low, double high, std::string note) {
+  return outside_range(std::move(where), std::move(quantity), value, low, high, "", std::move(note),
+                       {}, validity_code::outside_physical_bounds);
+}
+
+/// Applies the policy: raise throws, nan replaces the value, extrapolate keeps it. A
+/// record outside the physical bounds (or beyond a formulation's hard limit) never keeps
+/// its value: raise throws, the other policies give NaN with the reason.
 inline checked_value apply_policy(double value, validity v, range_policy policy) {
   if (!v.in_range()) {
     if (policy == range_policy::raise) throw out_of_validity_range(v.reason());
-    if (policy == range_policy::nan) value = std::numeric_limits<double>::quiet_NaN();
+    if (policy == range_policy::nan || v.code == validity_code::outside_physical_bounds)
+      value = std::numeric_limits<double>::quiet_NaN();
   }
   return {value, std::move(v)};
+}
+
+/// Applies the policy to a value that must lie in [low, high] (low_open: (low, high]): a
+/// value outside (or NaN) gets the record `outside_physical_bounds` in place of `v` and
+/// is never returned, whatever the policy.
+inline checked_value apply_policy_within(double value, validity v, range_policy policy,
+                                         const char* where, const char* quantity, double low,
+                                         double high, bool low_open, const char* note) {
+  const bool inside = low_open ? (value > low && value <= high) : (value >= low && value <= high);
+  if (!inside)
+    v = outside_physical_bounds(where, quantity, value, low, high, note);
+  return apply_policy(value, std::move(v), policy);
 }
 
 }  // namespace colligate

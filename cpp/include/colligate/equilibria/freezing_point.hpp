@@ -108,6 +108,15 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   if (std::isnan(f_hi) &&
       !(ln_aw(W, lo) - water::ln_water_activity_of_ice(lo) > 0.0))  // no usable model value
     return below_limit();
+  if (f_hi > 0.0) {  // a_w > 1: the model, extrapolated, gives no physical value
+    r.temperature = std::numeric_limits<double>::quiet_NaN();
+    r.status = solve_status::max_iterations;
+    r.check = outside_physical_bounds(
+        "freezing_point", "water activity at 273.15 K", std::exp(f_hi), 0.0, 1.0,
+        "the activity model, extrapolated to this composition, gives a_w above 1, so no "
+        "freezing point can be computed; " + ln_aw.check(W, hi).reason());
+    return r;
+  }
   if (!(f_hi < 0.0)) {  // vanishingly dilute: depression below rounding
     r.temperature = hi;
     r.check = ln_aw.check(W, hi);
@@ -184,9 +193,12 @@ inline checked_value freezing_point_checked(const solution& s,
     if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason());
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
   }
+  if (r.check.code == validity_code::outside_physical_bounds)
+    return apply_policy(std::numeric_limits<double>::quiet_NaN(), r.check, policy);
   if (!r.success())
-    throw convergence_error(std::string("freezing_point: root finder stopped: ") +
-                            to_string(r.status));
+    throw convergence_error(std::string("freezing_point: the freezing-point iteration stopped (") +
+                            to_string(r.status) + ") without reaching 1e-9 K" +
+                            (r.check.in_range() ? "" : ": " + r.check.reason()));
   return apply_policy(r.temperature, r.check, policy);
 }
 

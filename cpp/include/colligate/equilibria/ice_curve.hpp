@@ -249,8 +249,11 @@ class ice_curve {
     r.bound_water = bound_;
     r.precipitated.assign(onsets_.size(), 0.0);
     const double T = temperature;
+    if (T < water::ice_model_lowest_temperature) return below_formulation(r);
     const double ln_aw_solution = (*ln_aw_)(W_, T);
     const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
+    if (!(std::exp(ln_aw_solution) > 0.0 && ln_aw_solution <= 0.0))
+      return no_physical_value(r, "water activity of the solution", std::exp(ln_aw_solution), T);
     if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
       r.state = phase_state::liquid;
       r.status = solve_status::not_frozen;
@@ -271,6 +274,17 @@ class ice_curve {
     if (!start_salts()) return below_end(r);
     explore(T);
     if (T < end_temperature_) return below_end(r);
+    if (segments_.empty()) {
+      // No salt onset was located (the ice-only solve failed while looking for one): the
+      // state is not solved, and says so (found by fuzz/fuzz_solution.cpp).
+      r.state = phase_state::not_solved;
+      r.status = solve_status::max_iterations;
+      r.check = flagged(validity_code::not_converged, "ice_curve", "temperature",
+                        "the ice equilibrium could not be followed to this temperature");
+      r.check.value = T;
+      r.unfrozen_water = r.ice = std::numeric_limits<double>::quiet_NaN();
+      return r;
+    }
     const segment& seg = segment_for(T);
     liquid_state st = guess_for(T, seg);
     if (!solve(T, seg, st)) {
@@ -736,12 +750,44 @@ class ice_curve {
     }
     r.hydrate_water = hydrate_mol * constants::molar_mass_water;
     r.ice = s_->water_mass() - Wu - bound_ - r.hydrate_water;
+    // At the freezing point the root may sit a rounding error above the freezable water.
+    if (r.ice < 0.0 && r.ice > -1e-12 * r.total_water) r.ice = 0.0;
+    if (!(r.ice >= 0.0 && r.ice <= r.total_water) || !(Wu > 0.0) || !(r.hydrate_water >= 0.0))
+      return no_physical_value(r, "ice fraction", r.ice / r.total_water, r.temperature);
     bool salts = false;
     for (double x : r.precipitated) salts = salts || x > 0.0;
     r.state = salts ? phase_state::ice_salts_liquid : phase_state::ice_and_liquid;
     r.status = solve_status::converged;
     r.check = ln_aw_->check(Wu, r.temperature);
     r.check.merge(water::ice_temperature_validity(r.temperature));
+    return r;
+  }
+
+  /// Below 215 K, where a_w,ice(T) ends (water/ice.hpp): no state, whatever the solution.
+  ice_curve_state& below_formulation(ice_curve_state& r) {
+    r.state = phase_state::below_curve_end;
+    r.status = solve_status::below_eutectic;
+    r.unfrozen_water = r.ice = r.hydrate_water = std::numeric_limits<double>::quiet_NaN();
+    r.precipitated.assign(onsets_.size(), std::numeric_limits<double>::quiet_NaN());
+    r.check = water::ice_temperature_validity(r.temperature);
+    return r;
+  }
+
+  /// A state the activity model cannot give physically (a_w above 1 from a model
+  /// extrapolated far beyond its range, an ice fraction outside [0, 1]): masses NaN and
+  /// the reason, never a number.
+  ice_curve_state& no_physical_value(ice_curve_state& r, const char* quantity, double value,
+                                     double T) {
+    const validity range = ln_aw_->check(W_, T);
+    r.state = phase_state::not_solved;
+    r.status = solve_status::max_iterations;
+    r.unfrozen_water = r.ice = r.hydrate_water = std::numeric_limits<double>::quiet_NaN();
+    r.water_activity = std::numeric_limits<double>::quiet_NaN();
+    r.precipitated.assign(onsets_.size(), std::numeric_limits<double>::quiet_NaN());
+    r.check = outside_physical_bounds(
+        "ice_curve (model '" + ln_aw_->model().id + "')", quantity, value, 0.0, 1.0,
+        "the model gives no physical value at " + validity::fmt(T) + " K" +
+            (range.in_range() ? std::string() : "; " + range.reason()));
     return r;
   }
 

@@ -98,10 +98,12 @@ inline checked_value ice_fraction_of(const ice_curve_state& r, range_policy poli
     if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason());
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
   }
+  if (r.check.code == validity_code::outside_physical_bounds)
+    return apply_policy(std::numeric_limits<double>::quiet_NaN(), r.check, policy);
   if (!r.success())
-    throw convergence_error(std::string("ice_fraction: root finder stopped: ") +
-                            to_string(r.status) + (r.check.in_range() ? "" : ": ") +
-                            r.check.reason());
+    throw convergence_error(std::string("ice_fraction: temperature = ") + validity::fmt(r.temperature) +
+                            " K: the ice-curve solve stopped (" + to_string(r.status) + ")" +
+                            (r.check.in_range() ? "" : ": " + r.check.reason()));
   return apply_policy(r.ice_fraction(), r.check, policy);
 }
 

@@ -155,10 +155,28 @@ inline checked_value total_depression(const mix_terms& m, double frozen) {
   return out;
 }
 
-/// Initial freezing point (K) by the method.
+/// Lowest freezing point the method's extrapolation is allowed to give, K (-50 C, the
+/// lowest temperature colligate searches for a thermodynamic freezing point). Linear
+/// extrapolation of Table 6.1 would otherwise reach 0 K near 2200 g sucrose per 100 g water.
+inline constexpr double lowest_freezing_point = 223.15;
+
+/// Initial freezing point (K) by the method; NaN with the reason where the extrapolated
+/// depression would put it below lowest_freezing_point.
 inline checked_value freezing_point(const mix_terms& m) {
   auto d = total_depression(m, 0.0);
-  d.value = constants::ice_point - d.value;
+  const double T = constants::ice_point - d.value;
+  if (!(T >= lowest_freezing_point)) {
+    d.check = outside_range("leighton method", "freezing point (K)", T, lowest_freezing_point,
+                            constants::ice_point, " K",
+                            "Table 6.1 extrapolated this far gives no physical freezing point "
+                            "(sucrose equivalents " +
+                                validity::fmt(m.sucrose_equivalent * 100.0 / m.water) +
+                                " g per 100 g water; the table ends at 180 g)",
+                            "goff_hartel_2013", validity_code::outside_physical_bounds);
+    d.value = std::numeric_limits<double>::quiet_NaN();
+    return d;
+  }
+  d.value = T;
   return d;
 }
 

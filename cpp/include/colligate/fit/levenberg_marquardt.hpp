@@ -298,6 +298,17 @@ inline fit_result curve_fit(const model_function& model, const Eigen::MatrixXd& 
   }
   Eigen::VectorXd e = sqrt_w.cwiseProduct(f - y);
   double cost = e.squaredNorm();
+  if (!std::isfinite(cost)) {
+    r.status = fit_status::non_finite;
+    r.message = "chi-square overflows at the start point (weighted residuals up to " +
+                std::to_string(e.cwiseAbs().maxCoeff()) +
+                "): rescale the data or the weights so that residuals stay below about 1e150";
+    nan_stats();
+    r.fitted = f;
+    r.residuals = y - f;
+    r.chi_square = cost;
+    return r;
+  }
   Eigen::MatrixXd J = form_jacobian(p, f);
   Eigen::VectorXd D = J.colwise().norm().transpose();
   double lambda = 1e-3;
@@ -401,6 +412,10 @@ inline fit_result curve_fit(const model_function& model, const Eigen::MatrixXd& 
     if (stop) break;
   }
   if (r.status == fit_status::max_iterations) r.iterations = options.max_iterations;
+  if (!detail::all_finite(p) || !std::isfinite(cost)) {
+    r.status = fit_status::non_finite;
+    r.message = "the parameters or chi-square became non-finite during the fit";
+  }
 
   // --- statistics at the final point ----------------------------------------------------
   r.params = p;
@@ -415,6 +430,10 @@ inline fit_result curve_fit(const model_function& model, const Eigen::MatrixXd& 
   for (Eigen::Index j = 0; j < k; ++j) r.at_bound[j] = p[j] <= lower[j] || p[j] >= upper[j];
   r.residual_variance = r.degrees_of_freedom > 0 ? r.chi_square / r.degrees_of_freedom
                                                  : std::numeric_limits<double>::quiet_NaN();
+  if (!std::isfinite(r.chi_square) && r.status != fit_status::non_finite) {
+    r.status = fit_status::non_finite;
+    r.message = "chi-square is not finite at the final parameters";
+  }
   const double nan = std::numeric_limits<double>::quiet_NaN();
   r.covariance = Eigen::MatrixXd::Constant(k, k, nan);
   r.standard_errors = Eigen::VectorXd::Constant(k, nan);

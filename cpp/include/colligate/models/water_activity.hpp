@@ -58,6 +58,11 @@ inline validity check(const model_choice& m, const solution& s, double water_kg,
   return ln_water_activity_evaluator(m, s).check(water_kg, temperature);
 }
 
+/// Why a water activity outside (0, 1] is not returned.
+inline constexpr const char* physical_bounds_note =
+    "a solution's water activity lies in (0, 1]; the model, extrapolated this far beyond its "
+    "validated range, gives no physical value";
+
 inline void check_temperature_argument(const char* where, double temperature) {
   if (!std::isfinite(temperature) || !(temperature > 0.0))
     throw invalid_input(colligate::detail::describe(where, "temperature", temperature,
@@ -71,7 +76,9 @@ inline checked_value water_activity(const solution& s, double temperature,
   check_temperature_argument("water_activity", temperature);
   ln_water_activity_evaluator ln_aw(m, s);
   const double lnaw = ln_aw(s.water_mass(), temperature);
-  return apply_policy(std::exp(lnaw), ln_aw.check(s.water_mass(), temperature), policy);
+  return apply_policy_within(std::exp(lnaw), ln_aw.check(s.water_mass(), temperature), policy,
+                             "water_activity", "water activity", 0.0, 1.0, true,
+                             physical_bounds_note);
 }
 
 /// Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i). For a solution without solutes, 1.
@@ -83,7 +90,14 @@ inline checked_value osmotic_coefficient(const solution& s, double temperature,
   ln_water_activity_evaluator ln_aw(m, s);
   const double lnaw = ln_aw(s.water_mass(), temperature);
   const double phi = mp > 0.0 ? -lnaw / (constants::molar_mass_water * mp) : 1.0;
-  return apply_policy(phi, ln_aw.check(s.water_mass(), temperature), policy);
+  validity v = ln_aw.check(s.water_mass(), temperature);
+  const double aw = std::exp(lnaw);
+  // phi < 0 is a_w > 1: the same bound, named by the quantity asked for.
+  if (!(aw > 0.0 && aw <= 1.0) || !std::isfinite(phi))
+    v = outside_physical_bounds("osmotic_coefficient", "water activity", aw, 0.0, 1.0,
+                                std::string("the osmotic coefficient would be ") +
+                                    validity::fmt(phi) + "; " + physical_bounds_note);
+  return apply_policy(phi, v, policy);
 }
 
 /// Readable description of which model and constants a calculation uses.

@@ -123,9 +123,18 @@ inline liquid_share liquid_water_share(const food& f, equilibria::ice_curve& cur
   const auto u = curve.at(temperature);
   out.check = u.check;
   if (u.status == equilibria::solve_status::not_frozen) return out;
-  if (!u.success())
-    throw convergence_error(std::string("liquid_water_share: ice curve solve stopped: ") +
-                            equilibria::to_string(u.status) + ": " + u.check.reason());
+  if (!u.success()) {
+    // Below the end of the ice curve (a salt eutectic, 215 K) or where the activity model
+    // gives no physical value there is no unfrozen phase to take the enthalpy of.
+    const std::string at = "thermal model: temperature = " + validity::fmt(temperature) +
+                           " K (" + validity::fmt(temperature - constants::celsius_offset) + " C)";
+    if (u.status == equilibria::solve_status::below_eutectic ||
+        u.check.code == validity_code::outside_physical_bounds)
+      throw out_of_validity_range(at + ": no unfrozen phase is computed there: " +
+                                  u.check.reason());
+    throw convergence_error(at + ": the ice and salt equilibria did not converge" +
+                            (u.check.in_range() ? "" : ": " + u.check.reason()));
+  }
   const double W = s.water_mass();
   out.phi = 1.0 - u.ice / W;
   if (!(u.unfrozen_water > 0.0)) return out;  // pure water: all freezable water is ice

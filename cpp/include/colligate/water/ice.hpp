@@ -16,6 +16,14 @@
 /// Poynting correction to one atmosphere, over 233.15-273.15 K. The result reproduces
 /// that ratio within 3e-5 in a_w over the range; tests/cpp/water/test_ice.cpp checks it.
 /// Validated range: 233.15 K to 273.15 K.
+///
+/// Formulation limits. Below 233.15 K the polynomial is extrapolated (flagged; the range
+/// policy applies) down to 215 K, where it still follows the Murphy & Koop ratio within
+/// 1 % in a_w (0.4 % at 219.15 K, the end of the salt data). Further down the cubic dCp
+/// turns the enthalpy of fusion negative near 206.6 K, so a_w,ice rises again and
+/// exceeds 1 below about 175 K: below 215 K (and above the ice point, where ice melts)
+/// the formulation gives no value (NaN; ice_temperature_validity says why, with the code
+/// outside_physical_bounds, which no range policy turns into a number).
 
 #include <array>
 #include <cstddef>
@@ -32,6 +40,9 @@ namespace colligate::water {
 inline constexpr double ice_model_min_temperature = 233.15;
 /// Highest temperature at which ice can exist at one atmosphere, K.
 inline constexpr double ice_model_max_temperature = constants::ice_point;
+/// Lowest temperature at which a_w,ice(T) is given at all (extrapolated below 233.15 K),
+/// K; see the file comment.
+inline constexpr double ice_model_lowest_temperature = 215.0;
 
 namespace detail {
 
@@ -119,11 +130,14 @@ inline std::array<double, ice_series_terms> ice_series_coefficients() {
 }  // namespace detail
 
 /// ln of the water activity of a solution in equilibrium with ice at T, one atmosphere.
-/// Defined for T > 0; validated 233.15-273.15 K (check with ice_temperature_validity).
-/// From 210 to 390 K by the series of detail::ice_series_coefficients (smooth to
-/// rounding, which root finders and finite differences need), elsewhere by the
-/// antiderivative in powers of T.
+/// Given from 215 K up (NaN below, and for a non-finite T); validated 233.15-273.15 K
+/// (check with ice_temperature_validity). Above the ice point it continues the same
+/// expression (positive: callers take ln a_w,ice = 0 there). From 210 to 390 K by the
+/// series of detail::ice_series_coefficients (smooth to rounding, which root finders and
+/// finite differences need), elsewhere by the antiderivative in powers of T.
 inline double ln_water_activity_of_ice(double temperature) {
+  if (!(temperature >= ice_model_lowest_temperature) || !std::isfinite(temperature))
+    return std::numeric_limits<double>::quiet_NaN();
   const double w = (temperature - constants::ice_point) / temperature;
   if (std::abs(w) <= 0.3) {
     static const auto e = detail::ice_series_coefficients();
@@ -161,14 +175,42 @@ inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15
       .x;
 }
 
-/// Range check for the ice equilibrium.
+/// Range check for the ice equilibrium: outside_physical_bounds below 215 K (no value),
+/// temperature_out_of_range from 215 to 233.15 K (extrapolated).
 inline validity ice_temperature_validity(double temperature) {
   validity v;
+  if (!(temperature >= ice_model_lowest_temperature))
+    return outside_range("ice equilibrium", "temperature", temperature,
+                         ice_model_lowest_temperature, ice_model_max_temperature, " K",
+                         "a_w,ice is not given below 215 K: its heat-capacity polynomial, fitted "
+                         "down to 233.15 K, departs from the Murphy & Koop (2005) ratio by more "
+                         "than 1 % there and turns unphysical below about 207 K",
+                         "murphy_koop_2005", validity_code::outside_physical_bounds);
   if (temperature < ice_model_min_temperature - 1e-9)
     v = outside_range("ice equilibrium", "temperature", temperature, ice_model_min_temperature,
                       ice_model_max_temperature, " K", "the validated range of a_w,ice",
                       "murphy_koop_2005");
   return v;
+}
+
+/// Water activity of a solution in equilibrium with ice at T (K) with the caller's range
+/// policy: extrapolated (flagged) from 215 to 233.15 K; below 215 K, or above the ice
+/// point where ice melts, no value (NaN with the reason, or out_of_validity_range under
+/// `raise`). A non-finite or non-positive T is a caller mistake.
+inline checked_value water_activity_of_ice_checked(double temperature,
+                                                   range_policy policy = range_policy::extrapolate) {
+  if (!std::isfinite(temperature) || !(temperature > 0.0))
+    throw invalid_input(colligate::detail::describe("water_activity_of_ice", "temperature",
+                                                    temperature, "must be finite and > 0 K"));
+  if (temperature > ice_model_max_temperature)
+    return apply_policy(std::numeric_limits<double>::quiet_NaN(),
+                        outside_range("water_activity_of_ice", "temperature", temperature,
+                                      ice_model_lowest_temperature, ice_model_max_temperature,
+                                      " K", "ice melts above the ice point at one atmosphere",
+                                      "murphy_koop_2005", validity_code::outside_physical_bounds),
+                        policy);
+  return apply_policy(water_activity_of_ice(temperature), ice_temperature_validity(temperature),
+                      policy);
 }
 
 }  // namespace colligate::water
