@@ -35,8 +35,8 @@ th::food_composition to_composition(const py::object& mapping) {
 }
 
 th::food make_food(const py::object& composition, const colligate::solution& s,
-                   double bound_water, const std::string& model) {
-  return th::food(to_composition(composition), s, bound_water,
+                   double bound_water_fraction_of_water, const std::string& model) {
+  return th::food(to_composition(composition), s, bound_water_fraction_of_water,
                   colligate::models::model_choice(model));
 }
 
@@ -66,7 +66,7 @@ void register_thermal(py::module_& m) {
       py::arg("composition"), "Water fraction times the heat of fusion of ice at 0 C, J/kg of food.");
   m.def(
       "chen_frozen_specific_heat", &th::chen_frozen_specific_heat, py::arg("water_fraction"),
-      py::arg("solids_fraction"), py::arg("bound_water_fraction"), py::arg("initial_freezing_point"),
+      py::arg("solids_fraction"), py::arg("bound_water_fraction_of_water"), py::arg("initial_freezing_point"),
       py::arg("temperature"),
       "Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as "
       "presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.");
@@ -82,7 +82,7 @@ void register_thermal(py::module_& m) {
         });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
-      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).");
   m.def(
       "food_apparent_specific_heat",
@@ -96,7 +96,7 @@ void register_thermal(py::module_& m) {
         });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
-      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).");
   m.def(
       "food_heat_load",
@@ -118,7 +118,7 @@ void register_thermal(py::module_& m) {
         return d;
       },
       py::arg("composition"), py::arg("solution"), py::arg("from_temperature"),
-      py::arg("to_temperature"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("to_temperature"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split "
       "into sensible and latent parts.");
   m.attr("ENTHALPY_REFERENCE_TEMPERATURE") = th::reference_temperature;

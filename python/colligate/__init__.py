@@ -72,6 +72,9 @@ from .api import (  # noqa: E402,F401
     pitzer_parameter_sets,
     lactose_solubility,
     lactose_solubility_table,
+    alcohol_by_volume_20c,
+    ethanol_water_density_20c,
+    max_msnf_for_lactose_in_solution,
     solutes,
     sweetness_table,
     unfrozen_phase,
@@ -79,6 +82,7 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
+from .library import Library, LibraryError  # noqa: E402
 from .recipe import Recipe  # noqa: E402
 
 __all__ = [
@@ -121,6 +125,11 @@ __all__ = [
     "Ingredient",
     "ingredients",
     "Recipe",
+    "Library",
+    "LibraryError",
+    "alcohol_by_volume_20c",
+    "ethanol_water_density_20c",
+    "max_msnf_for_lactose_in_solution",
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",

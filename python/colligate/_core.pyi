@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -432,7 +432,7 @@ class IceCurve:
         'equilibrium' (crystallised salts stay in contact with the brine and may
         redissolve) or 'fractional' (each salt is removed as it forms).
     """
-    def __init__(self, solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
+    def __init__(self, solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
         ...
     def at(self, temperature: typing.SupportsFloat | typing.SupportsIndex) -> IceCurveState:
         """
@@ -453,7 +453,7 @@ class IceCurve:
     @property
     def bound_water(self) -> float:
         """
-        Unfreezable water, kg.
+        Unfreezable water, kg (bound_water_fraction_of_water times the water).
         """
     @property
     def end_reason(self) -> str:
@@ -548,13 +548,17 @@ class OutOfValidityRangeError(ValueError):
     pass
 class ConvergenceError(RuntimeError):
     pass
-def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def alcohol_by_volume_20c(ethanol_kg: typing.SupportsFloat | typing.SupportsIndex, water_kg: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Alcohol by volume at 20 C (volume fraction 0..1) of ``ethanol_kg`` ethanol in ``water_kg`` water, from the OIML R 22 (1975) density formula (``oiml_r22_1975``).
+    """
+def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.
     """
@@ -587,7 +591,11 @@ def enthalpy_of_fusion(temperature: typing.SupportsFloat | typing.SupportsIndex)
     """
     Molar enthalpy of fusion of ice at ``temperature`` (K), J/mol.
     """
-def eutectic(solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
+def ethanol_water_density_20c(ethanol_mass_fraction: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Density of an ethanol-water mixture at 20 C, kg/m3, for the ethanol mass fraction (kg per kg of ethanol + water); OIML R 22 (1975), source key ``oiml_r22_1975``.
+    """
+def eutectic(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
     """
     (temperature K, found, phase, formula, source key, reason) of the eutectic.
     """
@@ -619,21 +627,21 @@ def fit_pitzer_water_activity(salt: str, molality: typing.Annotated[numpy.typing
     """
     Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, a_w) at T (K; one or per row).
     """
-def food_apparent_specific_heat(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def food_apparent_specific_heat(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).
     """
-def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).
     """
-def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
     """
     Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split into sensible and latent parts.
     """
-def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
+def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
-def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
 def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
@@ -677,6 +685,10 @@ def make_solute_record(id: str, name: str, molar_mass: typing.SupportsFloat | ty
     """
     A non-electrolyte record with user-fitted Norrish constants (molar mass in kg/mol).
     """
+def max_msnf_for_lactose_in_solution(water_fraction: typing.SupportsFloat | typing.SupportsIndex, msnf_fraction: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Largest milk solids-not-fat (kg per kg of mix) that keeps lactose in solution by the rule of Hyde & Rothwell (1973), (water + MSNF) / 7; source key ``hyde_rothwell_1973``.
+    """
 def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
 def models() -> list[str]:
@@ -715,7 +727,7 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """
     The ice curve's state (IceCurveState) at ``temperature`` (K).
     """
@@ -727,6 +739,7 @@ def water_activity(solution: Solution, temperature: typing.SupportsFloat | typin
     ...
 CRYOSCOPIC_CONSTANT: float = 1.8604572278991671
 ENTHALPY_REFERENCE_TEMPERATURE: float = 233.15
+ETHANOL_DENSITY_20C: float = 789.24
 GAS_CONSTANT: float = 8.314462618
 ICE_POINT: float = 273.15
 MOLAR_MASS_WATER: float = 0.018015268

@@ -24,8 +24,9 @@ writes the printed report to FILE. Every file is written atomically and an
 input file is never overwritten.
 
 Exit status: 0 on success, 2 on a usage or input error (a one-line message on
-stderr, no traceback). Validity-range warnings are printed as one line each on
-stderr and do not change the exit status.
+stderr, no traceback). ``demo`` and ``report`` show each warning once, grouped, in the
+report (text or JSON), not on stderr; ``fit`` prints its warnings as one line each on
+stderr. Warnings do not change the exit status.
 """
 
 from __future__ import annotations
@@ -107,8 +108,10 @@ def _build_parser() -> argparse.ArgumentParser:
     common(p_rep)
 
     p_fit = sub.add_parser("fit", help="fit model constants to a CSV of your own data (see colligate.fit)")
-    p_fit.add_argument("data", metavar="DATA.csv", help="CSV with SI columns (molality, water_activity or "
-                       "freezing_point_K; water_fraction, freezing_point_K or temperature_K + ice_fraction)")
+    p_fit.add_argument("data", metavar="DATA.csv", help="CSV whose header names the units: concentration as "
+                       "molality, mass_fraction or mass_percent (wt%%); temperatures as freezing_point_K or "
+                       "freezing_point_C, temperature_K or temperature_C; water_activity, osmotic_coefficient; "
+                       "effective: water_fraction + freezing point, or temperature + ice_fraction")
     p_fit.add_argument("--model", choices=["norrish", "effective", "pitzer"], required=True, help="what to fit")
     p_fit.add_argument("--salt", help="pitzer: the salt whose parameters are fitted (e.g. NaCl); columns "
                        "molality + osmotic_coefficient, water_activity or freezing_point_K (+ temperature_K)")
@@ -118,7 +121,8 @@ def _build_parser() -> argparse.ArgumentParser:
     p_fit.add_argument("--k3", action="store_true", help="norrish: also fit the cubic constant K3")
     p_fit.add_argument("--plot", metavar="PNG", help="plot file (default: DATA_fit.png beside the data)")
     p_fit.add_argument("--name", help="name of the fitted solute (with --save-solute)")
-    p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol")
+    p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol (needed "
+                       "with a mass_fraction or mass_percent column and with --save-solute)")
     p_fit.add_argument("--save-solute", metavar="FILE", help="write the fitted solute as TOML")
     return parser
 
@@ -130,9 +134,8 @@ def _short(message: object) -> str:
 
 def _run(args: argparse.Namespace) -> int:
     from ._files import atomic_write_text, check_output_path
-    from .plot import plot_cooling_curve, plot_enthalpy, plot_ice_curve
     from .recipe import load_demo_recipe, load_recipe
-    from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
+    from .report import build_report, format_json, format_text
 
     if args.command == "fit":
         from .fit import run_fit_command
@@ -178,9 +181,32 @@ def _run(args: argparse.Namespace) -> int:
         seen[full] = option
 
     report = build_report(recipe)
+    written: dict[str, str] = {}
+    # Warnings of the plots and the table join the report's own (once each); none go to stderr.
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        _write_outputs(recipe, outputs, inputs, written)
+    _merge_warnings(report, caught)
+    if written:
+        cautions = report.pop("cautions")
+        report["files"] = written
+        report["cautions"] = cautions  # cautions stay last
+
+    text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
+    if args.save is not None:
+        atomic_write_text(args.save, text, inputs, "--save")
+    sys.stdout.write(text)
+    sys.stdout.flush()
+    return EXIT_OK
+
+
+def _write_outputs(recipe, outputs, inputs, written) -> None:
+    """Write the plots and the table asked for; record each path written in ``written``."""
+    from .plot import plot_cooling_curve, plot_enthalpy, plot_ice_curve
+    from .report import ice_enthalpy_table, write_table_csv
+
     title = recipe.name
     label = recipe.label or None
-    written: dict[str, str] = {}
     for key, (path, option) in outputs.items():
         if key == "ice_curve_png":
             done = plot_ice_curve(
@@ -188,7 +214,7 @@ def _run(args: argparse.Namespace) -> int:
                 path,
                 marks=recipe.temperatures,
                 model=recipe.model,
-                bound_water=recipe.bound_water,
+                bound_water_fraction_of_water=recipe.bound_water_fraction_of_water,
                 title=f"Ice curve: {title}",
                 label=label,
                 inputs=inputs,
@@ -201,17 +227,17 @@ def _run(args: argparse.Namespace) -> int:
         else:
             done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option)
         written[key] = os.path.abspath(done)
-    if written:
-        cautions = report.pop("cautions")
-        report["files"] = written
-        report["cautions"] = cautions  # cautions stay last
 
-    text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
-    if args.save is not None:
-        atomic_write_text(args.save, text, inputs, "--save")
-    sys.stdout.write(text)
-    sys.stdout.flush()
-    return EXIT_OK
+
+def _merge_warnings(report: dict, caught: Sequence[warnings.WarningMessage]) -> None:
+    """Add warnings raised after the report was built, unless the report already has them."""
+    from .report_indicators import _warning_key, group_warnings
+
+    known = {_warning_key(w["message"]) for w in report["warnings"]}
+    for w in group_warnings(caught):
+        if _warning_key(w["message"]) not in known:
+            report["warnings"].append(w)
+            known.add(_warning_key(w["message"]))
 
 
 _MAX_WARNING_LINES = 3

@@ -31,7 +31,6 @@ from __future__ import annotations
 
 import datetime as _dt
 import hashlib
-import math
 import os
 from typing import Any, Iterable, Optional, Sequence
 
@@ -49,6 +48,7 @@ __all__ = [
     "fit_effective_solute",
     "fit_pitzer",
     "load_solute",
+    "solute_from_entry",
 ]
 
 _UNITS = {
@@ -252,8 +252,9 @@ class FitResult:
 class FittedSolute:
     """A solute made from a fit: its record, the food's bound water, and provenance.
 
-    Use it through a :class:`SoluteLibrary`. ``bound_water_per_solids`` (kg per kg of the
-    solute's mass) is a property of the food: pass ``bound_water=fs.bound_water(s)`` to
+    Use it through a :class:`SoluteLibrary` or a :class:`colligate.Library`.
+    ``bound_water_per_solids`` (kg per kg of the solute's mass) is a property of the food:
+    pass ``bound_water_fraction_of_water=fs.bound_water_fraction_of_water(s)`` to
     :func:`colligate.freezing_point` and :func:`colligate.ice_fraction`.
     """
 
@@ -273,10 +274,12 @@ class FittedSolute:
     def name(self) -> str:
         return self.record.name
 
-    def bound_water(self, solution: Any) -> float:
-        """Unfreezable water in ``solution``, kg: b times the mass of this solute in it."""
+    def bound_water_fraction_of_water(self, solution: Any) -> float:
+        """Unfreezable water of ``solution`` as a share of its water (kg per kg water): b
+        times the mass of this solute in it over the water; pass it as
+        ``bound_water_fraction_of_water=`` to :func:`colligate.freezing_point` and friends."""
         masses = solution.solutes
-        return self.bound_water_per_solids * float(masses.get(self.id, 0.0))
+        return self.bound_water_per_solids * float(masses.get(self.id, 0.0)) / float(solution.water)
 
     def __repr__(self) -> str:
         r = self.record
@@ -289,65 +292,49 @@ class FittedSolute:
                 f"bound_water_per_solids={self.bound_water_per_solids:.6g})")
 
     # --- file format ---------------------------------------------------------------------
-    def to_toml(self) -> str:
-        """The fitted-solute file: a small TOML document of our own design."""
+    def entry(self) -> dict:
+        """The solute as a TOML table (the ``[solute]`` table of a fitted-solute file, one
+        ``[solutes.<id>]`` table of a library file): SI units, keys of our own."""
         r = self.record
-
-        def q(s: Any) -> str:
-            return '"' + str(s).replace("\\", "\\\\").replace('"', '\\"').replace("\n", "\\n") + '"'
-
-        def num(v: Any) -> str:
-            v = float(v)
-            if math.isnan(v):
-                return "nan"
-            if math.isinf(v):
-                return "inf" if v > 0 else "-inf"
-            return repr(v)
-
         pz = r.pitzer
-        lines = [
-            "# colligate fitted solute (SI units: kg, mol, K)",
-            f"format = {q(FORMAT_NAME)}",
-            f"version = {FORMAT_VERSION if pz is not None else 1}",
-            "",
-            "[solute]",
-            f"id = {q(r.id)}",
-            f"name = {q(r.name)}",
-            f"molar_mass = {num(r.molar_mass)}  # kg/mol",
-        ]
+        out: dict[str, Any] = {"id": r.id, "name": r.name, "molar_mass": float(r.molar_mass)}
         if pz is None:
-            lines += [
-                f"norrish_k = {num(r.norrish_k)}",
-                f"norrish_k3 = {num(r.norrish_k3)}",
-                f"max_mass_fraction = {num(r.max_mass_fraction)}",
-                f"bound_water_per_solids = {num(self.bound_water_per_solids)}  # kg per kg of this solute",
-                f"note = {q(r.note)}",
-            ]
+            out.update({"norrish_k": float(r.norrish_k), "norrish_k3": float(r.norrish_k3),
+                        "max_mass_fraction": float(r.max_mass_fraction),
+                        "bound_water_per_solids": self.bound_water_per_solids, "note": r.note})
         else:
-            lines += [
-                f"salt = {q(self.salt)}  # the salt whose ions and molar mass this record copies",
-                f"note = {q(r.note)}",
-                "",
-                "[solute.pitzer]  # values at 298.15 K (kg/mol; C-phi kg^2/mol^2) and d/dT there (per K)",
-            ]
-            lines += [f"{k} = {num(pz[k])}" for k in _PITZER_KEYS]
-            lines += [f"max_molality = {num(pz['max_molality'])}  # mol/kg",
-                      f"min_temperature = {num(pz['min_temperature'])}  # K",
-                      f"max_temperature = {num(pz['max_temperature'])}  # K",
-                      f"source = {q(pz['source'])}"]
+            out.update({"salt": str(self.salt), "note": r.note,
+                        "pitzer": {**{k: float(pz[k]) for k in _PITZER_KEYS},
+                                   "max_molality": float(pz["max_molality"]),
+                                   "min_temperature": float(pz["min_temperature"]),
+                                   "max_temperature": float(pz["max_temperature"]),
+                                   "source": str(pz["source"])}})
+        return out
+
+    def document(self) -> dict:
+        """The whole fitted-solute file as a dict (see :meth:`to_toml`)."""
+        doc: dict[str, Any] = {"format": FORMAT_NAME,
+                               "version": FORMAT_VERSION if self.record.pitzer is not None else 1,
+                               "solute": self.entry()}
         if self.fit is not None:
             a = self.fit.attrs
-            lines += ["", "[fit]", f"model = {q(a.get('model', ''))}", f"status = {q(a.get('status', ''))}",
-                      f"n_points = {int(a.get('n_points', 0))}",
-                      f"degrees_of_freedom = {int(a.get('degrees_of_freedom', 0))}",
-                      f"chi_square = {num(a.get('chi_square', float('nan')))}"]
-            for pname, row in self.fit.iterrows():
-                lines += ["", f"[fit.parameters.{pname}]", f"value = {num(row['value'])}",
-                          f"stderr = {num(row['stderr'])}", f"unit = {q(row['unit'])}"]
-        lines += ["", "[provenance]"]
-        for k, v in sorted(self.source.items()):
-            lines.append(f"{k} = {q(v)}")
-        return "\n".join(lines) + "\n"
+            doc["fit"] = {"model": str(a.get("model", "")), "status": str(a.get("status", "")),
+                          "n_points": int(a.get("n_points", 0)),
+                          "degrees_of_freedom": int(a.get("degrees_of_freedom", 0)),
+                          "chi_square": float(a.get("chi_square", float("nan"))),
+                          "parameters": {str(pname): {"value": float(row["value"]), "stderr": float(row["stderr"]),
+                                                      "unit": str(row["unit"])}
+                                         for pname, row in self.fit.iterrows()}}
+        doc["provenance"] = {str(k): str(v) for k, v in sorted(self.source.items())}
+        return doc
+
+    def to_toml(self) -> str:
+        """The fitted-solute file: a small TOML document of our own design (written with
+        tomli-w). Units: molar mass kg/mol; Pitzer values at 298.15 K in kg/mol (C-phi
+        kg^2/mol^2) and their d/dT per K; temperatures K; bound water kg per kg of the solute."""
+        import tomli_w
+
+        return "# colligate fitted solute (SI units: kg, mol, K)\n" + tomli_w.dumps(self.document())
 
     def save(self, path: str | os.PathLike[str]) -> str:
         """Write the fitted solute as TOML (atomically). Returns the path."""
@@ -358,40 +345,75 @@ class FittedSolute:
         return load_solute(path)
 
 
+def solute_from_entry(entry: Any, where: str, *, default_id: Optional[str] = None,
+                      fit: Any = None, source: Optional[dict] = None) -> FittedSolute:
+    """A :class:`FittedSolute` from one TOML table (see :meth:`FittedSolute.entry`).
+
+    ``where`` names the table in error messages; ``default_id`` is used when the table has
+    no ``id`` (the key of ``[solutes.<key>]`` in a library file)."""
+    if not isinstance(entry, dict):
+        raise _core.InvalidInputError(f"{where}: must be a table, got {entry!r}")
+    s = dict(entry)
+    if "id" not in s and default_id is not None:
+        s["id"] = default_id
+    pz = s.get("pitzer")
+    for key in ("id", "salt") if pz is not None else ("id", "molar_mass", "norrish_k"):
+        if key not in s:
+            raise _core.InvalidInputError(f"{where}: {key} is missing")
+    allowed = {"id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
+               "bound_water_per_solids", "note", "salt", "pitzer"}
+    extra = sorted(set(s) - allowed)
+    if extra:
+        raise _core.InvalidInputError(f"{where}.{extra[0]}: unknown key; allowed keys are {', '.join(sorted(allowed))}")
+
+    def num(key: str, table: dict, default: Optional[float] = None) -> float:
+        v = table.get(key, default)
+        if isinstance(v, bool) or not isinstance(v, (int, float)):
+            raise _core.InvalidInputError(f"{where}.{key} = {v!r}: must be a number")
+        return float(v)
+
+    if pz is not None:
+        for key in ("beta0", "beta1", "cphi", "max_molality", "min_temperature", "max_temperature"):
+            if key not in pz:
+                raise _core.InvalidInputError(f"{where}.pitzer: {key} is missing")
+        rec = _core.make_pitzer_solute_record(
+            str(s["salt"]), str(s["id"]), str(s.get("name", s["id"])),
+            **{k: num(k, pz, 0.0) for k in _PITZER_KEYS},
+            max_molality=num("max_molality", pz), min_temperature=num("min_temperature", pz),
+            max_temperature=num("max_temperature", pz),
+            source=str(pz.get("source", "colligate_fit_user")), note=str(s.get("note", "")))
+    else:
+        rec = _core.make_solute_record(str(s["id"]), str(s.get("name", s["id"])), num("molar_mass", s),
+                                       num("norrish_k", s), num("norrish_k3", s, 0.0),
+                                       num("max_mass_fraction", s, 0.9), str(s.get("note", "")))
+    return FittedSolute(rec, bound_water_per_solids=num("bound_water_per_solids", s, 0.0),
+                        fit=fit, source=source, salt=str(s["salt"]) if pz is not None else None)
+
+
 def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
     """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`."""
     try:
         import tomllib  # Python >= 3.11
     except ImportError:  # pragma: no cover
         import tomli as tomllib  # type: ignore[no-redef]
-    with open(path, "rb") as fh:
-        doc = tomllib.load(fh)
+    where = os.fspath(path)
+    try:
+        with open(path, "rb") as fh:
+            doc = tomllib.load(fh)
+    except tomllib.TOMLDecodeError as exc:
+        raise _core.InvalidInputError(f"{where}: TOML syntax error: {exc}") from None
+    return solute_from_document(doc, where)
+
+
+def solute_from_document(doc: dict, where: str) -> FittedSolute:
+    """A :class:`FittedSolute` from a parsed fitted-solute file (``where`` names it)."""
     if doc.get("format") != FORMAT_NAME:
         raise _core.InvalidInputError(
-            f"{os.fspath(path)}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
+            f"{where}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
             f"(expected format = '{FORMAT_NAME}')")
     if int(doc.get("version", 0)) > FORMAT_VERSION:
         raise _core.InvalidInputError(
-            f"{os.fspath(path)}: version = {doc.get('version')}: this colligate reads up to {FORMAT_VERSION}")
-    s = doc.get("solute", {})
-    pz = s.get("pitzer")
-    for key in ("id", "salt") if pz is not None else ("id", "molar_mass", "norrish_k"):
-        if key not in s:
-            raise _core.InvalidInputError(f"{os.fspath(path)}: [solute] {key} is missing")
-    if pz is not None:
-        for key in ("beta0", "beta1", "cphi", "max_molality", "min_temperature", "max_temperature"):
-            if key not in pz:
-                raise _core.InvalidInputError(f"{os.fspath(path)}: [solute.pitzer] {key} is missing")
-        rec = _core.make_pitzer_solute_record(
-            str(s["salt"]), str(s["id"]), str(s.get("name", s["id"])),
-            **{k: float(pz.get(k, 0.0)) for k in _PITZER_KEYS},
-            max_molality=float(pz["max_molality"]), min_temperature=float(pz["min_temperature"]),
-            max_temperature=float(pz["max_temperature"]),
-            source=str(pz.get("source", "colligate_fit_user")), note=str(s.get("note", "")))
-    else:
-        rec = _core.make_solute_record(str(s["id"]), str(s.get("name", s["id"])), float(s["molar_mass"]),
-                                       float(s["norrish_k"]), float(s.get("norrish_k3", 0.0)),
-                                       float(s.get("max_mass_fraction", 0.9)), str(s.get("note", "")))
+            f"{where}: version = {doc.get('version')}: this colligate reads up to {FORMAT_VERSION}")
     fit_df = None
     if "fit" in doc:
         import pandas as pd
@@ -403,9 +425,8 @@ def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
                                "unit": [p.get("unit", "") for p in params.values()]},
                               index=pd.Index(list(params), name="parameter"))
         fit_df.attrs.update({k: v for k, v in f.items() if k != "parameters"})
-    return FittedSolute(rec, bound_water_per_solids=float(s.get("bound_water_per_solids", 0.0)),
-                        fit=fit_df, source={k: str(v) for k, v in doc.get("provenance", {}).items()},
-                        salt=str(s["salt"]) if pz is not None else None)
+    return solute_from_entry(doc.get("solute", {}), f"{where}: [solute]", fit=fit_df,
+                             source={k: str(v) for k, v in doc.get("provenance", {}).items()})
 
 
 class SoluteLibrary(_core.SoluteTable):
@@ -435,9 +456,9 @@ class SoluteLibrary(_core.SoluteTable):
         self.add_solute(fs)
         return fs
 
-    def bound_water(self, solution: Any) -> float:
-        """Total unfreezable water of the fitted solutes in ``solution``, kg."""
-        return sum(fs.bound_water(solution) for fs in self.fitted.values())
+    def bound_water_fraction_of_water(self, solution: Any) -> float:
+        """Unfreezable water of the fitted solutes in ``solution``, kg per kg of its water."""
+        return sum(fs.bound_water_fraction_of_water(solution) for fs in self.fitted.values())
 
 
 def _provenance(data_name: Optional[str], arrays: Sequence[np.ndarray]) -> dict:
@@ -635,6 +656,67 @@ def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=Non
                      extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
 
 
+#: Column names ``colligate fit`` accepts for each quantity, with the factor or conversion to
+#: SI: concentration as molality (mol/kg water), mass fraction (kg/kg of solution) or mass
+#: percent; temperatures in K or degC.
+CONCENTRATION_COLUMNS = ("molality", "mass_fraction", "mass_percent")
+TEMPERATURE_COLUMNS = ("freezing_point", "temperature")
+
+
+def lab_units_to_si(df, where: str, *, model: str, salt: Optional[str] = None,
+                    molar_mass: Optional[float] = None):
+    """The data table with its columns in the SI units the fitters take.
+
+    Accepts ``molality``, ``mass_fraction`` (kg solute per kg of solution) or
+    ``mass_percent`` (also ``wt_percent``) for the concentration, and ``freezing_point_K``
+    or ``freezing_point_C``, ``temperature_K`` or ``temperature_C`` for temperatures. A
+    concentration given by mass needs the solute's molar mass: from the salt for a Pitzer
+    fit, from ``molar_mass`` (kg/mol) for a Norrish fit; its absence is an error before any
+    fitting. Returns the new table and a list of the conversions made.
+    """
+    from .units import kelvin_from_celsius
+
+    out = df.copy()
+    done: list[str] = []
+    aliases = {"wt_percent": "mass_percent", "wt%": "mass_percent", "molality_mol_per_kg": "molality"}
+    out = out.rename(columns={k: v for k, v in aliases.items() if k in out.columns})
+    for base in TEMPERATURE_COLUMNS:
+        k, c = f"{base}_K", f"{base}_C"
+        if k in out.columns and c in out.columns:
+            raise _core.InvalidInputError(f"{where}: columns {k} and {c} both given; keep one")
+        if c in out.columns:
+            values = np.asarray(out.pop(c), dtype=float)
+            out[k] = [kelvin_from_celsius(v) if np.isfinite(v) else v for v in values]
+            done.append(f"{c} -> {k}")
+    given = [c for c in CONCENTRATION_COLUMNS if c in out.columns]
+    if len(given) > 1:
+        raise _core.InvalidInputError(f"{where}: concentration given as {given}; keep one column "
+                                      f"(one of {', '.join(CONCENTRATION_COLUMNS)})")
+    if model in ("norrish", "pitzer") and given and given[0] != "molality":
+        col = given[0]
+        if model == "pitzer":
+            if not salt:
+                raise _core.InvalidInputError("--salt is required for --model pitzer (e.g. --salt NaCl)")
+            mm = float(_core.SoluteTable().find(salt).molar_mass)
+        else:
+            if molar_mass is None:
+                raise _core.InvalidInputError(
+                    f"{where}: column {col} needs the solute's molar mass to become a molality: "
+                    "give --molar-mass in kg/mol (e.g. 0.3423 for sucrose)")
+            mm = float(molar_mass)
+            if not (np.isfinite(mm) and mm > 0.0):
+                raise _core.InvalidInputError(f"--molar-mass = {molar_mass}: must be finite and > 0 kg/mol")
+        w = np.asarray(out.pop(col), dtype=float) / (100.0 if col == "mass_percent" else 1.0)
+        bad = ~((w >= 0.0) & (w < 1.0))
+        if np.any(bad):
+            row = int(np.flatnonzero(bad)[0])
+            raise _core.InvalidInputError(f"{where}: column {col}, data row {row}: value {df[col].iloc[row]} "
+                                          "is outside [0, 100) % of the solution")
+        out["molality"] = w / ((1.0 - w) * mm)
+        done.append(f"{col} -> molality (molar mass {mm:g} kg/mol)")
+    return out, done
+
+
 def run_fit_command(args: Any) -> str:
     """The ``colligate fit`` subcommand: fit, write the plot, return the printed summary."""
     import pandas as pd
@@ -648,6 +730,11 @@ def run_fit_command(args: Any) -> str:
     check_output_path(plot_path, [data_path], "--plot")
     if args.save_solute:
         check_output_path(args.save_solute, [data_path], "--save-solute")
+    if args.model == "norrish" and args.save_solute and args.molar_mass is None:
+        raise _core.InvalidInputError(
+            "--molar-mass (kg/mol) is required to save a Norrish solute (--save-solute): the fit "
+            "itself uses molalities only; e.g. --molar-mass 0.3423 for sucrose")
+    df, converted = lab_units_to_si(df, data_path, model=args.model, salt=args.salt, molar_mass=args.molar_mass)
     cols = set(df.columns)
     weights = "weight" if "weight" in cols else None
     name = os.path.basename(data_path)
@@ -696,6 +783,7 @@ def run_fit_command(args: Any) -> str:
     written = res.plot(plot_path, inputs=[data_path])
     a = summary.attrs
     lines = [f"fit: {a['model']} to {a['n_points']} points from {data_path}",
+             *([f"columns converted to SI: {', '.join(converted)}"] if converted else []),
              f"status: {a['status']} ({a['message']}); chi-square {a['chi_square']:.6g}, "
              f"dof {a['degrees_of_freedom']}, R^2 {a['r_squared']:.6f}",
              summary.to_string(float_format=lambda v: f"{v:.6g}")]

@@ -103,6 +103,9 @@ class Ingredient:
     source: str = ""
     note: str = ""
     key: str = ""
+    #: Solute table the solute ids are checked against (default: the built-in one); a
+    #: :class:`colligate.Library` passes its own so that own solutes resolve.
+    solute_table: Any = field(default=None, compare=False, repr=False)
 
     def __post_init__(self) -> None:
         if not isinstance(self.name, str) or not self.name.strip():
@@ -121,14 +124,36 @@ class Ingredient:
                 f"(+{SUM_TOLERANCE} for rounding)"
             )
         for sid in self.solutes():
-            if sid == "ethanol":
-                continue
             try:
-                api.Solution(water=1.0, solutes={sid: 0.0})
+                if self.solute_table is None:
+                    api.Solution(water=1.0, solutes={sid: 0.0})
+                else:
+                    self.solute_table.find(sid)
             except ValueError as exc:
                 raise IngredientError(f"ingredient '{self.name}': {exc}") from None
 
     # ------------------------------------------------------------------ derived
+
+    def with_key(self, key: str) -> "Ingredient":
+        """A copy under library key ``key``."""
+        import dataclasses
+
+        return dataclasses.replace(self, key=key)
+
+    def entry(self) -> dict[str, Any]:
+        """The ingredient as a TOML table of a library file (the keys of ingredients.toml);
+        fractions that are 0 and empty groups are left out."""
+        out: dict[str, Any] = {"name": self.name, "category": self.category}
+        for k in _BASIC + ("msnf",):
+            if getattr(self, k):
+                out[k] = float(getattr(self, k))
+        for group in ("sugars", "acids", "salts", "other_solutes"):
+            if getattr(self, group):
+                out[group] = {str(k): float(v) for k, v in getattr(self, group).items()}
+        out["source"] = self.source
+        if self.note:
+            out["note"] = self.note
+        return out
 
     def total(self) -> float:
         """Sum of every fraction given (1 for a complete analysis)."""
@@ -198,17 +223,27 @@ _LIBRARY_FILE = "ingredients.toml"
 _ALLOWED = set(_BASIC) | {"msnf", "sugars", "acids", "salts", "other_solutes", "name", "category", "source", "note"}
 
 
+def ingredient_from_entry(key: str, entry: Any, where: str, *, table: Any = None) -> Ingredient:
+    """An :class:`Ingredient` from one TOML table (keys as in ``ingredients.toml``); ``where``
+    names the table in errors, ``table`` is the solute table its solutes must resolve in."""
+    if not isinstance(entry, dict):
+        raise IngredientError(f"{where}: must be a table of the ingredient's fractions")
+    extra = set(entry) - _ALLOWED
+    if extra:
+        raise IngredientError(f"{where}.{sorted(extra)[0]}: unknown key; allowed keys are {', '.join(sorted(_ALLOWED))}")
+    if not entry.get("source"):
+        raise IngredientError(f"{where}: every ingredient needs a source (where its numbers come from)")
+    entry = dict(entry)
+    entry.setdefault("name", key)
+    try:
+        return Ingredient(key=key, solute_table=table, **entry)
+    except IngredientError as exc:
+        raise IngredientError(f"{where}: {exc}") from None
+
+
 def _parse_library(text: str) -> dict[str, Ingredient]:
     doc = tomllib.loads(text)
-    out: dict[str, Ingredient] = {}
-    for key, entry in doc.items():
-        extra = set(entry) - _ALLOWED
-        if extra:
-            raise IngredientError(f"ingredient library: [{key}].{sorted(extra)[0]}: unknown key")
-        if not entry.get("source"):
-            raise IngredientError(f"ingredient library: [{key}]: every ingredient needs a source")
-        out[key] = Ingredient(key=key, **entry)
-    return out
+    return {key: ingredient_from_entry(key, entry, f"ingredient library: [{key}]") for key, entry in doc.items()}
 
 
 @functools.lru_cache(maxsize=1)
@@ -222,8 +257,12 @@ def library() -> dict[str, Ingredient]:
     return dict(_load())
 
 
-def _normal(name: str) -> str:
-    return "_".join(name.strip().lower().replace("-", " ").replace("%", "").split())
+def normal_name(name: str) -> str:
+    """The form names are compared in: lower case, spaces and dashes as underscores, no %."""
+    return "_".join(name.strip().lower().replace("-", " ").replace("_", " ").replace("%", "").split())
+
+
+_normal = normal_name
 
 
 def ingredient(name: str | Ingredient) -> Ingredient:

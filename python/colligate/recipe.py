@@ -32,8 +32,20 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 
     [options]                    # optional
     model = "auto"               # one of colligate.models(); default "auto"
-    bound_water = 0.0            # water that cannot freeze; kg, or percent of
-                                 # the batch mass when basis = "percent"
+    bound_water_fraction_of_water = 0.0   # water that cannot freeze, kg per kg of
+                                 # the recipe's water, in [0, 1); default 0, or for an
+                                 # ingredient recipe 0.4 kg per kg protein over the water
+
+    [library]                    # optional: own solutes and ingredients
+    load = ["syrup_fit.toml"]    # library files or files of `colligate fit --save-solute`,
+                                 # relative to the recipe file
+    [library.solutes.house_syrup]        # inline solute (keys of a fitted-solute file)
+    molar_mass = 0.31                    # kg/mol
+    norrish_k = 5.2
+    [library.ingredients.house_base]     # inline ingredient (keys of ingredients.toml)
+    water = 0.7
+    sugars = { house_syrup = 0.3 }
+    source = "our lab"
 
 Rules checked when a recipe is loaded (each error names the file, the table
 and key, and the valid range):
@@ -46,7 +58,8 @@ and key, and the valid range):
 * solute names are known to colligate (the library's message lists the
   nearest names);
 * temperatures lie between -60 degC and +40 degC;
-* ``bound_water`` is finite, >= 0 and smaller than the water amount.
+* ``bound_water_fraction_of_water`` is finite and in [0, 1);
+* own solutes and ingredients load, and clash with no other name (the error names both).
 
 Inside the returned :class:`Recipe` everything is SI: amounts in kg,
 temperatures in K.
@@ -67,6 +80,7 @@ from importlib import resources
 from typing import Any, Mapping
 
 from . import api
+from .library import Library, LibraryError, as_library
 
 from .units import kelvin_from_celsius
 
@@ -104,8 +118,12 @@ DEMO_SCENARIOS: dict[str, str] = {
 DEFAULT_DEMO_SCENARIO = "ice_cream"
 
 _RECIPE_KEYS = {"name", "note", "label", "basis", "batch_kg"}
-_OPTION_KEYS = {"model", "bound_water"}
-_TABLES = {"recipe", "composition", "ingredients", "temperatures_celsius", "options"}
+_OPTION_KEYS = {"model", "bound_water_fraction_of_water"}
+_TABLES = {"recipe", "composition", "ingredients", "temperatures_celsius", "options", "library"}
+_LIBRARY_KEYS = {"load", "solutes", "ingredients"}
+#: Solutes that evaporate with the water when solids are dried, so not counted in total
+#: solids (common practice: oven-drying methods drive off ethanol with the water).
+VOLATILE_SOLUTES: tuple[str, ...] = ("ethanol",)
 _REQUIRED_TABLES = ("recipe",)
 _BASES = ("kg", "percent")
 
@@ -134,8 +152,12 @@ class Recipe:
         Named temperatures (``drawing``, ``serving``, ``storage``), K.
     model : str
         Activity model id passed to colligate.
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of the recipe's water, in [0, 1). Default 0 for
+        a solute recipe; 0.4 kg per kg protein (Schwartzberg 1976, as presented by ASHRAE)
+        over the water for an ingredient recipe.
+    library : colligate.Library, optional
+        Own solutes and ingredients used next to the built-in ones.
     note, label : str
         Free text from the ``[recipe]`` table ("" when absent).
     basis : str
@@ -149,7 +171,7 @@ class Recipe:
     solutes: dict[str, float] = field(default_factory=dict)
     temperatures: dict[str, float] = field(default_factory=dict)
     model: str = "auto"
-    bound_water: float | None = None
+    bound_water_fraction_of_water: float | None = None
     note: str = ""
     label: str = ""
     basis: str = "kg"
@@ -157,12 +179,33 @@ class Recipe:
     path: str | None = field(default=None, compare=False)
     ingredients: dict[str, float] | None = None
     proximate: dict[str, float] = field(default_factory=dict, compare=False)
+    library: Any = field(default=None, compare=False, repr=False)
 
     def __post_init__(self) -> None:
+        try:
+            object.__setattr__(self, "library", as_library(self.library))
+        except LibraryError as exc:
+            raise RecipeError(f"Recipe: {exc}") from None
+        self._build()
+        b = self.bound_water_fraction_of_water
+        if not (isinstance(b, (int, float)) and not isinstance(b, bool) and math.isfinite(b) and 0.0 <= b < 1.0):
+            raise _fail(self.source, "bound_water_fraction_of_water",
+                        f"= {b!r}: must be finite and in [0, 1) (kg of water that cannot freeze per kg of water)")
+        try:
+            self.solution()
+        except ValueError as exc:
+            where = "[ingredients]" if self.ingredients is not None else "[composition]"
+            raise _fail(self.source, where, str(exc)) from None
+
+    def _lookup(self, name: Any) -> Any:
+        from .ingredients import ingredient as _builtin_lookup
+
+        return self.library.ingredient(name) if self.library is not None else _builtin_lookup(name)
+
+    def _build(self) -> None:
         # Ingredient-based: Recipe(ingredients={"whole_milk": 0.6, "sucrose": 0.15}) in kg.
         if self.ingredients is not None:
-            from .ingredients import ingredient as _lookup
-
+            _lookup = self._lookup
             if self.water or self.solutes:
                 raise RecipeError("Recipe: give either ingredients or water and solutes, not both")
             if not isinstance(self.ingredients, Mapping) or not self.ingredients:
@@ -171,6 +214,7 @@ class Recipe:
             solutes: dict[str, float] = {}
             prox = dict.fromkeys(("water", "protein", "fat", "carbohydrate", "fibre", "ash"), 0.0)
             kg_by_key: dict[str, float] = {}
+            resolved: dict[str, Any] = {}
             for name, kg in self.ingredients.items():
                 x = _number(self.source, f"ingredients['{name}']", kg, "amount must be finite and >= 0 (kg)")
                 if x < 0.0:
@@ -180,6 +224,7 @@ class Recipe:
                 except ValueError as exc:
                     raise _fail(self.source, f"[ingredients].{name}", str(exc)) from None
                 kg_by_key[ing.key or ing.name] = kg_by_key.get(ing.key or ing.name, 0.0) + x
+                resolved[ing.key or ing.name] = ing
                 water += x * ing.water
                 for sid, w in ing.solutes().items():
                     solutes[sid] = solutes.get(sid, 0.0) + x * w
@@ -191,13 +236,15 @@ class Recipe:
             if not water > 0.0:
                 raise _fail(self.source, "[ingredients]", "the ingredients carry no water; a recipe needs water > 0")
             object.__setattr__(self, "ingredients", kg_by_key)
+            object.__setattr__(self, "_resolved", resolved)  # key -> Ingredient, for the summary
             object.__setattr__(self, "water", water)
             object.__setattr__(self, "solutes", solutes)
             object.__setattr__(self, "proximate", {k: v / total for k, v in prox.items()})
-            if self.bound_water is None:
+            if self.bound_water_fraction_of_water is None:
                 from .ingredients import BOUND_WATER_PER_PROTEIN
 
-                object.__setattr__(self, "bound_water", BOUND_WATER_PER_PROTEIN * prox["protein"])
+                object.__setattr__(self, "bound_water_fraction_of_water",
+                                   min(BOUND_WATER_PER_PROTEIN * prox["protein"] / water, 0.999))
         else:
             if not self.proximate:
                 tot = self.total_mass
@@ -215,8 +262,8 @@ class Recipe:
                         {"water": self.water / tot, "protein": 0.0, "fat": 0.0,
                          "carbohydrate": carb / tot, "fibre": 0.0, "ash": ash / tot},
                     )
-        if self.bound_water is None:
-            object.__setattr__(self, "bound_water", 0.0)
+        if self.bound_water_fraction_of_water is None:
+            object.__setattr__(self, "bound_water_fraction_of_water", 0.0)
         if not self.temperatures:
             object.__setattr__(
                 self, "temperatures", {k: kelvin_from_celsius(c) for k, c in DEFAULT_TEMPERATURES_C.items()}
@@ -236,11 +283,13 @@ class Recipe:
 
     def freezing_point(self) -> float:
         """Initial freezing point, K."""
-        return float(api.freezing_point(self.solution(), model=self.model, bound_water=self.bound_water))
+        return float(api.freezing_point(self.solution(), model=self.model,
+                                        bound_water_fraction_of_water=self.bound_water_fraction_of_water))
 
     def ice_fraction(self, T):
         """Ice mass / total water at T (K, scalar or array)."""
-        return api.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
+        return api.ice_fraction(self.solution(), T, model=self.model,
+                                bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def leighton_ice_fraction(self, T):
         """Fraction of the water frozen at T (K) by the dairy method of Leighton (1927) /
@@ -253,25 +302,24 @@ class Recipe:
 
     def enthalpy(self, T):
         """Specific enthalpy, J/kg, with H = 0 at 233.15 K (-40 C); T in K (scalar or array)."""
-        return api.enthalpy(self.proximate, self.solution(), T, model=self.model, bound_water=self._bound_fraction())
+        return api.enthalpy(self.proximate, self.solution(), T, model=self.model,
+                            bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def apparent_specific_heat(self, T):
         """Apparent specific heat dH/dT, J/(kg K); T in K (scalar or array)."""
         return api.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
-                                         bound_water=self._bound_fraction())
+                                          bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def heat_load(self, from_T: float, to_T: float) -> dict[str, float]:
         """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg)."""
         return api.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
-                            bound_water=self._bound_fraction())
-
-    def _bound_fraction(self) -> float:
-        """Bound water per kg of batch."""
-        return float(self.bound_water or 0.0) / self.total_mass
+                             bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def solution(self) -> "api.Solution":
         """Return the recipe as a :class:`colligate.Solution` (kg of water, kg of each solute)."""
         solutes = {k: v for k, v in self.solutes.items() if v > 0.0}
+        if self.library is not None:
+            return api.Solution(water=self.water, solutes=solutes, table=self.library.solute_table)
         return api.Solution(water=self.water, solutes=solutes)
 
     @property
@@ -280,6 +328,81 @@ class Recipe:
         if self.ingredients is not None:
             return float(sum(self.ingredients.values()))
         return self.water + sum(self.solutes.values())
+
+    def composition_summary(self) -> dict[str, Any]:
+        """What the recipe is made of, per component, with where each number comes from.
+
+        Returns a dict with ``batch_kg`` and ``components``: one row per component
+        (``water``, ``fat``, ``protein``, ``lactose``, ``other_sugars``, ``msnf`` (milk
+        solids-not-fat), ``salts``, ``other_solids``, ``total_solids``, ``ethanol``), each
+        with ``kg``, ``percent_of_batch`` and ``sources`` (per ingredient: its key, kg and
+        the source of its composition). Total solids leave out water and volatile liquids
+        (ethanol): they are what stays after drying. ``ethanol_abv_percent`` is the alcohol
+        by volume at 20 degC of the water-ethanol part (OIML R 22, 1975; dissolved solids are
+        not counted in the volume) or None without ethanol.
+        """
+        from .ingredients import MSNF_SPLIT
+
+        names = ("water", "fat", "protein", "lactose", "other_sugars", "msnf", "salts",
+                 "other_solids", "total_solids", "ethanol")
+        parts: dict[str, list[tuple[str, float, str]]] = {n: [] for n in names}
+
+        def add(component: str, who: str, kg: float, source: str) -> None:
+            if kg > 0.0:
+                parts[component].append((who, kg, source))
+
+        if self.ingredients is not None:
+            for key, kg in self.ingredients.items():
+                ing = self._resolved[key]
+                sol = ing.solutes()
+                lactose = float(ing.sugars.get("lactose", 0.0)) + ing.msnf * MSNF_SPLIT["lactose"]
+                sugars = sum(float(v) for v in ing.sugars.values()) - float(ing.sugars.get("lactose", 0.0))
+                salts = sum(float(v) for v in ing.salts.values()) + ing.msnf * MSNF_SPLIT["milk_salts"]
+                ethanol = float(sol.get("ethanol", 0.0))
+                solids = max(0.0, 1.0 - ing.water - ethanol)
+                msnf = ing.msnf if ing.msnf > 0.0 or ing.category != "dairy" else max(0.0, solids - ing.fat)
+                other = max(0.0, solids - ing.fat - ing.total_protein() - lactose - sugars - salts)
+                for component, x in (("water", ing.water), ("fat", ing.fat), ("protein", ing.total_protein()),
+                                     ("lactose", lactose), ("other_sugars", sugars), ("msnf", msnf),
+                                     ("salts", salts), ("other_solids", other), ("total_solids", solids),
+                                     ("ethanol", ethanol)):
+                    add(component, key, kg * x, ing.source)
+        else:
+            kinds = _solute_kinds()
+            sweet = set(api.sweetness_table().index)
+            where = f"[composition] of {self.source}"
+            add("water", "water", self.water, where)
+            for name, kg in self.solutes.items():
+                sid = _solute_id(name)
+                if sid in VOLATILE_SOLUTES:
+                    add("ethanol", name, kg, where)
+                    continue
+                add("total_solids", name, kg, where)
+                if sid == "lactose":
+                    add("lactose", name, kg, where)
+                elif kinds.get(sid) == "electrolyte" or sid == "milk_salts":
+                    add("salts", name, kg, where)
+                elif sid in sweet:
+                    add("other_sugars", name, kg, where)
+                else:
+                    add("other_solids", name, kg, where)
+        batch = self.total_mass
+        rows = []
+        for n in names:
+            kg = sum(x for _, x, _ in parts[n])
+            rows.append({"component": n, "kg": kg, "percent_of_batch": 100.0 * kg / batch,
+                         "sources": [{"ingredient": who, "kg": x, "source": src} for who, x, src in parts[n]]})
+        by = {r["component"]: r["kg"] for r in rows}
+        abv = None
+        if by["ethanol"] > 0.0:
+            abv = 100.0 * float(api.alcohol_by_volume_20c(by["ethanol"], by["water"]))
+        return {"batch_kg": batch, "components": rows, "ethanol_abv_percent": abv}
+
+    @property
+    def total_solids_fraction(self) -> float:
+        """Total solids, kg per kg of batch: everything but water and volatile liquids (ethanol)."""
+        rows = self.composition_summary()["components"]
+        return next(r["kg"] for r in rows if r["component"] == "total_solids") / self.total_mass
 
     @property
     def composition(self) -> dict[str, float]:
@@ -426,19 +549,20 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
     solutes_kg = {k: v * scale for k, v in amounts.items()}
 
     temperatures = _parse_temperatures(source, doc)
-    model, bound_kg = _parse_options(source, doc, basis, water_amount, scale)
+    model, bound = _parse_options(source, doc)
     return _finish(Recipe(
         name=name,
         water=water_kg,
         solutes=solutes_kg,
         temperatures=temperatures,
         model=model,
-        bound_water=bound_kg,
+        bound_water_fraction_of_water=bound,
         note=note,
         label=label,
         basis=basis,
         source=source,
         path=path,
+        library=_parse_library(source, doc, path),
     ))
 
 
@@ -457,25 +581,44 @@ def _parse_temperatures(source: str, doc: Mapping[str, Any]) -> dict[str, float]
     return temperatures
 
 
-def _parse_options(source: str, doc: Mapping[str, Any], basis: str, water_amount: float | None,
-                   scale: float) -> tuple[str, float | None]:
-    """[options]: model id and bound water in kg (None: the recipe's default)."""
+def _parse_options(source: str, doc: Mapping[str, Any]) -> tuple[str, float | None]:
+    """[options]: model id and bound water as a share of the water (None: the recipe's default)."""
     opts = _table(source, doc, "options", required=False)
     _unknown_keys(source, "options", opts, _OPTION_KEYS)
     model = _string(source, "options", "model", opts.get("model", "auto")).strip().lower()
     known_models = list(api.models())
     if model not in known_models:
         raise _fail(source, f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
-    bound_kg: float | None = 0.0 if water_amount is not None else None
-    if "bound_water" in opts:
-        bunit = "kg" if basis == "kg" else "% of batch"
-        limit = f"{water_amount:g} {bunit}" if water_amount is not None else "the water of the batch"
-        rule = f"bound water must be finite, >= 0 and less than the water ({limit})"
-        b = _number(source, "[options].bound_water", opts["bound_water"], rule)
-        if not (0.0 <= b and (water_amount is None or b < water_amount)):
-            raise _fail(source, f"[options].bound_water = {_show(opts['bound_water'])}", rule)
-        bound_kg = b * scale
-    return model, bound_kg
+    bound: float | None = None
+    key = "bound_water_fraction_of_water"
+    if key in opts:
+        rule = "must be finite and in [0, 1) (kg of water that cannot freeze per kg of the recipe's water)"
+        bound = _number(source, f"[options].{key}", opts[key], rule)
+        if not 0.0 <= bound < 1.0:
+            raise _fail(source, f"[options].{key} = {_show(opts[key])}", rule)
+    return model, bound
+
+
+def _parse_library(source: str, doc: Mapping[str, Any], path: str | None) -> Library | None:
+    """[library]: own solutes and ingredients (files to load, inline tables); None if absent."""
+    if "library" not in doc:
+        return None
+    table = _table(source, doc, "library", required=False)
+    _unknown_keys(source, "library", table, _LIBRARY_KEYS)
+    lib = Library()
+    load = table.get("load", [])
+    if isinstance(load, str):
+        load = [load]
+    if not isinstance(load, list) or not all(isinstance(f, str) for f in load):
+        raise _fail(source, f"[library].load = {_show(load)}", "must be a file name or a list of file names")
+    base = os.path.dirname(path) if path else os.getcwd()
+    try:
+        for name in load:
+            lib.load_file(name if os.path.isabs(name) else os.path.join(base, name))
+        lib.add_tables({k: v for k, v in table.items() if k != "load"}, "[library]")
+    except ValueError as exc:
+        raise _fail(source, "[library]", str(exc)) from None
+    return lib
 
 
 def _amounts(source: str, table_name: str, table: Mapping[str, Any], basis: str) -> dict[str, float]:
@@ -508,14 +651,13 @@ def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | No
     else:
         scale = 1.0
     temperatures = _parse_temperatures(source, doc)
-    model, bound_kg = _parse_options(source, doc, basis, None, scale)
+    model, bound = _parse_options(source, doc)
     recipe = Recipe(
-        name=name, temperatures=temperatures, model=model, bound_water=bound_kg, note=note, label=label,
-        basis=basis, source=source, path=path,
+        name=name, temperatures=temperatures, model=model, bound_water_fraction_of_water=bound, note=note,
+        label=label, basis=basis, source=source, path=path,
         ingredients={k: v * scale for k, v in amounts.items()},
+        library=_parse_library(source, doc, path),
     )
-    if recipe.bound_water is not None and not recipe.bound_water < recipe.water:
-        raise _fail(source, "[options].bound_water", f"bound water must be less than the water of the batch ({recipe.water:.6g} kg)")
     return _finish(recipe)
 
 

@@ -33,6 +33,7 @@ LAYER_ORDER = (
     "design",
     "dask",
     "ingredients",
+    "library",
     "recipe",
     "report_compute",
     "report_indicators",
