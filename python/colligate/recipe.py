@@ -155,7 +155,8 @@ class Recipe:
     bound_water_fraction_of_water : float
         Water that cannot freeze, kg per kg of the recipe's water, in [0, 1). Default 0 for
         a solute recipe; 0.4 kg per kg protein (Schwartzberg 1976, as presented by ASHRAE)
-        over the water for an ingredient recipe.
+        over the water for an ingredient recipe; plus the unfreezable water that fitted
+        effective solutes of the library carry (their ``bound_water_per_solids``).
     library : colligate.Library, optional
         Own solutes and ingredients used next to the built-in ones.
     note, label : str
@@ -186,7 +187,17 @@ class Recipe:
             object.__setattr__(self, "library", as_library(self.library))
         except LibraryError as exc:
             raise RecipeError(f"Recipe: {exc}") from None
+        given = self.bound_water_fraction_of_water is not None
         self._build()
+        if not given and self.library is not None and self.library.own_solutes:
+            # fitted effective solutes carry the food's unfreezable water (kg per kg of solute)
+            try:
+                extra = self.library.solute_table.bound_water_fraction_of_water(self.solution())
+            except ValueError:
+                extra = 0.0  # an unknown solute: reported below
+            if extra > 0.0:
+                object.__setattr__(self, "bound_water_fraction_of_water",
+                                   min(float(self.bound_water_fraction_of_water) + extra, 0.999))
         b = self.bound_water_fraction_of_water
         if not (isinstance(b, (int, float)) and not isinstance(b, bool) and math.isfinite(b) and 0.0 <= b < 1.0):
             raise _fail(self.source, "bound_water_fraction_of_water",

@@ -176,3 +176,30 @@ def test_fit_from_lab_units_equals_fit_from_si(tmp_path, capsys):
                          "--plot", str(tmp_path / f"{path.stem}.png")]) == cli.EXIT_OK
         outs.append([ln for ln in capsys.readouterr().out.splitlines() if ln.startswith("norrish_k")])
     assert outs[0] == outs[1] == outs[2]
+
+
+def test_fitted_effective_solute_brings_its_bound_water_into_a_recipe(tmp_path):
+    # Identity (no literature value): an invented food of 80 % water whose solids act as one
+    # solute of 0.12 kg/mol holding 0.2 kg water per kg; its ice curve from colligate itself.
+    rec = cg._core.make_solute_record("demo_solids", "demo solids", 0.12, 0.0)
+    t = cg._core.SoluteTable()
+    t.add(rec)
+    food = cg.Solution(water=0.8, solutes={"demo_solids": 0.2}, table=t)
+    T = np.linspace(270.0, 245.0, 11)
+    ice = cg.ice_fraction(food, T, bound_water_fraction_of_water=0.2 * 0.2 / 0.8)
+    fs = fit.fit_effective_solute(0.8, temperature=T, ice_fraction=ice).as_solute("my food solids")
+    path = cg.Library(solutes=[fs]).save(tmp_path / "food.toml")
+    r = load_recipe(_write(tmp_path / "r.toml", '[recipe]\nname = "food"\n[library]\nload = ["food.toml"]\n'
+                                                 '[composition]\nwater = 0.8\nmy_food_solids = 0.2\n'))
+    lib = cg.SoluteLibrary([fs])
+    s = cg.Solution(water=0.8, solutes={"my_food_solids": 0.2}, table=lib)
+    share = lib.bound_water_fraction_of_water(s)
+    assert share == pytest.approx(0.05, rel=1e-5)  # 0.2 kg/kg x 0.2 kg / 0.8 kg, as fitted
+    assert r.bound_water_fraction_of_water == share
+    assert r.freezing_point() == pytest.approx(cg.freezing_point(s, bound_water_fraction_of_water=share), abs=1e-12)
+    assert path.endswith("food.toml")
+
+
+def _write(path, text):
+    path.write_text(text, encoding="utf-8")
+    return path
