@@ -69,21 +69,25 @@ class SolutionBatch:
     arrays, or pandas objects with the caller's index when built from a DataFrame.
     """
 
-    def __init__(self, core: "_core.SolutionBatchCore", index: Optional[Any] = None) -> None:
+    def __init__(self, core: "_core.SolutionBatchCore", index: Optional[Any] = None, *,
+                 data: Optional[np.ndarray] = None, basis: str = "") -> None:
         self._core = core
         self.index = index
+        self._data = data    # the caller's matrix, to name the bad cells in warnings
+        self._basis = basis
 
     @classmethod
     def from_mass_fractions(cls, table: Any) -> "SolutionBatch":
         """Rows of solute mass fractions (each row's remainder is water)."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data), index)
+        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data), index, data=data,
+                   basis="mass_fractions")
 
     @classmethod
     def from_molalities(cls, table: Any) -> "SolutionBatch":
         """Rows of molalities, mol per kg of water."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_molalities(names, data), index)
+        return cls(_core.SolutionBatchCore.from_molalities(names, data), index, data=data, basis="molalities")
 
     @property
     def species(self) -> list[str]:
@@ -97,13 +101,27 @@ class SolutionBatch:
 
 
 def _row_problems(batch: "SolutionBatch", status: np.ndarray) -> str:
-    """The first rows with a bad status, by the caller's index label (at most 5)."""
+    """The first rows with a bad status, by the caller's index label (at most 5), each with
+    the column at fault where the input shows it (negative or not finite, or mass fractions
+    adding up to 1 or more)."""
     flat = status if status.ndim == 1 else status.max(axis=1)
     rows = np.flatnonzero((flat != OK) & (flat != OUT_OF_RANGE))[:5]
     if rows.size == 0:
         return ""
-    labels = [str(batch.index[i]) if batch.index is not None else str(i) for i in rows]
-    return f"; first rows: {', '.join(labels)}"
+    names = batch.species
+    parts = []
+    for i in rows:
+        label = str(batch.index[i]) if batch.index is not None else str(i)
+        why = ""
+        if batch._data is not None and batch._data.shape[1] == len(names):
+            row = batch._data[i]
+            bad = [f"{names[j]} = {row[j]:g}" for j in range(len(names)) if not (np.isfinite(row[j]) and row[j] >= 0.0)]
+            if bad:
+                why = f" ({', '.join(bad)})"
+            elif batch._basis == "mass_fractions" and row.sum() >= 1.0:
+                why = f" (mass fractions add up to {row.sum():g})"
+        parts.append(label + why)
+    return f"; first rows: {', '.join(parts)}"
 
 
 def _report(status: np.ndarray, what: str, batch: "Optional[SolutionBatch]" = None) -> None:

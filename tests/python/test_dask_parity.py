@@ -77,5 +77,9 @@ def test_bad_column_is_named():
     df.iloc[3, 1] = "lots"
     with pytest.raises(ValueError, match="column 'lactose'"):
         cg.SolutionBatch.from_mass_fractions(df)
+    # rows that are bad get NaN; the warning names their index label and the column at fault
+    with pytest.warns(cg.BatchRowWarning, match=r"5007 \(sucrose = -0\.1\), 5011 \(lactose = nan\), "
+                                                r"5013 \(mass fractions add up to"):
+        cg.batch_freezing_point(cg.SolutionBatch.from_mass_fractions(dairy_sweep(20)))
     with pytest.raises(ValueError, match="sucrse"):
         cg.SolutionBatch.from_mass_fractions(dairy_sweep(20).rename(columns={"sucrose": "sucrse"}))
