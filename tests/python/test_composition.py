@@ -79,7 +79,7 @@ def test_lactose_indicator_separates_mixes():
     # Hyde & Rothwell (1973): MSNF at most (100 - fat - sugars - E - S) / 7 % of the mix.
     demo = build_report(load_demo_recipe("ice_cream"))["indicators"]["lactose_in_solution"]
     assert demo["source"] == "hyde_rothwell_1973" and demo["at_risk"] is False
-    # a mix loaded with skim milk powder (numbers of our own): 16 % powder, MSNF about 17 %
+    # a mix loaded with skim milk powder (numbers of our own): 16 % powder, MSNF about 21 %
     heavy = cg.Recipe(ingredients={"whole_milk": 0.60, "skim_milk_powder": 0.16, "sucrose": 0.14,
                                    "cream_36": 0.10})
     ind = build_report(heavy)["indicators"]["lactose_in_solution"]
