@@ -104,6 +104,20 @@ void register_equilibria(py::module_& m) {
       py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
 
   m.def(
+      "temperature_for_ice_fraction",
+      [](const solution& s, const array_in& fraction, const std::string& model,
+         const std::string& policy, double bound_water) {
+        const auto pol = colligate::range_policy_from_string(policy);
+        eq::ice_curve curve(s, colligate::models::model_choice(model), bound_water);
+        return checked_over_array(
+            fraction, [&](double f) { return eq::temperature_for_ice_fraction(curve, f, pol); });
+      },
+      py::arg("solution"), py::arg("ice_fraction"), py::arg("model") = "auto",
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0,
+      "(temperatures K, first reason, count out of range) at which the solution has each ice "
+      "fraction (ice mass over all the water), on one prepared ice curve.");
+
+  m.def(
       "unfrozen_phase",
       [](const solution& s, double T, const std::string& model, double bound_fraction) {
         return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model),

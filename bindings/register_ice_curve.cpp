@@ -138,6 +138,30 @@ void register_ice_curve(py::module_& m) {
       .def("at", &eq::ice_curve::at, py::arg("temperature"),
            "The state at ``temperature`` (K).")
       .def(
+          "temperature_for_ice_fraction",
+          [](eq::ice_curve& c, double fraction, const std::string& policy) {
+            const auto v = eq::temperature_for_ice_fraction(
+                c, fraction, colligate::range_policy_from_string(policy));
+            return std::make_tuple(v.value, v.check.reason());
+          },
+          py::arg("ice_fraction"), py::arg("range_policy") = "extrapolate",
+          "(temperature K, reason) at which the curve has ``ice_fraction`` (ice mass over all "
+          "the water, in [0, 1)); a fraction the curve cannot reach raises ValueError naming "
+          "the reachable range.")
+      .def(
+          "reachable_ice",
+          [](eq::ice_curve& c) {
+            const auto r = eq::reachable_ice_of(c);
+            py::dict d;
+            d["freezing_point_K"] = r.freezing_point;
+            d["lowest_temperature_K"] = r.lowest_temperature;
+            d["largest_ice_fraction"] = r.largest_fraction;
+            d["end"] = r.end;
+            return d;
+          },
+          "The span of the curve as a dict: freezing_point_K, lowest_temperature_K (where the "
+          "curve ends), largest_ice_fraction (there) and end (why it ends there).")
+      .def(
           "ice_fractions",
           [](eq::ice_curve& c,
              const array_in& temperature,

@@ -9,38 +9,10 @@
 
 #include "colligate/colligate.hpp"
 #include "colligate/thermal/enthalpy.hpp"
+#include "food_helpers.hpp"
 #include "register.hpp"
 
 namespace colligate_bindings {
-
-namespace {
-
-namespace th = colligate::thermal;
-
-th::food_composition to_composition(const py::object& mapping) {
-  th::food_composition x;
-  for (const auto& [name, value] : to_named_amounts(mapping, "composition")) {
-    if (name == "water") x.water = value;
-    else if (name == "protein") x.protein = value;
-    else if (name == "fat") x.fat = value;
-    else if (name == "carbohydrate") x.carbohydrate = value;
-    else if (name == "fibre" || name == "fiber") x.fibre = value;
-    else if (name == "ash") x.ash = value;
-    else
-      throw colligate::invalid_input("composition['" + name +
-                                     "']: unknown component; valid components are water, "
-                                     "protein, fat, carbohydrate, fibre, ash");
-  }
-  return x;
-}
-
-th::food make_food(const py::object& composition, const colligate::solution& s,
-                   double bound_water_fraction_of_water, const std::string& model) {
-  return th::food(to_composition(composition), s, bound_water_fraction_of_water,
-                  colligate::models::model_choice(model));
-}
-
-}  // namespace
 
 void register_thermal(py::module_& m) {
   m.def(
@@ -74,8 +46,8 @@ void register_thermal(py::module_& m) {
       "food_enthalpy",
       [](const py::object& composition, const colligate::solution& s,
          const array_in& temperature,
-         const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         auto curve = th::ice_curve_of(f);  // one curve for every temperature
         return checked_over_array(temperature, [&](double T) {
           return th::enthalpy(f, curve, T, colligate::range_policy::extrapolate);
@@ -88,8 +60,8 @@ void register_thermal(py::module_& m) {
       "food_apparent_specific_heat",
       [](const py::object& composition, const colligate::solution& s,
          const array_in& temperature,
-         const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         auto curve = th::ice_curve_of(f);
         return checked_over_array(temperature, [&](double T) {
           return th::apparent_specific_heat(f, curve, T, colligate::range_policy::extrapolate);
@@ -101,8 +73,8 @@ void register_thermal(py::module_& m) {
   m.def(
       "food_heat_load",
       [](const py::object& composition, const colligate::solution& s, double from_temperature,
-         double to_temperature, const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         double to_temperature, const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         th::heat_load_result r;
         {
           py::gil_scoped_release release;

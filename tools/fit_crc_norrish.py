@@ -28,7 +28,7 @@ C = [76.02 - 37.77, -0.1571134, -0.01728863, -0.00096686]
 MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
               "lactose": 0.3422965, "maltose": 0.3422965, "glycerol": 0.0920938,
               "ethanol": 0.0460684, "citric_acid": 0.1921235, "lactic_acid": 0.0900779,
-              "mannitol": 0.1821718}
+              "mannitol": 0.1821718, "acetic_acid": 0.060052}
 
 
 def enthalpy_of_fusion(T):
@@ -48,11 +48,16 @@ def freezing_depression(molality: float, k: float, k3: float) -> float:
     return T0 - brentq(lambda T: ln_aw - ln_aw_ice(T), 200.0, T0 - 1e-9)
 
 
-def rows(solute: str, max_percent: float):
+def rows(solute: str, max_percent: float, used_in_fit: str = "yes"):
+    """(molality, depression K) of the CRC rows of a solute up to max_percent whose
+    `used_in_fit` column is used_in_fit ("yes": the fit rows, "no": the held-out rows).
+    The split lives in tests/reference/crc_freezing_points.csv: every other row from the
+    first (rows flagged "below neighbours" excluded) is fitted, the others are held out."""
     path = pathlib.Path(__file__).resolve().parents[1] / "tests/reference/crc_freezing_points.csv"
     with open(path, newline="") as fh:
         for r in csv.DictReader(fh):
-            if r["solute"] == solute and float(r["mass_percent"]) <= max_percent and "below neighbours" not in r["note"]:
+            if (r["solute"] == solute and float(r["mass_percent"]) <= max_percent
+                    and "below neighbours" not in r["note"] and r["used_in_fit"] == used_in_fit):
                 w = float(r["mass_percent"]) / 100
                 yield w / (1 - w) / MOLAR_MASS[solute], float(r["depression_K"])
 
@@ -62,11 +67,13 @@ def rows(solute: str, max_percent: float):
 # higher-order terms only where one constant cannot (glycerol to 40 wt%). Ethanol has its
 # own fit (fit_ethanol). Lactose takes sucrose's published K (the dairy texts count it as
 # sucrose; its CRC rows end at 8 wt%, too dilute to fix a constant for mixes).
+# For a published K (sucrose, glucose, fructose, mannitol, lactose) nothing is fitted and
+# every CRC row of the solute is marked used_in_fit = no.
 PLAN = {
     "sucrose": (6.47, 42, 0), "glucose": (2.25, 30, 0), "fructose": (2.25, 28, 0),
     "maltose": (None, 44, 0), "lactose": (6.47, 100, 0), "glycerol": (None, 40, 1),
     "ethanol": None, "citric_acid": (None, 100, 0), "lactic_acid": (None, 100, 0),
-    "mannitol": (0.906, 100, 0),
+    "mannitol": (0.906, 100, 0), "acetic_acid": (None, 100, 0),
 }
 
 
@@ -122,11 +129,14 @@ def ethanol_rows():
         for r in csv.DictReader(fh):
             if r["solute"] == "ethanol" and "below neighbours" not in r["note"]:
                 if float(r["mass_percent"]) <= ETHANOL_MAX_PERCENT:
-                    data.append((float(r["mass_percent"]), float(r["depression_K"])))
+                    data.append((float(r["mass_percent"]), float(r["depression_K"]),
+                                 r["used_in_fit"] == "yes"))
     data.sort()
     percent = np.array([d[0] for d in data])
     dT = np.array([d[1] for d in data])
-    fit = np.arange(len(percent)) % 2 == 0
+    fit = np.array([d[2] for d in data])
+    # the CSV's split is every other row from the first
+    assert np.array_equal(fit, np.arange(len(percent)) % 2 == 0), "used_in_fit column changed"
     return percent, dT, fit
 
 
@@ -245,7 +255,8 @@ if __name__ == "__main__":
                   f"(held out {np.max(np.abs(dev[~fit])):.3f} K)")
             continue
         k_pub, wmax, n_high = plan
-        data = list(rows(solute, wmax))
+        n_fit = (k_pub is None) + n_high  # constants fitted; 0: all rows are checks
+        data = list(rows(solute, wmax, "yes" if n_fit else "no"))
         m = np.array([d[0] for d in data])
         dT = np.array([d[1] for d in data])
         fixed = [] if k_pub is None else [k_pub]
@@ -253,12 +264,14 @@ if __name__ == "__main__":
         def resid(p):
             return np.array([depression(mi, fixed + list(p)) for mi in m]) - dT
 
-        n = (k_pub is None) + n_high
-        p = least_squares(resid, np.zeros(n)).x if n else np.array([])
+        p = least_squares(resid, np.zeros(n_fit)).x if n_fit else np.array([])
         consts = fixed + list(p)
         r = resid(p)
         wtop = max(float(w) for w, _ in [(100 * mi * MOLAR_MASS[solute] / (1 + mi * MOLAR_MASS[solute]), 0) for mi in m])
+        held = list(rows(solute, wmax, "no")) if n_fit else []
+        dev_held = [depression(mh, [float("%.6g" % c) for c in consts]) - dh for mh, dh in held]
         print(f"{solute:12s} constants={['%.6g' % c for c in consts]} rows={len(m):2d} "
-              f"to {wtop:.0f} wt%  max|dev|={np.max(np.abs(r)):.3f} K")
+              f"to {wtop:.0f} wt%  max|dev|={np.max(np.abs(r)):.3f} K"
+              + (f"  (+{len(held)} held out: max|dev|={np.max(np.abs(dev_held)):.3f} K)" if held else ""))
     if ethanol is not None:
         report_ethanol(*ethanol)

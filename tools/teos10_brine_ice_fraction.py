@@ -114,6 +114,7 @@ def rows() -> list[dict[str, str]]:
             "brine_SA_g_per_kg": f"{sa_b:.4f}",
             "ice_fraction_of_water": f"{f:.5f}",
             "source_key": SOURCE_KEY,
+            "used_in_fit": "no",
             "note": note,
         })
     return out
@@ -126,7 +127,8 @@ def main(argv: list[str] | None = None) -> int:
                     help="compare with the existing file instead of writing it")
     args = ap.parse_args(argv)
     table = rows()
-    fields = ["temperature_C", "brine_SA_g_per_kg", "ice_fraction_of_water", "source_key", "note"]
+    fields = ["temperature_C", "brine_SA_g_per_kg", "ice_fraction_of_water", "source_key", "used_in_fit",
+              "note"]
     if args.check:
         with open(args.out, newline="") as fh:
             old = list(csv.DictReader(fh))

@@ -64,6 +64,7 @@ from .api import (  # noqa: E402,F401
     frozen_specific_heat_chen,
     heat_load,
     ice_fraction,
+    temperature_for_ice_fraction,
     leighton_freezing_point,
     leighton_ice_fraction,
     mean_activity_coefficient,
@@ -83,7 +84,27 @@ from .api import (  # noqa: E402,F401
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
 from .library import Library, LibraryError  # noqa: E402
-from .recipe import Recipe  # noqa: E402
+from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
+from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
+from .freezing_time import (  # noqa: E402,F401
+    FREEZING_TIME_CAUTION,
+    FreezingSimulation,
+    boiling_point,
+    boiling_point_elevation,
+    brick_shape_factor,
+    concentration_for_boiling_point,
+    finite_cylinder_shape_factor,
+    freezing_inputs,
+    pham_estimate,
+    pham_time,
+    pham_times,
+    plank_time,
+    rod_shape_factor,
+    saturation_pressure,
+    saturation_temperature,
+    simulate_freezing,
+    thermal_properties,
+)
 
 __all__ = [
     "Solution",
@@ -109,6 +130,7 @@ __all__ = [
     "water_activity",
     "osmotic_coefficient",
     "ice_fraction",
+    "temperature_for_ice_fraction",
     "unfrozen_phase",
     "leighton_freezing_point",
     "leighton_ice_fraction",
@@ -130,6 +152,7 @@ __all__ = [
     "alcohol_by_volume_20c",
     "ethanol_water_density_20c",
     "max_msnf_for_lactose_in_solution",
+    "SuspectUnitWarning",
     "eutectic",
     "mean_activity_coefficient",
     "pitzer_parameter_sets",
@@ -142,5 +165,22 @@ __all__ = [
     "ConvergenceError",
     "CAUTIONS",
     "RANGE_POLICIES",
+    "FREEZING_TIME_CAUTION",
+    "FreezingSimulation",
+    "boiling_point",
+    "boiling_point_elevation",
+    "brick_shape_factor",
+    "concentration_for_boiling_point",
+    "finite_cylinder_shape_factor",
+    "freezing_inputs",
+    "pham_estimate",
+    "pham_time",
+    "pham_times",
+    "plank_time",
+    "rod_shape_factor",
+    "saturation_pressure",
+    "saturation_temperature",
+    "simulate_freezing",
+    "thermal_properties",
     "__version__",
 ]

@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_heat_load', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'row_status_reasons', 'solute_table', 'sweetness_table', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -446,9 +446,17 @@ class IceCurve:
         """
         (ice fractions, first reason, count out of range) at each temperature (K).
         """
+    def reachable_ice(self) -> dict:
+        """
+        The span of the curve as a dict: freezing_point_K, lowest_temperature_K (where the curve ends), largest_ice_fraction (there) and end (why it ends there).
+        """
     def table(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> dict:
         """
         The curve at each temperature (K) as columns (a dict of arrays, units in the keys): state, ice fraction, ice, unfrozen and hydrate water (kg), a_w, and the amount of each salt phase crystallised (mol). ``pandas.DataFrame(curve.table(T))`` gives a table.
+        """
+    def temperature_for_ice_fraction(self, ice_fraction: typing.SupportsFloat | typing.SupportsIndex, range_policy: str = 'extrapolate') -> tuple[float, str]:
+        """
+        (temperature K, reason) at which the curve has ``ice_fraction`` (ice mass over all the water, in [0, 1)); a fraction the curve cannot reach raises ValueError naming the reachable range.
         """
     @property
     def bound_water(self) -> float:
@@ -558,7 +566,15 @@ def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated
     ...
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+def boiling_point(solution: Solution, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
+    """
+    Boiling point (K) of a solution at pressure (Pa) from a_w(T) p_s(T) = P, with its elevation.
+    """
+def brick_shape_factor(a: typing.SupportsFloat | typing.SupportsIndex, b: typing.SupportsFloat | typing.SupportsIndex, c: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    EHTD of a rectangular brick with sides a, b, c (m); Hossain, Cleland & Cleland (1992).
+    """
+def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.
     """
@@ -573,6 +589,10 @@ def citation_table() -> list:
 def component_specific_heat(component: str, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Specific heat of a food component (water, ice, protein, fat, carbohydrate, fibre, ash) at ``temperature`` (K), J/(kg K); Choi & Okos (1986).
+    """
+def concentration_for_boiling_point(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
+    """
+    The solution with the same solutes (water adjusted) that boils at temperature (K) under pressure (Pa).
     """
 def curve_fit(model: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"]], x: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], y: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], p0: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, jacobian: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"]] | None = None, lower_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, upper_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, max_iterations: typing.SupportsInt | typing.SupportsIndex = 500, scale_covariance: bool = True) -> FitResult:
     """
@@ -598,6 +618,10 @@ def ethanol_water_density_20c(ethanol_mass_fraction: typing.SupportsFloat | typi
 def eutectic(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
     """
     (temperature K, found, phase, formula, source key, reason) of the eutectic.
+    """
+def finite_cylinder_shape_factor(diameter: typing.SupportsFloat | typing.SupportsIndex, height: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    EHTD of a finite cylinder (m); Hossain et al. (1992).
     """
 def fit_effective_solute_freezing(water_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], freezing_point: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_bound_water: bool = True, molar_mass_start: typing.SupportsFloat | typing.SupportsIndex = 0.2, bound_water_start: typing.SupportsFloat | typing.SupportsIndex = 0.1) -> FitResult:
     """
@@ -635,11 +659,19 @@ def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typi
     """
     Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).
     """
-def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+def food_freezing_inputs(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, conductivity_rule: str = 'parallel') -> dict:
+    """
+    Inputs of Plank's and Pham's formulas for a food (SI).
+    """
+def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
     """
     Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split into sensible and latent parts.
     """
-def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
+def food_properties(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
+    """
+    Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg) and ice fraction of a food.
+    """
+def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
 def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
@@ -701,6 +733,14 @@ def norrish_solute_record(result: FitResult, id: str, name: str, molar_mass: typ
     """
 def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
     ...
+def pham_estimate(size: typing.SupportsFloat | typing.SupportsIndex, shape_factor: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_medium: typing.SupportsFloat | typing.SupportsIndex, T_centre: typing.SupportsFloat | typing.SupportsIndex, density_unfrozen: typing.SupportsFloat | typing.SupportsIndex, density_frozen: typing.SupportsFloat | typing.SupportsIndex, c_unfrozen: typing.SupportsFloat | typing.SupportsIndex, c_frozen: typing.SupportsFloat | typing.SupportsIndex, latent_heat: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex) -> dict:
+    """
+    Pham's (1986) freezing time and its parts (SI, temperatures in K).
+    """
+def pham_times(size: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], shape_factor: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_medium: typing.SupportsFloat | typing.SupportsIndex, T_centre: typing.SupportsFloat | typing.SupportsIndex, density_unfrozen: typing.SupportsFloat | typing.SupportsIndex, density_frozen: typing.SupportsFloat | typing.SupportsIndex, c_unfrozen: typing.SupportsFloat | typing.SupportsIndex, c_frozen: typing.SupportsFloat | typing.SupportsIndex, latent_heat: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex, h: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> numpy.typing.NDArray[numpy.float64]:
+    """
+    Pham's (1986) freezing times, s, over arrays of size (m) and h (W/(m^2 K)).
+    """
 def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
 def pitzer_parameter_set_range(parameter_set: str) -> tuple[float, float, str, str]:
@@ -715,9 +755,33 @@ def pitzer_solute_record(result: FitResult, salt: str, id: str, name: str, max_m
     """
     A salt record (copy of ``salt``, new id) carrying the Pitzer parameters of a fit.
     """
+def plank_time(shape: str, size: typing.SupportsFloat | typing.SupportsIndex, density: typing.SupportsFloat | typing.SupportsIndex, latent_heat: typing.SupportsFloat | typing.SupportsIndex, T_freeze: typing.SupportsFloat | typing.SupportsIndex, T_medium: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Plank's freezing time, s (shape slab|cylinder|sphere; size = full thickness or diameter, m).
+    """
+def rod_shape_factor(a: typing.SupportsFloat | typing.SupportsIndex, b: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    EHTD of an infinite rectangular rod a x b (m); Hossain et al. (1992).
+    """
 def row_status_reasons() -> list[str]:
     """
     Readable reason for each row status code (index = code).
+    """
+def saturation_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Saturation vapour pressure of water, Pa, at T (K); Wagner & Pruss (1993), IAPWS.
+    """
+def saturation_temperature(pressure: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Boiling temperature of pure water, K, at P (Pa); Wagner & Pruss (1993), IAPWS.
+    """
+def simulate_food(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
+    """
+    Enthalpy-method simulation of a food (properties from its ice curve).
+    """
+def simulate_material(temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], enthalpy: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], conductivity: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1) -> dict:
+    """
+    Enthalpy-method simulation of a tabulated material (H in J/m^3, k in W/(m K) against T in K).
     """
 def solute_table() -> list:
     """
@@ -727,7 +791,11 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+    """
+    (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
+    """
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """
     The ice curve's state (IceCurveState) at ``temperature`` (K).
     """

@@ -37,6 +37,7 @@ __all__ = [
     "water_activity",
     "osmotic_coefficient",
     "ice_fraction",
+    "temperature_for_ice_fraction",
     "unfrozen_phase",
     "leighton_freezing_point",
     "leighton_ice_fraction",
@@ -200,6 +201,53 @@ def ice_fraction(
     temps = np.asarray(T, dtype=float)
     values, reason, count = _core.ice_fraction(
         _as_solution(solution), temps, model, range_policy, bound_water_fraction_of_water
+    )
+    _warn(reason, count)
+    return float(values) if scalar else values
+
+
+def temperature_for_ice_fraction(
+    solution: Solution,
+    ice_fraction: Union[float, "np.typing.ArrayLike"],
+    model: str = "auto",
+    *,
+    bound_water: float = 0.0,
+    range_policy: str = "extrapolate",
+) -> Union[float, np.ndarray]:
+    """Temperature at which a solution has a given ice fraction (the inverse of
+    :func:`ice_fraction`), e.g. the serving temperature with 70 % of the water frozen.
+
+    Parameters
+    ----------
+    solution : Solution
+        The solution (or food water phase).
+    ice_fraction : float or array_like
+        Ice mass over all the water, in [0, 1) (0.70, not 70). 0 gives the initial
+        freezing point.
+    model : str
+        Activity model id (see :func:`models`).
+    bound_water : float
+        Water that cannot freeze, kg.
+    range_policy : str
+        "extrapolate", "nan" or "raise" (see :func:`freezing_point`), applied to the
+        model's validity at the temperature found.
+
+    Returns
+    -------
+    float or numpy.ndarray
+        Temperature(s), K, same shape as ``ice_fraction``.
+
+    Raises
+    ------
+    InvalidInputError
+        For a fraction outside [0, 1) or above the largest the ice curve reaches (at the
+        final eutectic of a brine, at the lowest temperature searched, or because of water
+        that cannot freeze); the message names the fraction and the reachable range.
+    """
+    scalar = np.ndim(ice_fraction) == 0
+    fractions = np.asarray(ice_fraction, dtype=float)
+    values, reason, count = _core.temperature_for_ice_fraction(
+        _as_solution(solution), fractions, model, range_policy, float(bound_water)
     )
     _warn(reason, count)
     return float(values) if scalar else values

@@ -7,6 +7,10 @@ Subcommands::
     colligate report RECIPE.toml [--plot PNG] [--enthalpy-plot PNG] [--cooling-plot PNG]
                      [--csv FILE] [--save FILE] [--json] [--fahrenheit]
     colligate fit DATA.csv --model norrish|effective|pitzer [--salt NaCl] [--plot PNG] [--save-solute FILE]
+    colligate freeze-time RECIPE.toml|demo --size M --initial C --medium C --h W_M2K --target C
+                     [--shape slab|cylinder|sphere] [--plot PNG] [--json]
+    colligate side-by-side A.toml B.toml [MORE.toml ...] [--at TEMP ...] [--frozen SHARE ...]
+                     [--plot FILE] [--save FILE] [--json] [--fahrenheit]
 
 ``demo`` evaluates a built-in demo recipe (an invented demo scenario: a
 strawberry ice cream made of library ingredients, or ``--scenario sorbet``),
@@ -18,21 +22,34 @@ table (default name ``colligate_demo_table.csv`` in ``--out``).
 it writes only the files asked for (``--plot``, ``--enthalpy-plot``,
 ``--cooling-plot``, ``--csv``).
 
+``side-by-side`` compares two or more recipe files: one column per recipe (freezing
+point, water activity, dissolved solids, sweetness, ice at common temperatures given with
+``--at`` such as ``-12C``, ``10F`` or ``261K``, and the temperature at which a share of
+the water given with ``--frozen`` is frozen); ``--plot`` draws their ice curves on one set
+of axes; ``--json`` prints the comparison (schema: ``colligate/data/comparison.schema.json``).
+
 ``--json`` prints the machine-readable report (units in the keys) instead of
 text; ``--fahrenheit`` adds degF to the text report; ``--save FILE`` also
 writes the printed report to FILE. Every file is written atomically and an
 input file is never overwritten.
 
 Exit status: 0 on success, 2 on a usage or input error (a one-line message on
-stderr, no traceback). ``demo`` and ``report`` show each warning once, grouped, in the
-report (text or JSON), not on stderr; ``fit`` prints its warnings as one line each on
-stderr. Warnings do not change the exit status.
+stderr, no traceback), 130 after Ctrl-C (``colligate: interrupted``; also while
+Python is still importing, through the launcher ``_colligate_cli``), 143 after SIGTERM
+(the installed command), 3 on an internal error (a bug: one line;
+``COLLIGATE_TRACEBACK=1`` shows where).
+``demo`` and ``report`` show each warning once, grouped, in the report (text or JSON),
+not on stderr; the other commands print their warnings as one line each on stderr.
+Warnings do not change the exit status. A command writes all its files or none: each
+goes to a temporary file, and all are renamed into place only once everything has been
+computed.
 """
 
 from __future__ import annotations
 
 import argparse
 import os
+import re
 import sys
 import warnings
 from typing import Sequence
@@ -45,6 +62,8 @@ __all__ = [
     "DEMO_CSV_NAME",
     "EXIT_OK",
     "EXIT_ERROR",
+    "EXIT_INTERNAL",
+    "EXIT_INTERRUPTED",
 ]
 
 PROG = "colligate"
@@ -54,6 +73,8 @@ DEMO_COOLING_PLOT_NAME = "colligate_demo_cooling_curve.png"
 DEMO_CSV_NAME = "colligate_demo_table.csv"
 EXIT_OK = 0
 EXIT_ERROR = 2
+EXIT_INTERNAL = 3
+EXIT_INTERRUPTED = 130  # 128 + SIGINT, as shells report a Ctrl-C
 
 
 class _UsageError(Exception):
@@ -83,7 +104,7 @@ def _build_parser() -> argparse.ArgumentParser:
 
     def common(p: argparse.ArgumentParser) -> None:
         p.add_argument("--json", action="store_true", help="print the report as JSON (units in the keys)")
-        p.add_argument("--fahrenheit", action="store_true", help="also show temperatures in degF in the text report")
+        p.add_argument("--fahrenheit", action="store_true", help="also show temperatures in degF in the text report and on the ice-curve plot")
         p.add_argument("--save", metavar="FILE", help="also write the printed report (text or JSON) to FILE")
 
     from .recipe import DEFAULT_DEMO_SCENARIO, DEMO_SCENARIOS
@@ -105,7 +126,22 @@ def _build_parser() -> argparse.ArgumentParser:
     p_rep.add_argument("--cooling-plot", metavar="PNG",
                        help="write the cooling curve (temperature vs heat removed) to this PNG file")
     p_rep.add_argument("--csv", metavar="FILE", help="write the ice/enthalpy table to this CSV file")
+    p_rep.add_argument("--contributions-plot", metavar="FILE",
+                       help="write each ingredient's share of the freezing-point depression, sweetness "
+                       "and water kept liquid at the serving temperature to this plot file")
     common(p_rep)
+
+    p_cmp = sub.add_parser("side-by-side", help="compare two or more recipe files (TOML) side by side")
+    p_cmp.add_argument("recipes", metavar="RECIPE.toml", nargs="+", help="two or more recipe files")
+    p_cmp.add_argument("--at", metavar="TEMP", action="append",
+                       help="a temperature at which to compare the ice, e.g. -12C, 10F or 261K (a bare "
+                       "number is degC); repeat for more (default -6, -12 and -18 C)")
+    p_cmp.add_argument("--frozen", metavar="SHARE", action="append", type=float,
+                       help="a share of the water frozen (0-1) whose temperature is compared; repeat "
+                       "for more (default 0.5 and 0.7)")
+    p_cmp.add_argument("--plot", metavar="FILE", help="write the ice curves of all the recipes to one plot "
+                       "(.png, .svg, .pdf ...)")
+    common(p_cmp)
 
     p_fit = sub.add_parser("fit", help="fit model constants to a CSV of your own data (see colligate.fit)")
     p_fit.add_argument("data", metavar="DATA.csv", help="CSV whose header names the units: concentration as "
@@ -124,18 +160,19 @@ def _build_parser() -> argparse.ArgumentParser:
     p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol (needed "
                        "with a mass_fraction or mass_percent column and with --save-solute)")
     p_fit.add_argument("--save-solute", metavar="FILE", help="write the fitted solute as TOML")
+    from .cli_freeze_time import add_parser as add_freeze_time
+
+    add_freeze_time(sub)
     return parser
 
 
-def _short(message: object) -> str:
+def _short(message: object, limit: int = 300) -> str:
     text = " ".join(str(message).split())
-    return text if len(text) <= 300 else text[:297] + "..."
+    return text if len(text) <= limit else text[: limit - 3] + "..."
 
 
 def _run(args: argparse.Namespace) -> int:
-    from ._files import atomic_write_text, check_output_path
-    from .recipe import load_demo_recipe, load_recipe
-    from .report import build_report, format_json, format_text
+    from ._files import OutputSet
 
     if args.command == "fit":
         from .fit import run_fit_command
@@ -143,6 +180,20 @@ def _run(args: argparse.Namespace) -> int:
         sys.stdout.write(run_fit_command(args))
         sys.stdout.flush()
         return EXIT_OK
+    if args.command == "freeze-time":
+        from .cli_freeze_time import run as run_freeze_time
+        from .recipe import load_demo_recipe, load_recipe
+
+        recipe = load_demo_recipe() if args.recipe == "demo" else load_recipe(args.recipe)
+        sys.stdout.write(run_freeze_time(args, recipe, [] if args.recipe == "demo" else [args.recipe]))
+        return EXIT_OK
+    if args.command == "side-by-side":
+        return _run_side_by_side(args)
+
+    from .plot import check_plot_path
+    from .recipe import load_demo_recipe, load_recipe
+    from .report import build_report, format_json, format_text
+
     # outputs: key in the report's "files" -> (path, option name for messages)
     outputs: dict[str, tuple[str, str]] = {}
     if args.command == "demo":
@@ -166,43 +217,47 @@ def _run(args: argparse.Namespace) -> int:
             ("enthalpy_png", args.enthalpy_plot, "--enthalpy-plot"),
             ("cooling_curve_png", args.cooling_plot, "--cooling-plot"),
             ("table_csv", args.csv, "--csv"),
+            ("contributions_png", args.contributions_plot, "--contributions-plot"),
         ):
             if value is not None:
                 outputs[key] = (value, option)
 
-    # Check every output path before computing, so a bad path fails fast.
-    checks = list(outputs.values()) + ([(args.save, "--save")] if args.save is not None else [])
-    seen: dict[str, str] = {}
-    for path, option in checks:
-        check_output_path(path, inputs, option)
-        full = os.path.abspath(path)
-        if full in seen:
-            raise ValueError(f"{option} '{path}' is the same file as {seen[full]}")
-        seen[full] = option
+    # All outputs of the command or none: every path is checked (and a path used twice
+    # refused) before computing; files go to temporary files and are renamed into place
+    # together at the end. A failure or Ctrl-C before that leaves no file behind.
+    with OutputSet(inputs) as out:
+        for key, (path, option) in outputs.items():
+            if key.endswith("_png"):
+                check_plot_path(path, inputs, option)  # a format matplotlib can write
+            out.plan(path, option)
+        if args.save is not None:
+            out.plan(args.save, "--save")
 
-    report = build_report(recipe)
-    written: dict[str, str] = {}
-    # Warnings of the plots and the table join the report's own (once each); none go to stderr.
-    with warnings.catch_warnings(record=True) as caught:
-        warnings.simplefilter("always")
-        _write_outputs(recipe, outputs, inputs, written)
-    _merge_warnings(report, caught)
-    if written:
-        cautions = report.pop("cautions")
-        report["files"] = written
-        report["cautions"] = cautions  # cautions stay last
+        report = build_report(recipe)
+        written: dict[str, str] = {}
+        # Warnings of the plots and the table join the report's own (once each); none go to stderr.
+        with warnings.catch_warnings(record=True) as caught:
+            warnings.simplefilter("always")
+            _write_outputs(recipe, outputs, inputs, written, out, args.fahrenheit)
+        _merge_warnings(report, caught)
+        if written:
+            cautions = report.pop("cautions")
+            report["files"] = written
+            report["cautions"] = cautions  # cautions stay last
 
-    text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
-    if args.save is not None:
-        atomic_write_text(args.save, text, inputs, "--save")
+        text = format_json(report) if args.json else format_text(report, fahrenheit=args.fahrenheit)
+        if args.save is not None:
+            out.write_text(args.save, text)
+        out.commit()
     sys.stdout.write(text)
     sys.stdout.flush()
     return EXIT_OK
 
 
-def _write_outputs(recipe, outputs, inputs, written) -> None:
-    """Write the plots and the table asked for; record each path written in ``written``."""
-    from .plot import plot_cooling_curve, plot_enthalpy, plot_ice_curve
+def _write_outputs(recipe, outputs, inputs, written, out, fahrenheit: bool) -> None:
+    """Write the plots and the table asked for into the output set ``out``; record each
+    path written in ``written``."""
+    from .plot import plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
     from .report import ice_enthalpy_table, write_table_csv
 
     title = recipe.name
@@ -218,14 +273,20 @@ def _write_outputs(recipe, outputs, inputs, written) -> None:
                 title=f"Ice curve: {title}",
                 label=label,
                 inputs=inputs,
+                outputs=out,
+                fahrenheit=fahrenheit,
             )
         elif key == "enthalpy_png":
             done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
-                                 label=label, inputs=inputs)
+                                 label=label, inputs=inputs, outputs=out)
         elif key == "cooling_curve_png":
-            done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label, inputs=inputs)
+            done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label,
+                                      inputs=inputs, outputs=out)
+        elif key == "contributions_png":
+            done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
+                                      inputs=inputs, outputs=out)
         else:
-            done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option)
+            done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option, outputs=out)
         written[key] = os.path.abspath(done)
 
 
@@ -238,6 +299,50 @@ def _merge_warnings(report: dict, caught: Sequence[warnings.WarningMessage]) -> 
         if _warning_key(w["message"]) not in known:
             report["warnings"].append(w)
             known.add(_warning_key(w["message"]))
+
+
+def _run_side_by_side(args: argparse.Namespace) -> int:
+    """``colligate side-by-side``: compare recipe files (paths and outputs checked first)."""
+    from ._files import atomic_write_text, check_output_path
+    from .compare import compare_recipes, format_comparison_json, format_comparison_text, plot_comparison
+    from .plot import check_plot_path
+    from .recipe import load_recipe
+    from .units import parse_temperature
+
+    if len(args.recipes) < 2:
+        raise ValueError(f"side-by-side: got {len(args.recipes)} recipe file(s); give at least two")
+    temps = None if not args.at else [parse_temperature(t) for t in args.at]
+    fractions = args.frozen if args.frozen else None
+    inputs = list(args.recipes)
+    if args.plot is not None:
+        check_plot_path(args.plot, inputs, "--plot")
+    if args.save is not None:
+        check_output_path(args.save, inputs, "--save")
+        if args.plot is not None and os.path.abspath(args.plot) == os.path.abspath(args.save):
+            raise ValueError(f"--save '{args.save}' is the same file as --plot")
+    recipes, problems = [], []
+    for path in args.recipes:
+        try:
+            recipes.append(load_recipe(path))
+        except ValueError as exc:
+            problems.append(str(exc))
+    if problems:
+        raise ValueError("; ".join(problems))
+    kwargs = {} if fractions is None else {"ice_fractions": fractions}
+    comparison = compare_recipes(recipes, temperatures=temps, **kwargs)
+    if args.plot is not None:
+        done = plot_comparison(recipes, args.plot, temperatures=comparison["temperatures_K"],
+                               fahrenheit=args.fahrenheit, inputs=inputs)
+        cautions = comparison.pop("cautions")
+        comparison["files"] = {"ice_curves_plot": os.path.abspath(done)}
+        comparison["cautions"] = cautions
+    text = (format_comparison_json(comparison) if args.json
+            else format_comparison_text(comparison, fahrenheit=args.fahrenheit))
+    if args.save is not None:
+        atomic_write_text(args.save, text, inputs, "--save")
+    sys.stdout.write(text)
+    sys.stdout.flush()
+    return EXIT_OK
 
 
 _MAX_WARNING_LINES = 3
@@ -256,10 +361,45 @@ def _print_warnings(caught: Sequence[warnings.WarningMessage]) -> None:
         print(f"{PROG}: warning: ... and {len(lines) - _MAX_WARNING_LINES} more distinct warning(s)", file=sys.stderr)
 
 
-def main(argv: Sequence[str] | None = None) -> int:
-    """Run the command line program; returns the exit status (0 ok, 2 error)."""
-    argv = list(sys.argv[1:] if argv is None else argv)
+def _join_negative_values(argv: list[str]) -> list[str]:
+    """``--at -12C`` as ``--at=-12C``: argparse would take a value starting with '-' for an
+    option; a temperature below zero is the usual case here."""
+    out: list[str] = []
+    i = 0
+    while i < len(argv):
+        if argv[i] == "--at" and i + 1 < len(argv) and re.match(r"-\.?\d", argv[i + 1]):
+            out.append(f"--at={argv[i + 1]}")
+            i += 2
+            continue
+        out.append(argv[i])
+        i += 1
+    return out
+
+
+def _interrupted() -> int:
     try:
+        print(f"{PROG}: interrupted", file=sys.stderr)
+    except Exception:  # stderr closed: nothing more to say
+        pass
+    return EXIT_INTERRUPTED
+
+
+def _stdout_gone() -> int:
+    """stdout was closed by its reader (``colligate demo | head``): stop quietly. Point
+    stdout at the null device so the interpreter's final flush does not fail again."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError, AttributeError):
+        pass
+    return EXIT_ERROR
+
+
+def main(argv: Sequence[str] | None = None) -> int:
+    """Run the command line program; returns the exit status (0 ok, 2 error, 130 Ctrl-C,
+    3 internal error)."""
+    try:
+        argv = _join_negative_values(list(sys.argv[1:] if argv is None else argv))
         parser = _build_parser()
         args = parser.parse_args(argv)
         if args.command is None:
@@ -272,20 +412,33 @@ def main(argv: Sequence[str] | None = None) -> int:
             finally:
                 _print_warnings(caught)
         return status
+    except KeyboardInterrupt:
+        return _interrupted()
     except _UsageError as exc:
         print(f"{PROG}: error: {_short(exc)} (see '{PROG} --help')", file=sys.stderr)
         return EXIT_ERROR
     except SystemExit as exc:  # --help / --version
         return int(exc.code or 0) if not isinstance(exc.code, str) else EXIT_ERROR
-    except KeyboardInterrupt:
-        print(f"{PROG}: interrupted", file=sys.stderr)
-        return 130
+    except BrokenPipeError:
+        return _stdout_gone()
     except (ValueError, OSError, RuntimeError, ArithmeticError) as exc:
-        # RecipeError, colligate.InvalidInputError and OutOfValidityRangeError
-        # are ValueErrors; their messages already name the field and range. A
-        # solver failure (RuntimeError) is reported the same way.
-        print(f"{PROG}: error: {_short(exc)}", file=sys.stderr)
+        # RecipeError, colligate.InvalidInputError, OutputPathError, InputFileError and
+        # OutOfValidityRangeError are ValueErrors; their messages already name the field
+        # and range. A solver failure (RuntimeError) is reported the same way. Every problem
+        # of a recipe is listed, so errors get more room than warnings.
+        try:
+            print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
+        except KeyboardInterrupt:
+            return _interrupted()
         return EXIT_ERROR
+    except Exception as exc:  # a bug in colligate: one line, details on request
+        if os.environ.get("COLLIGATE_TRACEBACK"):
+            import traceback
+
+            traceback.print_exc()
+        print(f"{PROG}: internal error: {type(exc).__name__}: {_short(exc)} (please report it; set "
+              "COLLIGATE_TRACEBACK=1 to see where)", file=sys.stderr)
+        return EXIT_INTERNAL
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -78,6 +78,27 @@ def latin_hypercube(ranges: Mapping[str, Range], n: int, seed: Optional[int] = N
     return _apply(df, constraints)
 
 
+def _check_target_units(targets: Mapping[str, object]) -> None:
+    """Refuses targets given in the wrong unit before anything is computed: a temperature
+    below 150 K is degC or degF typed where K is expected; an ice fraction above 1 is a
+    percentage."""
+    def kelvin(name: str, value: object) -> None:
+        t = float(value)  # type: ignore[arg-type]
+        if not np.isfinite(t) or t < 150.0:
+            raise _core.InvalidInputError(
+                f"targets[{name!r}] = {value!r}: looks like degC or degF, not K; give kelvin "
+                f"(e.g. {t + 273.15:g} K for {t:g} degC)")
+
+    if "freezing_point" in targets:
+        kelvin("freezing_point", targets["freezing_point"])
+    if "ice_fraction" in targets:
+        T, f = targets["ice_fraction"]  # type: ignore[misc]
+        kelvin("ice_fraction", T)
+        if not 0.0 <= float(f) < 1.0:
+            raise _core.InvalidInputError(
+                f"targets['ice_fraction'] = ({T}, {f}): the fraction must be in [0, 1) (0.7, not 70)")
+
+
 @dataclass
 class FormulationResult:
     """Outcome of :func:`solve_formulation` (amounts as mass fractions)."""
@@ -114,10 +135,14 @@ def solve_formulation(
       - ``"total_solids"``: mass fraction of all solutes
       - ``"weighted_sum"``: ``(weights_dict, value)`` — e.g. sweetness with relative factors
     Solved with scipy.optimize.minimize (SLSQP) with the targets as equality constraints.
+    Targets are checked for their units first (a temperature below 150 K is refused as
+    degC or degF typed for K). When the targets cannot be met, the result holds the nearest
+    amounts within the ranges and its message names the ranges that block the targets.
     """
     from scipy.optimize import minimize
 
     _check_ranges(variables)
+    _check_target_units(targets)
     fixed = dict(fixed or {})
     cost = dict(cost or {})
     names = list(variables)
@@ -186,12 +211,31 @@ def solve_formulation(
     achieved = {k: float(q[k][0]) for k in keys}
     misfit = max((abs(achieved[k] - target_value(k)) / scale[k] for k in keys), default=0.0)
     ok = bool(res.success) and misfit < tolerance / min(scale.values())
+    message = str(res.message)
+    x_out = res.x
+    if not ok:
+        # Where the targets are nearest within the ranges (bounded least squares on the
+        # misfit) tells which range blocks them.
+        near = minimize(lambda x: 0.5 * float(np.sum(residuals_and_jacobian(x)[0] ** 2)), x0,
+                        jac=lambda x: residuals_and_jacobian(x)[1].T @ residuals_and_jacobian(x)[0],
+                        method="L-BFGS-B", bounds=list(zip(lo, hi)))
+        x_out = near.x  # the nearest reachable amounts are the ones returned
+        q_near = quantities(near.x)
+        achieved = {k: float(q_near[k][0]) for k in keys}
+        at_bounds = [f"{k} at its {'lower' if abs(v - a) <= abs(v - b) else 'upper'} bound "
+                     f"{a if abs(v - a) <= abs(v - b) else b:g}"
+                     for k, v, a, b in zip(names, near.x, lo, hi) if min(abs(v - a), abs(v - b)) <= 1e-9]
+        worst = max(keys, key=lambda k: abs(achieved[k] - target_value(k)) / scale[k])
+        message = (f"target {worst} = {target_value(worst):g} not reached (achieved {achieved[worst]:.6g}); "
+                   + (f"blocked by {', '.join(at_bounds)}" if at_bounds
+                      else "no bound is active: the targets conflict with each other")
+                   + f" ({res.message}; largest scaled misfit {misfit:.2e})")
     return FormulationResult(
-        amounts={k: float(v) for k, v in zip(names, res.x)} | fixed,
+        amounts={k: float(v) for k, v in zip(names, x_out)} | fixed,
         achieved=achieved,
         targets={k: target_value(k) for k in keys},
-        cost=float(price @ res.x),
+        cost=float(price @ x_out),
         success=ok,
-        message=str(res.message) if ok else f"{res.message}; largest scaled misfit {misfit:.2e}",
+        message=message,
         iterations=int(res.nit),
     )

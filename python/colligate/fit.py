@@ -31,13 +31,14 @@ from __future__ import annotations
 
 import datetime as _dt
 import hashlib
+import math
 import os
 from typing import Any, Iterable, Optional, Sequence
 
 import numpy as np
 
 from . import _core
-from ._files import atomic_write, atomic_write_text
+from ._files import InputFileError, OutputSet, atomic_write, atomic_write_text, read_input_bytes
 
 __all__ = [
     "FitResult",
@@ -151,7 +152,9 @@ class FitResult:
     def raise_if_failed(self) -> "FitResult":
         """Raise :class:`colligate.ConvergenceError` unless the fit converged."""
         if not self.success:
-            raise _core.ConvergenceError(f"fit ({self.model}) ended with status '{self.status}': {self.message}")
+            raise _core.ConvergenceError(
+                f"fit ({self.model}): status = '{self.status}' after {int(self._core.iterations)} iteration(s): "
+                f"{self.message}; a usable fit needs status 'converged'")
         return self
 
     def summary(self, level: float = 0.95):
@@ -181,9 +184,10 @@ class FitResult:
         parts = ", ".join(f"{n}={self.params[n]:.6g}±{self.stderr[n]:.2g}" for n in self.names)
         return f"FitResult({self.model}: {parts}; status={self.status})"
 
-    def plot(self, path: str | os.PathLike[str], *, inputs: Iterable[Any] = ()) -> str:
-        """Data and fitted curve, with a residual panel, as PNG (written atomically).
-        Returns the path written."""
+    def plot(self, path: str | os.PathLike[str], *, inputs: Iterable[Any] = (),
+             outputs: Optional[OutputSet] = None) -> str:
+        """Data and fitted curve, with a residual panel, as PNG (written atomically; with
+        ``outputs``, into that set of a command's files). Returns the path written."""
         from matplotlib.backends.backend_agg import FigureCanvasAgg
         from matplotlib.figure import Figure
 
@@ -208,7 +212,7 @@ class FitResult:
         def write(fh):
             fig.savefig(fh, format="png", dpi=110)
 
-        return atomic_write(path, write, inputs=inputs, what="plot")
+        return atomic_write(path, write, inputs=inputs, what="plot", into=outputs)
 
     def as_solute(self, name: str, *, molar_mass: Optional[float] = None,
                   id: Optional[str] = None) -> "FittedSolute":
@@ -336,73 +340,141 @@ class FittedSolute:
 
         return "# colligate fitted solute (SI units: kg, mol, K)\n" + tomli_w.dumps(self.document())
 
-    def save(self, path: str | os.PathLike[str]) -> str:
-        """Write the fitted solute as TOML (atomically). Returns the path."""
-        return atomic_write_text(path, self.to_toml(), what="fitted-solute file")
+    def save(self, path: str | os.PathLike[str], *, outputs: Optional[OutputSet] = None) -> str:
+        """Write the fitted solute as TOML (atomically; with ``outputs``, into that set of a
+        command's files). Returns the path."""
+        return atomic_write_text(path, self.to_toml(), what="fitted-solute file", into=outputs)
 
     @classmethod
     def load(cls, path: str | os.PathLike[str]) -> "FittedSolute":
         return load_solute(path)
 
 
-def solute_from_entry(entry: Any, where: str, *, default_id: Optional[str] = None,
+def _solute_file_error(prefix: str, where: str, message: str) -> Exception:
+    """An error whose message starts with ``prefix`` (the file), then the table and key."""
+    return _core.InvalidInputError(f"{prefix}: {where}{': ' if where else ''}{message}")
+
+
+def _toml_table(path: str, parent: Any, key: str, where: str, required: bool = True) -> Optional[dict]:
+    value = parent.get(key) if isinstance(parent, dict) else None
+    if value is None:
+        if required:
+            raise _solute_file_error(path, f"[{where}]", "missing table (required)")
+        return None
+    if not isinstance(value, dict):
+        raise _solute_file_error(path, f"{where} = {value!r}"[:200], f"must be a table [{where}]")
+    return value
+
+
+def _toml_number(path: str, table: dict, key: str, where: str, rule: str, default: Optional[float] = None,
+                 finite: bool = True) -> float:
+    if key not in table:
+        if default is None:
+            raise _solute_file_error(path, f"[{where}] {key}", f"missing key ({rule})")
+        return default
+    value = table[key]
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}"[:200], f"must be a number ({rule})")
+    x = float(value)
+    if finite and not math.isfinite(x):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}", f"must be finite ({rule})")
+    return x
+
+
+def _toml_text(path: str, table: dict, key: str, where: str, default: Optional[str] = None) -> str:
+    if key not in table:
+        if default is None:
+            raise _solute_file_error(path, f"[{where}] {key}", "missing key (a string)")
+        return default
+    value = table[key]
+    if not isinstance(value, str):
+        raise _solute_file_error(path, f"[{where}] {key} = {value!r}"[:200], "must be a string")
+    return value
+
+
+#: Keys of one solute table (``[solute]`` of a fitted-solute file, ``[solutes.<id>]`` of a library).
+_SOLUTE_KEYS = ("id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
+                "bound_water_per_solids", "note", "salt", "pitzer")
+
+
+def solute_from_entry(entry: Any, where: str, *, table: str = "solute", default_id: Optional[str] = None,
                       fit: Any = None, source: Optional[dict] = None) -> FittedSolute:
     """A :class:`FittedSolute` from one TOML table (see :meth:`FittedSolute.entry`).
 
-    ``where`` names the table in error messages; ``default_id`` is used when the table has
-    no ``id`` (the key of ``[solutes.<key>]`` in a library file)."""
+    ``where`` starts every error message (it names the file), ``table`` names the table in
+    it (``solute``, ``solutes.<id>``); ``default_id`` is used when the table has no ``id``
+    (the key of ``[solutes.<key>]`` in a library file). Every problem is a
+    :class:`colligate.InvalidInputError` naming the table, the key, the value and the rule."""
     if not isinstance(entry, dict):
-        raise _core.InvalidInputError(f"{where}: must be a table, got {entry!r}")
+        raise _solute_file_error(where, f"{table} = {entry!r}"[:200], f"must be a table [{table}]")
     s = dict(entry)
     if "id" not in s and default_id is not None:
         s["id"] = default_id
-    pz = s.get("pitzer")
-    for key in ("id", "salt") if pz is not None else ("id", "molar_mass", "norrish_k"):
-        if key not in s:
-            raise _core.InvalidInputError(f"{where}: {key} is missing")
-    allowed = {"id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
-               "bound_water_per_solids", "note", "salt", "pitzer"}
-    extra = sorted(set(s) - allowed)
+    extra = sorted(set(s) - set(_SOLUTE_KEYS))
     if extra:
-        raise _core.InvalidInputError(f"{where}.{extra[0]}: unknown key; allowed keys are {', '.join(sorted(allowed))}")
-
-    def num(key: str, table: dict, default: Optional[float] = None) -> float:
-        v = table.get(key, default)
-        if isinstance(v, bool) or not isinstance(v, (int, float)):
-            raise _core.InvalidInputError(f"{where}.{key} = {v!r}: must be a number")
-        return float(v)
-
+        raise _solute_file_error(where, f"[{table}] {extra[0]}",
+                                 f"unknown key; allowed keys are {', '.join(sorted(_SOLUTE_KEYS))}")
+    pz = _toml_table(where, s, "pitzer", f"{table}.pitzer", required=False)
+    sid = _toml_text(where, s, "id", table)
+    name = _toml_text(where, s, "name", table, default=sid)
+    note = _toml_text(where, s, "note", table, default="")
     if pz is not None:
-        for key in ("beta0", "beta1", "cphi", "max_molality", "min_temperature", "max_temperature"):
-            if key not in pz:
-                raise _core.InvalidInputError(f"{where}.pitzer: {key} is missing")
+        salt: Optional[str] = _toml_text(where, s, "salt", table)
+        pw = f"{table}.pitzer"
+        params = {k: _toml_number(where, pz, k, pw, "kg/mol, kg^2/mol^2 or their d/dT",
+                                  default=None if k in ("beta0", "beta1", "cphi") else 0.0)
+                  for k in _PITZER_KEYS}
         rec = _core.make_pitzer_solute_record(
-            str(s["salt"]), str(s["id"]), str(s.get("name", s["id"])),
-            **{k: num(k, pz, 0.0) for k in _PITZER_KEYS},
-            max_molality=num("max_molality", pz), min_temperature=num("min_temperature", pz),
-            max_temperature=num("max_temperature", pz),
-            source=str(pz.get("source", "colligate_fit_user")), note=str(s.get("note", "")))
+            salt, sid, name, **params,
+            max_molality=_toml_number(where, pz, "max_molality", pw, "mol/kg, > 0"),
+            min_temperature=_toml_number(where, pz, "min_temperature", pw, "K, > 0"),
+            max_temperature=_toml_number(where, pz, "max_temperature", pw, "K, above min_temperature"),
+            source=_toml_text(where, pz, "source", pw, default="colligate_fit_user"), note=note)
     else:
-        rec = _core.make_solute_record(str(s["id"]), str(s.get("name", s["id"])), num("molar_mass", s),
-                                       num("norrish_k", s), num("norrish_k3", s, 0.0),
-                                       num("max_mass_fraction", s, 0.9), str(s.get("note", "")))
-    return FittedSolute(rec, bound_water_per_solids=num("bound_water_per_solids", s, 0.0),
-                        fit=fit, source=source, salt=str(s["salt"]) if pz is not None else None)
+        salt = None
+        rec = _core.make_solute_record(
+            sid, name, _toml_number(where, s, "molar_mass", table, "kg/mol, > 0"),
+            _toml_number(where, s, "norrish_k", table, "Norrish K, dimensionless"),
+            _toml_number(where, s, "norrish_k3", table, "Norrish K3, dimensionless", default=0.0),
+            _toml_number(where, s, "max_mass_fraction", table, "kg/kg, in (0, 1]", default=0.9),
+            note)
+    bound = _toml_number(where, s, "bound_water_per_solids", table, "kg per kg of solute, >= 0", default=0.0)
+    if bound < 0.0:
+        raise _solute_file_error(where, f"[{table}] bound_water_per_solids = {bound!r}",
+                                 "must be >= 0 (kg per kg of solute)")
+    return FittedSolute(rec, bound_water_per_solids=bound, fit=fit, source=source, salt=salt)
 
 
 def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
-    """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`."""
+    """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`.
+
+    Raises
+    ------
+    colligate.InvalidInputError
+        The file is missing, larger than 10 MB, not UTF-8 TOML, or a field is missing or
+        of the wrong type or range; the message names the file, the table and key, the
+        value and what is expected.
+    """
     try:
         import tomllib  # Python >= 3.11
     except ImportError:  # pragma: no cover
         import tomli as tomllib  # type: ignore[no-redef]
-    where = os.fspath(path)
+    source = os.fspath(path)
     try:
-        with open(path, "rb") as fh:
-            doc = tomllib.load(fh)
+        raw = read_input_bytes(source, "fitted-solute file")
+    except InputFileError as exc:
+        raise _core.InvalidInputError(str(exc)) from None
+    prefix = f"fitted-solute file '{source}'"
+    try:
+        doc = tomllib.loads(raw.decode("utf-8"))
+    except UnicodeDecodeError as exc:
+        raise _solute_file_error(prefix, "", f"not UTF-8 text (byte {exc.start})") from None
     except tomllib.TOMLDecodeError as exc:
-        raise _core.InvalidInputError(f"{where}: TOML syntax error: {exc}") from None
-    return solute_from_document(doc, where)
+        raise _solute_file_error(prefix, "", f"TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise _solute_file_error(prefix, "", "arrays or inline tables nested too deeply for the TOML "
+                                 "reader; the file holds flat tables of numbers and strings") from None
+    return solute_from_document(doc, prefix)
 
 
 def solute_from_document(doc: dict, where: str) -> FittedSolute:
@@ -411,22 +483,32 @@ def solute_from_document(doc: dict, where: str) -> FittedSolute:
         raise _core.InvalidInputError(
             f"{where}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
             f"(expected format = '{FORMAT_NAME}')")
-    if int(doc.get("version", 0)) > FORMAT_VERSION:
+    version = doc.get("version", 1)
+    if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= FORMAT_VERSION:
         raise _core.InvalidInputError(
-            f"{where}: version = {doc.get('version')}: this colligate reads up to {FORMAT_VERSION}")
+            f"{where}: version = {version!r}: this colligate reads versions 1 to {FORMAT_VERSION}")
+    entry = _toml_table(where, doc, "solute", "solute")
     fit_df = None
-    if "fit" in doc:
+    f = _toml_table(where, doc, "fit", "fit", required=False)
+    if f is not None:
         import pandas as pd
 
-        f = doc["fit"]
-        params = f.get("parameters", {})
-        fit_df = pd.DataFrame({"value": [p["value"] for p in params.values()],
-                               "stderr": [p["stderr"] for p in params.values()],
-                               "unit": [p.get("unit", "") for p in params.values()]},
-                              index=pd.Index(list(params), name="parameter"))
+        params_t = _toml_table(where, f, "parameters", "fit.parameters", required=False) or {}
+        rows = {}
+        for pname in params_t:
+            p = _toml_table(where, params_t, pname, f"fit.parameters.{pname}")
+            pw = f"fit.parameters.{pname}"
+            rows[pname] = (_toml_number(where, p, "value", pw, "the fitted value", finite=False),
+                           _toml_number(where, p, "stderr", pw, "its standard error", finite=False),
+                           _toml_text(where, p, "unit", pw, default=""))
+        fit_df = pd.DataFrame({"value": [r[0] for r in rows.values()],
+                               "stderr": [r[1] for r in rows.values()],
+                               "unit": [r[2] for r in rows.values()]},
+                              index=pd.Index(list(rows), name="parameter"))
         fit_df.attrs.update({k: v for k, v in f.items() if k != "parameters"})
-    return solute_from_entry(doc.get("solute", {}), f"{where}: [solute]", fit=fit_df,
-                             source={k: str(v) for k, v in doc.get("provenance", {}).items()})
+    prov = _toml_table(where, doc, "provenance", "provenance", required=False) or {}
+    return solute_from_entry(entry, where, table="solute", fit=fit_df,
+                             source={str(k): str(v) for k, v in prov.items()})
 
 
 class SoluteLibrary(_core.SoluteTable):
@@ -717,23 +799,99 @@ def lab_units_to_si(df, where: str, *, model: str, salt: Optional[str] = None,
     return out, done
 
 
-def run_fit_command(args: Any) -> str:
-    """The ``colligate fit`` subcommand: fit, write the plot, return the printed summary."""
+#: Columns the ``colligate fit`` command reads from a data file (in the unit each name
+#: states; see :func:`lab_units_to_si`); each one present must hold a finite number on
+#: every data line.
+FIT_DATA_COLUMNS = ("molality", "water_activity", "freezing_point_K", "osmotic_coefficient",
+                    "temperature_K", "water_fraction", "ice_fraction", "weight",
+                    "mass_fraction", "mass_percent", "wt_percent", "wt%", "molality_mol_per_kg",
+                    "freezing_point_C", "temperature_C")
+
+
+def read_fit_data(path: str | os.PathLike[str]):
+    """Read a data file of the ``colligate fit`` command: CSV, UTF-8, a header line of
+    column names, at most 10 MB. Every column of :data:`FIT_DATA_COLUMNS` present is
+    converted to float; other columns stay text. Blank lines are skipped.
+
+    Raises
+    ------
+    colligate._files.InputFileError
+        The file is missing, too large, not UTF-8 or not a table; or a cell of a data
+        column is empty, not a number or not finite. The message names the file, the line
+        (counting the header as line 1) and the column.
+    """
+    import io
+
     import pandas as pd
 
-    from ._files import check_output_path
+    source = os.fspath(path)
+    prefix = f"data file '{source}'"
+    raw = read_input_bytes(source, "data file")
+    try:
+        text = raw.decode("utf-8-sig")
+    except UnicodeDecodeError as exc:
+        raise InputFileError(f"{prefix}: not UTF-8 text (byte {exc.start})") from None
+    if "\0" in text:
+        raise InputFileError(f"{prefix}: line {text[:text.index(chr(0))].count(chr(10)) + 1}: "
+                             "contains a NUL byte; expected CSV text")
+    try:
+        df = pd.read_csv(io.StringIO(text), dtype=str, keep_default_na=False, skip_blank_lines=False)
+    except pd.errors.EmptyDataError:
+        raise InputFileError(f"{prefix}: empty; expected a header line of column names "
+                             f"({', '.join(FIT_DATA_COLUMNS[:3])}, ...) and data lines") from None
+    except (pd.errors.ParserError, ValueError) as exc:
+        detail = " ".join(str(exc).split())[:200]
+        raise InputFileError(f"{prefix}: not a CSV table ({detail})") from None
+    # Row i of the frame is line i + 2 of the file (line 1 is the header); quoted cells
+    # spanning lines would shift this, and data files have none.
+    lines = np.arange(len(df)) + 2
+    blank = (df.apply(lambda c: c.str.strip()) == "").all(axis=1).to_numpy() if len(df.columns) \
+        else np.zeros(len(df), bool)  # blank and whitespace-only lines
+    df = df[~blank].reset_index(drop=True)
+    lines = lines[~blank]
+    for col in FIT_DATA_COLUMNS:
+        if col not in df.columns:
+            continue
+        cells = df[col].to_numpy()
+        values = np.empty(len(cells))
+        for i, cell in enumerate(cells):
+            where = f"{prefix}, line {lines[i]}, column '{col}'"
+            text_cell = str(cell).strip()
+            if not text_cell:
+                raise InputFileError(f"{where}: empty cell; expected a finite number (in the unit of the column name)")
+            try:
+                x = float(text_cell)
+            except ValueError:
+                raise InputFileError(f"{where}: {text_cell[:40]!r} is not a number; expected a finite "
+                                     "number (in the unit of the column name)") from None
+            if not math.isfinite(x):
+                raise InputFileError(f"{where}: {text_cell[:40]!r} is not finite; expected a finite number")
+            values[i] = x
+        df[col] = values
+    return df
 
+
+def run_fit_command(args: Any) -> str:
+    """The ``colligate fit`` subcommand: fit, write the plot (and the solute file), return
+    the printed summary. All files or none: both are written together at the end."""
     data_path = os.fspath(args.data)
-    df = pd.read_csv(data_path)
     stem = os.path.splitext(data_path)[0]
     plot_path = args.plot or f"{stem}_fit.png"
-    check_output_path(plot_path, [data_path], "--plot")
-    if args.save_solute:
-        check_output_path(args.save_solute, [data_path], "--save-solute")
     if args.model == "norrish" and args.save_solute and args.molar_mass is None:
         raise _core.InvalidInputError(
             "--molar-mass (kg/mol) is required to save a Norrish solute (--save-solute): the fit "
             "itself uses molalities only; e.g. --molar-mass 0.3423 for sucrose")
+    with OutputSet([data_path]) as out:
+        out.plan(plot_path, "--plot")
+        if args.save_solute:
+            out.plan(args.save_solute, "--save-solute")
+        text = _fit_from_file(args, data_path, stem, plot_path, out)
+        out.commit()
+    return text
+
+
+def _fit_from_file(args: Any, data_path: str, stem: str, plot_path: str, out: OutputSet) -> str:
+    df = read_fit_data(data_path)
     df, converted = lab_units_to_si(df, data_path, model=args.model, salt=args.salt, molar_mass=args.molar_mass)
     cols = set(df.columns)
     weights = "weight" if "weight" in cols else None
@@ -780,7 +938,7 @@ def run_fit_command(args: Any) -> str:
             res = fit_effective_solute("water_fraction", freezing_point="freezing_point_K",
                                        weights=weights, data=df, data_name=name)
     summary = res.summary()
-    written = res.plot(plot_path, inputs=[data_path])
+    written = res.plot(plot_path, inputs=[data_path], outputs=out)
     a = summary.attrs
     lines = [f"fit: {a['model']} to {a['n_points']} points from {data_path}",
              *([f"columns converted to SI: {', '.join(converted)}"] if converted else []),
@@ -793,7 +951,7 @@ def run_fit_command(args: Any) -> str:
     if args.save_solute:
         molar_mass = None if args.model == "pitzer" else args.molar_mass
         fs = res.as_solute(args.name or os.path.basename(stem), molar_mass=molar_mass)
-        lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute))}")
+        lines.append(f"fitted solute: {os.path.abspath(fs.save(args.save_solute, outputs=out))}")
     from ._warnings import CAUTIONS
 
     lines += ["", "Cautions:"] + [f"- {c}" for c in CAUTIONS]

@@ -223,14 +223,22 @@ _LIBRARY_FILE = "ingredients.toml"
 _ALLOWED = set(_BASIC) | {"msnf", "sugars", "acids", "salts", "other_solutes", "name", "category", "source", "note"}
 
 
+_TEXT_KEYS = ("name", "category", "source", "note")
+
+
 def ingredient_from_entry(key: str, entry: Any, where: str, *, table: Any = None) -> Ingredient:
-    """An :class:`Ingredient` from one TOML table (keys as in ``ingredients.toml``); ``where``
-    names the table in errors, ``table`` is the solute table its solutes must resolve in."""
+    """An :class:`Ingredient` from one TOML table (keys as in ``ingredients.toml``; ``name``
+    defaults to the key); ``where`` names the table in errors, ``table`` is the solute table
+    its solutes must resolve in. Every problem is an :class:`IngredientError` naming
+    ``where`` and the key."""
     if not isinstance(entry, dict):
-        raise IngredientError(f"{where}: must be a table of the ingredient's fractions")
+        raise IngredientError(f"{where} = {entry!r}"[:200] + ": must be a table of the ingredient's mass fractions")
     extra = set(entry) - _ALLOWED
     if extra:
         raise IngredientError(f"{where}.{sorted(extra)[0]}: unknown key; allowed keys are {', '.join(sorted(_ALLOWED))}")
+    for k in _TEXT_KEYS:
+        if k in entry and not isinstance(entry[k], str):
+            raise IngredientError(f"{where}.{k} = {entry[k]!r}"[:200] + ": must be a string")
     if not entry.get("source"):
         raise IngredientError(f"{where}: every ingredient needs a source (where its numbers come from)")
     entry = dict(entry)
@@ -241,9 +249,17 @@ def ingredient_from_entry(key: str, entry: Any, where: str, *, table: Any = None
         raise IngredientError(f"{where}: {exc}") from None
 
 
-def _parse_library(text: str) -> dict[str, Ingredient]:
-    doc = tomllib.loads(text)
-    return {key: ingredient_from_entry(key, entry, f"ingredient library: [{key}]") for key, entry in doc.items()}
+def _parse_library(text: str, source: str = "ingredient library") -> dict[str, Ingredient]:
+    """Ingredients of a library file (TOML: one table per ingredient). Every problem is
+    an :class:`IngredientError` naming ``source``, the table and key."""
+    try:
+        doc = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise IngredientError(f"{source}: TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise IngredientError(f"{source}: arrays or inline tables nested too deeply for the TOML reader; "
+                              "an ingredient is a flat table of mass fractions") from None
+    return {key: ingredient_from_entry(key, entry, f"{source}: [{key}]") for key, entry in doc.items()}
 
 
 @functools.lru_cache(maxsize=1)

@@ -20,15 +20,17 @@ from typing import Iterable, Mapping
 import numpy as np
 
 from . import api
-from ._files import atomic_write, check_output_path
+from ._files import OutputSet, atomic_write, check_output_path
 from .report_compute import EUTECTIC_MARGIN_K as _EUTECTIC_MARGIN_K
 from .report_compute import IcePath
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
 __all__ = [
+    "check_plot_path",
     "plot_ice_curve",
     "plot_enthalpy",
     "plot_cooling_curve",
+    "plot_contributions",
     "CURVE_RANGE_C",
     "THERMAL_RANGE_C",
     "FILL_TEMPERATURE_C",
@@ -63,7 +65,9 @@ def plot_ice_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 421,
+    fahrenheit: bool = False,
 ) -> str:
     """Write a PNG of ice fraction (% of the water) against temperature (degC).
 
@@ -83,15 +87,20 @@ def plot_ice_curve(
         Plot title, and a label (e.g. "invented demo scenario") printed in the corner.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curve (>= 10).
+    fahrenheit : bool
+        Also show a degF scale along the top.
 
     Returns
     -------
     str
-        The path written.
+        The path written (the file type follows the extension: .png, .svg, .pdf ...).
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
 
@@ -139,18 +148,66 @@ def plot_ice_curve(
                    label=f"{name} {t_c:.1f} °C: {100.0 * f:.0f} % ice")
         ax.plot([t_c], [100.0 * f], marker="s", color=colour, zorder=5)
 
-    ax.set_xlim(warm_c, cold_c)  # warm on the left, as the product cools to the right
-    ax.set_ylim(0.0, 100.0)
-    ax.set_xlabel("temperature (°C)")
-    ax.set_ylabel("ice (% of total water)")
-    ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Ice curve")
-    ax.legend(loc="best", fontsize=8, framealpha=0.9)
+    _ice_axes(ax, warm_c, cold_c, _one_line(title) or "Ice curve", fahrenheit, "best")
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs, outputs)
 
 
 # --------------------------------------------------------------------------- helpers
+
+
+def plot_formats() -> dict[str, str]:
+    """File extensions matplotlib can write (without the dot) and what they are."""
+    from matplotlib.backend_bases import FigureCanvasBase
+
+    return dict(FigureCanvasBase.get_supported_filetypes())
+
+
+def check_plot_path(path: str | os.PathLike[str], inputs: Iterable[str | os.PathLike[str]] = (),
+                    what: str = "plot") -> str:
+    """Validate a plot path before anything is computed: the checks of
+    :func:`colligate._files.check_output_path` plus an extension matplotlib can write
+    (``.png``, ``.svg``, ``.pdf`` ...). Returns the path as ``str``."""
+    target = check_output_path(path, inputs, what)
+    ext = os.path.splitext(target)[1].lower().lstrip(".")
+    formats = plot_formats()
+    if ext not in formats:
+        from ._files import OutputPathError
+
+        shown = f"'.{ext}'" if ext else "no extension"
+        raise OutputPathError(
+            f"{what} path '{target}': {shown} is not a file type matplotlib can write; "
+            f"use one of {', '.join('.' + k for k in sorted(formats))}")
+    return target
+
+
+def _ice_axes(ax, warm_c: float, cold_c: float, title: str, fahrenheit: bool, legend: str) -> None:
+    """Axes of an ice-curve plot: warm on the left (the product cools to the right), ice as
+    % of the water, degC below and, on request, degF on top."""
+    ax.set_xlim(warm_c, cold_c)
+    ax.set_ylim(0.0, 100.0)
+    ax.set_xlabel("temperature (°C)")
+    ax.set_ylabel("ice (% of total water)")
+    if fahrenheit:
+        _fahrenheit_axis(ax)
+    ax.grid(True, color="#d9d9d9", linewidth=0.6)
+    ax.set_title(title)
+    ax.legend(loc=legend, fontsize=8, framealpha=0.9)
+
+
+def _fahrenheit_axis(ax) -> None:
+    """A degF scale along the top of an axis whose x is degC."""
+    top = ax.secondary_xaxis("top", functions=(lambda c: c * 1.8 + 32.0, lambda f: (f - 32.0) / 1.8))
+    top.set_xlabel("temperature (°F)")
+
+
+def _save(fig, target: str, inputs: Iterable[str | os.PathLike[str]], outputs: OutputSet | None = None) -> str:
+    """Writes the figure atomically in the format its file extension names (into a command's
+    set of outputs when one is given: renamed into place when the set is committed)."""
+    fmt = os.path.splitext(target)[1].lower().lstrip(".")
+    return atomic_write(target, lambda fh: fig.savefig(fh, format=fmt), inputs, "plot", into=outputs)
+
+
 
 
 def _figure(width: float, height: float):
@@ -163,10 +220,27 @@ def _figure(width: float, height: float):
     return fig
 
 
+#: Longest title or label drawn on a plot, characters; longer ones are cut with "...".
+#: Text layout in matplotlib grows with the length of a string, and a recipe name may be
+#: anything up to the input size limit.
+_MAX_PLOT_TEXT = 120
+
+
+def _one_line(text: str | None, limit: int = _MAX_PLOT_TEXT) -> str:
+    """``text`` on one line, at most ``limit`` characters (cut with "...")."""
+    if not text:
+        return ""
+    head = str(text)[: 4 * limit]  # bounded work whatever the length
+    flat = " ".join(head.split())
+    if len(flat) > limit or len(text) > 4 * limit:
+        flat = flat[: limit - 3].rstrip() + "..."
+    return flat
+
+
 def _footer(fig, model: str, label: str | None) -> None:
     footer = f"colligate, model: {model}; estimates only, verify by measurement"
     if label:
-        footer = f"{label.upper()}  |  " + footer
+        footer = f"{_one_line(label).upper()}  |  " + footer
     fig.text(0.01, 0.01, footer, fontsize=7, color="#555555")
     fig.tight_layout(rect=(0, 0.03, 1, 1))
 
@@ -258,6 +332,7 @@ def plot_enthalpy(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a two-panel PNG: enthalpy H(T) (kJ/kg) and apparent specific heat (kJ/(kg K)).
@@ -275,6 +350,9 @@ def plot_enthalpy(
         Plot title, and a label (e.g. "invented demo scenario") printed in the footer.
     inputs : iterable of path-like
         Input files that must never be overwritten.
+    outputs : colligate._files.OutputSet, optional
+        Write the file into this set of a command's outputs (renamed into place when the
+        set is committed) instead of at once.
     points : int
         Number of temperatures on the curves (>= 10).
 
@@ -290,7 +368,7 @@ def plot_enthalpy(
     kelvin; it jumps at the initial freezing point, and the axis is logarithmic so both
     the frozen and the unfrozen ranges read.
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
     marks = dict(recipe.temperatures if marks is None else marks)
@@ -336,11 +414,11 @@ def plot_enthalpy(
     ax_c.set_xlabel("temperature (°C)")
     for ax in (ax_h, ax_c):
         ax.grid(True, color="#d9d9d9", linewidth=0.6, which="major")
-    ax_h.set_title(title or "Enthalpy and apparent specific heat")
+    ax_h.set_title(_one_line(title) or "Enthalpy and apparent specific heat")
     ax_h.legend(loc="upper right", fontsize=8, framealpha=0.9)
     ax_c.legend(loc="upper left", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs, outputs)
 
 
 # --------------------------------------------------------------------------- cooling curve
@@ -356,6 +434,7 @@ def plot_cooling_curve(
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
     points: int = 401,
 ) -> str:
     """Write a PNG of temperature (degC) against the heat removed per kg (kJ/kg).
@@ -368,13 +447,13 @@ def plot_cooling_curve(
 
     Parameters are as for :func:`plot_enthalpy`. Returns the path written.
     """
-    target = check_output_path(path, inputs, "plot")
+    target = check_plot_path(path, inputs, "plot")
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
     marks = dict(recipe.temperatures if marks is None else marks)
     model = recipe.model
     t_from = float(FILL_TEMPERATURE_C + ZERO_CELSIUS_K if from_T is None else from_T)
-    t_to = float(marks.get("storage", ZERO_CELSIUS_K - 18.0) if to_T is None else to_T)
+    t_to = float(marks.get("storage", min(marks.values(), default=ZERO_CELSIUS_K - 18.0)) if to_T is None else to_T)
     if not t_to < t_from:
         raise ValueError(f"to_T = {t_to} K: must be below from_T = {t_from} K (a cooling curve)")
     cold_limit_c = THERMAL_RANGE_C[1]
@@ -420,7 +499,58 @@ def plot_cooling_curve(
     ax.set_xlabel("heat removed from the fill temperature (kJ per kg of product)")
     ax.set_ylabel("temperature (°C)")
     ax.grid(True, color="#d9d9d9", linewidth=0.6)
-    ax.set_title(title or "Cooling curve")
+    ax.set_title(_one_line(title) or "Cooling curve")
     ax.legend(loc="upper right", fontsize=8, framealpha=0.9)
     _footer(fig, model, label)
-    return atomic_write(target, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+    return _save(fig, target, inputs, outputs)
+
+
+# --------------------------------------------------------------------------- contributions
+
+
+def plot_contributions(
+    recipe,
+    path: str | os.PathLike[str],
+    temperature: float | str = "serving",
+    *,
+    title: str | None = None,
+    label: str | None = None,
+    inputs: Iterable[str | os.PathLike[str]] = (),
+    outputs: OutputSet | None = None,
+) -> str:
+    """Write a PNG with three horizontal bar panels: each ingredient's share (%) of the
+    freezing-point depression, of the sweetness and of the water kept liquid at
+    ``temperature`` (K or a named temperature). Returns the path written."""
+    from .contributions import contribution_table, contribution_temperature
+
+    target = check_plot_path(path, inputs)
+    t = contribution_temperature(recipe, temperature)
+    df, totals = contribution_table(recipe, t)
+    df = df[(df["depression_percent"] > 0) | (df["sweetness_percent"] > 0) | (df["liquid_water_held_percent"] > 0)]
+    names = list(df.index)[::-1]
+    fig = _figure(11.0, 1.6 + 0.35 * max(len(names), 3))
+    panels = (
+        ("depression_percent", f"freezing-point depression\n(total {totals['depression_K']:.2f} K)", "#174a7c"),
+        ("sweetness_percent", "sweetness as sucrose\n(total {:.3g} kg)".format(totals["sweetness_sucrose_equivalent_kg"]),
+         "#c4622d"),
+        ("liquid_water_held_percent",
+         f"water kept liquid at {celsius_from_kelvin(t):.1f} °C\n(total {totals['liquid_water_held_kg']:.3g} kg)",
+         "#1b7f79"),
+    )
+    y = np.arange(len(names))
+    for i, (column, heading, colour) in enumerate(panels):
+        ax = fig.add_subplot(1, 3, i + 1)
+        values = df[column].to_numpy()[::-1]
+        ax.barh(y, values, color=colour)
+        for yy, v in zip(y, values):
+            if v > 0:
+                ax.text(v, yy, f" {v:.0f} %", va="center", fontsize=7)
+        ax.set_yticks(y)
+        ax.set_yticklabels(names if i == 0 else [""] * len(names), fontsize=8)
+        ax.set_xlim(0, 115)
+        ax.set_xlabel("share (%)")
+        ax.set_title(heading, fontsize=9)
+        ax.grid(True, axis="x", color="#d9d9d9", linewidth=0.6)
+    fig.suptitle(_one_line(title) or _one_line(f"What each ingredient does: {recipe.name}"), fontsize=11)
+    _footer(fig, recipe.model, label if label is not None else (recipe.label or None))
+    return _save(fig, target, inputs, outputs)

@@ -9,9 +9,12 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 
     [recipe]                     # required
     name = "Lemon sorbet"        # required, non-empty string
+    kind = "sorbet"              # optional: ice_cream (default), sorbet, slush,
+                                 # frozen_cocktail, brine or syrup; sets the named
+                                 # temperatures below
     note = "..."                 # optional free text
     label = "..."                # optional; shown under the title of a report
-    basis = "kg"                 # optional, "kg" (default) or "percent"
+    basis = "kg"                 # optional, "kg" (default), "g" or "percent"
     batch_kg = 1.0               # optional, percent basis only: batch mass in kg (default 1)
 
     [composition]                # solute-based recipe: [composition] or [ingredients]
@@ -22,13 +25,16 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 
     [ingredients]                # ingredient-based recipe (instead of [composition])
     whole_milk = 0.55            # built-in ingredient keys or names (colligate.ingredients())
-    cream_36 = 0.20              # amounts in kg, or percent with basis = "percent"
+    cream_36 = 0.20              # amounts in kg, g, or percent (the basis)
     sucrose = 0.15
 
-    [temperatures_celsius]       # optional; each key optional
-    drawing = -5.5               # default -5
-    serving = -11                # default -12
-    storage = -18                # default -18
+    [temperatures_celsius]       # optional; or [temperatures_fahrenheit] or
+    drawing = -5.5               # [temperatures_kelvin] (one of the three). Names per
+    serving = -11                # kind (NAMED_TEMPERATURES): ice_cream drawing -5,
+    storage = -18                # serving -12, storage -18; sorbet drawing, scooping,
+                                 # storage; slush and frozen_cocktail pouring, holding;
+                                 # brine working, lowest_use; syrup chilled,
+                                 # frozen_storage
 
     [options]                    # optional
     model = "auto"               # one of colligate.models(); default "auto"
@@ -48,16 +54,21 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
     source = "our lab"
 
 Rules checked when a recipe is loaded (each error names the file, the table
-and key, and the valid range):
+and key, and the valid range; every problem of a file is reported at once):
 
-* the file exists, is UTF-8 and is valid TOML (syntax errors give the line);
-* only the tables and keys above appear (solute names excepted);
+* the file exists, is at most 10 MB, is UTF-8 and is valid TOML (syntax errors give
+  the line; nesting too deep for the reader is named as such);
+* only the tables and keys above appear (solute names excepted); two keys of one
+  table that differ only by case, spaces, hyphens or underscores are an error, and so
+  are two names of the same solute;
 * every amount is a finite number >= 0; water is > 0;
 * with ``basis = "percent"`` the amounts, water included, add up to
   100 +/- 0.01;
-* solute names are known to colligate (the library's message lists the
+* solute and ingredient names are known to colligate (the message lists the
   nearest names);
-* temperatures lie between -60 degC and +40 degC;
+* temperatures lie between -60 degC and +40 degC (in the table's unit); a named
+  temperature above 0 degC for a frozen product draws a :class:`SuspectUnitWarning`
+  (degF typed as degC?);
 * ``bound_water_fraction_of_water`` is finite and in [0, 1);
 * own solutes and ingredients load, and clash with no other name (the error names both).
 
@@ -70,6 +81,7 @@ from __future__ import annotations
 import math
 import os
 import sys
+import warnings
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -82,7 +94,14 @@ from typing import Any, Mapping
 from . import api
 from .library import Library, LibraryError, as_library
 
-from .units import kelvin_from_celsius
+from ._files import MAX_INPUT_BYTES, InputFileError, read_input_bytes
+from .units import (
+    celsius_from_kelvin,
+    fahrenheit_from_kelvin,
+    kelvin_from,
+    kelvin_from_celsius,
+    kelvin_from_fahrenheit,
+)
 
 __all__ = [
     "Recipe",
@@ -96,6 +115,10 @@ __all__ = [
     "DEFAULT_TEMPERATURES_C",
     "TEMPERATURE_RANGE_C",
     "PERCENT_TOLERANCE",
+    "NAMED_TEMPERATURES",
+    "DEFAULT_KIND",
+    "FROZEN_KINDS",
+    "SuspectUnitWarning",
 ]
 
 #: Named temperatures of a recipe and their defaults, degC (common practice
@@ -117,15 +140,39 @@ DEMO_SCENARIOS: dict[str, str] = {
 #: The scenario ``colligate demo`` runs without ``--scenario``.
 DEFAULT_DEMO_SCENARIO = "ice_cream"
 
-_RECIPE_KEYS = {"name", "note", "label", "basis", "batch_kg"}
+#: Kinds of product and their named temperatures with defaults, degC (our names; common
+#: practice for the temperatures, change them per recipe). A brine is worked with and
+#: used down to a lowest temperature; it is not drawn or served.
+NAMED_TEMPERATURES: dict[str, dict[str, float]] = {
+    "ice_cream": dict(DEFAULT_TEMPERATURES_C),
+    "sorbet": {"drawing": -6.0, "scooping": -11.0, "storage": -18.0},
+    "slush": {"pouring": -4.0, "holding": -8.0},
+    "frozen_cocktail": {"pouring": -5.0, "holding": -10.0},
+    "brine": {"working": -5.0, "lowest_use": -15.0},
+    "syrup": {"chilled": 4.0, "frozen_storage": -18.0},
+}
+
+#: The kind a recipe is when it names none (its temperatures are drawing, serving, storage).
+DEFAULT_KIND = "ice_cream"
+
+#: Kinds whose named temperatures are all below freezing: one above 0 degC draws a warning.
+FROZEN_KINDS = ("ice_cream", "sorbet", "slush", "frozen_cocktail")
+
+_TEMPERATURE_TABLES = {"temperatures_celsius": "C", "temperatures_fahrenheit": "F", "temperatures_kelvin": "K"}
+_RECIPE_KEYS = {"name", "note", "label", "basis", "batch_kg", "kind"}
 _OPTION_KEYS = {"model", "bound_water_fraction_of_water"}
-_TABLES = {"recipe", "composition", "ingredients", "temperatures_celsius", "options", "library"}
+_TABLES = {"recipe", "composition", "ingredients", "options", "library", *_TEMPERATURE_TABLES}
 _LIBRARY_KEYS = {"load", "solutes", "ingredients"}
 #: Solutes that evaporate with the water when solids are dried, so not counted in total
 #: solids (common practice: oven-drying methods drive off ethanol with the water).
 VOLATILE_SOLUTES: tuple[str, ...] = ("ethanol",)
 _REQUIRED_TABLES = ("recipe",)
-_BASES = ("kg", "percent")
+_BASES = ("kg", "g", "percent")
+_BASIS_UNIT = {"kg": "kg", "g": "g", "percent": "% of batch"}
+
+
+class SuspectUnitWarning(UserWarning):
+    """A number looks like it was given in another unit (e.g. degF typed as degC)."""
 
 
 class RecipeError(api.InvalidInputError):
@@ -149,7 +196,8 @@ class Recipe:
     solutes : dict[str, float]
         Solute name (as written in the file) -> kg, in file order.
     temperatures : dict[str, float]
-        Named temperatures (``drawing``, ``serving``, ``storage``), K.
+        Named temperatures, K (for an ice cream ``drawing``, ``serving``, ``storage``;
+        other kinds: :data:`NAMED_TEMPERATURES`).
     model : str
         Activity model id passed to colligate.
     bound_water_fraction_of_water : float
@@ -162,7 +210,10 @@ class Recipe:
     note, label : str
         Free text from the ``[recipe]`` table ("" when absent).
     basis : str
-        ``"kg"`` or ``"percent"``, as written in the file.
+        ``"kg"``, ``"g"`` or ``"percent"``, as written in the file.
+    kind : str
+        Kind of product (a key of :data:`NAMED_TEMPERATURES`); sets the names and
+        defaults of the named temperatures.
     source : str
         Where the recipe came from (the path, or a description).
     """
@@ -181,6 +232,9 @@ class Recipe:
     ingredients: dict[str, float] | None = None
     proximate: dict[str, float] = field(default_factory=dict, compare=False)
     library: Any = field(default=None, compare=False, repr=False)
+    kind: str = DEFAULT_KIND
+    #: The Ingredient behind each key of ``ingredients`` (library entries and the caller's own).
+    ingredient_records: dict = field(default_factory=dict, compare=False, repr=False)
 
     def __post_init__(self) -> None:
         try:
@@ -225,29 +279,35 @@ class Recipe:
             solutes: dict[str, float] = {}
             prox = dict.fromkeys(("water", "protein", "fat", "carbohydrate", "fibre", "ash"), 0.0)
             kg_by_key: dict[str, float] = {}
-            resolved: dict[str, Any] = {}
+            records: dict[str, Any] = dict(self.ingredient_records)
+            problems = _Problems(self.source)
+            rule = "amount must be finite and >= 0 (kg)"
             for name, kg in self.ingredients.items():
-                x = _number(self.source, f"ingredients['{name}']", kg, "amount must be finite and >= 0 (kg)")
-                if x < 0.0:
-                    raise RecipeError(f"recipe '{self.source}': ingredients['{name}'] = {kg}: amount must be finite and >= 0 (kg)")
+                x = problems.guard(_number, self.source, f"ingredients['{name}']", kg, rule)
+                if x is not None and x < 0.0:
+                    problems.add(f"ingredients['{name}'] = {kg}", rule)
                 try:
-                    ing = _lookup(name)
+                    ing = records[name] if isinstance(name, str) and name in records else _lookup(name)
                 except ValueError as exc:
-                    raise _fail(self.source, f"[ingredients].{name}", str(exc)) from None
+                    problems.add(f"[ingredients].{name}", str(exc))
+                    continue
+                if x is None or x < 0.0:
+                    continue
                 kg_by_key[ing.key or ing.name] = kg_by_key.get(ing.key or ing.name, 0.0) + x
-                resolved[ing.key or ing.name] = ing
+                records[ing.key or ing.name] = ing
                 water += x * ing.water
                 for sid, w in ing.solutes().items():
                     solutes[sid] = solutes.get(sid, 0.0) + x * w
                 for k, v in ing.proximate().items():
                     prox[k] += x * v
+            problems.raise_if_any()
             total = sum(kg_by_key.values())
             if not total > 0.0:
                 raise _fail(self.source, "[ingredients]", "the amounts add up to 0 kg; a recipe needs a positive batch")
             if not water > 0.0:
                 raise _fail(self.source, "[ingredients]", "the ingredients carry no water; a recipe needs water > 0")
             object.__setattr__(self, "ingredients", kg_by_key)
-            object.__setattr__(self, "_resolved", resolved)  # key -> Ingredient, for the summary
+            object.__setattr__(self, "ingredient_records", records)
             object.__setattr__(self, "water", water)
             object.__setattr__(self, "solutes", solutes)
             object.__setattr__(self, "proximate", {k: v / total for k, v in prox.items()})
@@ -275,10 +335,97 @@ class Recipe:
                     )
         if self.bound_water_fraction_of_water is None:
             object.__setattr__(self, "bound_water_fraction_of_water", 0.0)
+        if self.kind not in NAMED_TEMPERATURES:
+            raise RecipeError(f"Recipe: kind = {self.kind!r}: must be one of {', '.join(NAMED_TEMPERATURES)}")
         if not self.temperatures:
             object.__setattr__(
-                self, "temperatures", {k: kelvin_from_celsius(c) for k, c in DEFAULT_TEMPERATURES_C.items()}
+                self, "temperatures", {k: kelvin_from_celsius(c) for k, c in NAMED_TEMPERATURES[self.kind].items()}
             )
+
+    def with_changes(self, changes: Mapping[str, "float | None"] | None = None, *,
+                     remove: "tuple[str, ...] | list[str]" = (), name: str | None = None) -> "Recipe":
+        """A copy of the recipe with ingredients (or, for a recipe of solutes, the water and
+        solutes) changed, added or removed; the recipe itself is unchanged.
+
+        Parameters
+        ----------
+        changes : mapping of str to float or None
+            Name -> new amount in kg (an ingredient not in the recipe is added); ``None``
+            removes it. Names are matched as the library matches them (case, spaces).
+        remove : sequence of str
+            Names to take out.
+        name : str, optional
+            Name of the copy (default: the name with " (changed)").
+
+        Every problem (unknown name, negative amount, removing what is not there) is
+        reported at once in one :class:`RecipeError`. Bound water given explicitly is kept;
+        bound water that followed the protein (ingredient recipes) follows the new protein.
+        """
+        import dataclasses
+
+        changes = dict(changes or {})
+        for key in remove:
+            changes[key] = None
+        problems: list[str] = []
+        ingredient_based = self.ingredients is not None
+        current = dict(self.ingredients) if ingredient_based else {"water": self.water, **self.solutes}
+
+        def match(key: str) -> str | None:
+            if ingredient_based:
+                if key in self.ingredient_records:
+                    return key
+                try:
+                    ing = self._lookup(key)
+                except ValueError as exc:
+                    problems.append(str(exc))
+                    return None
+                return ing.key or ing.name
+            k = key.strip()
+            if k.lower() == "water":
+                return "water"
+            sid = _solute_id(k, self.library)
+            for have in current:
+                if have != "water" and _solute_id(have, self.library) == sid:
+                    return have
+            try:
+                api.Solution(water=1.0, solutes={k: 0.0},
+                             **({} if self.library is None else {"table": self.library.solute_table}))
+            except ValueError as exc:
+                problems.append(f"{key!r}: {exc}")
+                return None
+            return k
+
+        for key, value in changes.items():
+            target = match(str(key))
+            if target is None:
+                continue
+            if value is None:
+                if target not in current:
+                    problems.append(f"remove {key!r}: not in the recipe (it has {', '.join(current)})")
+                else:
+                    del current[target]
+                continue
+            if isinstance(value, bool) or not isinstance(value, (int, float)) or not math.isfinite(value) \
+                    or value < 0.0:
+                problems.append(f"{key!r} = {value!r}: amount must be a finite number >= 0 (kg)")
+                continue
+            current[target] = float(value)
+        if problems:
+            raise RecipeError(f"recipe '{self.source}': with_changes: " + "; ".join(problems))
+        new_name = name if name is not None else f"{self.name} (changed)"
+        common = dict(name=new_name, source=f"{self.source} with changes", path=None, proximate={})
+        if ingredient_based:
+            # the share this recipe would get by default (protein, the library's fitted solutes)
+            auto = dataclasses.replace(self, water=0.0, solutes={}, bound_water_fraction_of_water=None,
+                                       **common).bound_water_fraction_of_water
+            given = float(self.bound_water_fraction_of_water or 0.0)
+            follows = abs(given - auto) <= 1e-12
+            return dataclasses.replace(self, ingredients=current, water=0.0, solutes={},
+                                       bound_water_fraction_of_water=None if follows else given, **common)
+        water = current.pop("water", 0.0)
+        if not water > 0.0:
+            raise RecipeError(f"recipe '{self.source}': with_changes: water = {water}: a recipe needs water > 0 kg")
+        return dataclasses.replace(self, water=water, solutes=current, **common)
 
     @classmethod
     def from_toml(cls, path: "str | os.PathLike[str]") -> "Recipe":
@@ -301,6 +448,14 @@ class Recipe:
         """Ice mass / total water at T (K, scalar or array)."""
         return api.ice_fraction(self.solution(), T, model=self.model,
                                 bound_water_fraction_of_water=self.bound_water_fraction_of_water)
+
+    def temperature_for_ice_fraction(self, ice_fraction):
+        """Temperature, K, at which the recipe has ``ice_fraction`` of its water frozen (in
+        [0, 1); scalar or array), with the recipe's model and bound water (see
+        :func:`colligate.temperature_for_ice_fraction`)."""
+        return api.temperature_for_ice_fraction(
+            self.solution(), ice_fraction, model=self.model,
+            bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def leighton_ice_fraction(self, T):
         """Fraction of the water frozen at T (K) by the dairy method of Leighton (1927) /
@@ -364,7 +519,7 @@ class Recipe:
 
         if self.ingredients is not None:
             for key, kg in self.ingredients.items():
-                ing = self._resolved[key]
+                ing = self.ingredient_records[key]
                 sol = ing.solutes()
                 lactose = float(ing.sugars.get("lactose", 0.0)) + ing.msnf * MSNF_SPLIT["lactose"]
                 sugars = sum(float(v) for v in ing.sugars.values()) - float(ing.sugars.get("lactose", 0.0))
@@ -483,8 +638,60 @@ def _string(source: str, table: str, key: str, value: Any, *, nonempty: bool = F
 # --------------------------------------------------------------------------- parsing
 
 
+class _Problems:
+    """Collects every problem of a recipe so that all are reported at once."""
+
+    def __init__(self, source: str) -> None:
+        self.source = source
+        self.messages: list[str] = []
+
+    def guard(self, fn, *args, default: Any = None, **kwargs) -> Any:
+        """fn(*args, **kwargs), or ``default`` after recording the RecipeError it raised."""
+        try:
+            return fn(*args, **kwargs)
+        except RecipeError as exc:
+            self.messages.append(str(exc))
+            return default
+
+    def add(self, where: str, message: str) -> None:
+        self.messages.append(str(_fail(self.source, where, message)))
+
+    def raise_if_any(self) -> None:
+        if len(self.messages) == 1:
+            raise RecipeError(self.messages[0])
+        if self.messages:
+            prefix = f"recipe '{self.source}': "
+            parts = [m[len(prefix):] if m.startswith(prefix) else m for m in dict.fromkeys(self.messages)]
+            raise RecipeError(prefix + f"{len(parts)} problems: "
+                              + "; ".join(f"({i}) {m}" for i, m in enumerate(parts, 1)))
+
+
+def _key_form(key: str) -> str:
+    """A key as compared for duplicates: case, spaces, hyphens and underscores ignored."""
+    return "".join(ch for ch in str(key).lower() if ch not in " _-\t")
+
+
+def _duplicate_keys(problems: _Problems, doc: Mapping[str, Any], where: str = "") -> None:
+    """Keys of one table that differ only by case, spaces, hyphens or underscores."""
+    seen: dict[str, str] = {}
+    for key, value in doc.items():
+        form = _key_form(key)
+        if form in seen:
+            place = f"[{where}]" if where else "top level"
+            problems.add(f"{place}.{key}" if where else f"[{key}]",
+                         f"duplicate of {seen[form]!r} ({place}): keys that differ only by case, spaces "
+                         "or underscores name the same thing; keep one")
+        else:
+            seen[form] = key
+        if isinstance(value, dict) and not where:
+            _duplicate_keys(problems, value, key)
+
+
 def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None) -> Recipe:
     """Parse and validate recipe text (TOML). ``source`` is used in error messages.
+
+    Every problem found is reported at once (one :class:`RecipeError` listing them all);
+    a TOML syntax error stops the reading at once.
 
     Raises
     ------
@@ -492,79 +699,140 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         On any schema violation; the message names ``source``, the table/key
         and the valid range.
     """
+    if len(text) > MAX_INPUT_BYTES:
+        raise _fail(source, "", f"text of {len(text)} characters; recipes are limited to {MAX_INPUT_BYTES} "
+                    "characters (10 MB)")
     try:
         doc = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise _fail(source, "", f"TOML syntax error: {exc}") from None
+    except RecursionError:
+        raise _fail(source, "", "arrays or inline tables nested too deeply for the TOML reader; a recipe "
+                    "holds only plain numbers and strings in its tables (no nesting)") from None
 
+    problems = _Problems(source)
+    _duplicate_keys(problems, doc)
     extra = [k for k in doc if k not in _TABLES]
-    if extra:
-        raise _fail(source, f"[{extra[0]}]", f"unknown table or key; allowed tables are {', '.join(sorted(_TABLES))}")
-    for name in _REQUIRED_TABLES:
-        _table(source, doc, name, required=True)
+    for k in extra:
+        problems.add(f"[{k}]", f"unknown table or key; allowed tables are {', '.join(sorted(_TABLES))}")
+    temperature_tables = [t for t in _TEMPERATURE_TABLES if t in doc]
+    if len(temperature_tables) > 1:
+        problems.add(f"[{temperature_tables[1]}]",
+                     f"give the named temperatures in one table only (found {', '.join(temperature_tables)})")
 
     # [recipe]
-    head = _table(source, doc, "recipe", required=True)
-    _unknown_keys(source, "recipe", head, _RECIPE_KEYS)
-    if "name" not in head:
-        raise _fail(source, "[recipe].name", "missing key (required, non-empty string)")
-    name = _string(source, "recipe", "name", head["name"], nonempty=True).strip()
-    note = _string(source, "recipe", "note", head.get("note", ""))
-    label = _string(source, "recipe", "label", head.get("label", ""))
-    basis = _string(source, "recipe", "basis", head.get("basis", "kg")).strip().lower()
+    head = problems.guard(_table, source, doc, "recipe", required=True, default={}) or {}
+    problems.guard(_unknown_keys, source, "recipe", head, _RECIPE_KEYS)
+    name = "recipe"
+    if "recipe" in doc and "name" not in head:
+        problems.add("[recipe].name", "missing key (required, non-empty string)")
+    elif "name" in head:
+        name = (problems.guard(_string, source, "recipe", "name", head["name"], nonempty=True) or "recipe").strip()
+    note = problems.guard(_string, source, "recipe", "note", head.get("note", ""), default="")
+    label = problems.guard(_string, source, "recipe", "label", head.get("label", ""), default="")
+    basis = (problems.guard(_string, source, "recipe", "basis", head.get("basis", "kg"), default="kg")
+             .strip().lower())
     if basis not in _BASES:
-        raise _fail(source, f"[recipe].basis = {_show(head['basis'])}", 'must be "kg" or "percent"')
+        problems.add(f"[recipe].basis = {_show(head['basis'])}", 'must be "kg", "g" or "percent"')
+        basis = "kg"
+    kind = (problems.guard(_string, source, "recipe", "kind", head.get("kind", DEFAULT_KIND), default=DEFAULT_KIND)
+            .strip().lower().replace(" ", "_").replace("-", "_"))
+    if kind not in NAMED_TEMPERATURES:
+        problems.add(f"[recipe].kind = {_show(head['kind'])}", f"must be one of {', '.join(NAMED_TEMPERATURES)}")
+        kind = DEFAULT_KIND
     batch_kg = 1.0
     if "batch_kg" in head:
         if basis != "percent":
-            raise _fail(source, "[recipe].batch_kg", 'only allowed with basis = "percent"')
-        batch_kg = _number(source, "[recipe].batch_kg", head["batch_kg"], "batch mass must be finite and > 0 (kg)")
-        if not batch_kg > 0.0:
-            raise _fail(source, f"[recipe].batch_kg = {_show(head['batch_kg'])}", "batch mass must be finite and > 0 (kg)")
+            problems.add("[recipe].batch_kg", 'only allowed with basis = "percent"')
+        else:
+            rule = "batch mass must be finite and > 0 (kg)"
+            b = problems.guard(_number, source, "[recipe].batch_kg", head["batch_kg"], rule)
+            if b is not None and not b > 0.0:
+                problems.add(f"[recipe].batch_kg = {_show(head['batch_kg'])}", rule)
+            elif b is not None:
+                batch_kg = b
+
+    library = problems.guard(_parse_library, source, doc, path)
 
     has_comp = "composition" in doc
     has_ing = "ingredients" in doc
     if not has_comp and not has_ing:
-        raise _fail(source, "[composition]", "missing table (required): a recipe needs [composition] (solutes) or [ingredients] (library ingredients)")
+        problems.add("[composition]", "missing table (required): a recipe needs [composition] (solutes) or "
+                     "[ingredients] (library ingredients)")
     if has_comp and has_ing:
-        raise _fail(source, "[ingredients]", "give either [composition] (solutes) or [ingredients] (library ingredients), not both")
+        problems.add("[ingredients]", "give either [composition] (solutes) or [ingredients] (library "
+                     "ingredients), not both")
+        has_comp = False
+    table_name = "ingredients" if has_ing else "composition"
+    table = problems.guard(_table, source, doc, table_name, required=False, default={}) or {}
+    amounts = _amounts(problems, table_name, table, basis) if (has_comp or has_ing) else {}
+    unit = _BASIS_UNIT[basis]
+    scale = {"kg": 1.0, "g": 1e-3, "percent": batch_kg / 100.0}[basis]
+    water_amount: float | None = None
     if has_ing:
-        return _parse_ingredient_recipe(doc, source, path, name, note, label, basis, batch_kg)
+        if not table and isinstance(doc.get("ingredients"), dict):
+            problems.add("[ingredients]", "empty table: list at least one ingredient with its amount")
+        from .ingredients import ingredient as _builtin_ingredient
 
-    # [composition]
-    comp = _table(source, doc, "composition", required=True)
-    amounts = _amounts(source, "composition", comp, basis)
-    unit = "kg" if basis == "kg" else "% of batch"
-    water_keys = [k for k in amounts if k.strip().lower() == "water"]
-    if not water_keys:
-        raise _fail(source, "[composition].water", f"missing key: a recipe needs water > 0 ({unit})")
-    if len(water_keys) > 1:
-        raise _fail(source, f"[composition].{water_keys[1]}", "water given more than once")
-    water_amount = amounts.pop(water_keys[0])
-    if not water_amount > 0.0:
-        raise _fail(source, f"[composition].{water_keys[0]} = {_show(comp[water_keys[0]])}", f"water must be > 0 ({unit})")
+        _lookup = library.ingredient if library is not None else _builtin_ingredient
+        seen_ingredient: dict[str, str] = {}
+        for key in amounts:
+            try:
+                ing = _lookup(key)
+            except ValueError as exc:
+                problems.add(f"[ingredients].{key}", str(exc))
+                continue
+            first = seen_ingredient.setdefault(ing.key or ing.name, key)
+            if first != key and _key_form(first) != _key_form(key):
+                problems.add(f"[ingredients].{key}", f"names the same ingredient ({ing.key}) as {first!r}; keep one")
+        total = sum(amounts.values())
+        if basis == "percent" and amounts and abs(total - 100.0) > PERCENT_TOLERANCE:
+            problems.add("[ingredients]", f"amounts add up to {total:.6g} %; with basis = \"percent\" they must "
+                         f"add up to 100 +/- {PERCENT_TOLERANCE}")
+    elif has_comp:
+        water_keys = [k for k in amounts if k.strip().lower() == "water"]
+        if not water_keys and "water" not in [k.strip().lower() for k in table]:
+            problems.add("[composition].water", f"missing key: a recipe needs water > 0 ({unit})")
+        elif water_keys:
+            water_amount = amounts.pop(water_keys[0])
+            if not water_amount > 0.0:
+                problems.add(f"[composition].{water_keys[0]} = {_show(table[water_keys[0]])}",
+                             f"water must be > 0 ({unit})")
+        table_kw = {} if library is None else {"table": library.solute_table}
+        for key in amounts:
+            try:
+                api.Solution(water=1.0, solutes={key: 0.0}, **table_kw)
+            except ValueError as exc:
+                problems.add(f"[composition].{key}", str(exc))
+        same: dict[str, str] = {}
+        for key in amounts:
+            sid = _solute_id(key, library)
+            if sid in same and _key_form(same[sid]) != _key_form(key):
+                problems.add(f"[composition].{key}", f"names the same solute ({sid}) as {same[sid]!r}; keep one")
+            same.setdefault(sid, key)
+        if basis == "percent" and water_amount is not None:
+            total = water_amount + sum(amounts.values())
+            if abs(total - 100.0) > PERCENT_TOLERANCE:
+                problems.add("[composition]", f"amounts add up to {total:.6g} %; with basis = \"percent\" they "
+                             f"must add up to 100 +/- {PERCENT_TOLERANCE} (water included)")
 
-    if basis == "percent":
-        total = water_amount + sum(amounts.values())
-        if abs(total - 100.0) > PERCENT_TOLERANCE:
-            raise _fail(
-                source,
-                "[composition]",
-                f"amounts add up to {total:.6g} %; with basis = \"percent\" they must add up to "
-                f"100 +/- {PERCENT_TOLERANCE} (water included)",
-            )
-        scale = batch_kg / 100.0
-    else:
-        scale = 1.0
-    water_kg = water_amount * scale
-    solutes_kg = {k: v * scale for k, v in amounts.items()}
+    temperatures = _parse_temperatures(problems, doc, kind)
+    model, bound = _parse_options(problems, doc)
+    problems.raise_if_any()
+    _warn_unit_slips(source, kind, temperatures)
 
-    temperatures = _parse_temperatures(source, doc)
-    model, bound = _parse_options(source, doc)
+    if has_ing:
+        recipe = Recipe(
+            name=name, temperatures=temperatures, model=model, bound_water_fraction_of_water=bound, note=note,
+            label=label, basis=basis, source=source, path=path, kind=kind, library=library,
+            ingredients={k: v * scale for k, v in amounts.items()},
+        )
+        return _finish(recipe)
+    assert water_amount is not None
     return _finish(Recipe(
         name=name,
-        water=water_kg,
-        solutes=solutes_kg,
+        water=water_amount * scale,
+        solutes={k: v * scale for k, v in amounts.items()},
         temperatures=temperatures,
         model=model,
         bound_water_fraction_of_water=bound,
@@ -573,40 +841,84 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         basis=basis,
         source=source,
         path=path,
-        library=_parse_library(source, doc, path),
+        kind=kind,
+        library=library,
     ))
 
 
-def _parse_temperatures(source: str, doc: Mapping[str, Any]) -> dict[str, float]:
-    temps_c = _table(source, doc, "temperatures_celsius", required=False)
-    _unknown_keys(source, "temperatures_celsius", temps_c, set(DEFAULT_TEMPERATURES_C))
+def _parse_temperatures(problems: _Problems, doc: Mapping[str, Any], kind: str) -> dict[str, float]:
+    """The named temperatures of the recipe's kind, in K, from whichever of
+    ``[temperatures_celsius]``, ``[temperatures_fahrenheit]`` or ``[temperatures_kelvin]``
+    is given (defaults for the names not given)."""
+    source = problems.source
+    table_name = next((t for t in _TEMPERATURE_TABLES if t in doc), "temperatures_celsius")
+    unit = _TEMPERATURE_TABLES[table_name]
+    given = problems.guard(_table, source, doc, table_name, required=False, default={}) or {}
+    defaults = NAMED_TEMPERATURES[kind]
+    problems.guard(_unknown_keys, source, table_name, given, set(defaults))
     lo, hi = TEMPERATURE_RANGE_C
+    lo_k, hi_k = kelvin_from_celsius(lo), kelvin_from_celsius(hi)
+    shown = {"C": f"between {lo:g} and {hi:+g} degC",
+             "F": f"between {fahrenheit_from_kelvin(lo_k):g} and {fahrenheit_from_kelvin(hi_k):+g} degF",
+             "K": f"between {lo_k:g} and {hi_k:g} K"}[unit]
     temperatures: dict[str, float] = {}
-    for key, default in DEFAULT_TEMPERATURES_C.items():
-        where = f"[temperatures_celsius].{key}"
-        rule = f"temperature must be finite and between {lo:g} and {hi:+g} degC"
-        c = _number(source, where, temps_c[key], rule) if key in temps_c else default
-        if not lo <= c <= hi:
-            raise _fail(source, f"{where} = {_show(temps_c[key])}", rule)
-        temperatures[key] = kelvin_from_celsius(c)
+    for key, default in defaults.items():
+        where = f"[{table_name}].{key}"
+        rule = f"temperature must be finite and {shown}"
+        if key not in given:
+            temperatures[key] = kelvin_from_celsius(default)
+            continue
+        x = problems.guard(_number, source, where, given[key], rule)
+        if x is None:
+            continue
+        try:
+            t_k = kelvin_from(x, unit)
+        except ValueError:
+            t_k = math.nan
+        if not (lo_k - 1e-9 <= t_k <= hi_k + 1e-9):
+            problems.add(f"{where} = {_show(given[key])}", rule)
+            continue
+        temperatures[key] = t_k
     return temperatures
 
 
-def _parse_options(source: str, doc: Mapping[str, Any]) -> tuple[str, float | None]:
+def _warn_unit_slips(source: str, kind: str, temperatures: Mapping[str, float]) -> None:
+    """Warns when a named temperature of a frozen product is above 0 degC: likely degF typed
+    as degC (an ice cream served at +10 "degC" is served at 10 degF, -12.2 degC)."""
+    if kind not in FROZEN_KINDS:
+        return
+    for name, t_k in temperatures.items():
+        t_c = celsius_from_kelvin(t_k)
+        if t_c > 0.0:
+            as_f = celsius_from_kelvin(kelvin_from_fahrenheit(t_c))
+            warnings.warn(
+                f"recipe '{source}': {name} temperature {t_c:+g} degC is above 0 degC for a frozen "
+                f"product (kind = \"{kind}\"); was it meant in degF ({t_c:g} degF = {as_f:.1f} degC)? "
+                "Give degF in [temperatures_fahrenheit]",
+                SuspectUnitWarning, stacklevel=4)
+
+
+def _parse_options(problems: _Problems, doc: Mapping[str, Any]) -> tuple[str, float | None]:
     """[options]: model id and bound water as a share of the water (None: the recipe's default)."""
-    opts = _table(source, doc, "options", required=False)
-    _unknown_keys(source, "options", opts, _OPTION_KEYS)
-    model = _string(source, "options", "model", opts.get("model", "auto")).strip().lower()
+    source = problems.source
+    opts = problems.guard(_table, source, doc, "options", required=False, default={}) or {}
+    problems.guard(_unknown_keys, source, "options", opts, _OPTION_KEYS)
+    model = (problems.guard(_string, source, "options", "model", opts.get("model", "auto"), default="auto")
+             .strip().lower())
     known_models = list(api.models())
     if model not in known_models:
-        raise _fail(source, f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
+        problems.add(f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
+        model = "auto"
     bound: float | None = None
     key = "bound_water_fraction_of_water"
     if key in opts:
         rule = "must be finite and in [0, 1) (kg of water that cannot freeze per kg of the recipe's water)"
-        bound = _number(source, f"[options].{key}", opts[key], rule)
-        if not 0.0 <= bound < 1.0:
-            raise _fail(source, f"[options].{key} = {_show(opts[key])}", rule)
+        b = problems.guard(_number, source, f"[options].{key}", opts[key], rule)
+        if b is not None:
+            if not 0.0 <= b < 1.0:
+                problems.add(f"[options].{key} = {_show(opts[key])}", rule)
+            else:
+                bound = b
     return model, bound
 
 
@@ -632,53 +944,35 @@ def _parse_library(source: str, doc: Mapping[str, Any], path: str | None) -> Lib
     return lib
 
 
-def _amounts(source: str, table_name: str, table: Mapping[str, Any], basis: str) -> dict[str, float]:
-    """Amounts of a [composition] or [ingredients] table, validated (finite, >= 0)."""
-    unit = "kg" if basis == "kg" else "% of batch"
+def _amounts(problems: _Problems, table_name: str, table: Mapping[str, Any], basis: str) -> dict[str, float]:
+    """Amounts of a [composition] or [ingredients] table, validated (finite, >= 0); every
+    bad amount is recorded."""
+    unit = _BASIS_UNIT[basis]
     amounts: dict[str, float] = {}
     for key, value in table.items():
         where = f"[{table_name}].{key}"
         if isinstance(value, dict):
-            raise _fail(source, where, f"must be a number (amount in {unit}), not a table")
+            problems.add(where, f"must be a number (amount in {unit}), not a table")
+            continue
         rule = f"amount must be finite and >= 0 ({unit})"
-        x = _number(source, where, value, rule)
+        x = problems.guard(_number, problems.source, where, value, rule)
+        if x is None:
+            continue
         if x < 0.0:
-            raise _fail(source, f"{where} = {_show(value)}", rule)
+            problems.add(f"{where} = {_show(value)}", rule)
+            continue
         amounts[key] = x
     return amounts
-
-
-def _parse_ingredient_recipe(doc: Mapping[str, Any], source: str, path: str | None, name: str, note: str,
-                             label: str, basis: str, batch_kg: float) -> Recipe:
-    table = _table(source, doc, "ingredients", required=True)
-    amounts = _amounts(source, "ingredients", table, basis)
-    if not amounts:
-        raise _fail(source, "[ingredients]", "empty table: list at least one ingredient with its amount")
-    if basis == "percent":
-        total = sum(amounts.values())
-        if abs(total - 100.0) > PERCENT_TOLERANCE:
-            raise _fail(source, "[ingredients]", f"amounts add up to {total:.6g} %; with basis = \"percent\" they must add up to 100 +/- {PERCENT_TOLERANCE}")
-        scale = batch_kg / 100.0
-    else:
-        scale = 1.0
-    temperatures = _parse_temperatures(source, doc)
-    model, bound = _parse_options(source, doc)
-    recipe = Recipe(
-        name=name, temperatures=temperatures, model=model, bound_water_fraction_of_water=bound, note=note,
-        label=label, basis=basis, source=source, path=path,
-        ingredients={k: v * scale for k, v in amounts.items()},
-        library=_parse_library(source, doc, path),
-    )
-    return _finish(recipe)
 
 
 def _solute_kinds() -> dict[str, str]:
     return {str(k): str(v) for k, v in api.solutes()["kind"].items()}
 
 
-def _solute_id(name: str) -> str:
+def _solute_id(name: str, library: Any = None) -> str:
     try:
-        sol = api.Solution(water=1.0, solutes={name: 0.0})
+        kw = {} if library is None else {"table": library.solute_table}
+        sol = api.Solution(water=1.0, solutes={name: 0.0}, **kw)
         return sol.species[0] if sol.species else name
     except ValueError:
         return name
@@ -703,14 +997,9 @@ def load_recipe(path: str | os.PathLike[str]) -> Recipe:
     """
     source = os.fspath(path)
     try:
-        with open(source, "rb") as fh:
-            raw = fh.read()
-    except FileNotFoundError:
-        raise _fail(source, "", "file not found") from None
-    except IsADirectoryError:
-        raise _fail(source, "", "is a directory, expected a .toml file") from None
-    except OSError as exc:
-        raise _fail(source, "", f"cannot read file ({exc.strerror or exc})") from None
+        raw = read_input_bytes(source, "recipe")
+    except InputFileError as exc:
+        raise RecipeError(str(exc)) from None
     try:
         text = raw.decode("utf-8")
     except UnicodeDecodeError as exc:

@@ -31,7 +31,7 @@ from .report_compute import (  # noqa: F401
     ice_enthalpy_table,
 )
 from .report_indicators import REPORT_FORMAT, build_report  # noqa: F401
-from .report_layout import format_json, format_text, write_table_csv  # noqa: F401
+from .report_layout import NonFiniteValueWarning, format_json, format_text, write_table_csv  # noqa: F401
 
 def report_schema() -> dict:
     """The JSON schema (draft 2020-12) of the report dict of :func:`build_report` and of
@@ -52,4 +52,5 @@ __all__ = [
     "format_json",
     "ice_enthalpy_table",
     "write_table_csv",
+    "NonFiniteValueWarning",
 ]

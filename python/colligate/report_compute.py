@@ -350,7 +350,7 @@ def heat_load_end(t_storage: float, t_eutectic: float | None) -> tuple[float, st
 def heat_load_entry(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dict[str, Any]:
     """Heat to remove per kg from the fill temperature to storage (or the eutectic), kJ/kg."""
     t_from = kelvin_from_celsius(HEAT_LOAD_FROM_C)
-    t_storage = float(temps.get("storage", kelvin_from_celsius(-18.0)))
+    t_storage = float(temps.get("storage", min(temps.values(), default=kelvin_from_celsius(-18.0))))
     t_to, stop = heat_load_end(t_storage, report_eutectic_K(path))
     q = recipe.heat_load(t_from, t_to)
     return {
@@ -374,6 +374,7 @@ TABLE_COLUMNS: tuple[str, ...] = (
     "point",
     "temperature_C",
     "temperature_K",
+    "temperature_F",
     "state",
     "ice_fraction",
     "ice_kg",
@@ -462,6 +463,7 @@ def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
             "point": [" ".join(points[t]) for t in sorted(points, reverse=True)],
             "temperature_C": temps_c,
             "temperature_K": temps_k,
+            "temperature_F": temps_c * 1.8 + 32.0,
             "state": state,
             "ice_fraction": ice,
             "ice_kg": ice_kg,

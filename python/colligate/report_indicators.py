@@ -14,6 +14,7 @@ from typing import Any, Mapping, Sequence
 
 from . import api
 from ._warnings import CAUTIONS
+from .contributions import contributions_entry, sucrose_equivalent_kg
 from .recipe import DEFAULT_TEMPERATURES_C, Recipe
 from .report_compute import (
     VERIFY_NOTE,
@@ -42,9 +43,6 @@ __all__ = [
 #: Identifier and version of the dict layout produced by :func:`build_report`.
 REPORT_FORMAT = "colligate-report/2"
 
-def _sweetness() -> dict[str, float]:
-    """Relative sweetness by solute id (sucrose = 1), from the core's table."""
-    return {str(k): float(v) for k, v in api.sweetness_table()["relative_sweetness"].items()}
 
 
 def freezing_power(sid: str) -> float | None:
@@ -64,8 +62,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
     batch = recipe.total_mass
     solution = path.solution
     solutes = dict(solution.solutes)
-    sweetness = _sweetness()
-    sweet = sum(sweetness.get(k, 0.0) * v for k, v in solutes.items())
+    sweet = sucrose_equivalent_kg(solutes)
     kinds = solute_kinds()
     out: dict[str, Any] = {
         "sweetness_sucrose_equivalent_mass_percent_of_batch": 100.0 * sweet / batch,
@@ -76,7 +73,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
         "lactose_in_solution": lactose_in_solution(recipe),
     }
     t_eut = report_eutectic_K(path)
-    for point in ("serving", "storage"):
+    for point in ("serving", "scooping", "holding", "storage", "frozen_storage", "lowest_use"):
         if point not in temps:
             continue
         t_k = float(temps[point])
@@ -250,6 +247,7 @@ def build_report(
                 own = path
             body["indicators"] = indicators(subject, own, temps)
             body["heat_load"] = heat_load_entry(subject, own, temps)
+            body["contributions"] = contributions_entry(subject)
 
     report: dict[str, Any] = {
         "report_format": REPORT_FORMAT,

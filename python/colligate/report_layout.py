@@ -8,12 +8,33 @@ DataFrame such as :func:`colligate.report_compute.ice_enthalpy_table`.
 from __future__ import annotations
 
 import json
-import textwrap
+import math
+import warnings
 from typing import Any, Mapping
 
-from ._files import atomic_write_text, check_output_path
+from ._files import OutputSet, atomic_write_text, check_output_path
 
-__all__ = ["format_text", "format_json", "write_table_csv"]
+__all__ = ["format_text", "format_json", "write_table_csv", "NonFiniteValueWarning"]
+
+
+class NonFiniteValueWarning(UserWarning):
+    """A report value was infinite or NaN; strict JSON has no such numbers, so it was
+    written as ``null`` (the message names the key and the value)."""
+
+
+def _finite_or_null(value: Any, where: str, bad: list[str]) -> Any:
+    """A copy of ``value`` with every non-finite float replaced by None; the keys of the
+    replaced values are collected in ``bad``. Reports are shallow (a few levels)."""
+    if isinstance(value, float):
+        if math.isfinite(value):
+            return value
+        bad.append(f"{where} = {value}")
+        return None
+    if isinstance(value, Mapping):
+        return {k: _finite_or_null(v, f"{where}.{k}" if where else str(k), bad) for k, v in value.items()}
+    if isinstance(value, (list, tuple)):
+        return [_finite_or_null(v, f"{where}[{i}]", bad) for i, v in enumerate(value)]
+    return value
 
 #: Names of the composition-summary components in the text report.
 _COMPONENT_LABELS = {"other_sugars": "other sugars", "msnf": "milk solids-not-fat",
@@ -21,8 +42,18 @@ _COMPONENT_LABELS = {"other_sugars": "other sugars", "msnf": "milk solids-not-fa
 
 
 def format_json(report: Mapping[str, Any]) -> str:
-    """Serialise a report to strict JSON (no NaN), indented, ending with a newline."""
-    return json.dumps(report, indent=2, ensure_ascii=False, allow_nan=False) + "\n"
+    """Serialise a report to strict JSON, indented, ending with a newline.
+
+    An infinite or NaN number (which strict JSON cannot hold) is written as ``null`` with
+    a :class:`NonFiniteValueWarning` naming its key.
+    """
+    bad: list[str] = []
+    clean = _finite_or_null(report, "", bad)
+    if bad:
+        more = f" and {len(bad) - 3} more" if len(bad) > 3 else ""
+        warnings.warn(f"JSON report: {', '.join(bad[:3])}{more}: not a finite number, written as null",
+                      NonFiniteValueWarning, stacklevel=2)
+    return json.dumps(clean, indent=2, ensure_ascii=False, allow_nan=False) + "\n"
 
 
 # --------------------------------------------------------------------------- text layout
@@ -36,18 +67,47 @@ def _heading(text: str) -> list[str]:
 
 
 def _wrap(text: str, indent: str = "  ", first: str | None = None) -> list[str]:
+    """Lines of at most _WIDTH characters: greedy filling of whitespace-separated words,
+    a word longer than a line cut into line-long pieces; ``first`` indents the first line
+    of the first paragraph, ``indent`` every other line.
+
+    Written out instead of :func:`textwrap.wrap` because textwrap's time grows with the
+    square of the length of a long word or a long run of spaces (minutes for a recipe
+    note of a few megabytes); this takes time linear in the length of ``text``.
+    """
     out: list[str] = []
+    lead = first if first is not None else indent
     for para in str(text).splitlines() or [""]:
-        out.extend(
-            textwrap.wrap(
-                para,
-                width=_WIDTH,
-                initial_indent=first if first is not None else indent,
-                subsequent_indent=indent,
-            )
-            or [""]
-        )
-        first = None
+        words = para.split()
+        if not words:
+            out.append("")
+            lead = indent
+            continue
+        parts, n, fresh = [lead], len(lead), True
+        for w in words:
+            i = 0
+            while i < len(w):
+                rest = len(w) - i
+                room = _WIDTH - n - (0 if fresh else 1)
+                if rest <= room:
+                    if not fresh:
+                        parts.append(" ")
+                        n += 1
+                    parts.append(w[i:] if i else w)
+                    n += rest
+                    fresh = False
+                    i = len(w)
+                elif fresh:  # longer than a whole line: cut a line-long piece
+                    cut = max(room, 1)
+                    parts.append(w[i:i + cut])
+                    n += cut
+                    fresh = False
+                    i += cut
+                else:
+                    out.append("".join(parts))
+                    parts, n, fresh = [indent], len(indent), True
+        out.append("".join(parts))
+        lead = indent
     return out
 
 
@@ -214,6 +274,8 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
             lines.extend(_wrap(
                 f"lactose: MSNF {lac['msnf_mass_percent_of_batch']:.2f} % of batch against at most "
                 f"{lac['max_msnf_mass_percent_of_batch']:.2f} % ({lac['rule']}): {verdict}"))
+    if report.get("contributions"):
+        lines += _contributions_text(report["contributions"])
     if report.get("files"):
         lines += _heading("Files written")
         for what, path in report["files"].items():
@@ -234,12 +296,37 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     return "\n".join(lines) + "\n"
 
 
-def write_table_csv(table, path, inputs=(), what: str = "--csv") -> str:
+def _contributions_text(c: Mapping[str, Any]) -> list[str]:
+    """The per-ingredient contributions of a report as text lines."""
+    where = f"{c['temperature_C']:.1f} °C" + (f" ({c['named']})" if c.get("named") else "")
+    lines = _heading(f"What each ingredient does (water kept liquid at {where})")
+    lines.append(f"  {'ingredient':<26}{'depression':>12}{'sweetness':>11}{'liquid water':>14}{'ice from':>10}")
+    lines.append(f"  {'':<26}{'K (%)':>12}{'% of total':>11}{'held, kg (%)':>14}{'it, kg':>10}")
+    for r in c["rows"]:
+        dep = r["depression_K"]
+        held = r["liquid_water_held_kg"]
+        dep_s = f"{dep:.2f} ({r['depression_percent']:.0f})" if dep is not None else "-"
+        held_s = f"{held:.3f} ({r['liquid_water_held_percent']:.0f})" if held is not None else "-"
+        ice = r["ice_from_its_water_kg"]
+        lines.append(f"  {r['ingredient'][:25]:<26}{dep_s:>12}{r['sweetness_percent']:>11.0f}{held_s:>14}"
+                     + (f"{ice:>10.3f}" if ice is not None else f"{'-':>10}"))
+    t = c["totals"]
+    total_dep = t.get("depression_K")
+    lines.append(
+        f"  {'whole recipe':<26}{(f'{total_dep:.2f}' if total_dep is not None else '-'):>12}{100:>11.0f}"
+        + (f"{t['liquid_water_held_kg']:>14.3f}" if t.get("liquid_water_held_kg") is not None else f"{'-':>14}")
+        + (f"{t['ice_kg']:>10.3f}" if t.get("ice_kg") is not None else f"{'-':>10}"))
+    lines.extend(_wrap("How the shares are counted: " + c["definition"] + "."))
+    return lines
+
+
+def write_table_csv(table, path, inputs=(), what: str = "--csv", *, outputs: OutputSet | None = None) -> str:
     """Write a DataFrame (e.g. :func:`ice_enthalpy_table`) as CSV, atomically.
 
     Empty cells stand for values not computed (below a eutectic). Refuses a path that
-    names one of ``inputs``. Returns the path written.
+    names one of ``inputs``. With ``outputs`` the file joins that set of a command's
+    outputs (renamed into place when it is committed). Returns the path written.
     """
     check_output_path(path, inputs, what)
     text = table.to_csv(index=False, float_format="%.10g", lineterminator="\n")
-    return atomic_write_text(path, text, inputs, what)
+    return atomic_write_text(path, text, inputs, what, into=outputs)

@@ -19,6 +19,9 @@ __all__ = [
     "kelvin_from_celsius",
     "fahrenheit_from_kelvin",
     "kelvin_from_fahrenheit",
+    "TEMPERATURE_UNITS",
+    "kelvin_from",
+    "parse_temperature",
 ]
 
 #: 0 degC expressed in kelvin (exact, by definition of the Celsius scale).
@@ -111,3 +114,53 @@ def kelvin_from_fahrenheit(fahrenheit: float) -> float:
     """
     f = _finite(fahrenheit, "temperature", "degF")
     return _above_absolute_zero((f + 459.67) * 5.0 / 9.0, "temperature", f"{f} degF")
+
+
+#: Units a person may type a temperature in, and their spellings (case-insensitive).
+TEMPERATURE_UNITS: dict[str, tuple[str, ...]] = {
+    "C": ("c", "degc", "°c", "celsius"),
+    "K": ("k", "kelvin"),
+    "F": ("f", "degf", "°f", "fahrenheit"),
+}
+
+
+def _unit_id(unit: str) -> str:
+    u = str(unit).strip().lower().replace(" ", "")
+    for key, spellings in TEMPERATURE_UNITS.items():
+        if u in spellings:
+            return key
+    raise ValueError(f"temperature unit {unit!r}: unknown; use C (degC), K or F (degF)")
+
+
+def kelvin_from(value: float, unit: str) -> float:
+    """A temperature point given in ``unit`` ("C", "K" or "F", see
+    :data:`TEMPERATURE_UNITS`) in kelvin."""
+    u = _unit_id(unit)
+    if u == "C":
+        return kelvin_from_celsius(value)
+    if u == "F":
+        return kelvin_from_fahrenheit(value)
+    k = _finite(value, "temperature", "K")
+    return _above_absolute_zero(k, "temperature", f"{k} K")
+
+
+def parse_temperature(text: str, default_unit: str = "C") -> float:
+    """A temperature typed by a person, in kelvin: a number with an optional unit
+    (``"-12"``, ``"-12C"``, ``"-12 °C"``, ``"10F"``, ``"261.15 K"``); without a unit it is
+    in ``default_unit``."""
+    raw = str(text).strip()
+    number = raw
+    unit = default_unit
+    for key, spellings in TEMPERATURE_UNITS.items():
+        for sp in sorted(spellings, key=len, reverse=True):
+            if raw.lower().endswith(sp) and len(raw) > len(sp):
+                number, unit = raw[: len(raw) - len(sp)].strip(), key
+                break
+        if unit != default_unit or number != raw:
+            break
+    try:
+        x = float(number)
+    except ValueError:
+        raise ValueError(f"temperature {text!r}: not a number with an optional unit "
+                         "(C, K or F), e.g. -12C, 10F, 261.15K") from None
+    return kelvin_from(x, unit)

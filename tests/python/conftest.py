@@ -15,3 +15,15 @@ def crc_freezing() -> pd.DataFrame:
     df = pd.read_csv(REFERENCE / "crc_freezing_points.csv", keep_default_na=False)
     # rows the copy marks as doubtful are excluded (see NOTES_reference_data.md)
     return df[~df["note"].str.contains("below neighbours")]
+
+
+def pytest_terminal_summary(terminalreporter, exitstatus, config):
+    """Say loudly when published checks were skipped for a missing reference package."""
+    from reference_packages import MISSING, REQUIREMENTS
+
+    if MISSING:
+        terminalreporter.section("PUBLISHED CHECKS NOT RUN", sep="!", red=True, bold=True)
+        terminalreporter.write_line(
+            f"missing reference package(s): {', '.join(sorted(MISSING))} - every check that "
+            f"needs them was skipped. Install {REQUIREMENTS}; in CI (CI=true) this fails the run.",
+            red=True, bold=True)

@@ -11,6 +11,7 @@ import warnings
 
 import numpy as np
 import pytest
+from reference_packages import reference_package
 
 import colligate as cg
 
@@ -69,7 +70,7 @@ def test_freezing_point_vs_melinder_via_coolprop(percent):
     # used in the fit. CRC and Melinder differ by up to 0.38 K (32 wt%); the model lies
     # within 0.24 K of Melinder at 5-60 wt% (tools/fit_crc_norrish.py prints each point).
     # Tolerance 0.30 K.
-    CP = pytest.importorskip("CoolProp.CoolProp")
+    CP = reference_package("CoolProp.CoolProp")
     w = percent / 100.0
     melinder = CP.PropsSI("T_freeze", "T", 300.0, "P", 101325.0, f"INCOMP::MEA[{w}]")
     model = freezing_point_quiet(cg.Solution.from_mass_fractions({"ethanol": w}))

@@ -4,11 +4,13 @@ from __future__ import annotations
 
 import math
 
-import gsw
 import numpy as np
 import pytest
+from reference_packages import reference_package
 
 import colligate as cg
+
+gsw = reference_package("gsw", module_level=True)
 
 SA = 35.16504  # g/kg, TEOS-10 standard seawater
 
@@ -20,11 +22,14 @@ def teos10_ice_fraction(t_c: float) -> float:
     return (1.0 - SA / sa_b) / (1.0 - SA / 1000.0)
 
 
-@pytest.mark.parametrize("t_c", [-3.0, -5.0, -6.0])
+@pytest.mark.parametrize("t_c", [-2.0, -3.0, -5.0, -6.0])
 def test_seawater_follows_teos10_before_salts_change_the_brine(t_c):
-    # Tolerance 0.01 of the water: the criterion of the ice-curve work; achieved < 5e-4.
+    # Tolerance 0.003 of the water: TEOS-10 freezing temperatures agree with the measurements
+    # within about 2 mK (from memory), plus 3 mK for the minor ions colligate lumps with a
+    # major ion (0.005 K), times the steepest slope of the curve here (0.48 per K at -2 C).
+    # A 0.01 K error of the ice point moves the -2 C value by 0.0048 and fails.
     curve = cg.IceCurve(cg.Solution.seawater(SA))
-    assert curve.at(t_c + 273.15).ice_fraction == pytest.approx(teos10_ice_fraction(t_c), abs=0.01)
+    assert curve.at(t_c + 273.15).ice_fraction == pytest.approx(teos10_ice_fraction(t_c), abs=0.003)
 
 
 def test_seawater_curve_finite_and_monotonic_to_minus_30():

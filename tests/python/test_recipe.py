@@ -14,6 +14,7 @@ from colligate.recipe import (
     DEMO_SCENARIOS,
     Recipe,
     RecipeError,
+    SuspectUnitWarning,
     demo_recipe_text,
     load_demo_recipe,
     load_recipe,
@@ -294,7 +295,7 @@ def test_percent_not_summing_to_100(tmp_path):
 
 
 def test_bad_basis(tmp_path):
-    expect_error(tmp_path, replace(GOOD, 'basis = "kg"', 'basis = "grams"'), "[recipe].basis", '"kg" or "percent"')
+    expect_error(tmp_path, replace(GOOD, 'basis = "kg"', 'basis = "grams"'), "[recipe].basis", '"kg", "g" or "percent"')
 
 
 def test_batch_kg_only_with_percent(tmp_path):
@@ -308,7 +309,9 @@ def test_temperature_out_of_range(tmp_path, value):
 
 def test_temperature_range_edges_are_accepted(tmp_path):
     text = replace(replace(GOOD, "storage = -20", "storage = -60"), "drawing = -4.5", "drawing = 40")
-    r = load_recipe(write(tmp_path, text))
+    # accepted, but +40 C for a frozen product looks like degF typed as degC: a warning
+    with pytest.warns(SuspectUnitWarning, match="drawing temperature"):
+        r = load_recipe(write(tmp_path, text))
     assert r.temperatures["storage"] == pytest.approx(-60 + ZERO_C_K, abs=1e-12)
 
 

@@ -21,6 +21,7 @@
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/equilibria/ice_fraction_temperature.hpp"
 #include "colligate/equilibria/leighton_method.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"

@@ -294,6 +294,37 @@ inline const std::vector<citation>& citations() {
        "MSNF = (100 - fat - sugars - emulsifier - stabiliser) / 7, in % of the mix; read as "
        "quoted by M. Mullan, dairyscience.info ice-cream forum (2018), not in the book itself: "
        "data/dairy_rules.hpp"},
+      {"plank_1913", "Plank, R.", 1913,
+       "Die Gefrierdauer von Eisblocken", "Z. ges. Kalte-Industrie 20(6), 109-114", "",
+       "freezing time of slab, infinite cylinder and sphere; shape factors P and R (as presented "
+       "in ASHRAE Refrigeration, Cooling and freezing times of foods)"},
+      {"pham_1986", "Pham, Q. T.", 1986,
+       "Simplified equation for predicting the freezing time of foodstuffs",
+       "J. Food Technol. 21, 209-219", "",
+       "two-stage method, mean freezing temperature T_fm = 1.8 + 0.263 T_c + 0.105 T_a (as presented "
+       "in ASHRAE Refrigeration, Cooling and freezing times of foods)"},
+      {"ashrae_2006_freezing_times", "ASHRAE", 2006, "Cooling and freezing times of foods",
+       "ASHRAE Handbook - Refrigeration (SI), chapter 10, ASHRAE, Atlanta", "(from memory)",
+       "Plank's equation, Pham's method and the EHTD shape factors with their input definitions"},
+      {"hossain_1992", "Hossain, Md. M.; Cleland, D. J.; Cleland, A. C.", 1992,
+       "Prediction of freezing and thawing times for foods of regular multi-dimensional shape by "
+       "using an analytically derived geometric factor", "Int. J. Refrig. 15(4), 227-234", "(from memory)",
+       "equivalent heat-transfer dimensionality E = G1 + G2 E1 + G3 E2 (coefficients from memory)"},
+      {"wagner_pruss_1993", "Wagner, W.; Pruss, A.", 1993,
+       "International equations for the saturation properties of ordinary water substance. "
+       "Revised according to the International Temperature Scale of 1990",
+       "J. Phys. Chem. Ref. Data 22, 783-787", "doi:10.1063/1.555926",
+       "saturation vapour pressure eq. 2.5 (IAPWS SR1-86, revised 1992)"},
+      {"voller_swaminathan_1991", "Voller, V. R.; Swaminathan, C. R.", 1991,
+       "General source-based method for solidification phase change",
+       "Numer. Heat Transfer B 19, 175-189", "",
+       "enthalpy linearisation of the implicit enthalpy method"},
+      {"carslaw_jaeger_1959", "Carslaw, H. S.; Jaeger, J. C.", 1959, "Conduction of Heat in Solids",
+       "2nd ed., Oxford University Press", "ISBN 0-19-853368-3",
+       "section 11.2: Neumann's solution of the two-phase Stefan problem"},
+      {"singh_heldman_2009", "Singh, R. P.; Heldman, D. R.", 2009, "Introduction to Food Engineering",
+       "4th ed., Academic Press", "ISBN 978-0-12-370900-4",
+       "ch. 7, worked example on Plank's equation (beef steak; from memory)"},
       {"colligate_fit_user", "the user of colligate", 0,
        "Constants fitted by colligate.fit to the user's own data",
        "the provenance fields of the fitted-solute file", "", "see the record's note"},

@@ -28,6 +28,7 @@
 #include <Eigen/Dense>
 #include <cmath>
 #include <limits>
+#include <sstream>
 #include <string>
 #include <utility>
 #include <vector>
@@ -265,15 +266,25 @@ inline std::vector<std::string> effective_names(const effective_solute_options& 
 }
 
 inline void check_effective_options(const char* where, const effective_solute_options& o) {
-  if (!(o.min_molar_mass > 0.0 && o.min_molar_mass < o.max_molar_mass))
-    throw invalid_input(colligate::detail::describe(where, "min_molar_mass", o.min_molar_mass,
-                                                    "must be > 0 and below max_molar_mass"));
+  // The bounds are options with defaults the caller may never have seen: name their values.
+  const auto within = [](double lo, double hi, const char* unit) {
+    std::ostringstream os;
+    os.precision(6);
+    os << "must lie within the bounds of the fit, [" << lo << ", " << hi << "] " << unit;
+    return os.str();
+  };
+  if (!(o.min_molar_mass > 0.0 && o.min_molar_mass < o.max_molar_mass)) {
+    std::ostringstream os;
+    os.precision(6);
+    os << "must be > 0 and below max_molar_mass = " << o.max_molar_mass << " kg/mol";
+    throw invalid_input(colligate::detail::describe(where, "min_molar_mass", o.min_molar_mass, os.str()));
+  }
   if (!(o.molar_mass_start >= o.min_molar_mass && o.molar_mass_start <= o.max_molar_mass))
-    throw invalid_input(colligate::detail::describe(
-        where, "molar_mass_start", o.molar_mass_start, "must lie within [min_molar_mass, max_molar_mass]"));
+    throw invalid_input(colligate::detail::describe(where, "molar_mass_start", o.molar_mass_start,
+                                                    within(o.min_molar_mass, o.max_molar_mass, "kg/mol")));
   if (!(o.bound_water_start >= 0.0 && o.bound_water_start <= o.max_bound_water))
     throw invalid_input(colligate::detail::describe(where, "bound_water_start", o.bound_water_start,
-                                                    "must lie within [0, max_bound_water] kg/kg"));
+                                                    within(0.0, o.max_bound_water, "kg per kg of solids")));
 }
 
 }  // namespace detail

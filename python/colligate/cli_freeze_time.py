@@ -1,0 +1,105 @@
+"""The ``colligate freeze-time`` subcommand: three freezing-time estimates side by side.
+
+::
+
+    colligate freeze-time RECIPE.toml --shape slab --size 0.05 --initial 5 --medium -30
+                          --h 20 --target -18 [--plot PNG] [--json]
+
+Temperatures on the command line are in degC (converted to K here, at the edge); size is
+the full thickness or diameter in m; h in W/(m^2 K). Prints Plank's time (phase change
+only), Pham's (1986) time and the enthalpy-method simulation's time for the thermal centre
+to reach the target, and writes a plot of the temperature histories and the heat flow.
+"""
+from __future__ import annotations
+
+import argparse
+import json
+import math
+
+__all__ = ["add_parser", "run"]
+
+_C0 = 273.15
+
+
+def add_parser(sub) -> None:
+    p = sub.add_parser("freeze-time", help="freezing or thawing time of a recipe: Plank, Pham and a simulation")
+    p.add_argument("recipe", metavar="RECIPE.toml", help="recipe file, or 'demo' for the invented demo ice cream")
+    p.add_argument("--shape", choices=["slab", "cylinder", "sphere"], default="slab", help="body shape")
+    p.add_argument("--size", type=float, required=True, metavar="M",
+                   help="full thickness (slab) or diameter (cylinder, sphere), m")
+    p.add_argument("--initial", type=float, required=True, metavar="DEGC", help="initial product temperature, degC")
+    p.add_argument("--medium", type=float, required=True, metavar="DEGC", help="medium (air, brine) temperature, degC")
+    p.add_argument("--h", type=float, required=True, metavar="W_M2K", help="surface heat-transfer coefficient, W/(m^2 K)")
+    p.add_argument("--target", type=float, required=True, metavar="DEGC", help="target centre temperature, degC")
+    p.add_argument("--plot", metavar="PNG", help="write the temperature histories and heat flow to this PNG")
+    p.add_argument("--json", action="store_true", help="print machine-readable results (units in the keys)")
+
+
+def _estimates(recipe, args) -> tuple[dict, object]:
+    from . import freezing_time as ft
+
+    Ti, Tm, Tt = args.initial + _C0, args.medium + _C0, args.target + _C0
+    freezing = Tm < Ti
+    out: dict = {"shape": args.shape, "size_m": args.size, "initial_K": Ti, "medium_K": Tm, "target_K": Tt,
+                 "h_W_m2K": args.h, "mode": "freezing" if freezing else "thawing"}
+    sim = ft.simulate_freezing(recipe, shape=args.shape, size=args.size, T_initial=Ti, T_medium=Tm, h=args.h,
+                               T_target=Tt)
+    out["simulation_s"] = sim.time_to_target
+    out["simulation_status"] = sim.status
+    if freezing:
+        inp = ft.freezing_inputs(recipe, T_initial=Ti, T_target=Tt)
+        out["inputs"] = {"T_freeze_K": inp["T_freeze"], "latent_heat_J_kg": inp["latent_heat"],
+                         "density_unfrozen_kg_m3": inp["density_unfrozen"],
+                         "density_frozen_kg_m3": inp["density_frozen"],
+                         "c_unfrozen_J_kgK": inp["c_unfrozen"], "c_frozen_J_kgK": inp["c_frozen"],
+                         "k_frozen_W_mK": inp["k_frozen"]}
+        out["plank_s"] = ft.plank_time(args.shape, args.size, inp["density_frozen"], inp["latent_heat"],
+                                       inp["T_freeze"], Tm, args.h, inp["k_frozen"])
+        out["pham_s"] = ft.pham_time(args.shape, args.size, Ti, Tm, Tt, density_unfrozen=inp["density_unfrozen"],
+                                     density_frozen=inp["density_frozen"], c_unfrozen=inp["c_unfrozen"],
+                                     c_frozen=inp["c_frozen"], latent_heat=inp["latent_heat"],
+                                     k_frozen=inp["k_frozen"], h=args.h)
+    else:
+        out["plank_s"] = out["pham_s"] = math.nan  # the formulas here are for freezing
+    out["caution"] = ft.FREEZING_TIME_CAUTION
+    return out, sim
+
+
+def _hours(seconds: float) -> str:
+    return "n/a" if math.isnan(seconds) else f"{seconds / 3600.0:8.2f} h  ({seconds:9.0f} s)"
+
+
+def run(args: argparse.Namespace, recipe, inputs: list[str]) -> str:
+    """Computes, writes the plot if asked, and returns the text (or JSON) to print."""
+    from ._warnings import CAUTIONS
+
+    if args.plot:
+        from ._files import check_output_path
+
+        check_output_path(args.plot, inputs, "plot")
+    result, sim = _estimates(recipe, args)
+    if args.plot:
+        result["plot"] = sim.plot(args.plot, inputs=inputs)
+    if args.json:
+        clean = {k: (None if isinstance(v, float) and math.isnan(v) else v) for k, v in result.items()}
+        clean["cautions"] = list(CAUTIONS)
+        return json.dumps(clean, indent=2) + "\n"
+    lines = [
+        f"{result['mode'].capitalize()} time of '{getattr(recipe, 'name', 'recipe')}': {args.shape}, "
+        f"size {args.size:g} m, {args.initial:g} C in {args.medium:g} C, h = {args.h:g} W/(m2 K), "
+        f"target centre {args.target:g} C",
+        "",
+        f"  Plank (phase change only)   {_hours(result['plank_s'])}",
+        f"  Pham (1986)                 {_hours(result['pham_s'])}",
+        f"  enthalpy-method simulation  {_hours(result['simulation_s'])}   [{result['simulation_status']}]",
+    ]
+    if "inputs" in result:
+        i = result["inputs"]
+        lines += ["", f"  inputs: T_freeze {i['T_freeze_K'] - _C0:.2f} C, latent heat {i['latent_heat_J_kg'] / 1e3:.1f} kJ/kg, "
+                  f"density {i['density_unfrozen_kg_m3']:.0f}/{i['density_frozen_kg_m3']:.0f} kg/m3, "
+                  f"c {i['c_unfrozen_J_kgK']:.0f}/{i['c_frozen_J_kgK']:.0f} J/(kg K), "
+                  f"k_frozen {i['k_frozen_W_mK']:.2f} W/(m K)"]
+    if result.get("plot"):
+        lines += ["", f"  plot: {result['plot']}"]
+    lines += ["", "Caution: " + result["caution"]] + ["Caution: " + c for c in CAUTIONS]
+    return "\n".join(lines) + "\n"
