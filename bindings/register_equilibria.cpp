@@ -106,14 +106,15 @@ void register_equilibria(py::module_& m) {
   m.def(
       "temperature_for_ice_fraction",
       [](const solution& s, const array_in& fraction, const std::string& model,
-         const std::string& policy, double bound_water) {
+         const std::string& policy, double bound_fraction) {
         const auto pol = colligate::range_policy_from_string(policy);
-        eq::ice_curve curve(s, colligate::models::model_choice(model), bound_water);
+        eq::ice_curve curve(s, colligate::models::model_choice(model),
+                            colligate::bound_water_kg(s, bound_fraction, "temperature_for_ice_fraction"));
         return checked_over_array(
             fraction, [&](double f) { return eq::temperature_for_ice_fraction(curve, f, pol); });
       },
       py::arg("solution"), py::arg("ice_fraction"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0,
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
       "(temperatures K, first reason, count out of range) at which the solution has each ice "
       "fraction (ice mass over all the water), on one prepared ice curve.");
 

@@ -211,7 +211,7 @@ def temperature_for_ice_fraction(
     ice_fraction: Union[float, "np.typing.ArrayLike"],
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
 ) -> Union[float, np.ndarray]:
     """Temperature at which a solution has a given ice fraction (the inverse of
@@ -226,8 +226,8 @@ def temperature_for_ice_fraction(
         freezing point.
     model : str
         Activity model id (see :func:`models`).
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of all the water, in [0, 1).
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`), applied to the
         model's validity at the temperature found.
@@ -247,7 +247,7 @@ def temperature_for_ice_fraction(
     scalar = np.ndim(ice_fraction) == 0
     fractions = np.asarray(ice_fraction, dtype=float)
     values, reason, count = _core.temperature_for_ice_fraction(
-        _as_solution(solution), fractions, model, range_policy, float(bound_water)
+        _as_solution(solution), fractions, model, range_policy, float(bound_water_fraction_of_water)
     )
     _warn(reason, count)
     return float(values) if scalar else values
