@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -574,7 +574,7 @@ def brick_shape_factor(a: typing.SupportsFloat | typing.SupportsIndex, b: typing
     """
     EHTD of a rectangular brick with sides a, b, c (m); Hossain, Cleland & Cleland (1992).
     """
-def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.
     """
@@ -659,19 +659,19 @@ def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typi
     """
     Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).
     """
-def food_freezing_inputs(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, conductivity_rule: str = 'parallel') -> dict:
+def food_freezing_inputs(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, conductivity_rule: str = 'parallel') -> dict:
     """
     Inputs of Plank's and Pham's formulas for a food (SI).
     """
-def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
     """
     Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split into sensible and latent parts.
     """
-def food_properties(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
+def food_properties(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
     """
     Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg) and ice fraction of a food.
     """
-def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
+def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
 def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
@@ -775,7 +775,7 @@ def saturation_temperature(pressure: typing.SupportsFloat | typing.SupportsIndex
     """
     Boiling temperature of pure water, K, at P (Pa); Wagner & Pruss (1993), IAPWS.
     """
-def simulate_food(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
+def simulate_food(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
     """
     Enthalpy-method simulation of a food (properties from its ice curve).
     """
@@ -791,11 +791,11 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """
     The ice curve's state (IceCurveState) at ``temperature`` (K).
     """
