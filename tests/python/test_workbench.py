@@ -486,12 +486,13 @@ def test_solute_formulation_solver_names_the_blocking_bound():
 
 
 def test_comparison_keeps_ethanol_out_of_the_solids():
-    # USDA SR NDB 14037: an 80 proof spirit is 33.4 g ethanol per 100 g; 0.15 kg of it in a
-    # 1 kg batch is 5.01 % ethanol by mass, and none of it counts as dissolved solids.
+    # OIML R 22 (1975): a 40 %vol spirit is 33.30 g ethanol per 100 g (the spirit_40 entry);
+    # 0.15 kg of it in a 1 kg batch is 4.995 % ethanol by mass, and none of it counts as
+    # dissolved solids.
     r = cg.Recipe(ingredients={"spirit_40": 0.15, "sucrose": 0.12, "water": 0.73}, kind="frozen_cocktail")
     cmp_, _ = quiet(compare_recipes, [r, r.with_changes({"spirit_40": 0.10, "water": 0.78})])
     jsonschema.validate(cmp_, comparison_schema())
     first = cmp_["recipes"][0]
-    assert first["ethanol_mass_percent"] == pytest.approx(5.01, abs=1e-9)
+    assert first["ethanol_mass_percent"] == pytest.approx(4.995, abs=1e-9)
     assert first["dissolved_solids_mass_percent"] == pytest.approx(12.0, abs=1e-9)
     assert "ethanol (% of batch, by mass)" in format_comparison_text(cmp_)
