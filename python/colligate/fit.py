@@ -877,14 +877,15 @@ def run_fit_command(args: Any) -> str:
     data_path = os.fspath(args.data)
     stem = os.path.splitext(data_path)[0]
     plot_path = args.plot or f"{stem}_fit.png"
-    if args.model == "norrish" and args.save_solute and args.molar_mass is None:
-        raise _core.InvalidInputError(
-            "--molar-mass (kg/mol) is required to save a Norrish solute (--save-solute): the fit "
-            "itself uses molalities only; e.g. --molar-mass 0.3423 for sucrose")
     with OutputSet([data_path]) as out:
         out.plan(plot_path, "--plot")
         if args.save_solute:
             out.plan(args.save_solute, "--save-solute")
+        # checked after the paths and before reading or fitting anything
+        if args.model == "norrish" and args.save_solute and args.molar_mass is None:
+            raise _core.InvalidInputError(
+                "--molar-mass (kg/mol) is required to save a Norrish solute (--save-solute): the fit "
+                "itself uses molalities only; e.g. --molar-mass 0.3423 for sucrose")
         text = _fit_from_file(args, data_path, stem, plot_path, out)
         out.commit()
     return text
