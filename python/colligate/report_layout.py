@@ -145,8 +145,8 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         for row in summary:
             label = _COMPONENT_LABELS.get(row["component"], row["component"])
             lines.append(f"  {label:<22}{row['mass_kg']:10.4f}{row['mass_percent_of_batch']:12.2f}")
-        lines.append("  total solids leave out water and ethanol (what stays after drying); each figure")
-        lines.append("  comes from the ingredient data, whose sources are in the JSON report.")
+        lines.extend(_wrap("total solids leave out water and ethanol (what stays after drying); each "
+                           "figure comes from the ingredient data, whose sources are in the JSON report."))
         if report.get("ethanol_abv_percent_of_water_and_ethanol") is not None:
             lines.extend(_wrap(
                 f"alcohol: {report['ethanol_abv_percent_of_water_and_ethanol']:.2f} % ABV of the water-ethanol "
@@ -159,10 +159,10 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         molal = f"{m:15.4f}" if m is not None else f"{'':>15}"
         lines.append(f"  {row['component']:<20}{row['mass_kg']:10.4f}{row['mass_percent_of_aqueous_phase']:10.2f}{molal}")
     lines.append(f"  {'dissolved solids':<20}{'':>10}{report['dissolved_solids_mass_percent_of_aqueous_phase']:10.2f}"
-                 "   (°Brix-like, mass %; ethanol not counted)")
+                 "   (°Brix-like mass %, no ethanol)")
     if report.get("bound_water_fraction_of_water"):
-        lines.append(f"  water counted as unable to freeze: {100.0 * report['bound_water_fraction_of_water']:.2f} % "
-                     f"of the water ({report['bound_water_kg_of_aqueous_phase']:.4g} kg)")
+        lines.extend(_wrap(f"water counted as unable to freeze: {100.0 * report['bound_water_fraction_of_water']:.2f} % "
+                           f"of the water ({report['bound_water_kg_of_aqueous_phase']:.4g} kg)"))
 
     # key numbers
     lines += _heading("Key figures")
@@ -262,11 +262,12 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
             if row.get("state") == "below_eutectic":
                 lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: below eutectic")
                 continue
-            text = (f"sugars {row['sugars_g_per_100g_unfrozen_water']:.0f} g, salts "
-                    f"{row['salts_g_per_100g_unfrozen_water']:.1f} g")
+            lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: sugars "
+                         f"{row['sugars_g_per_100g_unfrozen_water']:.0f} g, salts "
+                         f"{row['salts_g_per_100g_unfrozen_water']:.1f} g per 100 g unfrozen water")
             if row["lactose_g_per_100g_unfrozen_water"] > 0:
-                text += f", lactose {row['lactose_g_per_100g_unfrozen_water']:.1f} g"
-            lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: {text} per 100 g unfrozen water")
+                lines.append(f"           lactose {row['lactose_g_per_100g_unfrozen_water']:.1f} g per 100 g "
+                             "unfrozen water")
         lac = ind.get("lactose_in_solution")
         if lac:
             verdict = ("above it: lactose may crystallise in storage (sandiness)" if lac["at_risk"]
