@@ -230,16 +230,23 @@ class Library:
     def load_file(self, path: "str | os.PathLike[str]") -> "Library":
         """Add the entries of a library file or of a fitted-solute file (``colligate fit
         --save-solute``). Returns self."""
+        from ._files import InputFileError, read_input_bytes
+
         where = os.fspath(path)
+        if not os.path.exists(where):
+            raise LibraryError(f"{where}: file not found")
         try:
-            with open(where, "rb") as fh:
-                doc = tomllib.load(fh)
-        except FileNotFoundError:
-            raise LibraryError(f"{where}: file not found") from None
+            raw = read_input_bytes(where, "library file")  # at most 10 MB, also for pipes
+        except InputFileError as exc:
+            raise LibraryError(str(exc)) from None
+        try:
+            doc = tomllib.loads(raw.decode("utf-8"))
+        except UnicodeDecodeError as exc:
+            raise LibraryError(f"{where}: not UTF-8 text (byte {exc.start})") from None
         except tomllib.TOMLDecodeError as exc:
             raise LibraryError(f"{where}: TOML syntax error: {exc}") from None
-        except OSError as exc:
-            raise LibraryError(f"{where}: cannot read file ({exc.strerror or exc})") from None
+        except RecursionError:
+            raise LibraryError(f"{where}: arrays or inline tables nested too deeply for the TOML reader") from None
         return self.add_document(doc, where)
 
     def add_document(self, doc: Mapping[str, Any], where: str) -> "Library":
@@ -250,8 +257,9 @@ class Library:
         if fmt != LIBRARY_FORMAT:
             raise LibraryError(f"{where}: format = {fmt!r}: expected '{LIBRARY_FORMAT}' (a library) or "
                                f"'{FITTED_SOLUTE_FORMAT}' (a file of colligate fit)")
-        if int(doc.get("version", 0)) > LIBRARY_VERSION:
-            raise LibraryError(f"{where}: version = {doc.get('version')}: this colligate reads up to {LIBRARY_VERSION}")
+        version = doc.get("version", 1)
+        if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= LIBRARY_VERSION:
+            raise LibraryError(f"{where}: version = {version!r}: this colligate reads versions 1 to {LIBRARY_VERSION}")
         return self.add_tables(doc, where, allowed_extra=("format", "version"))
 
     def add_tables(self, doc: Mapping[str, Any], where: str, *, allowed_extra: tuple = ()) -> "Library":
@@ -264,7 +272,7 @@ class Library:
             if name in doc and not isinstance(doc[name], dict):
                 raise LibraryError(f"{where}: {name} must be a table of tables ([{name}.<key>])")
         for sid, entry in dict(doc.get("solutes", {})).items():
-            self.add_solute(solute_from_entry(entry, f"{where}: [solutes.{sid}]", default_id=sid), origin=where)
+            self.add_solute(solute_from_entry(entry, where, table=f"solutes.{sid}", default_id=sid), origin=where)
         for key, entry in dict(doc.get("ingredients", {})).items():
             ing = ingredient_from_entry(key, entry, f"{where}: [ingredients.{key}]", table=self._table)
             self.add_ingredient(ing, origin=where)
