@@ -29,8 +29,8 @@ inline th::food_composition to_composition(const py::object& mapping) {
 }
 
 inline th::food make_food(const py::object& composition, const colligate::solution& s,
-                          double bound_water, const std::string& model) {
-  return th::food(to_composition(composition), s, bound_water,
+                          double bound_water_fraction_of_water, const std::string& model) {
+  return th::food(to_composition(composition), s, bound_water_fraction_of_water,
                   colligate::models::model_choice(model));
 }
 

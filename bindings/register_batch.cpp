@@ -52,13 +52,11 @@ void run_interruptible(colligate::batch::options& opt, Kernel kernel) {
 
 colligate::batch::options make_options(int threads, const std::string& policy, double bound) {
   if (threads < 0) throw colligate::invalid_input("threads = " + std::to_string(threads) + ": must be >= 0 (0 = all cores)");
-  if (!(bound >= 0.0 && bound < 1.0))
-    throw colligate::invalid_input(colligate::detail::describe(
-        "batch", "bound_water_fraction", bound, "must lie in [0, 1) (a share of each row's water)"));
+  colligate::check_bound_water_fraction_of_water("batch", bound);
   colligate::batch::options o;
   o.threads = static_cast<unsigned>(threads);
   o.policy = colligate::range_policy_from_string(policy);
-  o.bound_water_fraction = bound;
+  o.bound_water_fraction_of_water = bound;
   return o;
 }
 
@@ -108,7 +106,7 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
 
   m.def(
       "batch_water_activities",
@@ -144,7 +142,7 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperatures"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
 }
 
 }  // namespace colligate_bindings

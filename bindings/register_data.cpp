@@ -4,6 +4,8 @@
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
 
+#include "colligate/data/dairy_rules.hpp"
+#include "colligate/data/ethanol_water_density.hpp"
 #include "colligate/data/sugar_solubility.hpp"
 #include "colligate/data/sweetness.hpp"
 #include "register.hpp"
@@ -62,6 +64,18 @@ void register_data(py::module_& m) {
       "(K, scalar or array): linear interpolation in :func:`lactose_solubility_table`, held "
       "at the end values outside it.\n\nRaises ValueError for a temperature that is not "
       "finite and positive.");
+
+  m.def("ethanol_water_density_20c", &data::ethanol_water_density_20c, py::arg("ethanol_mass_fraction"),
+        "Density of an ethanol-water mixture at 20 C, kg/m3, for the ethanol mass fraction "
+        "(kg per kg of ethanol + water); OIML R 22 (1975), source key ``oiml_r22_1975``.");
+  m.def("alcohol_by_volume_20c", &data::alcohol_by_volume_20c, py::arg("ethanol_kg"), py::arg("water_kg"),
+        "Alcohol by volume at 20 C (volume fraction 0..1) of ``ethanol_kg`` ethanol in "
+        "``water_kg`` water, from the OIML R 22 (1975) density formula (``oiml_r22_1975``).");
+  m.attr("ETHANOL_DENSITY_20C") = data::ethanol_density_20c;
+  m.def("max_msnf_for_lactose_in_solution", &data::max_msnf_for_lactose_in_solution,
+        py::arg("water_fraction"), py::arg("msnf_fraction"),
+        "Largest milk solids-not-fat (kg per kg of mix) that keeps lactose in solution by the "
+        "rule of Hyde & Rothwell (1973), (water + MSNF) / 7; source key ``hyde_rothwell_1973``.");
 }
 
 }  // namespace colligate_bindings

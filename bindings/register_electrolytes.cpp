@@ -62,15 +62,16 @@ void register_electrolytes(py::module_& m) {
       py::arg("solution"), py::arg("temperature"), py::arg("parameter_set") = "spencer_1990_icefit");
   m.def(
       "eutectic",
-      [](const solution& s, const std::string& model, double bound_water) {
+      [](const solution& s, const std::string& model, double bound_fraction) {
         eq::eutectic_result r;
         {
           py::gil_scoped_release release;
-          r = eq::eutectic(s, colligate::models::model_choice(model), bound_water);
+          r = eq::eutectic(s, colligate::models::model_choice(model),
+                           colligate::bound_water_kg(s, bound_fraction, "eutectic"));
         }
         return std::make_tuple(r.temperature, r.found, r.phase, r.formula, r.source, r.reason);
       },
-      py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "(temperature K, found, phase, formula, source key, reason) of the eutectic.");
 }
 

@@ -92,48 +92,50 @@ void register_equilibria(py::module_& m) {
   m.def(
       "freezing_point",
       [](const solution& s, const std::string& model, const std::string& policy,
-         double bound_water) {
+         double bound_fraction) {
         return as_tuple(eq::freezing_point_checked(s, colligate::models::model_choice(model),
                                                    colligate::range_policy_from_string(policy),
-                                                   bound_water));
+                                                   colligate::bound_water_kg(s, bound_fraction, "freezing_point")));
       },
       py::arg("solution"), py::arg("model") = "auto", py::arg("range_policy") = "extrapolate",
-      py::arg("bound_water") = 0.0);
+      py::arg("bound_water_fraction_of_water") = 0.0);
   m.def(
       "ice_fraction",
       [](const solution& s,
          const array_in& temperature,
-         const std::string& model, const std::string& policy, double bound_water) {
+         const std::string& model, const std::string& policy, double bound_fraction) {
         const auto id = colligate::models::model_choice(model);
         const auto pol = colligate::range_policy_from_string(policy);
-        eq::ice_curve curve(s, id, bound_water);  // one curve for every temperature
+        eq::ice_curve curve(s, id, colligate::bound_water_kg(s, bound_fraction, "ice_fraction"));  // one curve for every temperature
         return checked_over_array(temperature,
                                   [&](double T) { return eq::ice_fraction_of(curve.at(T), pol); });
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
 
   m.def(
       "temperature_for_ice_fraction",
       [](const solution& s, const array_in& fraction, const std::string& model,
-         const std::string& policy, double bound_water) {
+         const std::string& policy, double bound_fraction) {
         const auto pol = colligate::range_policy_from_string(policy);
-        eq::ice_curve curve(s, colligate::models::model_choice(model), bound_water);
+        eq::ice_curve curve(s, colligate::models::model_choice(model),
+                            colligate::bound_water_kg(s, bound_fraction, "temperature_for_ice_fraction"));
         return checked_over_array(
             fraction, [&](double f) { return eq::temperature_for_ice_fraction(curve, f, pol); });
       },
       py::arg("solution"), py::arg("ice_fraction"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water") = 0.0,
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
       "(temperatures K, first reason, count out of range) at which the solution has each ice "
       "fraction (ice mass over all the water), on one prepared ice curve.");
 
   m.def(
       "unfrozen_phase",
-      [](const solution& s, double T, const std::string& model, double bound_water) {
-        return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model), bound_water);
+      [](const solution& s, double T, const std::string& model, double bound_fraction) {
+        return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model),
+                                     colligate::bound_water_kg(s, bound_fraction, "unfrozen_phase"));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("bound_water") = 0.0,
+      py::arg("bound_water_fraction_of_water") = 0.0,
       "The ice curve's state (IceCurveState) at ``temperature`` (K).");
   // The former name of the state class, kept for callers that name it.
   m.attr("UnfrozenPhaseState") = m.attr("IceCurveState");

@@ -181,12 +181,12 @@ void register_freezing_time(py::module_& m) {
       "Enthalpy-method simulation of a tabulated material (H in J/m^3, k in W/(m K) against T in K).");
   m.def(
       "simulate_food",
-      [](const py::object& composition, const colligate::solution& s, double bound_water,
+      [](const py::object& composition, const colligate::solution& s, double bound_fraction,
          const std::string& model, const std::string& shape, double size, double T_initial,
          std::vector<double> medium_time, std::vector<double> medium_temperature, double h,
          double T_target, double max_time, int intervals, double time_step, int record_every,
          const std::string& rule) {
-        const auto f = make_food(composition, s, bound_water, model);
+        const auto f = make_food(composition, s, bound_fraction, model);
         const auto in = make_setup(shape, size, T_initial, std::move(medium_time),
                                    std::move(medium_temperature), h, T_target, max_time, intervals,
                                    time_step, record_every);
@@ -198,7 +198,7 @@ void register_freezing_time(py::module_& m) {
         }
         return result_dict(r);
       },
-      py::arg("composition"), py::arg("solution"), py::arg("bound_water"), py::arg("model"),
+      py::arg("composition"), py::arg("solution"), py::arg("bound_water_fraction_of_water"), py::arg("model"),
       py::arg("shape"), py::arg("size"), py::arg("T_initial"), py::arg("medium_time"),
       py::arg("medium_temperature"), py::arg("h"), py::arg("T_target"), py::arg("max_time"),
       py::arg("intervals"), py::arg("time_step"), py::arg("record_every") = 1,
@@ -206,9 +206,9 @@ void register_freezing_time(py::module_& m) {
       "Enthalpy-method simulation of a food (properties from its ice curve).");
   m.def(
       "food_freezing_inputs",
-      [](const py::object& composition, const colligate::solution& s, double bound_water,
+      [](const py::object& composition, const colligate::solution& s, double bound_fraction,
          const std::string& model, double T_initial, double T_target, const std::string& rule) {
-        const auto f = make_food(composition, s, bound_water, model);
+        const auto f = make_food(composition, s, bound_fraction, model);
         const auto r = th::freezing_inputs_of_food(f, T_initial, T_target, rule_from_string(rule));
         py::dict d;
         d["T_freeze"] = r.initial_freezing_point;
@@ -220,14 +220,14 @@ void register_freezing_time(py::module_& m) {
         d["k_frozen"] = r.k_frozen;
         return d;
       },
-      py::arg("composition"), py::arg("solution"), py::arg("bound_water"), py::arg("model"),
+      py::arg("composition"), py::arg("solution"), py::arg("bound_water_fraction_of_water"), py::arg("model"),
       py::arg("T_initial"), py::arg("T_target"), py::arg("conductivity_rule") = "parallel",
       "Inputs of Plank's and Pham's formulas for a food (SI).");
   m.def(
       "food_properties",
-      [](const py::object& composition, const colligate::solution& s, double bound_water,
+      [](const py::object& composition, const colligate::solution& s, double bound_fraction,
          const std::string& model, const array_in& temperature, const std::string& rule) {
-        const auto f = make_food(composition, s, bound_water, model);
+        const auto f = make_food(composition, s, bound_fraction, model);
         const auto cr = rule_from_string(rule);
         const auto n = static_cast<std::size_t>(temperature.size());
         py::array_t<double> rho(n), k(n), H(n), ice(n);
@@ -252,7 +252,7 @@ void register_freezing_time(py::module_& m) {
         d["ice_fraction"] = ice;
         return d;
       },
-      py::arg("composition"), py::arg("solution"), py::arg("bound_water"), py::arg("model"),
+      py::arg("composition"), py::arg("solution"), py::arg("bound_water_fraction_of_water"), py::arg("model"),
       py::arg("temperature"), py::arg("conductivity_rule") = "parallel",
       "Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg) and ice fraction of a food.");
   m.def("saturation_pressure", &colligate::water::saturation_pressure, py::arg("temperature"),

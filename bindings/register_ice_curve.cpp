@@ -42,18 +42,19 @@ void register_ice_curve(py::module_& m) {
                     "The limit crossed, as a record (Validity).");
 
   bound_class<eq::ice_curve>(m, "IceCurve")
-      .def(py::init([](const solution& s, const std::string& model, double bound_water,
+      .def(py::init([](const solution& s, const std::string& model, double bound_fraction,
                        const std::string& path) {
              return std::make_unique<eq::ice_curve>(s, colligate::models::model_choice(model),
-                                                    bound_water,
+                                                    colligate::bound_water_kg(s, bound_fraction, "IceCurve"),
                                                     eq::crystallisation_path_from_string(path));
            }),
-           py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+           py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
            py::arg("path") = "equilibrium")
       .def_property_readonly("model", [](const eq::ice_curve& c) { return c.model().id; },
                              "Id of the model used ('auto' resolved).")
       .def_property_readonly("path", [](const eq::ice_curve& c) { return eq::to_string(c.path()); })
-      .def_property_readonly("bound_water", &eq::ice_curve::bound_water, "Unfreezable water, kg.")
+      .def_property_readonly("bound_water", &eq::ice_curve::bound_water,
+                             "Unfreezable water, kg (bound_water_fraction_of_water times the water).")
       .def_property_readonly(
           "freezing_point",
           [](eq::ice_curve& c) {

@@ -38,7 +38,7 @@ void register_thermal(py::module_& m) {
       py::arg("composition"), "Water fraction times the heat of fusion of ice at 0 C, J/kg of food.");
   m.def(
       "chen_frozen_specific_heat", &th::chen_frozen_specific_heat, py::arg("water_fraction"),
-      py::arg("solids_fraction"), py::arg("bound_water_fraction"), py::arg("initial_freezing_point"),
+      py::arg("solids_fraction"), py::arg("bound_water_fraction_of_water"), py::arg("initial_freezing_point"),
       py::arg("temperature"),
       "Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as "
       "presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.");
@@ -46,35 +46,35 @@ void register_thermal(py::module_& m) {
       "food_enthalpy",
       [](const py::object& composition, const colligate::solution& s,
          const array_in& temperature,
-         const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         auto curve = th::ice_curve_of(f);  // one curve for every temperature
         return checked_over_array(temperature, [&](double T) {
           return th::enthalpy(f, curve, T, colligate::range_policy::extrapolate);
         });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
-      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).");
   m.def(
       "food_apparent_specific_heat",
       [](const py::object& composition, const colligate::solution& s,
          const array_in& temperature,
-         const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         auto curve = th::ice_curve_of(f);
         return checked_over_array(temperature, [&](double T) {
           return th::apparent_specific_heat(f, curve, T, colligate::range_policy::extrapolate);
         });
       },
       py::arg("composition"), py::arg("solution"), py::arg("temperature"),
-      py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).");
   m.def(
       "food_heat_load",
       [](const py::object& composition, const colligate::solution& s, double from_temperature,
-         double to_temperature, const std::string& model, double bound_water) {
-        const auto f = make_food(composition, s, bound_water, model);
+         double to_temperature, const std::string& model, double bound_fraction) {
+        const auto f = make_food(composition, s, bound_fraction, model);
         th::heat_load_result r;
         {
           py::gil_scoped_release release;
@@ -90,7 +90,7 @@ void register_thermal(py::module_& m) {
         return d;
       },
       py::arg("composition"), py::arg("solution"), py::arg("from_temperature"),
-      py::arg("to_temperature"), py::arg("model") = "auto", py::arg("bound_water") = 0.0,
+      py::arg("to_temperature"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split "
       "into sensible and latent parts.");
   m.attr("ENTHALPY_REFERENCE_TEMPERATURE") = th::reference_temperature;

@@ -65,12 +65,13 @@ def rows(solute: str, max_percent: float, used_in_fit: str = "yes"):
 # solute: (published K or None, max mass percent fitted, number of higher-order terms)
 # K is fitted only where no published value reproduces the freezing data; the
 # higher-order terms only where one constant cannot (glycerol to 40 wt%). Ethanol has its
-# own fit (fit_ethanol).
-# For a published K (sucrose, glucose, fructose, mannitol) nothing is fitted and every CRC
-# row of the solute is marked used_in_fit = no.
+# own fit (fit_ethanol). Lactose takes sucrose's published K (the dairy texts count it as
+# sucrose; its CRC rows end at 8 wt%, too dilute to fix a constant for mixes).
+# For a published K (sucrose, glucose, fructose, mannitol, lactose) nothing is fitted and
+# every CRC row of the solute is marked used_in_fit = no.
 PLAN = {
     "sucrose": (6.47, 42, 0), "glucose": (2.25, 30, 0), "fructose": (2.25, 28, 0),
-    "maltose": (None, 44, 0), "lactose": (None, 100, 0), "glycerol": (None, 40, 1),
+    "maltose": (None, 44, 0), "lactose": (6.47, 100, 0), "glycerol": (None, 40, 1),
     "ethanol": None, "citric_acid": (None, 100, 0), "lactic_acid": (None, 100, 0),
     "mannitol": (0.906, 100, 0), "acetic_acid": (None, 100, 0),
 }

@@ -73,6 +73,9 @@ from .api import (  # noqa: E402,F401
     pitzer_parameter_sets,
     lactose_solubility,
     lactose_solubility_table,
+    alcohol_by_volume_20c,
+    ethanol_water_density_20c,
+    max_msnf_for_lactose_in_solution,
     solutes,
     sweetness_table,
     unfrozen_phase,
@@ -80,6 +83,7 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
+from .library import Library, LibraryError  # noqa: E402
 from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
 from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
 from .freezing_time import (  # noqa: E402,F401
@@ -143,6 +147,11 @@ __all__ = [
     "Ingredient",
     "ingredients",
     "Recipe",
+    "Library",
+    "LibraryError",
+    "alcohol_by_volume_20c",
+    "ethanol_water_density_20c",
+    "max_msnf_for_lactose_in_solution",
     "SuspectUnitWarning",
     "eutectic",
     "mean_activity_coefficient",

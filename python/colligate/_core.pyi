@@ -432,7 +432,7 @@ class IceCurve:
         'equilibrium' (crystallised salts stay in contact with the brine and may
         redissolve) or 'fractional' (each salt is removed as it forms).
     """
-    def __init__(self, solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
+    def __init__(self, solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
         ...
     def at(self, temperature: typing.SupportsFloat | typing.SupportsIndex) -> IceCurveState:
         """
@@ -461,7 +461,7 @@ class IceCurve:
     @property
     def bound_water(self) -> float:
         """
-        Unfreezable water, kg.
+        Unfreezable water, kg (bound_water_fraction_of_water times the water).
         """
     @property
     def end_reason(self) -> str:
@@ -559,9 +559,13 @@ class OutOfValidityRangeError(ValueError):
     pass
 class ConvergenceError(RuntimeError):
     pass
-def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def alcohol_by_volume_20c(ethanol_kg: typing.SupportsFloat | typing.SupportsIndex, water_kg: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Alcohol by volume at 20 C (volume fraction 0..1) of ``ethanol_kg`` ethanol in ``water_kg`` water, from the OIML R 22 (1975) density formula (``oiml_r22_1975``).
+    """
+def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
@@ -573,7 +577,7 @@ def brick_shape_factor(a: typing.SupportsFloat | typing.SupportsIndex, b: typing
     """
     EHTD of a rectangular brick with sides a, b, c (m); Hossain, Cleland & Cleland (1992).
     """
-def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+def chen_frozen_specific_heat(water_fraction: typing.SupportsFloat | typing.SupportsIndex, solids_fraction: typing.SupportsFloat | typing.SupportsIndex, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, initial_freezing_point: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Apparent specific heat of a frozen food, J/(kg K), by the Chen (1985) correlation as presented in ASHRAE Refrigeration (2006) ch. 9; temperatures in K.
     """
@@ -610,7 +614,11 @@ def enthalpy_of_fusion(temperature: typing.SupportsFloat | typing.SupportsIndex)
     """
     Molar enthalpy of fusion of ice at ``temperature`` (K), J/mol.
     """
-def eutectic(solution: Solution, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
+def ethanol_water_density_20c(ethanol_mass_fraction: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Density of an ethanol-water mixture at 20 C, kg/m3, for the ethanol mass fraction (kg per kg of ethanol + water); OIML R 22 (1975), source key ``oiml_r22_1975``.
+    """
+def eutectic(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
     """
     (temperature K, found, phase, formula, source key, reason) of the eutectic.
     """
@@ -646,29 +654,29 @@ def fit_pitzer_water_activity(salt: str, molality: typing.Annotated[numpy.typing
     """
     Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, a_w) at T (K; one or per row).
     """
-def food_apparent_specific_heat(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def food_apparent_specific_heat(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     Apparent specific heat dH/dT, J/(kg K); returns (values, first reason, count).
     """
-def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def food_enthalpy(composition: typing.Any, solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     Specific enthalpy, J/kg, H = 0 at 233.15 K; returns (values, first reason, count).
     """
-def food_freezing_inputs(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, conductivity_rule: str = 'parallel') -> dict:
+def food_freezing_inputs(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, conductivity_rule: str = 'parallel') -> dict:
     """
     Inputs of Plank's and Pham's formulas for a food (SI).
     """
-def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+def food_heat_load(composition: typing.Any, solution: Solution, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
     """
     Heat to remove per kg from ``from_temperature`` to ``to_temperature`` (K), J/kg, split into sensible and latent parts.
     """
-def food_properties(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
+def food_properties(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
     """
     Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg) and ice fraction of a food.
     """
-def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
+def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
-def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
 def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
@@ -711,6 +719,10 @@ def make_pitzer_solute_record(salt: str, id: str, name: str, beta0: typing.Suppo
 def make_solute_record(id: str, name: str, molar_mass: typing.SupportsFloat | typing.SupportsIndex, norrish_k: typing.SupportsFloat | typing.SupportsIndex, norrish_k3: typing.SupportsFloat | typing.SupportsIndex = 0.0, max_mass_fraction: typing.SupportsFloat | typing.SupportsIndex = 0.9, note: str = '') -> SoluteRecord:
     """
     A non-electrolyte record with user-fitted Norrish constants (molar mass in kg/mol).
+    """
+def max_msnf_for_lactose_in_solution(water_fraction: typing.SupportsFloat | typing.SupportsIndex, msnf_fraction: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Largest milk solids-not-fat (kg per kg of mix) that keeps lactose in solution by the rule of Hyde & Rothwell (1973), (water + MSNF) / 7; source key ``hyde_rothwell_1973``.
     """
 def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
@@ -766,7 +778,7 @@ def saturation_temperature(pressure: typing.SupportsFloat | typing.SupportsIndex
     """
     Boiling temperature of pure water, K, at P (Pa); Wagner & Pruss (1993), IAPWS.
     """
-def simulate_food(composition: typing.Any, solution: Solution, bound_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
+def simulate_food(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
     """
     Enthalpy-method simulation of a food (properties from its ice curve).
     """
@@ -782,11 +794,11 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """
     The ice curve's state (IceCurveState) at ``temperature`` (K).
     """
@@ -802,6 +814,7 @@ def water_activity_of_ice(temperature: typing.SupportsFloat | typing.SupportsInd
     """
 CRYOSCOPIC_CONSTANT: float = 1.8604572278991671
 ENTHALPY_REFERENCE_TEMPERATURE: float = 233.15
+ETHANOL_DENSITY_20C: float = 789.24
 GAS_CONSTANT: float = 8.314462618
 ICE_POINT: float = 273.15
 MOLAR_MASS_WATER: float = 0.018015268

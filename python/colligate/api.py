@@ -58,6 +58,9 @@ __all__ = [
     "sweetness_table",
     "lactose_solubility",
     "lactose_solubility_table",
+    "alcohol_by_volume_20c",
+    "ethanol_water_density_20c",
+    "max_msnf_for_lactose_in_solution",
     "InvalidInputError",
     "OutOfValidityRangeError",
     "OutOfValidityRangeWarning",
@@ -83,7 +86,7 @@ def freezing_point(
     solution: Solution,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
 ) -> float:
     """Initial freezing point of a solution.
@@ -95,8 +98,9 @@ def freezing_point(
     model : str
         Activity model id: "auto", "ideal", "raoult", "norrish", "pitzer" or "ross" (see
         :func:`models`).
-    bound_water : float
-        Water that cannot freeze (e.g. bound to protein), kg; taken out of the solvent.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze (e.g. bound to protein), kg per kg of all the water of the
+        solution, in [0, 1); taken out of the solvent.
     range_policy : str
         Outside the model's validated range: "extrapolate" (compute and warn, default),
         "nan" (return NaN and warn) or "raise" (:class:`OutOfValidityRangeError`).
@@ -108,8 +112,10 @@ def freezing_point(
         above 223.15 K.
     """
     if isinstance(solution, SolutionBatch):
-        return batch_freezing_point(solution, model, range_policy=range_policy)
-    value, reason = _core.freezing_point(_as_solution(solution), model, range_policy, bound_water)
+        return batch_freezing_point(solution, model, range_policy=range_policy,
+                                    bound_water_fraction_of_water=bound_water_fraction_of_water)
+    value, reason = _core.freezing_point(_as_solution(solution), model, range_policy,
+                                         bound_water_fraction_of_water)
     _warn(reason)
     return value
 
@@ -164,7 +170,7 @@ def ice_fraction(
     T: Temperature,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
 ) -> Union[float, np.ndarray]:
     """Ice mass over total water mass at temperature(s) ``T``.
@@ -177,8 +183,9 @@ def ice_fraction(
         Temperature(s), K. Above the freezing point the ice fraction is 0.
     model : str
         Activity model id (see :func:`models`).
-    bound_water : float
-        Water that cannot freeze, kg (neither ice nor solvent).
+    bound_water_fraction_of_water : float
+        Water that cannot freeze (neither ice nor solvent), kg per kg of all the water, in
+        [0, 1); the ice fraction stays below 1 minus this share.
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
 
@@ -188,11 +195,12 @@ def ice_fraction(
         Ice fraction in [0, 1), same shape as ``T``.
     """
     if isinstance(solution, SolutionBatch):
-        return batch_ice_fraction(solution, T, model, range_policy=range_policy)
+        return batch_ice_fraction(solution, T, model, range_policy=range_policy,
+                                  bound_water_fraction_of_water=bound_water_fraction_of_water)
     scalar = np.ndim(T) == 0
     temps = np.asarray(T, dtype=float)
     values, reason, count = _core.ice_fraction(
-        _as_solution(solution), temps, model, range_policy, bound_water
+        _as_solution(solution), temps, model, range_policy, bound_water_fraction_of_water
     )
     _warn(reason, count)
     return float(values) if scalar else values
@@ -203,7 +211,7 @@ def temperature_for_ice_fraction(
     ice_fraction: Union[float, "np.typing.ArrayLike"],
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
 ) -> Union[float, np.ndarray]:
     """Temperature at which a solution has a given ice fraction (the inverse of
@@ -218,8 +226,8 @@ def temperature_for_ice_fraction(
         freezing point.
     model : str
         Activity model id (see :func:`models`).
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of all the water, in [0, 1).
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`), applied to the
         model's validity at the temperature found.
@@ -239,7 +247,7 @@ def temperature_for_ice_fraction(
     scalar = np.ndim(ice_fraction) == 0
     fractions = np.asarray(ice_fraction, dtype=float)
     values, reason, count = _core.temperature_for_ice_fraction(
-        _as_solution(solution), fractions, model, range_policy, float(bound_water)
+        _as_solution(solution), fractions, model, range_policy, float(bound_water_fraction_of_water)
     )
     _warn(reason, count)
     return float(values) if scalar else values
@@ -282,16 +290,17 @@ def unfrozen_phase(
     T: float,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
 ) -> UnfrozenPhase:
     """Ice, unfrozen water and the unfrozen solution at temperature ``T`` (K).
 
     Returns an :class:`UnfrozenPhase` with ``temperature`` (K), ``ice``,
-    ``unfrozen_water``, ``bound_water``, ``total_water`` (kg), ``ice_fraction``,
+    ``unfrozen_water``, ``bound_water``, ``total_water`` (kg, on the scale of the solution),
+    ``ice_fraction``,
     ``water_activity`` and ``solution`` (the unfrozen liquid as a :class:`Solution`).
     """
     s = _as_solution(solution)
-    state = _core.unfrozen_phase(s, float(T), model, bound_water)
+    state = _core.unfrozen_phase(s, float(T), model, bound_water_fraction_of_water)
     _warn(state.reason)
     return UnfrozenPhase(state, unfrozen_liquid(s, state))
 
@@ -329,11 +338,12 @@ class UnfrozenPhase:
 
 
 def _thermal_call(core_fn, composition: Mapping[str, float], solution: Any, T: Temperature,
-                  model: str, bound_water: float) -> Union[float, np.ndarray]:
+                  model: str, bound_water_fraction_of_water: float) -> Union[float, np.ndarray]:
     """Calls a compiled thermal function over scalar or array T, turning reasons into warnings."""
     comp = {str(k): float(v) for k, v in dict(composition).items()}
     scalar = np.ndim(T) == 0
-    values, reason, count = core_fn(comp, _as_solution(solution), np.asarray(T, dtype=float), model, bound_water)
+    values, reason, count = core_fn(comp, _as_solution(solution), np.asarray(T, dtype=float), model,
+                                    bound_water_fraction_of_water)
     _warn(reason, count)
     return float(values) if scalar else values
 
@@ -344,7 +354,7 @@ def enthalpy(
     T: Temperature,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
 ) -> Union[float, np.ndarray]:
     """Specific enthalpy of a food, J/kg, with H = 0 at 233.15 K (-40 C).
 
@@ -358,10 +368,10 @@ def enthalpy(
         Temperature(s), K, 233.15-313.15.
     model : str
         Activity model id of the ice curve.
-    bound_water : float
-        Unfreezable water, kg per kg of food.
+    bound_water_fraction_of_water : float
+        Unfreezable water, kg per kg of the food's water, in [0, 1).
     """
-    return _thermal_call(_core.food_enthalpy, composition, solution, T, model, bound_water)
+    return _thermal_call(_core.food_enthalpy, composition, solution, T, model, bound_water_fraction_of_water)
 
 
 def apparent_specific_heat(
@@ -370,10 +380,11 @@ def apparent_specific_heat(
     T: Temperature,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
 ) -> Union[float, np.ndarray]:
     """Apparent specific heat dH/dT of a food, J/(kg K) (arguments as :func:`enthalpy`)."""
-    return _thermal_call(_core.food_apparent_specific_heat, composition, solution, T, model, bound_water)
+    return _thermal_call(_core.food_apparent_specific_heat, composition, solution, T, model,
+                        bound_water_fraction_of_water)
 
 
 def frozen_specific_heat_chen(
@@ -382,7 +393,7 @@ def frozen_specific_heat_chen(
     initial_freezing_point: float,
     T: float,
     *,
-    bound_water_fraction: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
 ) -> float:
     """Apparent specific heat of a frozen food by the Chen (1985) correlation, J/(kg K).
 
@@ -393,12 +404,15 @@ def frozen_specific_heat_chen(
 
     Parameters
     ----------
-    water_fraction, solids_fraction, bound_water_fraction : float
+    water_fraction, solids_fraction : float
         Mass fractions of the food.
+    bound_water_fraction_of_water : float
+        Unfreezable water, kg per kg of the food's water (Chen's x_b is this times
+        ``water_fraction``).
     initial_freezing_point, T : float
         Initial freezing point and temperature, K (T below the freezing point).
     """
-    return float(_core.chen_frozen_specific_heat(water_fraction, solids_fraction, bound_water_fraction,
+    return float(_core.chen_frozen_specific_heat(water_fraction, solids_fraction, bound_water_fraction_of_water,
                                                  initial_freezing_point, T))
 
 
@@ -409,7 +423,7 @@ def heat_load(
     to_T: float,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
 ) -> dict[str, float]:
     """Heat to remove per kg of food from ``from_T`` to ``to_T`` (K).
 
@@ -417,7 +431,8 @@ def heat_load(
     cooling) and ``ice_fraction_from``, ``ice_fraction_to``.
     """
     comp = {str(k): float(v) for k, v in dict(composition).items()}
-    out = dict(_core.food_heat_load(comp, _as_solution(solution), float(from_T), float(to_T), model, bound_water))
+    out = dict(_core.food_heat_load(comp, _as_solution(solution), float(from_T), float(to_T), model,
+                                    bound_water_fraction_of_water))
     _warn(out.pop("reason"))
     return out
 
@@ -475,7 +490,7 @@ def citation(key: str) -> Mapping[str, Any]:
     return dict(_core.citation(key))
 
 
-def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.0,
+def eutectic(solution: Solution, model: str = "auto", *, bound_water_fraction_of_water: float = 0.0,
              path: str = "equilibrium") -> dict:
     """Where the ice curve of a salt solution ends: its final eutectic.
 
@@ -487,7 +502,7 @@ def eutectic(solution: Solution, model: str = "auto", *, bound_water: float = 0.
     the path with its onset). Brine and ice-salt-bath temperatures are model estimates:
     see :data:`CAUTIONS`.
     """
-    return eutectic_of(IceCurve(_as_solution(solution), model, bound_water, path))
+    return eutectic_of(IceCurve(_as_solution(solution), model, bound_water_fraction_of_water, path))
 
 
 def eutectic_of(curve: IceCurve) -> dict:
@@ -542,3 +557,24 @@ def lactose_solubility(T: Temperature) -> Union[float, np.ndarray]:
     """
     out = _core.lactose_solubility(np.asarray(T, dtype=float))
     return float(out) if np.ndim(T) == 0 else out
+
+
+def ethanol_water_density_20c(ethanol_mass_fraction: float) -> float:
+    """Density of an ethanol-water mixture at 20 degC, kg/m3, for the ethanol mass fraction
+    (kg per kg of ethanol + water); the OIML R 22 (1975) formula of the International
+    Alcoholometric Tables, from the core (source key ``oiml_r22_1975``)."""
+    return float(_core.ethanol_water_density_20c(float(ethanol_mass_fraction)))
+
+
+def alcohol_by_volume_20c(ethanol_kg: float, water_kg: float) -> float:
+    """Alcohol by volume at 20 degC (a volume fraction, 0..1; times 100 for % ABV) of
+    ``ethanol_kg`` ethanol in ``water_kg`` water, from the OIML R 22 (1975) densities in the
+    core. Dissolved solids are not part of this volume."""
+    return float(_core.alcohol_by_volume_20c(float(ethanol_kg), float(water_kg)))
+
+
+def max_msnf_for_lactose_in_solution(water_fraction: float, msnf_fraction: float) -> float:
+    """Largest milk solids-not-fat, kg per kg of mix, that keeps the lactose of an ice-cream
+    mix in solution by the rule of Hyde & Rothwell (1973): (water + MSNF) / 7 (from the
+    core; source key ``hyde_rothwell_1973``)."""
+    return float(_core.max_msnf_for_lactose_in_solution(float(water_fraction), float(msnf_fraction)))

@@ -25,6 +25,20 @@ class BatchRowWarning(UserWarning):
     """Some rows of a batch were invalid, out of range or did not converge."""
 
 
+def _numeric_column(name: str, values: Any) -> np.ndarray:
+    """One column as float64; a column that is not numeric is an error naming it."""
+    try:
+        col = np.asarray(values, dtype=float)
+    except (TypeError, ValueError) as exc:
+        raise _core.InvalidInputError(
+            f"column '{name}': not numeric ({exc}); give each solute's amounts as numbers") from None
+    if col.ndim > 1:
+        raise _core.InvalidInputError(
+            f"column '{name}' has shape {col.shape}: each column must be 1-D (one value per "
+            "row); give one column per solute")
+    return col.ravel()
+
+
 def _columns(table: Any) -> tuple[list[str], np.ndarray, Optional[Any]]:
     """Species names, a C-contiguous float64 matrix and the caller's index (if pandas)."""
     try:
@@ -32,17 +46,16 @@ def _columns(table: Any) -> tuple[list[str], np.ndarray, Optional[Any]]:
     except ImportError:  # pragma: no cover
         pd = None
     if pd is not None and isinstance(table, pd.DataFrame):
-        return [str(c) for c in table.columns], np.ascontiguousarray(table.to_numpy(dtype=float)), table.index
+        names = [str(c) for c in table.columns]
+        if len(set(names)) != len(names):
+            dup = next(n for n in names if names.count(n) > 1)
+            raise _core.InvalidInputError(f"column '{dup}' appears more than once; one column per solute")
+        cols = [_numeric_column(n, table[c]) for n, c in zip(names, table.columns)]
+        data = np.column_stack(cols) if cols else np.zeros((len(table.index), 0))
+        return names, np.ascontiguousarray(data, dtype=float), table.index
     if isinstance(table, Mapping):
         names = [str(k) for k in table]
-        cols = []
-        for k in table:
-            col = np.asarray(table[k], dtype=float)
-            if col.ndim > 1:
-                raise _core.InvalidInputError(
-                    f"column '{k}' has shape {col.shape}: each column must be 1-D (one value per "
-                    "row); give one column per solute")
-            cols.append(col.ravel())
+        cols = [_numeric_column(str(k), table[k]) for k in table]
         lengths = {len(c) for c in cols}
         if len(lengths) > 1:
             raise _core.InvalidInputError(f"all columns must have the same length, got {sorted(lengths)}")
@@ -61,21 +74,25 @@ class SolutionBatch:
     arrays, or pandas objects with the caller's index when built from a DataFrame.
     """
 
-    def __init__(self, core: "_core.SolutionBatchCore", index: Optional[Any] = None) -> None:
+    def __init__(self, core: "_core.SolutionBatchCore", index: Optional[Any] = None, *,
+                 data: Optional[np.ndarray] = None, basis: str = "") -> None:
         self._core = core
         self.index = index
+        self._data = data    # the caller's matrix, to name the bad cells in warnings
+        self._basis = basis
 
     @classmethod
     def from_mass_fractions(cls, table: Any) -> "SolutionBatch":
         """Rows of solute mass fractions (each row's remainder is water)."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data), index)
+        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data), index, data=data,
+                   basis="mass_fractions")
 
     @classmethod
     def from_molalities(cls, table: Any) -> "SolutionBatch":
         """Rows of molalities, mol per kg of water."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_molalities(names, data), index)
+        return cls(_core.SolutionBatchCore.from_molalities(names, data), index, data=data, basis="molalities")
 
     @property
     def species(self) -> list[str]:
@@ -88,7 +105,31 @@ class SolutionBatch:
         return f"SolutionBatch(rows={len(self)}, species={self.species})"
 
 
-def _report(status: np.ndarray, what: str) -> None:
+def _row_problems(batch: "SolutionBatch", status: np.ndarray) -> str:
+    """The first rows with a bad status, by the caller's index label (at most 5), each with
+    the column at fault where the input shows it (negative or not finite, or mass fractions
+    adding up to 1 or more)."""
+    flat = status if status.ndim == 1 else status.max(axis=1)
+    rows = np.flatnonzero((flat != OK) & (flat != OUT_OF_RANGE))[:5]
+    if rows.size == 0:
+        return ""
+    names = batch.species
+    parts = []
+    for i in rows:
+        label = str(batch.index[i]) if batch.index is not None else str(i)
+        why = ""
+        if batch._data is not None and batch._data.shape[1] == len(names):
+            row = batch._data[i]
+            bad = [f"{names[j]} = {row[j]:g}" for j in range(len(names)) if not (np.isfinite(row[j]) and row[j] >= 0.0)]
+            if bad:
+                why = f" ({', '.join(bad)})"
+            elif batch._basis == "mass_fractions" and row.sum() >= 1.0:
+                why = f" (mass fractions add up to {row.sum():g})"
+        parts.append(label + why)
+    return f"; first rows: {', '.join(parts)}"
+
+
+def _report(status: np.ndarray, what: str, batch: "Optional[SolutionBatch]" = None) -> None:
     from ._warnings import OutOfValidityRangeWarning
 
     n_range = int(np.count_nonzero(status == OUT_OF_RANGE))
@@ -99,10 +140,12 @@ def _report(status: np.ndarray, what: str) -> None:
     if np.any(bad):
         codes, counts = np.unique(status[bad], return_counts=True)
         parts = [f"{n} row(s): {ROW_STATUS[c]}" for c, n in zip(codes, counts)]
-        warnings.warn(f"{what}: " + "; ".join(parts) + " (values NaN)", BatchRowWarning, stacklevel=3)
+        where = _row_problems(batch, status) if batch is not None else ""
+        warnings.warn(f"{what}: " + "; ".join(parts) + " (values NaN)" + where, BatchRowWarning, stacklevel=3)
 
 
 def _wrap(values: np.ndarray, batch: SolutionBatch, name: str, columns: Optional[Sequence[float]] = None):
+    """Values (or row status codes) with the caller's index when the batch came from pandas."""
     if batch.index is None:
         return values
     import pandas as pd
@@ -112,38 +155,46 @@ def _wrap(values: np.ndarray, batch: SolutionBatch, name: str, columns: Optional
     return pd.DataFrame(values, index=batch.index, columns=[f"{name}_{t:g}K" for t in columns])
 
 
+def _result(values, status, batch, name, return_status, temps=None):
+    out = _wrap(values, batch, name, temps)
+    if not return_status:
+        return out
+    # status codes: a Series named "status", or a DataFrame with the value columns' names
+    return out, _wrap(status, batch, "status" if temps is None else name, temps)
+
+
 def batch_freezing_point(batch: SolutionBatch, model: str = "auto", *, threads: int = 0,
-                         range_policy: str = "extrapolate", bound_water_fraction: float = 0.0,
+                         range_policy: str = "extrapolate", bound_water_fraction_of_water: float = 0.0,
                          return_status: bool = False):
-    """Initial freezing point of every row, K (NaN for failed rows)."""
-    values, status = _core.batch_freezing_points(batch._core, model, threads, range_policy, bound_water_fraction)
-    _report(status, "freezing_point")
-    out = _wrap(values, batch, "freezing_point_K")
-    return (out, status) if return_status else out
+    """Initial freezing point of every row, K (NaN for failed rows).
+
+    ``bound_water_fraction_of_water``: water that cannot freeze, kg per kg of each row's
+    water, in [0, 1) (as in :func:`colligate.freezing_point`). With ``return_status`` the
+    row status codes (see :data:`ROW_STATUS`) come back too, with the caller's index."""
+    values, status = _core.batch_freezing_points(batch._core, model, threads, range_policy,
+                                                 bound_water_fraction_of_water)
+    _report(status, "freezing_point", batch)
+    return _result(values, status, batch, "freezing_point_K", return_status)
 
 
 def batch_water_activity(batch: SolutionBatch, T: float = 298.15, model: str = "auto", *,
                          threads: int = 0, range_policy: str = "extrapolate", return_status: bool = False):
     """Water activity of every row at temperature ``T`` (K)."""
     values, status = _core.batch_water_activities(batch._core, float(T), model, threads, range_policy)
-    _report(status, "water_activity")
-    out = _wrap(values, batch, "water_activity")
-    return (out, status) if return_status else out
+    _report(status, "water_activity", batch)
+    return _result(values, status, batch, "water_activity", return_status)
 
 
 def batch_ice_fraction(batch: SolutionBatch, T: Union[float, Sequence[float]], model: str = "auto", *,
                        threads: int = 0, range_policy: str = "extrapolate",
-                       bound_water_fraction: float = 0.0, return_status: bool = False):
+                       bound_water_fraction_of_water: float = 0.0, return_status: bool = False):
     """Ice fraction of every row at each temperature in ``T`` (K): shape (rows,) for a
     scalar ``T``, (rows, len(T)) otherwise."""
     scalar = np.ndim(T) == 0
     temps = np.atleast_1d(np.asarray(T, dtype=float))
     values, status = _core.batch_ice_fractions(batch._core, temps, model, threads, range_policy,
-                                               bound_water_fraction)
-    _report(status, "ice_fraction")
+                                               bound_water_fraction_of_water)
+    _report(status, "ice_fraction", batch)
     if scalar:
-        values, status = values[:, 0], status[:, 0]
-        out = _wrap(values, batch, "ice_fraction")
-    else:
-        out = _wrap(values, batch, "ice_fraction", temps)
-    return (out, status) if return_status else out
+        return _result(values[:, 0], status[:, 0], batch, "ice_fraction", return_status)
+    return _result(values, status, batch, "ice_fraction", return_status, temps)

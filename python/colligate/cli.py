@@ -38,9 +38,11 @@ stderr, no traceback), 130 after Ctrl-C (``colligate: interrupted``; also while
 Python is still importing, through the launcher ``_colligate_cli``), 143 after SIGTERM
 (the installed command), 3 on an internal error (a bug: one line;
 ``COLLIGATE_TRACEBACK=1`` shows where).
-Validity-range warnings are printed as one line each on stderr and do not change
-the exit status. A command writes all its files or none: each goes to a temporary
-file, and all are renamed into place only once everything has been computed.
+``demo`` and ``report`` show each warning once, grouped, in the report (text or JSON),
+not on stderr; the other commands print their warnings as one line each on stderr.
+Warnings do not change the exit status. A command writes all its files or none: each
+goes to a temporary file, and all are renamed into place only once everything has been
+computed.
 """
 
 from __future__ import annotations
@@ -142,8 +144,10 @@ def _build_parser() -> argparse.ArgumentParser:
     common(p_cmp)
 
     p_fit = sub.add_parser("fit", help="fit model constants to a CSV of your own data (see colligate.fit)")
-    p_fit.add_argument("data", metavar="DATA.csv", help="CSV with SI columns (molality, water_activity or "
-                       "freezing_point_K; water_fraction, freezing_point_K or temperature_K + ice_fraction)")
+    p_fit.add_argument("data", metavar="DATA.csv", help="CSV whose header names the units: concentration as "
+                       "molality, mass_fraction or mass_percent (wt%%); temperatures as freezing_point_K or "
+                       "freezing_point_C, temperature_K or temperature_C; water_activity, osmotic_coefficient; "
+                       "effective: water_fraction + freezing point, or temperature + ice_fraction")
     p_fit.add_argument("--model", choices=["norrish", "effective", "pitzer"], required=True, help="what to fit")
     p_fit.add_argument("--salt", help="pitzer: the salt whose parameters are fitted (e.g. NaCl); columns "
                        "molality + osmotic_coefficient, water_activity or freezing_point_K (+ temperature_K)")
@@ -153,7 +157,8 @@ def _build_parser() -> argparse.ArgumentParser:
     p_fit.add_argument("--k3", action="store_true", help="norrish: also fit the cubic constant K3")
     p_fit.add_argument("--plot", metavar="PNG", help="plot file (default: DATA_fit.png beside the data)")
     p_fit.add_argument("--name", help="name of the fitted solute (with --save-solute)")
-    p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol")
+    p_fit.add_argument("--molar-mass", type=float, help="norrish: molar mass of the solute, kg/mol (needed "
+                       "with a mass_fraction or mass_percent column and with --save-solute)")
     p_fit.add_argument("--save-solute", metavar="FILE", help="write the fitted solute as TOML")
     from .cli_freeze_time import add_parser as add_freeze_time
 
@@ -185,9 +190,9 @@ def _run(args: argparse.Namespace) -> int:
     if args.command == "side-by-side":
         return _run_side_by_side(args)
 
-    from .plot import check_plot_path, plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
+    from .plot import check_plot_path
     from .recipe import load_demo_recipe, load_recipe
-    from .report import build_report, format_json, format_text, ice_enthalpy_table, write_table_csv
+    from .report import build_report, format_json, format_text
 
     # outputs: key in the report's "files" -> (path, option name for messages)
     outputs: dict[str, tuple[str, str]] = {}
@@ -229,35 +234,12 @@ def _run(args: argparse.Namespace) -> int:
             out.plan(args.save, "--save")
 
         report = build_report(recipe)
-        title = recipe.name
-        label = recipe.label or None
         written: dict[str, str] = {}
-        for key, (path, option) in outputs.items():
-            if key == "ice_curve_png":
-                done = plot_ice_curve(
-                    recipe.solution(),
-                    path,
-                    marks=recipe.temperatures,
-                    model=recipe.model,
-                    bound_water=recipe.bound_water,
-                    title=f"Ice curve: {title}",
-                    label=label,
-                    inputs=inputs,
-                    outputs=out,
-                    fahrenheit=args.fahrenheit,
-                )
-            elif key == "enthalpy_png":
-                done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
-                                     label=label, inputs=inputs, outputs=out)
-            elif key == "cooling_curve_png":
-                done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label,
-                                          inputs=inputs, outputs=out)
-            elif key == "contributions_png":
-                done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
-                                          inputs=inputs, outputs=out)
-            else:
-                done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option, outputs=out)
-            written[key] = os.path.abspath(done)
+        # Warnings of the plots and the table join the report's own (once each); none go to stderr.
+        with warnings.catch_warnings(record=True) as caught:
+            warnings.simplefilter("always")
+            _write_outputs(recipe, outputs, inputs, written, out, args.fahrenheit)
+        _merge_warnings(report, caught)
         if written:
             cautions = report.pop("cautions")
             report["files"] = written
@@ -270,6 +252,53 @@ def _run(args: argparse.Namespace) -> int:
     sys.stdout.write(text)
     sys.stdout.flush()
     return EXIT_OK
+
+
+def _write_outputs(recipe, outputs, inputs, written, out, fahrenheit: bool) -> None:
+    """Write the plots and the table asked for into the output set ``out``; record each
+    path written in ``written``."""
+    from .plot import plot_contributions, plot_cooling_curve, plot_enthalpy, plot_ice_curve
+    from .report import ice_enthalpy_table, write_table_csv
+
+    title = recipe.name
+    label = recipe.label or None
+    for key, (path, option) in outputs.items():
+        if key == "ice_curve_png":
+            done = plot_ice_curve(
+                recipe.solution(),
+                path,
+                marks=recipe.temperatures,
+                model=recipe.model,
+                bound_water_fraction_of_water=recipe.bound_water_fraction_of_water,
+                title=f"Ice curve: {title}",
+                label=label,
+                inputs=inputs,
+                outputs=out,
+                fahrenheit=fahrenheit,
+            )
+        elif key == "enthalpy_png":
+            done = plot_enthalpy(recipe, path, title=f"Enthalpy and apparent specific heat: {title}",
+                                 label=label, inputs=inputs, outputs=out)
+        elif key == "cooling_curve_png":
+            done = plot_cooling_curve(recipe, path, title=f"Cooling curve: {title}", label=label,
+                                      inputs=inputs, outputs=out)
+        elif key == "contributions_png":
+            done = plot_contributions(recipe, path, title=f"What each ingredient does: {title}", label=label,
+                                      inputs=inputs, outputs=out)
+        else:
+            done = write_table_csv(ice_enthalpy_table(recipe), path, inputs, option, outputs=out)
+        written[key] = os.path.abspath(done)
+
+
+def _merge_warnings(report: dict, caught: Sequence[warnings.WarningMessage]) -> None:
+    """Add warnings raised after the report was built, unless the report already has them."""
+    from .report_indicators import _warning_key, group_warnings
+
+    known = {_warning_key(w["message"]) for w in report["warnings"]}
+    for w in group_warnings(caught):
+        if _warning_key(w["message"]) not in known:
+            report["warnings"].append(w)
+            known.add(_warning_key(w["message"]))
 
 
 def _run_side_by_side(args: argparse.Namespace) -> int:

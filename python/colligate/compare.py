@@ -61,7 +61,7 @@ def _temps(t_k: float) -> dict[str, float]:
 
 def _one(recipe: Recipe, temps_k: Sequence[float], fractions: Sequence[float]) -> dict[str, Any]:
     solution = recipe.solution()
-    bound = float(recipe.bound_water or 0.0)
+    bound = float(recipe.bound_water_fraction_of_water or 0.0)
     path = IcePath(solution, recipe.model, bound)
     batch = float(recipe.total_mass)
     tf = path.freezing_point
@@ -121,7 +121,7 @@ def _one(recipe: Recipe, temps_k: Sequence[float], fractions: Sequence[float]) -
         "ethanol_mass_percent": 100.0 * float(sum(v for k, v in solution.solutes.items()
                                                   if _solute_id(k) == "ethanol")) / batch,
         "sweetness_sucrose_equivalent_mass_percent": 100.0 * sucrose_equivalent_kg(solution.solutes) / batch,
-        "bound_water_kg": bound,
+        "bound_water_kg": bound * float(solution.water),  # the share of the water, as kg
         "freezing_point_K": _f(tf),
         "freezing_point_C": _f(celsius_from_kelvin(tf)) if math.isfinite(tf) else None,
         "freezing_point_F": _f(fahrenheit_from_kelvin(tf)) if math.isfinite(tf) else None,
@@ -357,7 +357,7 @@ def plot_comparison(
     ax = fig.add_subplot(1, 1, 1)
     for i, r in enumerate(recipes):
         solution = r.solution()
-        p = IcePath(solution, r.model, float(r.bound_water or 0.0))
+        p = IcePath(solution, r.model, float(r.bound_water_fraction_of_water or 0.0))
         tf = p.freezing_point
         eut = p.eutectic_temperature if electrolytes(solution) else None
         grid = np.linspace(warm_c, cold_c, points)

@@ -114,7 +114,7 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
     solution = recipe.solution()
     water = float(solution.water)
     model = recipe.model
-    bound = float(recipe.bound_water or 0.0)
+    bound = float(recipe.bound_water_fraction_of_water or 0.0)
     notes: list[str] = []
 
     def alone(solutes: Mapping[str, float]) -> "api.Solution | None":
@@ -122,7 +122,7 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
         return api.Solution(water=water, solutes=s) if s else None
 
     # depression
-    tf, n = _quiet(api.freezing_point, solution, model=model, bound_water=bound)
+    tf, n = _quiet(api.freezing_point, solution, model=model, bound_water_fraction_of_water=bound)
     notes += n
     depression = ZERO_CELSIUS_K - tf if math.isfinite(tf) else math.nan
     dt_alone: dict[str, float] = {}
@@ -141,7 +141,7 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
     sweet_total = sum(sweet.values())
 
     # water kept liquid and ice at the temperature
-    phase, n = _quiet(api.unfrozen_phase, solution, float(temperature), model=model, bound_water=bound)
+    phase, n = _quiet(api.unfrozen_phase, solution, float(temperature), model=model, bound_water_fraction_of_water=bound)
     notes += n
     ice = max(0.0, float(phase.ice)) if math.isfinite(phase.ice) else math.nan
     liquid_free = float(phase.unfrozen_water) if math.isfinite(phase.unfrozen_water) else math.nan
@@ -187,7 +187,7 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
         "interaction": depression / summed if summed > 0 else None,
         "sweetness_sucrose_equivalent_kg": sweet_total,
         "liquid_water_held_kg": liquid_free,
-        "bound_water_kg": bound,
+        "bound_water_kg": bound * water,  # the share of the water, as kg
         "ice_kg": ice,
         "notes": list(dict.fromkeys(notes)),
     }

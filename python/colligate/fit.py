@@ -49,6 +49,7 @@ __all__ = [
     "fit_effective_solute",
     "fit_pitzer",
     "load_solute",
+    "solute_from_entry",
 ]
 
 _UNITS = {
@@ -255,8 +256,9 @@ class FitResult:
 class FittedSolute:
     """A solute made from a fit: its record, the food's bound water, and provenance.
 
-    Use it through a :class:`SoluteLibrary`. ``bound_water_per_solids`` (kg per kg of the
-    solute's mass) is a property of the food: pass ``bound_water=fs.bound_water(s)`` to
+    Use it through a :class:`SoluteLibrary` or a :class:`colligate.Library`.
+    ``bound_water_per_solids`` (kg per kg of the solute's mass) is a property of the food:
+    pass ``bound_water_fraction_of_water=fs.bound_water_fraction_of_water(s)`` to
     :func:`colligate.freezing_point` and :func:`colligate.ice_fraction`.
     """
 
@@ -276,10 +278,12 @@ class FittedSolute:
     def name(self) -> str:
         return self.record.name
 
-    def bound_water(self, solution: Any) -> float:
-        """Unfreezable water in ``solution``, kg: b times the mass of this solute in it."""
+    def bound_water_fraction_of_water(self, solution: Any) -> float:
+        """Unfreezable water of ``solution`` as a share of its water (kg per kg water): b
+        times the mass of this solute in it over the water; pass it as
+        ``bound_water_fraction_of_water=`` to :func:`colligate.freezing_point` and friends."""
         masses = solution.solutes
-        return self.bound_water_per_solids * float(masses.get(self.id, 0.0))
+        return self.bound_water_per_solids * float(masses.get(self.id, 0.0)) / float(solution.water)
 
     def __repr__(self) -> str:
         r = self.record
@@ -292,65 +296,49 @@ class FittedSolute:
                 f"bound_water_per_solids={self.bound_water_per_solids:.6g})")
 
     # --- file format ---------------------------------------------------------------------
-    def to_toml(self) -> str:
-        """The fitted-solute file: a small TOML document of our own design."""
+    def entry(self) -> dict:
+        """The solute as a TOML table (the ``[solute]`` table of a fitted-solute file, one
+        ``[solutes.<id>]`` table of a library file): SI units, keys of our own."""
         r = self.record
-
-        def q(s: Any) -> str:
-            return '"' + str(s).replace("\\", "\\\\").replace('"', '\\"').replace("\n", "\\n") + '"'
-
-        def num(v: Any) -> str:
-            v = float(v)
-            if math.isnan(v):
-                return "nan"
-            if math.isinf(v):
-                return "inf" if v > 0 else "-inf"
-            return repr(v)
-
         pz = r.pitzer
-        lines = [
-            "# colligate fitted solute (SI units: kg, mol, K)",
-            f"format = {q(FORMAT_NAME)}",
-            f"version = {FORMAT_VERSION if pz is not None else 1}",
-            "",
-            "[solute]",
-            f"id = {q(r.id)}",
-            f"name = {q(r.name)}",
-            f"molar_mass = {num(r.molar_mass)}  # kg/mol",
-        ]
+        out: dict[str, Any] = {"id": r.id, "name": r.name, "molar_mass": float(r.molar_mass)}
         if pz is None:
-            lines += [
-                f"norrish_k = {num(r.norrish_k)}",
-                f"norrish_k3 = {num(r.norrish_k3)}",
-                f"max_mass_fraction = {num(r.max_mass_fraction)}",
-                f"bound_water_per_solids = {num(self.bound_water_per_solids)}  # kg per kg of this solute",
-                f"note = {q(r.note)}",
-            ]
+            out.update({"norrish_k": float(r.norrish_k), "norrish_k3": float(r.norrish_k3),
+                        "max_mass_fraction": float(r.max_mass_fraction),
+                        "bound_water_per_solids": self.bound_water_per_solids, "note": r.note})
         else:
-            lines += [
-                f"salt = {q(self.salt)}  # the salt whose ions and molar mass this record copies",
-                f"note = {q(r.note)}",
-                "",
-                "[solute.pitzer]  # values at 298.15 K (kg/mol; C-phi kg^2/mol^2) and d/dT there (per K)",
-            ]
-            lines += [f"{k} = {num(pz[k])}" for k in _PITZER_KEYS]
-            lines += [f"max_molality = {num(pz['max_molality'])}  # mol/kg",
-                      f"min_temperature = {num(pz['min_temperature'])}  # K",
-                      f"max_temperature = {num(pz['max_temperature'])}  # K",
-                      f"source = {q(pz['source'])}"]
+            out.update({"salt": str(self.salt), "note": r.note,
+                        "pitzer": {**{k: float(pz[k]) for k in _PITZER_KEYS},
+                                   "max_molality": float(pz["max_molality"]),
+                                   "min_temperature": float(pz["min_temperature"]),
+                                   "max_temperature": float(pz["max_temperature"]),
+                                   "source": str(pz["source"])}})
+        return out
+
+    def document(self) -> dict:
+        """The whole fitted-solute file as a dict (see :meth:`to_toml`)."""
+        doc: dict[str, Any] = {"format": FORMAT_NAME,
+                               "version": FORMAT_VERSION if self.record.pitzer is not None else 1,
+                               "solute": self.entry()}
         if self.fit is not None:
             a = self.fit.attrs
-            lines += ["", "[fit]", f"model = {q(a.get('model', ''))}", f"status = {q(a.get('status', ''))}",
-                      f"n_points = {int(a.get('n_points', 0))}",
-                      f"degrees_of_freedom = {int(a.get('degrees_of_freedom', 0))}",
-                      f"chi_square = {num(a.get('chi_square', float('nan')))}"]
-            for pname, row in self.fit.iterrows():
-                lines += ["", f"[fit.parameters.{pname}]", f"value = {num(row['value'])}",
-                          f"stderr = {num(row['stderr'])}", f"unit = {q(row['unit'])}"]
-        lines += ["", "[provenance]"]
-        for k, v in sorted(self.source.items()):
-            lines.append(f"{k} = {q(v)}")
-        return "\n".join(lines) + "\n"
+            doc["fit"] = {"model": str(a.get("model", "")), "status": str(a.get("status", "")),
+                          "n_points": int(a.get("n_points", 0)),
+                          "degrees_of_freedom": int(a.get("degrees_of_freedom", 0)),
+                          "chi_square": float(a.get("chi_square", float("nan"))),
+                          "parameters": {str(pname): {"value": float(row["value"]), "stderr": float(row["stderr"]),
+                                                      "unit": str(row["unit"])}
+                                         for pname, row in self.fit.iterrows()}}
+        doc["provenance"] = {str(k): str(v) for k, v in sorted(self.source.items())}
+        return doc
+
+    def to_toml(self) -> str:
+        """The fitted-solute file: a small TOML document of our own design (written with
+        tomli-w). Units: molar mass kg/mol; Pitzer values at 298.15 K in kg/mol (C-phi
+        kg^2/mol^2) and their d/dT per K; temperatures K; bound water kg per kg of the solute."""
+        import tomli_w
+
+        return "# colligate fitted solute (SI units: kg, mol, K)\n" + tomli_w.dumps(self.document())
 
     def save(self, path: str | os.PathLike[str], *, outputs: Optional[OutputSet] = None) -> str:
         """Write the fitted solute as TOML (atomically; with ``outputs``, into that set of a
@@ -362,8 +350,9 @@ class FittedSolute:
         return load_solute(path)
 
 
-def _solute_file_error(path: str, where: str, message: str) -> Exception:
-    return _core.InvalidInputError(f"fitted-solute file '{path}': {where}{': ' if where else ''}{message}")
+def _solute_file_error(prefix: str, where: str, message: str) -> Exception:
+    """An error whose message starts with ``prefix`` (the file), then the table and key."""
+    return _core.InvalidInputError(f"{prefix}: {where}{': ' if where else ''}{message}")
 
 
 def _toml_table(path: str, parent: Any, key: str, where: str, required: bool = True) -> Optional[dict]:
@@ -403,6 +392,59 @@ def _toml_text(path: str, table: dict, key: str, where: str, default: Optional[s
     return value
 
 
+#: Keys of one solute table (``[solute]`` of a fitted-solute file, ``[solutes.<id>]`` of a library).
+_SOLUTE_KEYS = ("id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
+                "bound_water_per_solids", "note", "salt", "pitzer")
+
+
+def solute_from_entry(entry: Any, where: str, *, table: str = "solute", default_id: Optional[str] = None,
+                      fit: Any = None, source: Optional[dict] = None) -> FittedSolute:
+    """A :class:`FittedSolute` from one TOML table (see :meth:`FittedSolute.entry`).
+
+    ``where`` starts every error message (it names the file), ``table`` names the table in
+    it (``solute``, ``solutes.<id>``); ``default_id`` is used when the table has no ``id``
+    (the key of ``[solutes.<key>]`` in a library file). Every problem is a
+    :class:`colligate.InvalidInputError` naming the table, the key, the value and the rule."""
+    if not isinstance(entry, dict):
+        raise _solute_file_error(where, f"{table} = {entry!r}"[:200], f"must be a table [{table}]")
+    s = dict(entry)
+    if "id" not in s and default_id is not None:
+        s["id"] = default_id
+    extra = sorted(set(s) - set(_SOLUTE_KEYS))
+    if extra:
+        raise _solute_file_error(where, f"[{table}] {extra[0]}",
+                                 f"unknown key; allowed keys are {', '.join(sorted(_SOLUTE_KEYS))}")
+    pz = _toml_table(where, s, "pitzer", f"{table}.pitzer", required=False)
+    sid = _toml_text(where, s, "id", table)
+    name = _toml_text(where, s, "name", table, default=sid)
+    note = _toml_text(where, s, "note", table, default="")
+    if pz is not None:
+        salt: Optional[str] = _toml_text(where, s, "salt", table)
+        pw = f"{table}.pitzer"
+        params = {k: _toml_number(where, pz, k, pw, "kg/mol, kg^2/mol^2 or their d/dT",
+                                  default=None if k in ("beta0", "beta1", "cphi") else 0.0)
+                  for k in _PITZER_KEYS}
+        rec = _core.make_pitzer_solute_record(
+            salt, sid, name, **params,
+            max_molality=_toml_number(where, pz, "max_molality", pw, "mol/kg, > 0"),
+            min_temperature=_toml_number(where, pz, "min_temperature", pw, "K, > 0"),
+            max_temperature=_toml_number(where, pz, "max_temperature", pw, "K, above min_temperature"),
+            source=_toml_text(where, pz, "source", pw, default="colligate_fit_user"), note=note)
+    else:
+        salt = None
+        rec = _core.make_solute_record(
+            sid, name, _toml_number(where, s, "molar_mass", table, "kg/mol, > 0"),
+            _toml_number(where, s, "norrish_k", table, "Norrish K, dimensionless"),
+            _toml_number(where, s, "norrish_k3", table, "Norrish K3, dimensionless", default=0.0),
+            _toml_number(where, s, "max_mass_fraction", table, "kg/kg, in (0, 1]", default=0.9),
+            note)
+    bound = _toml_number(where, s, "bound_water_per_solids", table, "kg per kg of solute, >= 0", default=0.0)
+    if bound < 0.0:
+        raise _solute_file_error(where, f"[{table}] bound_water_per_solids = {bound!r}",
+                                 "must be >= 0 (kg per kg of solute)")
+    return FittedSolute(rec, bound_water_per_solids=bound, fit=fit, source=source, salt=salt)
+
+
 def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
     """Read a fitted-solute TOML file written by :meth:`FittedSolute.save`.
 
@@ -422,72 +464,51 @@ def load_solute(path: str | os.PathLike[str]) -> FittedSolute:
         raw = read_input_bytes(source, "fitted-solute file")
     except InputFileError as exc:
         raise _core.InvalidInputError(str(exc)) from None
+    prefix = f"fitted-solute file '{source}'"
     try:
         doc = tomllib.loads(raw.decode("utf-8"))
     except UnicodeDecodeError as exc:
-        raise _solute_file_error(source, "", f"not UTF-8 text (byte {exc.start})") from None
+        raise _solute_file_error(prefix, "", f"not UTF-8 text (byte {exc.start})") from None
     except tomllib.TOMLDecodeError as exc:
-        raise _solute_file_error(source, "", f"TOML syntax error: {exc}") from None
+        raise _solute_file_error(prefix, "", f"TOML syntax error: {exc}") from None
     except RecursionError:
-        raise _solute_file_error(source, "", "arrays or inline tables nested too deeply for the TOML "
+        raise _solute_file_error(prefix, "", "arrays or inline tables nested too deeply for the TOML "
                                  "reader; the file holds flat tables of numbers and strings") from None
+    return solute_from_document(doc, prefix)
+
+
+def solute_from_document(doc: dict, where: str) -> FittedSolute:
+    """A :class:`FittedSolute` from a parsed fitted-solute file (``where`` names it)."""
     if doc.get("format") != FORMAT_NAME:
         raise _core.InvalidInputError(
-            f"{source}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
+            f"{where}: format = {doc.get('format')!r}: not a colligate fitted-solute file "
             f"(expected format = '{FORMAT_NAME}')")
     version = doc.get("version", 1)
     if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= FORMAT_VERSION:
         raise _core.InvalidInputError(
-            f"{source}: version = {version!r}: this colligate reads versions 1 to {FORMAT_VERSION}")
-    s = _toml_table(source, doc, "solute", "solute")
-    pz = _toml_table(source, s, "pitzer", "solute.pitzer", required=False)
-    sid = _toml_text(source, s, "id", "solute")
-    name = _toml_text(source, s, "name", "solute", default=sid)
-    note = _toml_text(source, s, "note", "solute", default="")
-    if pz is not None:
-        salt = _toml_text(source, s, "salt", "solute")
-        where = "solute.pitzer"
-        params = {k: _toml_number(source, pz, k, where, "kg/mol, kg^2/mol^2 or their d/dT",
-                                  default=None if k in ("beta0", "beta1", "cphi") else 0.0)
-                  for k in _PITZER_KEYS}
-        rec = _core.make_pitzer_solute_record(
-            salt, sid, name, **params,
-            max_molality=_toml_number(source, pz, "max_molality", where, "mol/kg, > 0"),
-            min_temperature=_toml_number(source, pz, "min_temperature", where, "K, > 0"),
-            max_temperature=_toml_number(source, pz, "max_temperature", where, "K, above min_temperature"),
-            source=_toml_text(source, pz, "source", where, default="colligate_fit_user"), note=note)
-    else:
-        salt = None
-        rec = _core.make_solute_record(
-            sid, name, _toml_number(source, s, "molar_mass", "solute", "kg/mol, > 0"),
-            _toml_number(source, s, "norrish_k", "solute", "Norrish K, dimensionless"),
-            _toml_number(source, s, "norrish_k3", "solute", "Norrish K3, dimensionless", default=0.0),
-            _toml_number(source, s, "max_mass_fraction", "solute", "kg/kg, in (0, 1]", default=0.9),
-            note)
-    bound = _toml_number(source, s, "bound_water_per_solids", "solute", "kg per kg of solute, >= 0", default=0.0)
-    if bound < 0.0:
-        raise _solute_file_error(source, f"[solute] bound_water_per_solids = {bound!r}", "must be >= 0 (kg per kg of solute)")
+            f"{where}: version = {version!r}: this colligate reads versions 1 to {FORMAT_VERSION}")
+    entry = _toml_table(where, doc, "solute", "solute")
     fit_df = None
-    f = _toml_table(source, doc, "fit", "fit", required=False)
+    f = _toml_table(where, doc, "fit", "fit", required=False)
     if f is not None:
         import pandas as pd
 
-        params_t = _toml_table(source, f, "parameters", "fit.parameters", required=False) or {}
+        params_t = _toml_table(where, f, "parameters", "fit.parameters", required=False) or {}
         rows = {}
         for pname in params_t:
-            p = _toml_table(source, params_t, pname, f"fit.parameters.{pname}")
-            where = f"fit.parameters.{pname}"
-            rows[pname] = (_toml_number(source, p, "value", where, "the fitted value", finite=False),
-                           _toml_number(source, p, "stderr", where, "its standard error", finite=False),
-                           _toml_text(source, p, "unit", where, default=""))
+            p = _toml_table(where, params_t, pname, f"fit.parameters.{pname}")
+            pw = f"fit.parameters.{pname}"
+            rows[pname] = (_toml_number(where, p, "value", pw, "the fitted value", finite=False),
+                           _toml_number(where, p, "stderr", pw, "its standard error", finite=False),
+                           _toml_text(where, p, "unit", pw, default=""))
         fit_df = pd.DataFrame({"value": [r[0] for r in rows.values()],
                                "stderr": [r[1] for r in rows.values()],
                                "unit": [r[2] for r in rows.values()]},
                               index=pd.Index(list(rows), name="parameter"))
         fit_df.attrs.update({k: v for k, v in f.items() if k != "parameters"})
-    prov = _toml_table(source, doc, "provenance", "provenance", required=False) or {}
-    return FittedSolute(rec, bound_water_per_solids=bound, fit=fit_df,
-                        source={str(k): str(v) for k, v in prov.items()}, salt=salt)
+    prov = _toml_table(where, doc, "provenance", "provenance", required=False) or {}
+    return solute_from_entry(entry, where, table="solute", fit=fit_df,
+                             source={str(k): str(v) for k, v in prov.items()})
 
 
 class SoluteLibrary(_core.SoluteTable):
@@ -517,9 +538,9 @@ class SoluteLibrary(_core.SoluteTable):
         self.add_solute(fs)
         return fs
 
-    def bound_water(self, solution: Any) -> float:
-        """Total unfreezable water of the fitted solutes in ``solution``, kg."""
-        return sum(fs.bound_water(solution) for fs in self.fitted.values())
+    def bound_water_fraction_of_water(self, solution: Any) -> float:
+        """Unfreezable water of the fitted solutes in ``solution``, kg per kg of its water."""
+        return sum(fs.bound_water_fraction_of_water(solution) for fs in self.fitted.values())
 
 
 def _provenance(data_name: Optional[str], arrays: Sequence[np.ndarray]) -> dict:
@@ -717,10 +738,74 @@ def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=Non
                      extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
 
 
-#: Columns the ``colligate fit`` command reads from a data file (SI units); each one
-#: present must hold a finite number on every data line.
+#: Column names ``colligate fit`` accepts for each quantity, with the factor or conversion to
+#: SI: concentration as molality (mol/kg water), mass fraction (kg/kg of solution) or mass
+#: percent; temperatures in K or degC.
+CONCENTRATION_COLUMNS = ("molality", "mass_fraction", "mass_percent")
+TEMPERATURE_COLUMNS = ("freezing_point", "temperature")
+
+
+def lab_units_to_si(df, where: str, *, model: str, salt: Optional[str] = None,
+                    molar_mass: Optional[float] = None):
+    """The data table with its columns in the SI units the fitters take.
+
+    Accepts ``molality``, ``mass_fraction`` (kg solute per kg of solution) or
+    ``mass_percent`` (also ``wt_percent``) for the concentration, and ``freezing_point_K``
+    or ``freezing_point_C``, ``temperature_K`` or ``temperature_C`` for temperatures. A
+    concentration given by mass needs the solute's molar mass: from the salt for a Pitzer
+    fit, from ``molar_mass`` (kg/mol) for a Norrish fit; its absence is an error before any
+    fitting. Returns the new table and a list of the conversions made.
+    """
+    from .units import kelvin_from_celsius
+
+    out = df.copy()
+    done: list[str] = []
+    aliases = {"wt_percent": "mass_percent", "wt%": "mass_percent", "molality_mol_per_kg": "molality"}
+    out = out.rename(columns={k: v for k, v in aliases.items() if k in out.columns})
+    for base in TEMPERATURE_COLUMNS:
+        k, c = f"{base}_K", f"{base}_C"
+        if k in out.columns and c in out.columns:
+            raise _core.InvalidInputError(f"{where}: columns {k} and {c} both given; keep one")
+        if c in out.columns:
+            values = np.asarray(out.pop(c), dtype=float)
+            out[k] = [kelvin_from_celsius(v) if np.isfinite(v) else v for v in values]
+            done.append(f"{c} -> {k}")
+    given = [c for c in CONCENTRATION_COLUMNS if c in out.columns]
+    if len(given) > 1:
+        raise _core.InvalidInputError(f"{where}: concentration given as {given}; keep one column "
+                                      f"(one of {', '.join(CONCENTRATION_COLUMNS)})")
+    if model in ("norrish", "pitzer") and given and given[0] != "molality":
+        col = given[0]
+        if model == "pitzer":
+            if not salt:
+                raise _core.InvalidInputError("--salt is required for --model pitzer (e.g. --salt NaCl)")
+            mm = float(_core.SoluteTable().find(salt).molar_mass)
+        else:
+            if molar_mass is None:
+                raise _core.InvalidInputError(
+                    f"{where}: column {col} needs the solute's molar mass to become a molality: "
+                    "give --molar-mass in kg/mol (e.g. 0.3423 for sucrose)")
+            mm = float(molar_mass)
+            if not (np.isfinite(mm) and mm > 0.0):
+                raise _core.InvalidInputError(f"--molar-mass = {molar_mass}: must be finite and > 0 kg/mol")
+        w = np.asarray(out.pop(col), dtype=float) / (100.0 if col == "mass_percent" else 1.0)
+        bad = ~((w >= 0.0) & (w < 1.0))
+        if np.any(bad):
+            row = int(np.flatnonzero(bad)[0])
+            raise _core.InvalidInputError(f"{where}: column {col}, data row {row}: value {df[col].iloc[row]} "
+                                          "is outside [0, 100) % of the solution")
+        out["molality"] = w / ((1.0 - w) * mm)
+        done.append(f"{col} -> molality (molar mass {mm:g} kg/mol)")
+    return out, done
+
+
+#: Columns the ``colligate fit`` command reads from a data file (in the unit each name
+#: states; see :func:`lab_units_to_si`); each one present must hold a finite number on
+#: every data line.
 FIT_DATA_COLUMNS = ("molality", "water_activity", "freezing_point_K", "osmotic_coefficient",
-                    "temperature_K", "water_fraction", "ice_fraction", "weight")
+                    "temperature_K", "water_fraction", "ice_fraction", "weight",
+                    "mass_fraction", "mass_percent", "wt_percent", "wt%", "molality_mol_per_kg",
+                    "freezing_point_C", "temperature_C")
 
 
 def read_fit_data(path: str | os.PathLike[str]):
@@ -773,12 +858,12 @@ def read_fit_data(path: str | os.PathLike[str]):
             where = f"{prefix}, line {lines[i]}, column '{col}'"
             text_cell = str(cell).strip()
             if not text_cell:
-                raise InputFileError(f"{where}: empty cell; expected a finite number (SI units)")
+                raise InputFileError(f"{where}: empty cell; expected a finite number (in the unit of the column name)")
             try:
                 x = float(text_cell)
             except ValueError:
                 raise InputFileError(f"{where}: {text_cell[:40]!r} is not a number; expected a finite "
-                                     "number (SI units)") from None
+                                     "number (in the unit of the column name)") from None
             if not math.isfinite(x):
                 raise InputFileError(f"{where}: {text_cell[:40]!r} is not finite; expected a finite number")
             values[i] = x
@@ -796,6 +881,11 @@ def run_fit_command(args: Any) -> str:
         out.plan(plot_path, "--plot")
         if args.save_solute:
             out.plan(args.save_solute, "--save-solute")
+        # checked after the paths and before reading or fitting anything
+        if args.model == "norrish" and args.save_solute and args.molar_mass is None:
+            raise _core.InvalidInputError(
+                "--molar-mass (kg/mol) is required to save a Norrish solute (--save-solute): the fit "
+                "itself uses molalities only; e.g. --molar-mass 0.3423 for sucrose")
         text = _fit_from_file(args, data_path, stem, plot_path, out)
         out.commit()
     return text
@@ -803,6 +893,7 @@ def run_fit_command(args: Any) -> str:
 
 def _fit_from_file(args: Any, data_path: str, stem: str, plot_path: str, out: OutputSet) -> str:
     df = read_fit_data(data_path)
+    df, converted = lab_units_to_si(df, data_path, model=args.model, salt=args.salt, molar_mass=args.molar_mass)
     cols = set(df.columns)
     weights = "weight" if "weight" in cols else None
     name = os.path.basename(data_path)
@@ -851,6 +942,7 @@ def _fit_from_file(args: Any, data_path: str, stem: str, plot_path: str, out: Ou
     written = res.plot(plot_path, inputs=[data_path], outputs=out)
     a = summary.attrs
     lines = [f"fit: {a['model']} to {a['n_points']} points from {data_path}",
+             *([f"columns converted to SI: {', '.join(converted)}"] if converted else []),
              f"status: {a['status']} ({a['message']}); chi-square {a['chi_square']:.6g}, "
              f"dof {a['degrees_of_freedom']}, R^2 {a['r_squared']:.6f}",
              summary.to_string(float_format=lambda v: f"{v:.6g}")]

@@ -129,43 +129,45 @@ def pham_times(shape: str, size, T_initial: float, T_medium: float, T_centre: fl
 
 
 def _food_args(food: Any, composition: Mapping[str, float] | None, solution: Any,
-               model: str | None, bound_water: float | None) -> tuple[dict, Any, float, str]:
-    """(composition, solution, bound water per kg, model) from a Recipe or explicit parts."""
+               model: str | None, bound_water_fraction_of_water: float | None) -> tuple[dict, Any, float, str]:
+    """(composition, solution, bound water as a share of all the water, model) from a
+    Recipe or explicit parts."""
     if food is not None:
         if not hasattr(food, "proximate") or not hasattr(food, "solution"):
             raise _core.InvalidInputError(
                 f"food must be a colligate.Recipe, got {type(food).__name__}; or pass composition= and solution=")
         comp = dict(food.proximate)
         sol = food.solution()
-        bw = food._bound_fraction() if bound_water is None else float(bound_water)
+        bw = (float(food.bound_water_fraction_of_water or 0.0) if bound_water_fraction_of_water is None
+              else float(bound_water_fraction_of_water))
         mdl = model or getattr(food, "model", "auto") or "auto"
     else:
         if composition is None or solution is None:
             raise _core.InvalidInputError("give a Recipe as food, or both composition= and solution=")
         comp, sol = dict(composition), solution
-        bw = float(bound_water or 0.0)
+        bw = float(bound_water_fraction_of_water or 0.0)
         mdl = model or "auto"
     return {str(k): float(v) for k, v in comp.items()}, sol, bw, mdl
 
 
 def freezing_inputs(food: Any = None, *, T_initial: float, T_target: float,
                     composition: Mapping[str, float] | None = None, solution: Any = None,
-                    model: str | None = None, bound_water: float | None = None,
+                    model: str | None = None, bound_water_fraction_of_water: float | None = None,
                     conductivity_rule: str = "parallel") -> dict[str, float]:
     """Inputs of Plank's and Pham's formulas for a food: T_freeze (K), latent_heat (J/kg),
     density_unfrozen/frozen (kg/m^3), c_unfrozen/frozen (J/(kg K)), k_frozen (W/(m K))."""
-    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water)
+    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water_fraction_of_water)
     return dict(_core.food_freezing_inputs(comp, sol, bw, mdl, T_initial, T_target, conductivity_rule))
 
 
 def thermal_properties(food: Any = None, T: Any = 273.15, *, composition: Mapping[str, float] | None = None,
-                       solution: Any = None, model: str | None = None, bound_water: float | None = None,
+                       solution: Any = None, model: str | None = None, bound_water_fraction_of_water: float | None = None,
                        conductivity_rule: str = "parallel"):
     """Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg, 0 at -40 C) and ice fraction
     of a food at temperatures T (K), as a pandas DataFrame indexed by T."""
     import pandas as pd
 
-    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water)
+    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water_fraction_of_water)
     t = np.atleast_1d(np.asarray(T, dtype=float))
     d = _core.food_properties(comp, sol, bw, mdl, np.ascontiguousarray(t), conductivity_rule)
     frame = pd.DataFrame({"density_kg_m3": d["density"], "conductivity_W_mK": d["conductivity"],
@@ -235,7 +237,7 @@ def _medium(T_medium: Any) -> tuple[list[float], list[float]]:
 
 def simulate_freezing(food: Any = None, *, shape: str, size: float, T_initial: float, T_medium: Any,
                       h: float, T_target: float | None = None, composition: Mapping[str, float] | None = None,
-                      solution: Any = None, model: str | None = None, bound_water: float | None = None,
+                      solution: Any = None, model: str | None = None, bound_water_fraction_of_water: float | None = None,
                       max_time: float = 1.0e7, intervals: int = 40, time_step: float = 0.0,
                       record_every: int = 1, conductivity_rule: str = "parallel") -> FreezingSimulation:
     """Simulate freezing (medium colder than the food) or thawing (warmer) by the implicit
@@ -264,7 +266,7 @@ def simulate_freezing(food: Any = None, *, shape: str, size: float, T_initial: f
     """
     import pandas as pd
 
-    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water)
+    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water_fraction_of_water)
     times, temps = _medium(T_medium)
     target = math.nan if T_target is None else float(T_target)
     r = _core.simulate_food(comp, sol, bw, mdl, shape, size, T_initial, times, temps, h, target, max_time,

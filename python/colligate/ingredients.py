@@ -103,6 +103,9 @@ class Ingredient:
     source: str = ""
     note: str = ""
     key: str = ""
+    #: Solute table the solute ids are checked against (default: the built-in one); a
+    #: :class:`colligate.Library` passes its own so that own solutes resolve.
+    solute_table: Any = field(default=None, compare=False, repr=False)
 
     def __post_init__(self) -> None:
         if not isinstance(self.name, str) or not self.name.strip():
@@ -121,14 +124,36 @@ class Ingredient:
                 f"(+{SUM_TOLERANCE} for rounding)"
             )
         for sid in self.solutes():
-            if sid == "ethanol":
-                continue
             try:
-                api.Solution(water=1.0, solutes={sid: 0.0})
+                if self.solute_table is None:
+                    api.Solution(water=1.0, solutes={sid: 0.0})
+                else:
+                    self.solute_table.find(sid)
             except ValueError as exc:
                 raise IngredientError(f"ingredient '{self.name}': {exc}") from None
 
     # ------------------------------------------------------------------ derived
+
+    def with_key(self, key: str) -> "Ingredient":
+        """A copy under library key ``key``."""
+        import dataclasses
+
+        return dataclasses.replace(self, key=key)
+
+    def entry(self) -> dict[str, Any]:
+        """The ingredient as a TOML table of a library file (the keys of ingredients.toml);
+        fractions that are 0 and empty groups are left out."""
+        out: dict[str, Any] = {"name": self.name, "category": self.category}
+        for k in _BASIC + ("msnf",):
+            if getattr(self, k):
+                out[k] = float(getattr(self, k))
+        for group in ("sugars", "acids", "salts", "other_solutes"):
+            if getattr(self, group):
+                out[group] = {str(k): float(v) for k, v in getattr(self, group).items()}
+        out["source"] = self.source
+        if self.note:
+            out["note"] = self.note
+        return out
 
     def total(self) -> float:
         """Sum of every fraction given (1 for a complete analysis)."""
@@ -201,6 +226,29 @@ _ALLOWED = set(_BASIC) | {"msnf", "sugars", "acids", "salts", "other_solutes", "
 _TEXT_KEYS = ("name", "category", "source", "note")
 
 
+def ingredient_from_entry(key: str, entry: Any, where: str, *, table: Any = None) -> Ingredient:
+    """An :class:`Ingredient` from one TOML table (keys as in ``ingredients.toml``; ``name``
+    defaults to the key); ``where`` names the table in errors, ``table`` is the solute table
+    its solutes must resolve in. Every problem is an :class:`IngredientError` naming
+    ``where`` and the key."""
+    if not isinstance(entry, dict):
+        raise IngredientError(f"{where} = {entry!r}"[:200] + ": must be a table of the ingredient's mass fractions")
+    extra = set(entry) - _ALLOWED
+    if extra:
+        raise IngredientError(f"{where}.{sorted(extra)[0]}: unknown key; allowed keys are {', '.join(sorted(_ALLOWED))}")
+    for k in _TEXT_KEYS:
+        if k in entry and not isinstance(entry[k], str):
+            raise IngredientError(f"{where}.{k} = {entry[k]!r}"[:200] + ": must be a string")
+    if not entry.get("source"):
+        raise IngredientError(f"{where}: every ingredient needs a source (where its numbers come from)")
+    entry = dict(entry)
+    entry.setdefault("name", key)
+    try:
+        return Ingredient(key=key, solute_table=table, **entry)
+    except IngredientError as exc:
+        raise IngredientError(f"{where}: {exc}") from None
+
+
 def _parse_library(text: str, source: str = "ingredient library") -> dict[str, Ingredient]:
     """Ingredients of a library file (TOML: one table per ingredient). Every problem is
     an :class:`IngredientError` naming ``source``, the table and key."""
@@ -211,26 +259,7 @@ def _parse_library(text: str, source: str = "ingredient library") -> dict[str, I
     except RecursionError:
         raise IngredientError(f"{source}: arrays or inline tables nested too deeply for the TOML reader; "
                               "an ingredient is a flat table of mass fractions") from None
-    out: dict[str, Ingredient] = {}
-    for key, entry in doc.items():
-        if not isinstance(entry, dict):
-            raise IngredientError(f"{source}: {key} = {entry!r}"[:200] + f": must be a table [{key}] of mass fractions")
-        extra = set(entry) - _ALLOWED
-        if extra:
-            raise IngredientError(f"{source}: [{key}].{sorted(extra)[0]}: unknown key; allowed keys are "
-                                  f"{', '.join(sorted(_ALLOWED))}")
-        if "name" not in entry:
-            raise IngredientError(f"{source}: [{key}].name: missing key (a non-empty string)")
-        for k in _TEXT_KEYS:
-            if k in entry and not isinstance(entry[k], str):
-                raise IngredientError(f"{source}: [{key}].{k} = {entry[k]!r}"[:200] + ": must be a string")
-        if not entry.get("source"):
-            raise IngredientError(f"{source}: [{key}]: every ingredient needs a source")
-        try:
-            out[key] = Ingredient(key=key, **entry)
-        except IngredientError as exc:
-            raise IngredientError(f"{source}: [{key}]: {exc}") from None
-    return out
+    return {key: ingredient_from_entry(key, entry, f"{source}: [{key}]") for key, entry in doc.items()}
 
 
 @functools.lru_cache(maxsize=1)
@@ -244,8 +273,12 @@ def library() -> dict[str, Ingredient]:
     return dict(_load())
 
 
-def _normal(name: str) -> str:
-    return "_".join(name.strip().lower().replace("-", " ").replace("%", "").split())
+def normal_name(name: str) -> str:
+    """The form names are compared in: lower case, spaces and dashes as underscores, no %."""
+    return "_".join(name.strip().lower().replace("-", " ").replace("_", " ").replace("%", "").split())
+
+
+_normal = normal_name
 
 
 def ingredient(name: str | Ingredient) -> Ingredient:

@@ -61,7 +61,7 @@ def plot_ice_curve(
     marks: Mapping[str, float] | None = None,
     model: str = "auto",
     *,
-    bound_water: float = 0.0,
+    bound_water_fraction_of_water: float = 0.0,
     title: str | None = None,
     label: str | None = None,
     inputs: Iterable[str | os.PathLike[str]] = (),
@@ -81,8 +81,8 @@ def plot_ice_curve(
         Named temperatures in K (e.g. ``{"drawing": 267.65}``), drawn as vertical lines.
     model : str
         Model id (``colligate.models()``).
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of the water, in [0, 1).
     title, label : str, optional
         Plot title, and a label (e.g. "invented demo scenario") printed in the corner.
     inputs : iterable of path-like
@@ -104,7 +104,7 @@ def plot_ice_curve(
     if points < 10:
         raise ValueError(f"points = {points}: must be >= 10")
 
-    ice_path = IcePath(solution, model, bound_water)
+    ice_path = IcePath(solution, model, bound_water_fraction_of_water)
     tf = ice_path.freezing_point
     t_eut = _eutectic_K(ice_path)
     warm_c, cold_c = CURVE_RANGE_C
@@ -295,8 +295,8 @@ def _mark_eutectic(ax, eut_c: float, *, vertical: bool) -> None:
 
 
 def _recipe_parts(recipe) -> tuple["api.Solution", str, float]:
-    """Solution, model id and bound water (kg, solution scale) of a recipe."""
-    return recipe.solution(), recipe.model, float(recipe.bound_water or 0.0)
+    """Solution, model id and bound water (kg per kg of water) of a recipe."""
+    return recipe.solution(), recipe.model, float(recipe.bound_water_fraction_of_water or 0.0)
 
 
 def _thermal_grid(recipe, warm_c: float, cold_c: float, points: int) -> tuple[np.ndarray, float, float]:

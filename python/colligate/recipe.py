@@ -38,8 +38,20 @@ Schema (the full description, with examples, is in ``docs/recipe_format.md``)::
 
     [options]                    # optional
     model = "auto"               # one of colligate.models(); default "auto"
-    bound_water = 0.0            # water that cannot freeze; in the basis unit (kg, g, or
-                                 # percent of the batch mass)
+    bound_water_fraction_of_water = 0.0   # water that cannot freeze, kg per kg of
+                                 # the recipe's water, in [0, 1); default 0, or for an
+                                 # ingredient recipe 0.4 kg per kg protein over the water
+
+    [library]                    # optional: own solutes and ingredients
+    load = ["syrup_fit.toml"]    # library files or files of `colligate fit --save-solute`,
+                                 # relative to the recipe file
+    [library.solutes.house_syrup]        # inline solute (keys of a fitted-solute file)
+    molar_mass = 0.31                    # kg/mol
+    norrish_k = 5.2
+    [library.ingredients.house_base]     # inline ingredient (keys of ingredients.toml)
+    water = 0.7
+    sugars = { house_syrup = 0.3 }
+    source = "our lab"
 
 Rules checked when a recipe is loaded (each error names the file, the table
 and key, and the valid range; every problem of a file is reported at once):
@@ -57,7 +69,8 @@ and key, and the valid range; every problem of a file is reported at once):
 * temperatures lie between -60 degC and +40 degC (in the table's unit); a named
   temperature above 0 degC for a frozen product draws a :class:`SuspectUnitWarning`
   (degF typed as degC?);
-* ``bound_water`` is finite, >= 0 and smaller than the water amount.
+* ``bound_water_fraction_of_water`` is finite and in [0, 1);
+* own solutes and ingredients load, and clash with no other name (the error names both).
 
 Inside the returned :class:`Recipe` everything is SI: amounts in kg,
 temperatures in K.
@@ -79,6 +92,7 @@ from importlib import resources
 from typing import Any, Mapping
 
 from . import api
+from .library import Library, LibraryError, as_library
 
 from ._files import MAX_INPUT_BYTES, InputFileError, read_input_bytes
 from .units import (
@@ -146,8 +160,12 @@ FROZEN_KINDS = ("ice_cream", "sorbet", "slush", "frozen_cocktail")
 
 _TEMPERATURE_TABLES = {"temperatures_celsius": "C", "temperatures_fahrenheit": "F", "temperatures_kelvin": "K"}
 _RECIPE_KEYS = {"name", "note", "label", "basis", "batch_kg", "kind"}
-_OPTION_KEYS = {"model", "bound_water"}
-_TABLES = {"recipe", "composition", "ingredients", "options", *_TEMPERATURE_TABLES}
+_OPTION_KEYS = {"model", "bound_water_fraction_of_water"}
+_TABLES = {"recipe", "composition", "ingredients", "options", "library", *_TEMPERATURE_TABLES}
+_LIBRARY_KEYS = {"load", "solutes", "ingredients"}
+#: Solutes that evaporate with the water when solids are dried, so not counted in total
+#: solids (common practice: oven-drying methods drive off ethanol with the water).
+VOLATILE_SOLUTES: tuple[str, ...] = ("ethanol",)
 _REQUIRED_TABLES = ("recipe",)
 _BASES = ("kg", "g", "percent")
 _BASIS_UNIT = {"kg": "kg", "g": "g", "percent": "% of batch"}
@@ -182,8 +200,13 @@ class Recipe:
         other kinds: :data:`NAMED_TEMPERATURES`).
     model : str
         Activity model id passed to colligate.
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of the recipe's water, in [0, 1). Default 0 for
+        a solute recipe; 0.4 kg per kg protein (Schwartzberg 1976, as presented by ASHRAE)
+        over the water for an ingredient recipe; plus the unfreezable water that fitted
+        effective solutes of the library carry (their ``bound_water_per_solids``).
+    library : colligate.Library, optional
+        Own solutes and ingredients used next to the built-in ones.
     note, label : str
         Free text from the ``[recipe]`` table ("" when absent).
     basis : str
@@ -200,7 +223,7 @@ class Recipe:
     solutes: dict[str, float] = field(default_factory=dict)
     temperatures: dict[str, float] = field(default_factory=dict)
     model: str = "auto"
-    bound_water: float | None = None
+    bound_water_fraction_of_water: float | None = None
     note: str = ""
     label: str = ""
     basis: str = "kg"
@@ -208,15 +231,46 @@ class Recipe:
     path: str | None = field(default=None, compare=False)
     ingredients: dict[str, float] | None = None
     proximate: dict[str, float] = field(default_factory=dict, compare=False)
+    library: Any = field(default=None, compare=False, repr=False)
     kind: str = DEFAULT_KIND
     #: The Ingredient behind each key of ``ingredients`` (library entries and the caller's own).
     ingredient_records: dict = field(default_factory=dict, compare=False, repr=False)
 
     def __post_init__(self) -> None:
+        try:
+            object.__setattr__(self, "library", as_library(self.library))
+        except LibraryError as exc:
+            raise RecipeError(f"Recipe: {exc}") from None
+        given = self.bound_water_fraction_of_water is not None
+        self._build()
+        if not given and self.library is not None and self.library.own_solutes:
+            # fitted effective solutes carry the food's unfreezable water (kg per kg of solute)
+            try:
+                extra = self.library.solute_table.bound_water_fraction_of_water(self.solution())
+            except ValueError:
+                extra = 0.0  # an unknown solute: reported below
+            if extra > 0.0:
+                object.__setattr__(self, "bound_water_fraction_of_water",
+                                   min(float(self.bound_water_fraction_of_water) + extra, 0.999))
+        b = self.bound_water_fraction_of_water
+        if not (isinstance(b, (int, float)) and not isinstance(b, bool) and math.isfinite(b) and 0.0 <= b < 1.0):
+            raise _fail(self.source, "bound_water_fraction_of_water",
+                        f"= {b!r}: must be finite and in [0, 1) (kg of water that cannot freeze per kg of water)")
+        try:
+            self.solution()
+        except ValueError as exc:
+            where = "[ingredients]" if self.ingredients is not None else "[composition]"
+            raise _fail(self.source, where, str(exc)) from None
+
+    def _lookup(self, name: Any) -> Any:
+        from .ingredients import ingredient as _builtin_lookup
+
+        return self.library.ingredient(name) if self.library is not None else _builtin_lookup(name)
+
+    def _build(self) -> None:
         # Ingredient-based: Recipe(ingredients={"whole_milk": 0.6, "sucrose": 0.15}) in kg.
         if self.ingredients is not None:
-            from .ingredients import ingredient as _lookup
-
+            _lookup = self._lookup
             if self.water or self.solutes:
                 raise RecipeError("Recipe: give either ingredients or water and solutes, not both")
             if not isinstance(self.ingredients, Mapping) or not self.ingredients:
@@ -257,10 +311,11 @@ class Recipe:
             object.__setattr__(self, "water", water)
             object.__setattr__(self, "solutes", solutes)
             object.__setattr__(self, "proximate", {k: v / total for k, v in prox.items()})
-            if self.bound_water is None:
+            if self.bound_water_fraction_of_water is None:
                 from .ingredients import BOUND_WATER_PER_PROTEIN
 
-                object.__setattr__(self, "bound_water", BOUND_WATER_PER_PROTEIN * prox["protein"])
+                object.__setattr__(self, "bound_water_fraction_of_water",
+                                   min(BOUND_WATER_PER_PROTEIN * prox["protein"] / water, 0.999))
         else:
             if not self.proximate:
                 tot = self.total_mass
@@ -278,8 +333,8 @@ class Recipe:
                         {"water": self.water / tot, "protein": 0.0, "fat": 0.0,
                          "carbohydrate": carb / tot, "fibre": 0.0, "ash": ash / tot},
                     )
-        if self.bound_water is None:
-            object.__setattr__(self, "bound_water", 0.0)
+        if self.bound_water_fraction_of_water is None:
+            object.__setattr__(self, "bound_water_fraction_of_water", 0.0)
         if self.kind not in NAMED_TEMPERATURES:
             raise RecipeError(f"Recipe: kind = {self.kind!r}: must be one of {', '.join(NAMED_TEMPERATURES)}")
         if not self.temperatures:
@@ -317,12 +372,10 @@ class Recipe:
 
         def match(key: str) -> str | None:
             if ingredient_based:
-                from .ingredients import ingredient as _lookup
-
                 if key in self.ingredient_records:
                     return key
                 try:
-                    ing = _lookup(key)
+                    ing = self._lookup(key)
                 except ValueError as exc:
                     problems.append(str(exc))
                     return None
@@ -330,12 +383,13 @@ class Recipe:
             k = key.strip()
             if k.lower() == "water":
                 return "water"
-            sid = _solute_id(k)
+            sid = _solute_id(k, self.library)
             for have in current:
-                if have != "water" and _solute_id(have) == sid:
+                if have != "water" and _solute_id(have, self.library) == sid:
                     return have
             try:
-                api.Solution(water=1.0, solutes={k: 0.0})
+                api.Solution(water=1.0, solutes={k: 0.0},
+                             **({} if self.library is None else {"table": self.library.solute_table}))
             except ValueError as exc:
                 problems.append(f"{key!r}: {exc}")
                 return None
@@ -361,12 +415,13 @@ class Recipe:
         new_name = name if name is not None else f"{self.name} (changed)"
         common = dict(name=new_name, source=f"{self.source} with changes", path=None, proximate={})
         if ingredient_based:
-            from .ingredients import BOUND_WATER_PER_PROTEIN
-
-            protein = self.proximate.get("protein", 0.0) * self.total_mass
-            follows = abs(float(self.bound_water or 0.0) - BOUND_WATER_PER_PROTEIN * protein) <= 1e-12 * max(1.0, protein)
+            # the share this recipe would get by default (protein, the library's fitted solutes)
+            auto = dataclasses.replace(self, water=0.0, solutes={}, bound_water_fraction_of_water=None,
+                                       **common).bound_water_fraction_of_water
+            given = float(self.bound_water_fraction_of_water or 0.0)
+            follows = abs(given - auto) <= 1e-12
             return dataclasses.replace(self, ingredients=current, water=0.0, solutes={},
-                                       bound_water=None if follows else self.bound_water, **common)
+                                       bound_water_fraction_of_water=None if follows else given, **common)
         water = current.pop("water", 0.0)
         if not water > 0.0:
             raise RecipeError(f"recipe '{self.source}': with_changes: water = {water}: a recipe needs water > 0 kg")
@@ -386,18 +441,21 @@ class Recipe:
 
     def freezing_point(self) -> float:
         """Initial freezing point, K."""
-        return float(api.freezing_point(self.solution(), model=self.model, bound_water=self.bound_water))
+        return float(api.freezing_point(self.solution(), model=self.model,
+                                        bound_water_fraction_of_water=self.bound_water_fraction_of_water))
 
     def ice_fraction(self, T):
         """Ice mass / total water at T (K, scalar or array)."""
-        return api.ice_fraction(self.solution(), T, model=self.model, bound_water=self.bound_water)
+        return api.ice_fraction(self.solution(), T, model=self.model,
+                                bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def temperature_for_ice_fraction(self, ice_fraction):
         """Temperature, K, at which the recipe has ``ice_fraction`` of its water frozen (in
         [0, 1); scalar or array), with the recipe's model and bound water (see
         :func:`colligate.temperature_for_ice_fraction`)."""
-        return api.temperature_for_ice_fraction(self.solution(), ice_fraction, model=self.model,
-                                                bound_water=self.bound_water)
+        return api.temperature_for_ice_fraction(
+            self.solution(), ice_fraction, model=self.model,
+            bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def leighton_ice_fraction(self, T):
         """Fraction of the water frozen at T (K) by the dairy method of Leighton (1927) /
@@ -410,25 +468,24 @@ class Recipe:
 
     def enthalpy(self, T):
         """Specific enthalpy, J/kg, with H = 0 at 233.15 K (-40 C); T in K (scalar or array)."""
-        return api.enthalpy(self.proximate, self.solution(), T, model=self.model, bound_water=self._bound_fraction())
+        return api.enthalpy(self.proximate, self.solution(), T, model=self.model,
+                            bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def apparent_specific_heat(self, T):
         """Apparent specific heat dH/dT, J/(kg K); T in K (scalar or array)."""
         return api.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
-                                         bound_water=self._bound_fraction())
+                                          bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def heat_load(self, from_T: float, to_T: float) -> dict[str, float]:
         """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg)."""
         return api.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
-                            bound_water=self._bound_fraction())
-
-    def _bound_fraction(self) -> float:
-        """Bound water per kg of batch."""
-        return float(self.bound_water or 0.0) / self.total_mass
+                             bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def solution(self) -> "api.Solution":
         """Return the recipe as a :class:`colligate.Solution` (kg of water, kg of each solute)."""
         solutes = {k: v for k, v in self.solutes.items() if v > 0.0}
+        if self.library is not None:
+            return api.Solution(water=self.water, solutes=solutes, table=self.library.solute_table)
         return api.Solution(water=self.water, solutes=solutes)
 
     @property
@@ -437,6 +494,81 @@ class Recipe:
         if self.ingredients is not None:
             return float(sum(self.ingredients.values()))
         return self.water + sum(self.solutes.values())
+
+    def composition_summary(self) -> dict[str, Any]:
+        """What the recipe is made of, per component, with where each number comes from.
+
+        Returns a dict with ``batch_kg`` and ``components``: one row per component
+        (``water``, ``fat``, ``protein``, ``lactose``, ``other_sugars``, ``msnf`` (milk
+        solids-not-fat), ``salts``, ``other_solids``, ``total_solids``, ``ethanol``), each
+        with ``kg``, ``percent_of_batch`` and ``sources`` (per ingredient: its key, kg and
+        the source of its composition). Total solids leave out water and volatile liquids
+        (ethanol): they are what stays after drying. ``ethanol_abv_percent`` is the alcohol
+        by volume at 20 degC of the water-ethanol part (OIML R 22, 1975; dissolved solids are
+        not counted in the volume) or None without ethanol.
+        """
+        from .ingredients import MSNF_SPLIT
+
+        names = ("water", "fat", "protein", "lactose", "other_sugars", "msnf", "salts",
+                 "other_solids", "total_solids", "ethanol")
+        parts: dict[str, list[tuple[str, float, str]]] = {n: [] for n in names}
+
+        def add(component: str, who: str, kg: float, source: str) -> None:
+            if kg > 0.0:
+                parts[component].append((who, kg, source))
+
+        if self.ingredients is not None:
+            for key, kg in self.ingredients.items():
+                ing = self.ingredient_records[key]
+                sol = ing.solutes()
+                lactose = float(ing.sugars.get("lactose", 0.0)) + ing.msnf * MSNF_SPLIT["lactose"]
+                sugars = sum(float(v) for v in ing.sugars.values()) - float(ing.sugars.get("lactose", 0.0))
+                salts = sum(float(v) for v in ing.salts.values()) + ing.msnf * MSNF_SPLIT["milk_salts"]
+                ethanol = float(sol.get("ethanol", 0.0))
+                solids = max(0.0, 1.0 - ing.water - ethanol)
+                msnf = ing.msnf if ing.msnf > 0.0 or ing.category != "dairy" else max(0.0, solids - ing.fat)
+                other = max(0.0, solids - ing.fat - ing.total_protein() - lactose - sugars - salts)
+                for component, x in (("water", ing.water), ("fat", ing.fat), ("protein", ing.total_protein()),
+                                     ("lactose", lactose), ("other_sugars", sugars), ("msnf", msnf),
+                                     ("salts", salts), ("other_solids", other), ("total_solids", solids),
+                                     ("ethanol", ethanol)):
+                    add(component, key, kg * x, ing.source)
+        else:
+            kinds = _solute_kinds()
+            sweet = set(api.sweetness_table().index)
+            where = f"[composition] of {self.source}"
+            add("water", "water", self.water, where)
+            for name, kg in self.solutes.items():
+                sid = _solute_id(name)
+                if sid in VOLATILE_SOLUTES:
+                    add("ethanol", name, kg, where)
+                    continue
+                add("total_solids", name, kg, where)
+                if sid == "lactose":
+                    add("lactose", name, kg, where)
+                elif kinds.get(sid) == "electrolyte" or sid == "milk_salts":
+                    add("salts", name, kg, where)
+                elif sid in sweet:
+                    add("other_sugars", name, kg, where)
+                else:
+                    add("other_solids", name, kg, where)
+        batch = self.total_mass
+        rows = []
+        for n in names:
+            kg = sum(x for _, x, _ in parts[n])
+            rows.append({"component": n, "kg": kg, "percent_of_batch": 100.0 * kg / batch,
+                         "sources": [{"ingredient": who, "kg": x, "source": src} for who, x, src in parts[n]]})
+        by = {r["component"]: r["kg"] for r in rows}
+        abv = None
+        if by["ethanol"] > 0.0:
+            abv = 100.0 * float(api.alcohol_by_volume_20c(by["ethanol"], by["water"]))
+        return {"batch_kg": batch, "components": rows, "ethanol_abv_percent": abv}
+
+    @property
+    def total_solids_fraction(self) -> float:
+        """Total solids, kg per kg of batch: everything but water and volatile liquids (ethanol)."""
+        rows = self.composition_summary()["components"]
+        return next(r["kg"] for r in rows if r["component"] == "total_solids") / self.total_mass
 
     @property
     def composition(self) -> dict[str, float]:
@@ -620,6 +752,8 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
             elif b is not None:
                 batch_kg = b
 
+    library = problems.guard(_parse_library, source, doc, path)
+
     has_comp = "composition" in doc
     has_ing = "ingredients" in doc
     if not has_comp and not has_ing:
@@ -638,8 +772,9 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
     if has_ing:
         if not table and isinstance(doc.get("ingredients"), dict):
             problems.add("[ingredients]", "empty table: list at least one ingredient with its amount")
-        from .ingredients import ingredient as _lookup
+        from .ingredients import ingredient as _builtin_ingredient
 
+        _lookup = library.ingredient if library is not None else _builtin_ingredient
         seen_ingredient: dict[str, str] = {}
         for key in amounts:
             try:
@@ -663,14 +798,15 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
             if not water_amount > 0.0:
                 problems.add(f"[composition].{water_keys[0]} = {_show(table[water_keys[0]])}",
                              f"water must be > 0 ({unit})")
+        table_kw = {} if library is None else {"table": library.solute_table}
         for key in amounts:
             try:
-                api.Solution(water=1.0, solutes={key: 0.0})
+                api.Solution(water=1.0, solutes={key: 0.0}, **table_kw)
             except ValueError as exc:
                 problems.add(f"[composition].{key}", str(exc))
         same: dict[str, str] = {}
         for key in amounts:
-            sid = _solute_id(key)
+            sid = _solute_id(key, library)
             if sid in same and _key_form(same[sid]) != _key_form(key):
                 problems.add(f"[composition].{key}", f"names the same solute ({sid}) as {same[sid]!r}; keep one")
             same.setdefault(sid, key)
@@ -681,19 +817,16 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
                              f"must add up to 100 +/- {PERCENT_TOLERANCE} (water included)")
 
     temperatures = _parse_temperatures(problems, doc, kind)
-    model, bound_kg = _parse_options(problems, doc, basis, water_amount, scale)
+    model, bound = _parse_options(problems, doc)
     problems.raise_if_any()
     _warn_unit_slips(source, kind, temperatures)
 
     if has_ing:
         recipe = Recipe(
-            name=name, temperatures=temperatures, model=model, bound_water=bound_kg, note=note, label=label,
-            basis=basis, source=source, path=path, kind=kind,
+            name=name, temperatures=temperatures, model=model, bound_water_fraction_of_water=bound, note=note,
+            label=label, basis=basis, source=source, path=path, kind=kind, library=library,
             ingredients={k: v * scale for k, v in amounts.items()},
         )
-        if recipe.bound_water is not None and not recipe.bound_water < recipe.water:
-            raise _fail(source, "[options].bound_water",
-                        f"bound water must be less than the water of the batch ({recipe.water:.6g} kg)")
         return _finish(recipe)
     assert water_amount is not None
     return _finish(Recipe(
@@ -702,13 +835,14 @@ def parse_recipe(text: str, source: str = "<string>", *, path: str | None = None
         solutes={k: v * scale for k, v in amounts.items()},
         temperatures=temperatures,
         model=model,
-        bound_water=bound_kg,
+        bound_water_fraction_of_water=bound,
         note=note,
         label=label,
         basis=basis,
         source=source,
         path=path,
         kind=kind,
+        library=library,
     ))
 
 
@@ -764,9 +898,8 @@ def _warn_unit_slips(source: str, kind: str, temperatures: Mapping[str, float]) 
                 SuspectUnitWarning, stacklevel=4)
 
 
-def _parse_options(problems: _Problems, doc: Mapping[str, Any], basis: str, water_amount: float | None,
-                   scale: float) -> tuple[str, float | None]:
-    """[options]: model id and bound water in kg (None: the recipe's default)."""
+def _parse_options(problems: _Problems, doc: Mapping[str, Any]) -> tuple[str, float | None]:
+    """[options]: model id and bound water as a share of the water (None: the recipe's default)."""
     source = problems.source
     opts = problems.guard(_table, source, doc, "options", required=False, default={}) or {}
     problems.guard(_unknown_keys, source, "options", opts, _OPTION_KEYS)
@@ -776,18 +909,39 @@ def _parse_options(problems: _Problems, doc: Mapping[str, Any], basis: str, wate
     if model not in known_models:
         problems.add(f"[options].model = {_show(opts['model'])}", f"must be one of {', '.join(known_models)}")
         model = "auto"
-    bound_kg: float | None = 0.0 if water_amount is not None else None
-    if "bound_water" in opts:
-        bunit = _BASIS_UNIT[basis]
-        limit = f"{water_amount:g} {bunit}" if water_amount is not None else "the water of the batch"
-        rule = f"bound water must be finite, >= 0 and less than the water ({limit})"
-        b = problems.guard(_number, source, "[options].bound_water", opts["bound_water"], rule)
+    bound: float | None = None
+    key = "bound_water_fraction_of_water"
+    if key in opts:
+        rule = "must be finite and in [0, 1) (kg of water that cannot freeze per kg of the recipe's water)"
+        b = problems.guard(_number, source, f"[options].{key}", opts[key], rule)
         if b is not None:
-            if not (0.0 <= b and (water_amount is None or b < water_amount)):
-                problems.add(f"[options].bound_water = {_show(opts['bound_water'])}", rule)
+            if not 0.0 <= b < 1.0:
+                problems.add(f"[options].{key} = {_show(opts[key])}", rule)
             else:
-                bound_kg = b * scale
-    return model, bound_kg
+                bound = b
+    return model, bound
+
+
+def _parse_library(source: str, doc: Mapping[str, Any], path: str | None) -> Library | None:
+    """[library]: own solutes and ingredients (files to load, inline tables); None if absent."""
+    if "library" not in doc:
+        return None
+    table = _table(source, doc, "library", required=False)
+    _unknown_keys(source, "library", table, _LIBRARY_KEYS)
+    lib = Library()
+    load = table.get("load", [])
+    if isinstance(load, str):
+        load = [load]
+    if not isinstance(load, list) or not all(isinstance(f, str) for f in load):
+        raise _fail(source, f"[library].load = {_show(load)}", "must be a file name or a list of file names")
+    base = os.path.dirname(path) if path else os.getcwd()
+    try:
+        for name in load:
+            lib.load_file(name if os.path.isabs(name) else os.path.join(base, name))
+        lib.add_tables({k: v for k, v in table.items() if k != "load"}, "[library]")
+    except ValueError as exc:
+        raise _fail(source, "[library]", str(exc)) from None
+    return lib
 
 
 def _amounts(problems: _Problems, table_name: str, table: Mapping[str, Any], basis: str) -> dict[str, float]:
@@ -815,9 +969,10 @@ def _solute_kinds() -> dict[str, str]:
     return {str(k): str(v) for k, v in api.solutes()["kind"].items()}
 
 
-def _solute_id(name: str) -> str:
+def _solute_id(name: str, library: Any = None) -> str:
     try:
-        sol = api.Solution(water=1.0, solutes={name: 0.0})
+        kw = {} if library is None else {"table": library.solute_table}
+        sol = api.Solution(water=1.0, solutes={name: 0.0}, **kw)
         return sol.species[0] if sol.species else name
     except ValueError:
         return name

@@ -33,8 +33,18 @@ from .report_compute import (  # noqa: F401
 from .report_indicators import REPORT_FORMAT, build_report  # noqa: F401
 from .report_layout import NonFiniteValueWarning, format_json, format_text, write_table_csv  # noqa: F401
 
+def report_schema() -> dict:
+    """The JSON schema (draft 2020-12) of the report dict of :func:`build_report` and of
+    ``colligate report --json``, as a dict (validate with the ``jsonschema`` package)."""
+    import json
+    from importlib import resources
+
+    return json.loads((resources.files("colligate") / "data" / "report.schema.json").read_text(encoding="utf-8"))
+
+
 __all__ = [
     "REPORT_FORMAT",
+    "report_schema",
     "CAUTIONS",
     "VERIFY_NOTE",
     "build_report",

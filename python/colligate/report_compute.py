@@ -20,7 +20,7 @@ import numpy as np
 
 from . import api
 from ._warnings import _warn
-from .recipe import Recipe
+from .recipe import VOLATILE_SOLUTES, Recipe
 from .units import ZERO_CELSIUS_K as ZERO_C_K
 from .units import celsius_from_kelvin, fahrenheit_from_kelvin, kelvin_from_celsius
 
@@ -98,18 +98,19 @@ class IcePath:
         The solution (or the water phase of a recipe).
     model : str
         Activity model id.
-    bound_water : float
-        Water that cannot freeze, kg.
+    bound_water_fraction_of_water : float
+        Water that cannot freeze, kg per kg of the solution's water, in [0, 1).
 
     Every figure comes from one prepared :class:`colligate.IceCurve`: freezing point, the
     salt phases and the end of the curve (the final eutectic), ice at any temperature.
     """
 
-    def __init__(self, solution: "api.Solution", model: str = "auto", bound_water: float = 0.0) -> None:
+    def __init__(self, solution: "api.Solution", model: str = "auto",
+                 bound_water_fraction_of_water: float = 0.0) -> None:
         self.solution = api._as_solution(solution)
         self.model = model
-        self.bound_water = float(bound_water or 0.0)
-        self.curve = api.IceCurve(self.solution, model, self.bound_water)
+        self.bound_water_fraction_of_water = float(bound_water_fraction_of_water or 0.0)
+        self.curve = api.IceCurve(self.solution, model, self.bound_water_fraction_of_water)
         self._tf: float | None = None
         self._eutectic: dict[str, Any] | None = None
 
@@ -190,22 +191,24 @@ def report_eutectic_K(path: IcePath) -> float | None:
 
 def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any]:
     """The core's figures for ``path.solution`` at the named temperatures ``temps`` (K)."""
-    solution, model, bound_water = path.solution, path.model, path.bound_water
+    solution, model = path.solution, path.model
     total = float(solution.total_mass)
     water = float(solution.water)
-    solids = total - water
+    volatile = sum(float(kg) for sid, kg in solution.solutes.items() if sid in VOLATILE_SOLUTES)
+    solids = total - water - volatile  # dissolved solids: volatile liquids (ethanol) left out
     fractions = solution.mass_fractions()
     molal = solution.molalities()
 
     composition = [
-        {"component": "water", "mass_kg": water, "mass_percent": 100.0 * fractions["water"], "molality_mol_per_kg": None}
+        {"component": "water", "mass_kg": water, "mass_percent_of_aqueous_phase": 100.0 * fractions["water"],
+         "molality_mol_per_kg": None}
     ]
     for sid, kg in solution.solutes.items():
         composition.append(
             {
                 "component": sid,
                 "mass_kg": float(kg),
-                "mass_percent": 100.0 * float(fractions[sid]),
+                "mass_percent_of_aqueous_phase": 100.0 * float(fractions[sid]),
                 "molality_mol_per_kg": _f(molal.get(sid)),
             }
         )
@@ -229,13 +232,13 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
                     "temperature_C": celsius_from_kelvin(t_k),
                     "temperature_F": fahrenheit_from_kelvin(t_k),
                     "state": "below_eutectic",
-                    "ice_fraction": None,
+                    "ice_fraction_of_water": None,
                     "ice_percent_of_water": None,
-                    "ice_kg": None,
-                    "ice_mass_percent_of_batch": None,
-                    "unfrozen_water_kg": None,
-                    "unfrozen_solids_mass_percent": None,
-                    "unfrozen_water_activity": None,
+                    "ice_kg_of_aqueous_phase": None,
+                    "ice_mass_percent_of_aqueous_phase": None,
+                    "unfrozen_water_kg_of_aqueous_phase": None,
+                    "dissolved_solids_mass_percent_of_unfrozen_liquid": None,
+                    "water_activity_of_unfrozen_liquid": None,
                 }
             )
             continue
@@ -254,15 +257,15 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
                 "temperature_C": celsius_from_kelvin(t_k),
                 "temperature_F": fahrenheit_from_kelvin(t_k),
                 "state": ("frozen" if liquid <= 0.0 else "partly_frozen") if ice > 0.0 else "unfrozen",
-                "ice_fraction": ice / water,
+                "ice_fraction_of_water": ice / water,
                 "ice_percent_of_water": 100.0 * ice / water,
-                "ice_kg": ice,
-                "ice_mass_percent_of_batch": 100.0 * ice / total,
-                "unfrozen_water_kg": liquid,
+                "ice_kg_of_aqueous_phase": ice,
+                "ice_mass_percent_of_aqueous_phase": 100.0 * ice / total,
+                "unfrozen_water_kg_of_aqueous_phase": liquid,
                 # pure water below 0 C is all ice: no liquid, so no liquid composition
-                "unfrozen_solids_mass_percent": (100.0 * solids / (solids + liquid)
-                                                 if solids + liquid > 0.0 else None),
-                "unfrozen_water_activity": aw_t,
+                "dissolved_solids_mass_percent_of_unfrozen_liquid": (
+                    100.0 * solids / (solids + volatile + liquid) if solids + volatile + liquid > 0.0 else None),
+                "water_activity_of_unfrozen_liquid": aw_t,
             }
         )
 
@@ -270,11 +273,12 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
         "dairy_method": dairy_method(solution, temps),
         "model": model,
         "model_description": str(api.describe_model(solution, model=model)),
-        "composition": composition,
-        "total_mass_kg": total,
-        "water_kg": water,
-        "total_solids_mass_percent": float(solution.brix),
-        "bound_water_kg": bound_water,
+        "aqueous_phase": composition,
+        "aqueous_phase_mass_kg": total,
+        "water_kg_of_aqueous_phase": water,
+        "dissolved_solids_mass_percent_of_aqueous_phase": 100.0 * solids / total,
+        "bound_water_fraction_of_water": path.bound_water_fraction_of_water,
+        "bound_water_kg_of_aqueous_phase": path.bound_water_fraction_of_water * water,
         "freezing_point_K": tf if freezes else None,
         "freezing_point_C": celsius_from_kelvin(tf) if freezes else None,
         "freezing_point_F": fahrenheit_from_kelvin(tf) if freezes else None,
@@ -311,13 +315,22 @@ def dairy_method(solution: "api.Solution", temps: Mapping[str, float]) -> dict[s
 
 
 def recipe_entries(recipe: Recipe) -> dict[str, Any]:
-    """Batch mass (kg) and the ingredient rows of a recipe."""
+    """Batch mass (kg), the ingredient rows and the composition summary of a recipe."""
     batch = recipe.total_mass
     out: dict[str, Any] = {"batch_mass_kg": batch}
     if recipe.ingredients is not None:
         out["ingredients"] = [
-            {"ingredient": k, "mass_kg": v, "mass_percent": 100.0 * v / batch} for k, v in recipe.ingredients.items()
+            {"ingredient": k, "mass_kg": v, "mass_percent_of_batch": 100.0 * v / batch}
+            for k, v in recipe.ingredients.items()
         ]
+    summary = recipe.composition_summary()
+    out["composition_summary"] = [
+        {"component": r["component"], "mass_kg": r["kg"], "mass_percent_of_batch": r["percent_of_batch"],
+         "sources": r["sources"]} for r in summary["components"]]
+    by = {r["component"]: r["percent_of_batch"] for r in summary["components"]}
+    out["total_solids_mass_percent_of_batch"] = by["total_solids"]
+    out["ethanol_mass_percent_of_batch"] = by["ethanol"]
+    out["ethanol_abv_percent_of_water_and_ethanol"] = summary["ethanol_abv_percent"]
     return out
 
 
@@ -343,9 +356,9 @@ def heat_load_entry(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -
     return {
         "from_C": HEAT_LOAD_FROM_C,
         "to_C": celsius_from_kelvin(t_to),
-        "total_kJ_per_kg": q["total"] / 1e3,
-        "sensible_kJ_per_kg": q["sensible"] / 1e3,
-        "latent_kJ_per_kg": q["latent"] / 1e3,
+        "total_kJ_per_kg_of_batch": q["total"] / 1e3,
+        "sensible_kJ_per_kg_of_batch": q["sensible"] / 1e3,
+        "latent_kJ_per_kg_of_batch": q["latent"] / 1e3,
         "enthalpy_reference": "H = 0 at -40 C",
         "stopped_at": stop,
     }
@@ -396,8 +409,7 @@ def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
         raise ValueError(f"step_K = {step_K}: must be between 0.01 and 10 K")
     solution = recipe.solution()
     model = recipe.model
-    bound = float(recipe.bound_water or 0.0)
-    path = IcePath(solution, model, bound)
+    path = IcePath(solution, model, float(recipe.bound_water_fraction_of_water or 0.0))
     tf = path.freezing_point
     t_eut = report_eutectic_K(path)
 
@@ -416,7 +428,8 @@ def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
     temps_c = np.array(sorted(points, reverse=True), dtype=float)
     temps_k = temps_c + ZERO_C_K
     water = float(solution.water)
-    solids = float(solution.total_mass) - water
+    volatile = sum(float(kg) for sid, kg in solution.solutes.items() if sid in VOLATILE_SOLUTES)
+    solids = float(solution.total_mass) - water - volatile  # ethanol is liquid, not solids
     in_range = temps_k >= THERMAL_MIN_K - 1e-9
     if t_eut is not None:
         # at the eutectic itself the curve is evaluated a hair above it
@@ -455,9 +468,9 @@ def ice_enthalpy_table(recipe: Recipe, *, step_K: float | None = None):
             "ice_fraction": ice,
             "ice_kg": ice_kg,
             "unfrozen_water_kg": liquid,
-            "unfrozen_solids_mass_percent": np.divide(100.0 * solids, solids + liquid,
+            "unfrozen_solids_mass_percent": np.divide(100.0 * solids, solids + volatile + liquid,
                                                       out=np.full_like(liquid, np.nan),
-                                                      where=(solids + liquid) > 0.0),
+                                                      where=(solids + volatile + liquid) > 0.0),
             "enthalpy_J_per_kg": h,
             "apparent_cp_J_per_kg_K": cp,
             "heat_removed_from_fill_J_per_kg": h_fill - h,

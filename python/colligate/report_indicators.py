@@ -1,7 +1,8 @@
 """Reports, second layer: figures derived from the core's numbers, and the report dict.
 
 Total solids, sweetness as sucrose equivalent, freezing power relative to sucrose, the
-concentrations of the unfrozen phase (sugars, salts, lactose against its solubility) and
+concentrations of the unfrozen phase (sugars, salts, lactose), whether a dairy mix keeps its
+lactose in solution by the trade's rule (Hyde & Rothwell 1973) and
 the cautions that depend on the composition. :func:`build_report` puts them together with
 the numbers of :mod:`colligate.report_compute` into one JSON-ready dict.
 """
@@ -9,10 +10,10 @@ the numbers of :mod:`colligate.report_compute` into one JSON-ready dict.
 from __future__ import annotations
 
 import warnings
-from typing import Any, Mapping
+from typing import Any, Mapping, Sequence
 
 from . import api
-from ._warnings import CAUTIONS, OutOfValidityRangeWarning
+from ._warnings import CAUTIONS
 from .contributions import contributions_entry, sucrose_equivalent_kg
 from .recipe import DEFAULT_TEMPERATURES_C, Recipe
 from .report_compute import (
@@ -30,18 +31,18 @@ from .units import celsius_from_kelvin, kelvin_from_celsius
 
 __all__ = [
     "REPORT_FORMAT",
+    "LACTOSE_RULE",
     "build_report",
+    "group_warnings",
+    "lactose_in_solution",
     "extra_cautions",
     "freezing_power",
     "indicators",
 ]
 
 #: Identifier and version of the dict layout produced by :func:`build_report`.
-REPORT_FORMAT = "colligate-report/1"
+REPORT_FORMAT = "colligate-report/2"
 
-def _lactose_solubility_g_per_100g(t_k: float) -> float:
-    """Lactose solubility at ``t_k`` (K) from the core, in g per 100 g water for display."""
-    return 100.0 * float(api.lactose_solubility(t_k))
 
 
 def freezing_power(sid: str) -> float | None:
@@ -55,20 +56,21 @@ def freezing_power(sid: str) -> float | None:
 
 
 def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dict[str, Any]:
-    """Formulation indicators of a recipe: total solids, sweetness, freezing power and the
-    unfrozen phase at serving and storage temperature."""
+    """Formulation indicators of a recipe: sweetness, freezing power, the unfrozen phase at
+    serving and storage temperature and, for dairy mixes, whether the lactose stays in
+    solution by the trade's rule."""
     batch = recipe.total_mass
     solution = path.solution
     solutes = dict(solution.solutes)
     sweet = sucrose_equivalent_kg(solutes)
     kinds = solute_kinds()
     out: dict[str, Any] = {
-        "total_solids_mass_percent": 100.0 * (1.0 - recipe.water / batch),
-        "sweetness_sucrose_equivalent_mass_percent": 100.0 * sweet / batch,
+        "sweetness_sucrose_equivalent_mass_percent_of_batch": 100.0 * sweet / batch,
         "freezing_power_relative_to_sucrose": {
             k: freezing_power(k) for k in solutes if kinds.get(k) == "non_electrolyte" or k in kinds
         },
         "unfrozen_phase": [],
+        "lactose_in_solution": lactose_in_solution(recipe),
     }
     t_eut = report_eutectic_K(path)
     for point in ("serving", "scooping", "holding", "storage", "frozen_storage", "lowest_use"):
@@ -84,20 +86,40 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
         liquid = max(phase.unfrozen_water + phase.bound_water, 1e-12)
         sugars = sum(v for k, v in solutes.items() if kinds.get(k) == "non_electrolyte" and k not in ("ethanol", "milk_salts"))
         salts = sum(v for k, v in solutes.items() if kinds.get(k) == "electrolyte" or k == "milk_salts")
-        lac = solutes.get("lactose", 0.0)
-        t_c = celsius_from_kelvin(t_k)
-        sol = _lactose_solubility_g_per_100g(t_k)
         out["unfrozen_phase"].append({
             "name": point,
-            "temperature_C": t_c,
+            "temperature_C": celsius_from_kelvin(t_k),
             "state": "partly_frozen" if phase.ice > 0.0 else "unfrozen",
-            "sugars_g_per_100g_water": 100.0 * sugars / liquid,
-            "salts_g_per_100g_water": 100.0 * salts / liquid,
-            "lactose_g_per_100g_water": 100.0 * lac / liquid,
-            "lactose_solubility_g_per_100g_water": sol,
-            "lactose_supersaturation": (lac / liquid * 100.0) / sol if lac > 0 else 0.0,
+            "sugars_g_per_100g_unfrozen_water": 100.0 * sugars / liquid,
+            "salts_g_per_100g_unfrozen_water": 100.0 * salts / liquid,
+            "lactose_g_per_100g_unfrozen_water": 100.0 * solutes.get("lactose", 0.0) / liquid,
         })
     return out
+
+
+#: How the lactose indicator is judged, shown with it.
+LACTOSE_RULE = ("milk solids-not-fat at most a seventh of the serum (water + MSNF), the rule of "
+                "Hyde & Rothwell (1973) for keeping lactose in solution (no sandiness in storage)")
+
+
+def lactose_in_solution(recipe: Recipe) -> dict[str, Any] | None:
+    """Sandiness indicator of a dairy mix: its milk solids-not-fat against the largest that
+    keeps lactose in solution by Hyde & Rothwell (1973) (from the core, source key
+    ``hyde_rothwell_1973``). None for a recipe without milk solids-not-fat."""
+    rows = {r["component"]: r for r in recipe.composition_summary()["components"]}
+    batch = recipe.total_mass
+    msnf = rows["msnf"]["kg"] / batch
+    if not msnf > 0.0:
+        return None
+    water = rows["water"]["kg"] / batch
+    limit = api.max_msnf_for_lactose_in_solution(water, msnf)
+    return {
+        "msnf_mass_percent_of_batch": 100.0 * msnf,
+        "max_msnf_mass_percent_of_batch": 100.0 * limit,
+        "at_risk": bool(msnf > limit),
+        "rule": LACTOSE_RULE,
+        "source": "hyde_rothwell_1973",
+    }
 
 
 def extra_cautions(solute_ids: set[str], has_electrolytes: bool = False) -> list[str]:
@@ -118,6 +140,27 @@ def extra_cautions(solute_ids: set[str], has_electrolytes: bool = False) -> list
     return out
 
 
+def _warning_key(text: str) -> str:
+    """A warning's text with its numbers masked: messages that differ only in values group."""
+    import re
+
+    return re.sub(r"[-+]?\d+(?:\.\d+)?(?:[eE][-+]?\d+)?", "#", text)
+
+
+def group_warnings(caught: Sequence[warnings.WarningMessage]) -> list[dict[str, Any]]:
+    """Distinct warnings, each once: ``message`` (the first of its kind), ``category`` and
+    ``occurrences`` (how many were raised with the same text up to the numbers)."""
+    groups: dict[tuple[str, str], dict[str, Any]] = {}
+    for w in caught:
+        text = str(w.message)
+        key = (w.category.__name__, _warning_key(text))
+        if key in groups:
+            groups[key]["occurrences"] += 1
+        else:
+            groups[key] = {"message": text, "category": w.category.__name__, "occurrences": 1}
+    return list(groups.values())
+
+
 def _version() -> str:
     try:
         from ._version import __version__
@@ -131,7 +174,7 @@ def build_report(
     temperatures: Mapping[str, float] | None = None,
     model: str | None = None,
     *,
-    bound_water: float | None = None,
+    bound_water_fraction_of_water: float | None = None,
     name: str | None = None,
     label: str | None = None,
 ) -> dict[str, Any]:
@@ -146,37 +189,34 @@ def build_report(
         serving -12 degC and storage -18 degC for a bare solution.
     model : str, optional
         Model id (see ``colligate.models()``). Default: the recipe's, else "auto".
-    bound_water : float, optional
-        Water that cannot freeze, kg. Default: the recipe's, else 0.
+    bound_water_fraction_of_water : float, optional
+        Water that cannot freeze, kg per kg of water. Default: the recipe's, else 0.
     name, label : str, optional
         Title and label shown in the report (default from the recipe).
 
     Returns
     -------
     dict
-        Keys carry units: ``freezing_point_K``, ``freezing_point_C``,
-        ``freezing_point_F``, ``water_activity_25C``, ``ice_table`` (rows with
-        ``temperature_K``, ``temperature_C``, ``temperature_F``,
-        ``ice_fraction``, ``ice_kg``, ``unfrozen_water_kg``,
-        ``unfrozen_solids_mass_percent``, ``state``: ``unfrozen``,
-        ``partly_frozen`` or ``below_eutectic``, the numbers then None),
-        ``eutectic`` (None without salts; else ``found``, ``temperature_K``/``_C``/``_F``,
-        ``phase``, ``formula``, ``source``, ``reason``, ``note``),
-        ``water_activity_note``, ``composition`` (rows with
-        ``mass_kg``, ``mass_percent``, ``molality_mol_per_kg``), ``model``,
-        ``model_description``, ``warnings`` and ``cautions`` (always last). A recipe
-        adds ``batch_mass_kg``, ``ingredients``, ``indicators`` and ``heat_load``.
+        One key per quantity, its unit and its basis in the name (``..._of_batch``,
+        ``..._of_aqueous_phase`` (the water and what is dissolved in it),
+        ``..._of_unfrozen_liquid``, ``..._of_water``); the layout is described by the JSON
+        schema :func:`colligate.report_schema.report_schema` (``report_format``
+        "colligate-report/2"). ``warnings`` lists each distinct warning once (``message``,
+        ``category``, ``occurrences``); ``cautions`` comes last. A recipe adds
+        ``batch_mass_kg``, ``ingredients``, ``composition_summary``, ``indicators`` and
+        ``heat_load``.
 
     Notes
     -----
-    Any :class:`colligate.OutOfValidityRangeWarning` raised while computing is
-    recorded in ``report["warnings"]`` and issued again once (per message).
+    Warnings raised while computing are recorded in ``report["warnings"]``, grouped, and
+    not issued again: the report is where they are shown.
     """
     if isinstance(subject, Recipe):
         solution = subject.solution()
         temps = dict(subject.temperatures) if temperatures is None else dict(temperatures)
         model = subject.model if model is None else model
-        bound_water = subject.bound_water if bound_water is None else bound_water
+        bound = subject.bound_water_fraction_of_water if bound_water_fraction_of_water is None \
+            else bound_water_fraction_of_water
         name = subject.name if name is None else name
         label = subject.label if label is None else label
         note = subject.note
@@ -189,35 +229,25 @@ def build_report(
             else dict(temperatures)
         )
         model = "auto" if model is None else model
-        bound_water = 0.0 if bound_water is None else bound_water
+        bound = 0.0 if bound_water_fraction_of_water is None else bound_water_fraction_of_water
         name = "Solution" if name is None else name
         label = "" if label is None else label
         note = ""
         source = ""
 
-    path = IcePath(solution, model, float(bound_water))
+    path = IcePath(solution, model, float(bound or 0.0))
     with warnings.catch_warnings(record=True) as caught:
         warnings.simplefilter("always")
         body = compute_solution(path, temps)
         if isinstance(subject, Recipe):
             body.update(recipe_entries(subject))
             # indicators and heat load follow the recipe's own model and bound water
-            own = IcePath(solution, subject.model, float(subject.bound_water or 0.0))
-            if (own.model, own.bound_water) == (path.model, path.bound_water):
+            own = IcePath(solution, subject.model, float(subject.bound_water_fraction_of_water or 0.0))
+            if (own.model, own.bound_water_fraction_of_water) == (path.model, path.bound_water_fraction_of_water):
                 own = path
             body["indicators"] = indicators(subject, own, temps)
             body["heat_load"] = heat_load_entry(subject, own, temps)
             body["contributions"] = contributions_entry(subject)
-
-    messages: list[str] = []
-    for w in caught:
-        text = str(w.message)
-        if text not in messages:
-            messages.append(text)
-            if issubclass(w.category, OutOfValidityRangeWarning):
-                warnings.warn(text, OutOfValidityRangeWarning, stacklevel=2)
-            else:
-                warnings.warn_explicit(w.message, w.category, w.filename, w.lineno)
 
     report: dict[str, Any] = {
         "report_format": REPORT_FORMAT,
@@ -227,7 +257,7 @@ def build_report(
         "note": note,
         "source": source,
         **body,
-        "warnings": messages,
+        "warnings": group_warnings(caught),
         "cautions": list(CAUTIONS) + extra_cautions(set(solution.solutes), bool(electrolytes(solution))),
     }
     return report

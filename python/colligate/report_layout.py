@@ -36,6 +36,10 @@ def _finite_or_null(value: Any, where: str, bad: list[str]) -> Any:
         return [_finite_or_null(v, f"{where}[{i}]", bad) for i, v in enumerate(value)]
     return value
 
+#: Names of the composition-summary components in the text report.
+_COMPONENT_LABELS = {"other_sugars": "other sugars", "msnf": "milk solids-not-fat",
+                     "other_solids": "other solids", "total_solids": "total solids"}
+
 
 def format_json(report: Mapping[str, Any]) -> str:
     """Serialise a report to strict JSON, indented, ending with a newline.
@@ -134,19 +138,31 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         lines.append(f"  from: {report['source']}")
 
     # composition
-    if report.get("ingredients") and report.get("batch_mass_kg"):
-        lines += _heading(f"Composition: water and dissolved solids ({report['total_mass_kg']:.4g} kg of the "
-                          f"{report['batch_mass_kg']:.4g} kg batch)")
-    else:
-        lines += _heading(f"Composition (batch {report['total_mass_kg']:.4g} kg)")
+    summary = report.get("composition_summary")
+    if summary:
+        lines += _heading(f"Composition of the batch ({report['batch_mass_kg']:.4g} kg)")
+        lines.append(f"  {'component':<22}{'kg':>10}{'% of batch':>12}")
+        for row in summary:
+            label = _COMPONENT_LABELS.get(row["component"], row["component"])
+            lines.append(f"  {label:<22}{row['mass_kg']:10.4f}{row['mass_percent_of_batch']:12.2f}")
+        lines.extend(_wrap("total solids leave out water and ethanol (what stays after drying); each "
+                           "figure comes from the ingredient data, whose sources are in the JSON report."))
+        if report.get("ethanol_abv_percent_of_water_and_ethanol") is not None:
+            lines.extend(_wrap(
+                f"alcohol: {report['ethanol_abv_percent_of_water_and_ethanol']:.2f} % ABV of the water-ethanol "
+                "part at 20 °C (OIML R 22 densities; dissolved solids not counted in the volume, so the "
+                "whole product's ABV is lower)"))
+    lines += _heading(f"Water and dissolved solutes ({report['aqueous_phase_mass_kg']:.4g} kg)")
     lines.append(f"  {'component':<20}{'kg':>10}{'mass %':>10}{'mol/kg water':>15}")
-    for row in report["composition"]:
+    for row in report["aqueous_phase"]:
         m = row["molality_mol_per_kg"]
         molal = f"{m:15.4f}" if m is not None else f"{'':>15}"
-        lines.append(f"  {row['component']:<20}{row['mass_kg']:10.4f}{row['mass_percent']:10.2f}{molal}")
-    lines.append(f"  {'dissolved solids':<20}{'':>10}{report['total_solids_mass_percent']:10.2f}   (°Brix-like, mass %)")
-    if report.get("bound_water_kg"):
-        lines.append(f"  water counted as unable to freeze: {report['bound_water_kg']:.4g} kg")
+        lines.append(f"  {row['component']:<20}{row['mass_kg']:10.4f}{row['mass_percent_of_aqueous_phase']:10.2f}{molal}")
+    lines.append(f"  {'dissolved solids':<20}{'':>10}{report['dissolved_solids_mass_percent_of_aqueous_phase']:10.2f}"
+                 "   (°Brix-like mass %, no ethanol)")
+    if report.get("bound_water_fraction_of_water"):
+        lines.extend(_wrap(f"water counted as unable to freeze: {100.0 * report['bound_water_fraction_of_water']:.2f} % "
+                           f"of the water ({report['bound_water_kg_of_aqueous_phase']:.4g} kg)"))
 
     # key numbers
     lines += _heading("Key figures")
@@ -195,10 +211,11 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
         if row.get("state") == "below_eutectic":
             lines.append(f"  {row['name']:<10}{t:>{tcol}}  below eutectic (salt crystallises; no ice figure)")
             continue
-        solids = row["unfrozen_solids_mass_percent"]
+        solids = row["dissolved_solids_mass_percent_of_unfrozen_liquid"]
         lines.append(
-            f"  {row['name']:<10}{t:>{tcol}}{row['ice_percent_of_water']:8.1f}{row['ice_kg']:9.4f}"
-            f"{row['unfrozen_water_kg']:11.4f}" + (f"{solids:17.1f}" if solids is not None else f"{'all ice':>17}")
+            f"  {row['name']:<10}{t:>{tcol}}{row['ice_percent_of_water']:8.1f}{row['ice_kg_of_aqueous_phase']:9.4f}"
+            f"{row['unfrozen_water_kg_of_aqueous_phase']:11.4f}"
+            + (f"{solids:17.1f}" if solids is not None else f"{'all ice':>17}")
         )
     lines.append("  ice %: ice as a share of all the water; liquid kg: water still liquid,")
     lines.append("  including any counted as unable to freeze; liquid solids %: dissolved")
@@ -220,13 +237,13 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     if report.get("ingredients"):
         lines += _heading("Ingredients")
         for row in report["ingredients"]:
-            lines.append(f"  {row['ingredient']:<28}{row['mass_kg']:10.4f} kg{row['mass_percent']:9.2f} %")
+            lines.append(f"  {row['ingredient']:<28}{row['mass_kg']:10.4f} kg{row['mass_percent_of_batch']:9.2f} %")
     if report.get("heat_load"):
         q = report["heat_load"]
         lines += _heading("Heat to remove")
         lines.append(
-            f"  from {q['from_C']:.1f} °C to {q['to_C']:.1f} °C: {q['total_kJ_per_kg']:.1f} kJ/kg "
-            f"(sensible {q['sensible_kJ_per_kg']:.1f}, latent {q['latent_kJ_per_kg']:.1f})"
+            f"  from {q['from_C']:.1f} °C to {q['to_C']:.1f} °C: {q['total_kJ_per_kg_of_batch']:.1f} kJ/kg "
+            f"(sensible {q['sensible_kJ_per_kg_of_batch']:.1f}, latent {q['latent_kJ_per_kg_of_batch']:.1f})"
         )
         if q.get("stopped_at") == "eutectic":
             lines.extend(_wrap("stops at the eutectic: colder, salt and ice crystallise together, "
@@ -236,23 +253,28 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     if report.get("indicators"):
         ind = report["indicators"]
         lines += _heading("Formulation indicators")
-        lines.append(f"  total solids               {ind['total_solids_mass_percent']:7.2f} % of batch")
-        lines.append(f"  sweetness (as sucrose)     {ind['sweetness_sucrose_equivalent_mass_percent']:7.2f} % of batch")
+        if report.get("total_solids_mass_percent_of_batch") is not None:
+            lines.append(f"  total solids               {report['total_solids_mass_percent_of_batch']:7.2f} % of batch")
+        lines.append(f"  sweetness (as sucrose)     {ind['sweetness_sucrose_equivalent_mass_percent_of_batch']:7.2f} % of batch")
         fp = ", ".join(f"{k} {v:.2f}" for k, v in ind["freezing_power_relative_to_sucrose"].items() if v is not None)
         lines.extend(_wrap(f"freezing power per gram relative to sucrose (this model): {fp}"))
         for row in ind["unfrozen_phase"]:
             if row.get("state") == "below_eutectic":
                 lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: below eutectic")
                 continue
-            lines.append(
-                f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: sugars {row['sugars_g_per_100g_water']:.0f} g, "
-                f"salts {row['salts_g_per_100g_water']:.1f} g per 100 g liquid water"
-            )
-            if row["lactose_g_per_100g_water"] > 0:
-                lines.append(
-                    f"           lactose {row['lactose_g_per_100g_water']:.1f} g per 100 g water, "
-                    f"{row['lactose_supersaturation']:.1f} x its solubility (sandiness risk above 1)"
-                )
+            lines.append(f"  {row['name']:<8} {row['temperature_C']:6.1f} °C: sugars "
+                         f"{row['sugars_g_per_100g_unfrozen_water']:.0f} g, salts "
+                         f"{row['salts_g_per_100g_unfrozen_water']:.1f} g per 100 g unfrozen water")
+            if row["lactose_g_per_100g_unfrozen_water"] > 0:
+                lines.append(f"           lactose {row['lactose_g_per_100g_unfrozen_water']:.1f} g per 100 g "
+                             "unfrozen water")
+        lac = ind.get("lactose_in_solution")
+        if lac:
+            verdict = ("above it: lactose may crystallise in storage (sandiness)" if lac["at_risk"]
+                       else "within it")
+            lines.extend(_wrap(
+                f"lactose: MSNF {lac['msnf_mass_percent_of_batch']:.2f} % of batch against at most "
+                f"{lac['max_msnf_mass_percent_of_batch']:.2f} % ({lac['rule']}): {verdict}"))
     if report.get("contributions"):
         lines += _contributions_text(report["contributions"])
     if report.get("files"):
@@ -263,7 +285,8 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     if report.get("warnings"):
         lines += _heading("Warnings")
         for w in report["warnings"]:
-            lines.extend(_wrap(w, indent="    ", first="  - "))
+            times = f" (raised {w['occurrences']} times, values differing)" if w["occurrences"] > 1 else ""
+            lines.extend(_wrap(w["message"] + times, indent="    ", first="  - "))
 
     lines += _heading("Cautions")
     for c in report["cautions"]:

@@ -117,7 +117,7 @@ def test_demo_json(tmp_path, capsys):
     assert "invented demo scenario" in rep["label"].lower()
     for key in ("ice_curve_png", "enthalpy_png", "cooling_curve_png"):
         assert Path(rep["files"][key]).is_file()
-    assert rep["heat_load"]["total_kJ_per_kg"] > 0 and rep["indicators"]
+    assert rep["heat_load"]["total_kJ_per_kg_of_batch"] > 0 and rep["indicators"]
     assert list(rep)[-1] == "cautions" and rep["cautions"]
 
 
@@ -176,8 +176,9 @@ def test_report_json_save(tmp_path, capsys):
     assert code == 0
     assert json.loads(saved.read_text(encoding="utf-8")) == json.loads(out)
     rep = json.loads(out)
-    assert rep["total_mass_kg"] == pytest.approx(1.0, abs=1e-12)  # percent basis, default batch 1 kg
-    assert {"temperature_C", "ice_fraction", "unfrozen_water_kg", "unfrozen_solids_mass_percent"} <= set(rep["ice_table"][0])
+    assert rep["aqueous_phase_mass_kg"] == pytest.approx(1.0, abs=1e-12)  # percent basis, default batch 1 kg
+    assert {"temperature_C", "ice_fraction_of_water", "unfrozen_water_kg_of_aqueous_phase",
+            "dissolved_solids_mass_percent_of_unfrozen_liquid"} <= set(rep["ice_table"][0])
 
 
 def test_report_thermal_plots_and_csv(tmp_path, capsys):
@@ -274,7 +275,7 @@ def test_help_and_version(capsys):
     assert code == 0 and out.startswith("colligate ")
 
 
-def test_validity_warning_is_one_short_line(tmp_path, capsys, monkeypatch):
+def test_validity_warning_is_shown_once_in_the_report_not_on_stderr(tmp_path, capsys, monkeypatch):
     real = cg.freezing_point
 
     def warning_freezing_point(*args, **kwargs):
@@ -282,12 +283,14 @@ def test_validity_warning_is_one_short_line(tmp_path, capsys, monkeypatch):
         return real(*args, **kwargs)
 
     monkeypatch.setattr(cg.api, "freezing_point", warning_freezing_point)
-    code, out, err = run(capsys, "report", str(recipe_file(tmp_path)))
+    code, out, err = run(capsys, "report", str(recipe_file(tmp_path)), "--plot", str(tmp_path / "ice.png"))
     assert code == 0
-    warn_lines = [ln for ln in err.splitlines() if ln.startswith("colligate: warning: ")]
-    assert warn_lines == ["colligate: warning: test: outside the validated range second line"]
-    assert "Traceback" not in err
+    assert "warning" not in err and "Traceback" not in err
+    assert out.count("test: outside the validated range") == 1  # once, in the Warnings section
     assert_ends_with_cautions(out)
+    code, out, err = run(capsys, "report", str(recipe_file(tmp_path)), "--json")
+    assert code == 0 and "warning" not in err
+    assert [w["message"] for w in json.loads(out)["warnings"]] == ["test: outside the validated range\nsecond line"]
 
 
 # ----------------------------------------------------------------- installed program

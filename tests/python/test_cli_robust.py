@@ -218,8 +218,8 @@ def test_fit_writes_plot_and_solute_together_or_neither(tmp_path, capsys, monkey
     pd.DataFrame({"molality": m, "water_activity": np.exp(-0.018015 * m * (1 + 0.05 * m))}).to_csv(data, index=False)
     code, out, err = run(capsys, "fit", str(data), "--model", "norrish", "--plot", str(tmp_path / "p.png"),
                          "--save-solute", str(tmp_path / "s.toml"))
-    # no --molar-mass: building the solute fails after the plot was made, so neither appears
-    one_line_error(code, err, "molar_mass")
+    # no --molar-mass: refused before fitting (a Norrish solute file needs it), so neither appears
+    one_line_error(code, err, "--molar-mass", "--save-solute", "required")
     assert sorted(os.listdir(tmp_path)) == ["d.csv"]
     code, out, err = run(capsys, "fit", str(data), "--model", "norrish", "--plot", str(tmp_path / "p.png"),
                          "--save-solute", str(tmp_path / "s.toml"), "--molar-mass", "0.1")

@@ -40,9 +40,9 @@ def test_dask_sweep_matches_local_batch(client):
         remote_aw = client.compute(water_activities(ddf, 298.15)).result()
         remote_ice = client.compute(ice_fractions(ddf, [263.15, 255.15])).result()
         local = cg.SolutionBatch.from_mass_fractions(df)
-        local_tf = cg.batch_freezing_point(local, range_policy="nan")
-        local_aw = cg.batch_water_activity(local, 298.15, range_policy="nan")
-        local_ice = cg.batch_ice_fraction(local, [263.15, 255.15], range_policy="nan")
+        local_tf = cg.batch_freezing_point(local)  # same arguments and defaults as the Dask path
+        local_aw = cg.batch_water_activity(local, 298.15)
+        local_ice = cg.batch_ice_fraction(local, [263.15, 255.15])
     pd.testing.assert_series_equal(remote_tf.sort_index(), local_tf, check_exact=True)
     pd.testing.assert_series_equal(remote_aw.sort_index(), local_aw, check_exact=True)
     pd.testing.assert_frame_equal(remote_ice.sort_index(), local_ice, check_exact=True)

@@ -69,6 +69,10 @@ CASES = {
         (lambda tmp: parse_recipe(recipe_text(temperatures="[temperatures_celsius]\nserving = -80\n"), "r.toml"),
          ("[temperatures_celsius].serving", "-80", "between -60 and +40 degC")),
     ],
+    "colligate.LibraryError": [
+        (lambda tmp: cg.Library.load(_write(tmp / "lib.toml", 'format = "colligate-library"\nversion = 99\n')),
+         ("lib.toml", "version = 99", "reads versions 1 to")),
+    ],
     "colligate.ingredients.IngredientError": [
         (lambda tmp: Ingredient("cream", water=1.5), ("water", "1.5", "[0, 1]")),
     ],

@@ -142,7 +142,7 @@ def test_effective_solute_from_ice_curve_and_bound_water():
     t.add(rec)
     food = cg.Solution(water=0.8, solutes={"demo_solids": 0.2}, table=t)
     T = np.linspace(270.0, 245.0, 11)
-    ice = cg.ice_fraction(food, T, bound_water=0.2 * 0.2)
+    ice = cg.ice_fraction(food, T, bound_water_fraction_of_water=0.2 * 0.2 / 0.8)
     res = fit.fit_effective_solute(0.8, temperature=T, ice_fraction=ice)
     assert res.success
     assert res.params["molar_mass"] == pytest.approx(0.12, rel=1e-5)
@@ -150,8 +150,8 @@ def test_effective_solute_from_ice_curve_and_bound_water():
     fs = res.as_solute("my food solids")
     lib = fit.SoluteLibrary([fs])
     s = cg.Solution.from_mass_fractions({"my food solids": 0.2}, table=lib)
-    assert cg.ice_fraction(s, 255.0, bound_water=lib.bound_water(s)) == pytest.approx(
-        cg.ice_fraction(food, 255.0, bound_water=0.04), abs=1e-6)
+    assert cg.ice_fraction(s, 255.0, bound_water_fraction_of_water=lib.bound_water_fraction_of_water(s)) == \
+        pytest.approx(cg.ice_fraction(food, 255.0, bound_water_fraction_of_water=0.05), abs=1e-6)
 
 
 def test_bad_data():

@@ -73,7 +73,7 @@ def recipe_documents(draw):
             st.lists(st.sampled_from(["drawing", "serving", "storage", "melting"]), unique=True, max_size=3))}
     if not draw(maybe):
         doc["options"] = {k: draw(st.one_of(amounts, st.sampled_from(["auto", "norrish", "pitzer", "nope"])))
-                          for k in draw(st.lists(st.sampled_from(["model", "bound_water", "strict"]), unique=True,
+                          for k in draw(st.lists(st.sampled_from(["model", "bound_water_fraction_of_water", "strict"]), unique=True,
                                                  max_size=2))}
     if not draw(maybe) and not draw(maybe):
         doc[draw(st.sampled_from(["extra", "composition", "options"]))] = draw(values)
@@ -252,7 +252,7 @@ def test_command_on_garbage_prints_one_line_and_exits_2(tmp_path, capsys, data, 
     "[recipe]\nname = 'x'\n[composition]\nwater = {a = 1}\n",
     "[recipe]\nname = 'x'\n[composition]\nwater = 1\nsucrose = [1, 2]\n",
     "recipe = 3\n",
-    "[recipe]\nname = 'x'\n[ingredients]\nwhole_milk = 1\n[options]\nbound_water = 'lots'\n",
+    "[recipe]\nname = 'x'\n[ingredients]\nwhole_milk = 1\n[options]\nbound_water_fraction_of_water = 'lots'\n",
     "[recipe]\nname = 'x'\n[composition]\nwater = 1\nsucrose = 1979-05-27\n",
     "[recipe]\nname = 'x'\n[composition]\nwater = 1\n'sucr\\u00f6se' = 0.1\n",
 ])

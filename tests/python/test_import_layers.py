@@ -33,6 +33,7 @@ LAYER_ORDER = (
     "design",
     "dask",
     "ingredients",
+    "library",
     "recipe",
     "contributions",
     "formulate",

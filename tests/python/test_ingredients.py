@@ -96,7 +96,9 @@ def test_ice_cream_mix_freezing_point_and_ice_at_minus_18():
     # (achieved 3.8 at -18 C, 2.4 at -12 C).
     f18, messages = quiet(r.ice_fraction, ZERO_C_K - 18.0)
     assert 0.77 <= f18 <= 0.84
-    assert any("lactose" in m for m in messages)
+    # lactose is counted as sucrose (the dairy texts' method), whose range covers the unfrozen
+    # phase of such a mix at -18 C: no warning about lactose's range any more
+    assert not any("lactose" in m for m in messages)
     f12, _ = quiet(r.ice_fraction, ZERO_C_K - 12.0)
     assert 0.70 <= f12 <= 0.75
     dairy18, notes18 = quiet(r.leighton_ice_fraction, ZERO_C_K - 18.0)

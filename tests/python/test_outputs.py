@@ -103,16 +103,16 @@ def test_brine_report_gives_the_eutectic_and_stops_the_ice_table():
     assert eut["source"] and VERIFY_NOTE in eut["note"]
 
     rows = {r["name"]: r for r in rep["ice_table"]}
-    assert rows["drawing"]["state"] == "unfrozen" and rows["drawing"]["ice_fraction"] == 0.0
-    assert rows["serving"]["state"] == "partly_frozen" and 0.0 < rows["serving"]["ice_fraction"] < 1.0
+    assert rows["drawing"]["state"] == "unfrozen" and rows["drawing"]["ice_fraction_of_water"] == 0.0
+    assert rows["serving"]["state"] == "partly_frozen" and 0.0 < rows["serving"]["ice_fraction_of_water"] < 1.0
     assert rows["storage"]["state"] == "below_eutectic"
-    assert rows["storage"]["ice_fraction"] is None and rows["storage"]["ice_kg"] is None
+    assert rows["storage"]["ice_fraction_of_water"] is None and rows["storage"]["ice_kg_of_aqueous_phase"] is None
 
     # the heat load stops at the eutectic instead of extrapolating past it
     q = rep["heat_load"]
     assert q["stopped_at"] == "eutectic"
     assert q["to_C"] == pytest.approx(eut["temperature_C"], abs=0.02)
-    assert q["latent_kJ_per_kg"] > 0 and q["sensible_kJ_per_kg"] > 0
+    assert q["latent_kJ_per_kg_of_batch"] > 0 and q["sensible_kJ_per_kg_of_batch"] > 0
     storage = [r for r in rep["indicators"]["unfrozen_phase"] if r["name"] == "storage"][0]
     assert storage["state"] == "below_eutectic"
 
@@ -283,7 +283,7 @@ def test_water_alone_is_all_ice_below_zero():
     recipe = parse_recipe('[recipe]\nname = "water"\nbasis = "kg"\n[composition]\nwater = 1.0\n', "water")
     rep = quiet(build_report, recipe)
     storage = next(r for r in rep["ice_table"] if r["name"] == "storage")
-    assert storage["ice_fraction"] == 1.0 and storage["state"] == "frozen"
-    assert storage["unfrozen_solids_mass_percent"] is None
+    assert storage["ice_fraction_of_water"] == 1.0 and storage["state"] == "frozen"
+    assert storage["dissolved_solids_mass_percent_of_unfrozen_liquid"] is None
     assert "all ice" in format_text(rep)
     json.loads(format_json(rep))  # strict JSON (null, not NaN)

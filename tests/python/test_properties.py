@@ -38,13 +38,12 @@ def test_adding_solute_never_raises_the_freezing_point(recipe, extra, amount):
 @given(recipes, st.floats(min_value=0.0, max_value=0.05))
 def test_ice_fraction_rises_as_temperature_falls_and_balances(recipe, bound_share):
     s = cg.Solution.from_mass_fractions(recipe)
-    bound = bound_share * s.water
     temps = np.linspace(272.0, 238.15, 25)
-    f = quietly(cg.ice_fraction, s, temps, bound_water=bound)
+    f = quietly(cg.ice_fraction, s, temps, bound_water_fraction_of_water=bound_share)
     assert np.all(f >= 0.0) and np.all(f < 1.0)
     assert np.all(np.diff(f) >= 0.0)
     for T in temps[::6]:
-        u = quietly(cg.unfrozen_phase, s, float(T), bound_water=bound)
+        u = quietly(cg.unfrozen_phase, s, float(T), bound_water_fraction_of_water=bound_share)
         total = u.ice + u.unfrozen_water + u.bound_water
         assert abs(total - s.water) <= 1e-12 * s.water
 

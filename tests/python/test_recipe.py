@@ -47,7 +47,7 @@ storage = -20
 
 [options]
 model = "auto"
-bound_water = 0.01
+bound_water_fraction_of_water = 0.0125
 """
 
 
@@ -112,7 +112,7 @@ def test_load_good_recipe(tmp_path):
     assert r.water == pytest.approx(0.80, abs=1e-15)
     assert r.solutes == {"sucrose": pytest.approx(0.20, abs=1e-15)}
     assert r.model == "auto"
-    assert r.bound_water == pytest.approx(0.01, abs=1e-15)
+    assert r.bound_water_fraction_of_water == 0.0125
     # temperatures are kelvin inside (SI); offset 273.15 K (common practice)
     assert r.temperatures["drawing"] == pytest.approx(-4.5 + ZERO_C_K, abs=1e-12)
     assert r.temperatures["serving"] == pytest.approx(-11 + ZERO_C_K, abs=1e-12)
@@ -126,7 +126,7 @@ def test_optional_tables_take_defaults(tmp_path):
     text = '[recipe]\nname = "x"\n[composition]\nwater = 1.0\nglucose = 0.1\n'
     r = load_recipe(write(tmp_path, text))
     assert r.model == "auto"
-    assert r.bound_water == 0.0
+    assert r.bound_water_fraction_of_water == 0.0
     assert r.basis == "kg"
     for key, c in DEFAULT_TEMPERATURES_C.items():
         assert r.temperatures[key] == pytest.approx(c + ZERO_C_K, abs=1e-12)
@@ -143,13 +143,13 @@ water = 70
 sucrose = 25
 glucose = 5
 [options]
-bound_water = 1.5
+bound_water_fraction_of_water = 0.02
 """
     r = load_recipe(write(tmp_path, text))
     assert r.water == pytest.approx(1.40, abs=1e-12)
     assert r.solutes["sucrose"] == pytest.approx(0.50, abs=1e-12)
     assert r.solutes["glucose"] == pytest.approx(0.10, abs=1e-12)
-    assert r.bound_water == pytest.approx(0.03, abs=1e-12)
+    assert r.bound_water_fraction_of_water == 0.02  # a share of the water: the basis does not scale it
     assert r.total_mass == pytest.approx(2.0, abs=1e-12)
 
 
@@ -321,9 +321,17 @@ def test_unknown_model(tmp_path):
         assert m in msg
 
 
-@pytest.mark.parametrize("value", ["-0.1", "0.8", "5", "nan", '"some"'])
+@pytest.mark.parametrize("value", ["-0.1", "1.0", "5", "nan", '"some"'])
 def test_bad_bound_water(tmp_path, value):
-    expect_error(tmp_path, replace(GOOD, "bound_water = 0.01", f"bound_water = {value}"), "[options].bound_water")
+    expect_error(tmp_path, replace(GOOD, "bound_water_fraction_of_water = 0.0125",
+                                   f"bound_water_fraction_of_water = {value}"),
+                 "[options].bound_water_fraction_of_water")
+
+
+def test_old_bound_water_key_is_refused(tmp_path):
+    # the kg meaning was dropped: one meaning everywhere, the share of the water
+    expect_error(tmp_path, replace(GOOD, "bound_water_fraction_of_water = 0.0125", "bound_water = 0.01"),
+                 "[options].bound_water")
 
 
 def test_input_file_is_not_modified_by_loading(tmp_path):

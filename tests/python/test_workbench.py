@@ -81,7 +81,7 @@ def test_round_trip_ice_fraction_temperature_ice_fraction():
 
 
 def test_recipe_temperature_for_ice_fraction_uses_its_bound_water():
-    r = cg.Recipe(water=0.7, solutes={"sucrose": 0.25}, bound_water=0.05)
+    r = cg.Recipe(water=0.7, solutes={"sucrose": 0.25}, bound_water_fraction_of_water=0.07)
     t = r.temperature_for_ice_fraction(0.6)
     assert abs(r.ice_fraction(t) - 0.6) < 1e-9  # identity
     assert t < cg.temperature_for_ice_fraction(r.solution(), 0.6)  # less water free to freeze
@@ -98,7 +98,7 @@ def test_dairy_mix_75_percent_frozen_within_1_K_of_goff_hartel():
     mix = Ingredient("Goff & Hartel example mix", water=0.60, fat=0.12, msnf=0.10,
                      sugars={"sucrose": 0.12, "lactose": 0.765 * 0.02, **css},
                      salts={"milk_salts": 0.099 * 0.02}, protein=0.02 * (1 - 0.765 - 0.099))
-    r = cg.Recipe(ingredients={mix: 1.0}, bound_water=0.0)
+    r = cg.Recipe(ingredients={mix: 1.0}, bound_water_fraction_of_water=0.0)
     t75, _ = quiet(r.temperature_for_ice_fraction, 0.75)
     assert t75 - T0 == pytest.approx(-13.16, abs=1.0)
     # and the project's dairy method agrees with the book at that temperature (0.5 point)
@@ -114,7 +114,7 @@ def test_unreachable_fractions_name_the_reachable_range():
     with pytest.raises(ValueError, match="not a percentage"):
         cg.temperature_for_ice_fraction(s, 70)
     with pytest.raises(ValueError, match="never exceed"):
-        cg.temperature_for_ice_fraction(s, 0.9, bound_water=0.2)
+        cg.temperature_for_ice_fraction(s, 0.9, bound_water_fraction_of_water=0.25)
     # the curve's span is available to show before asking
     span = cg.IceCurve(brine).reachable_ice()
     assert 0.0 < span["largest_ice_fraction"] < 0.95 and "eutectic" in span["end"]
@@ -256,8 +256,9 @@ def test_with_changes_copies_and_changes():
     assert changed.ingredients["honey"] == 0.02 and changed.name == "less sugar"
     # bound water followed the protein in the original, so it does in the copy (0.4 kg/kg;
     # Schwartzberg 1976 as ASHRAE, from memory)
+    # as a share of the copy's water
     protein_kg = changed.proximate["protein"] * changed.total_mass
-    assert changed.bound_water == pytest.approx(0.4 * protein_kg, rel=1e-12)
+    assert changed.bound_water_fraction_of_water == pytest.approx(0.4 * protein_kg / changed.water, rel=1e-12)
     with pytest.raises(RecipeError) as info:
         base.with_changes({"sucrse": 0.1, "cream_36": -1.0}, remove=["butter"])
     msg = str(info.value)
@@ -485,12 +486,13 @@ def test_solute_formulation_solver_names_the_blocking_bound():
 
 
 def test_comparison_keeps_ethanol_out_of_the_solids():
-    # USDA SR NDB 14037: an 80 proof spirit is 33.4 g ethanol per 100 g; 0.15 kg of it in a
-    # 1 kg batch is 5.01 % ethanol by mass, and none of it counts as dissolved solids.
+    # OIML R 22 (1975): a 40 %vol spirit is 33.30 g ethanol per 100 g (the spirit_40 entry);
+    # 0.15 kg of it in a 1 kg batch is 4.995 % ethanol by mass, and none of it counts as
+    # dissolved solids.
     r = cg.Recipe(ingredients={"spirit_40": 0.15, "sucrose": 0.12, "water": 0.73}, kind="frozen_cocktail")
     cmp_, _ = quiet(compare_recipes, [r, r.with_changes({"spirit_40": 0.10, "water": 0.78})])
     jsonschema.validate(cmp_, comparison_schema())
     first = cmp_["recipes"][0]
-    assert first["ethanol_mass_percent"] == pytest.approx(5.01, abs=1e-9)
+    assert first["ethanol_mass_percent"] == pytest.approx(4.995, abs=1e-9)
     assert first["dissolved_solids_mass_percent"] == pytest.approx(12.0, abs=1e-9)
     assert "ethanol (% of batch, by mass)" in format_comparison_text(cmp_)

@@ -6,12 +6,15 @@
 /// data/ (solute records, the built-in table, citations), water/ (ice and vapour
 /// pressures), models/ (activity models), equilibria/ (freezing point, ice fraction).
 
+#include "colligate/core/bound_water.hpp"
 #include "colligate/core/constants.hpp"
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
 #include "colligate/data/builtin_solutes.hpp"
 #include "colligate/data/citation.hpp"
+#include "colligate/data/dairy_rules.hpp"
+#include "colligate/data/ethanol_water_density.hpp"
 #include "colligate/data/pitzer_parameters.hpp"
 #include "colligate/data/solute_record.hpp"
 #include "colligate/data/solute_table.hpp"

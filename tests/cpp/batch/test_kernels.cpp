@@ -36,6 +36,30 @@ TEST_CASE("batch freezing points equal scalar ones bit for bit", "[batch]") {
   }
 }
 
+TEST_CASE("batch results with bound water equal scalar ones bit for bit", "[batch]") {
+  // Identity test (no literature value): both paths turn the share of the water into kg
+  // with core/bound_water.hpp and solve the same equations.
+  const std::vector<std::string> species = {"sucrose", "lactose"};
+  const auto m = random_molalities(32, species.size(), 7);
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), 32);
+  batch::options o;
+  o.bound_water_fraction_of_water = 0.07;
+  std::vector<double> tf(32), ice(32);
+  std::vector<std::uint8_t> st(32), ist(32);
+  const double T = 263.15;
+  batch::freezing_points(b, "auto", o, tf.data(), st.data());
+  batch::ice_fractions(b, &T, 1, "auto", o, ice.data(), ist.data());
+  for (std::size_t i = 0; i < 32; ++i) {
+    const auto s = solution::from_molalities({{species[0], m[i * 2]}, {species[1], m[i * 2 + 1]}});
+    const double bound = bound_water_kg(s, 0.07);
+    CHECK(equilibria::freezing_point(s, "auto", bound).temperature == tf[i]);
+    CHECK(equilibria::ice_fraction(s, T, "auto", range_policy::extrapolate, bound).value == ice[i]);
+  }
+  o.bound_water_fraction_of_water = 1.0;
+  CHECK_THROWS_WITH(batch::freezing_points(b, "auto", o, tf.data(), st.data()),
+                    Catch::Contains("bound_water_fraction_of_water"));
+}
+
 TEST_CASE("thread count does not change batch results", "[batch]") {
   const std::vector<std::string> species = {"sucrose", "fructose"};
   const std::size_t N = 5000;

@@ -19,11 +19,11 @@ namespace {
 
 constexpr double T0 = constants::ice_point;
 
-thermal::food sucrose_food(double w_sucrose = 0.20, double bound = 0.0) {
+thermal::food sucrose_food(double w_sucrose = 0.20, double bound_fraction_of_water = 0.0) {
   thermal::food_composition x;
   x.water = 1.0 - w_sucrose;
   x.carbohydrate = w_sucrose;
-  return thermal::food(x, solution::from_mass_fractions({{"sucrose", w_sucrose}}), bound);
+  return thermal::food(x, solution::from_mass_fractions({{"sucrose", w_sucrose}}), bound_fraction_of_water);
 }
 
 /// A food of the ASHRAE table: its proximate composition, and an effective aqueous phase
@@ -46,7 +46,8 @@ thermal::food ashrae_food(const colligate_test::csv_row& r) {
     const auto s = solution::from_molalities({{"glucose", m}}, x.water);
     (equilibria::freezing_point(s, "auto", bound).temperature > tf ? lo : hi) = m;
   }
-  return thermal::food(x, solution::from_molalities({{"glucose", lo}}, x.water), bound);
+  // bound water per kg of food -> per kg of water (core/bound_water.hpp)
+  return thermal::food(x, solution::from_molalities({{"glucose", lo}}, x.water), bound / x.water);
 }
 
 }  // namespace
@@ -169,7 +170,9 @@ TEST_CASE("thermal inputs are validated", "[thermal]") {
                     Catch::Contains("composition.fat"));
   const auto f = sucrose_food(0.2);
   CHECK_THROWS_WITH(thermal::enthalpy(f, 200.0), Catch::Contains("233.15-313.15 K"));
-  CHECK_THROWS_AS(thermal::food(f.composition(), f.water_phase(), 0.9), invalid_input);
+  CHECK_THROWS_AS(thermal::food(f.composition(), f.water_phase(), 1.0), invalid_input);
+  CHECK_THROWS_WITH(thermal::food(f.composition(), f.water_phase(), -0.1),
+                    Catch::Contains("bound_water_fraction_of_water"));
 }
 
 TEST_CASE("ASHRAE Refrigeration (2006) ch. 9 Table 3 foods", "[thermal][reference]") {

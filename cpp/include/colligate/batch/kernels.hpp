@@ -32,6 +32,7 @@
 #include <vector>
 
 #include "colligate/batch/solution_batch.hpp"
+#include "colligate/core/bound_water.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/solution_workspace.hpp"
 #include "colligate/core/validity.hpp"
@@ -45,7 +46,8 @@ namespace colligate::batch {
 struct options {
   unsigned threads = 0;  ///< 0: all hardware threads
   range_policy policy = range_policy::extrapolate;
-  double bound_water_fraction = 0.0;  ///< unfreezable water as a fraction of each row's water
+  /// Water that cannot freeze, kg per kg of each row's water (core/bound_water.hpp), in [0, 1).
+  double bound_water_fraction_of_water = 0.0;
   /// Called from the calling thread between pieces of work (about every 50 ms); true
   /// stops the batch (batch::interrupted). Empty: never interrupted.
   std::function<bool()> interrupted;
@@ -250,12 +252,13 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
                         "use 'extrapolate' or 'nan' and read the row status");
+  check_bound_water_fraction_of_water("freezing_points", opt.bound_water_fraction_of_water);
   detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     row_status st = b.input_status(i);
     double v = detail::nan;
     if (st == row_status::ok) {
       const solution& s = ws.load(b, i);
-      const auto r = equilibria::freezing_point(s, m, opt.bound_water_fraction * s.water_mass(),
+      const auto r = equilibria::freezing_point(s, m, bound_water_kg(s, opt.bound_water_fraction_of_water),
                                                 ws.evaluator(m));
       if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
       else if (r.check.code == validity_code::outside_physical_bounds) st = row_status::no_physical_value;
@@ -299,11 +302,12 @@ inline void ice_fractions(const solution_batch& b, const double* temperatures,
     models::check_temperature_argument("ice_fractions", temperatures[k]);
   if (opt.policy == range_policy::raise)
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches");
+  check_bound_water_fraction_of_water("ice_fractions", opt.bound_water_fraction_of_water);
   detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     const row_status input = b.input_status(i);
     const solution* s = input == row_status::ok ? &ws.load(b, i) : nullptr;
     equilibria::ice_curve* curve =
-        s ? &ws.curve(m, opt.bound_water_fraction * s->water_mass()) : nullptr;
+        s ? &ws.curve(m, bound_water_kg(*s, opt.bound_water_fraction_of_water)) : nullptr;
     for (std::size_t k = 0; k < n_temperatures; ++k) {
       row_status st = input;
       double v = detail::nan;

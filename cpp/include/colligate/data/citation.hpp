@@ -281,6 +281,19 @@ inline const std::vector<citation>& citations() {
        "Starch hydrolysate oligomers represented through the dextrose equivalent",
        "common practice: number-average molar mass about 18016 / DE g/mol", "",
        "higher saccharides (DP >= 4) and maltodextrin as single ideal solutes of fixed molar mass"},
+      {"oiml_r22_1975", "International Organization of Legal Metrology (OIML)", 1975,
+       "International Alcoholometric Tables (OIML R 22)", "OIML, Paris", "OIML R 22 (1975)",
+       "density of ethanol-water mixtures at 20 C as a polynomial in the ethanol mass fraction "
+       "(coefficients A_1..A_12, the formula of the tables), pure ethanol 789.24 kg/m3 at 20 C; "
+       "coefficients read in several public transcriptions that agree digit for digit; table "
+       "densities (e.g. 40 %vol: 948.05 kg/m3) read in a public copy of the tables: "
+       "data/ethanol_water_density.hpp"},
+      {"hyde_rothwell_1973", "Hyde, K. A.; Rothwell, J.", 1973, "Ice Cream",
+       "Churchill Livingstone, Edinburgh", "book not read",
+       "largest milk solids-not-fat that keeps lactose in solution (no sandiness): "
+       "MSNF = (100 - fat - sugars - emulsifier - stabiliser) / 7, in % of the mix; read as "
+       "quoted by M. Mullan, dairyscience.info ice-cream forum (2018), not in the book itself: "
+       "data/dairy_rules.hpp"},
       {"plank_1913", "Plank, R.", 1913,
        "Die Gefrierdauer von Eisblocken", "Z. ges. Kalte-Industrie 20(6), 109-114", "",
        "freezing time of slab, infinite cylinder and sphere; shape factors P and R (as presented "

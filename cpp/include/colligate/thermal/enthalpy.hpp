@@ -29,6 +29,7 @@
 #include <utility>
 #include <vector>
 
+#include "colligate/core/bound_water.hpp"
 #include "colligate/core/constants.hpp"
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
@@ -49,36 +50,31 @@ inline constexpr double min_temperature = 233.15;
 inline constexpr double max_temperature = 313.15;
 
 /// A food for thermal calculations: composition per kg of food, the aqueous phase (any
-/// scale; only its composition matters), water that cannot freeze (kg per kg of food) and
-/// the activity model of the ice curve.
+/// scale; only its composition matters), water that cannot freeze as a share of all the
+/// water (kg per kg water, core/bound_water.hpp) and the activity model of the ice curve.
 class food {
  public:
-  food(food_composition composition, solution water_phase, double bound_water = 0.0,
+  food(food_composition composition, solution water_phase, double bound_water_fraction_of_water = 0.0,
        models::model_choice model = "auto")
       : composition_(composition), water_phase_(std::move(water_phase)),
-        bound_water_(bound_water), model_(model) {
+        bound_water_fraction_of_water_(bound_water_fraction_of_water), model_(model) {
     composition_.validate("food");
-    if (!std::isfinite(bound_water) || bound_water < 0.0 || !(bound_water < composition_.water))
-      throw invalid_input(colligate::detail::describe(
-          "food", "bound_water", bound_water,
-          "must be finite, >= 0 and below the water fraction (" +
-              std::to_string(composition_.water) + " kg per kg food)"));
+    check_bound_water_fraction_of_water("food", bound_water_fraction_of_water);
   }
 
   const food_composition& composition() const noexcept { return composition_; }
   const solution& water_phase() const noexcept { return water_phase_; }
-  double bound_water() const noexcept { return bound_water_; }
+  /// Unfreezable water, kg per kg of the food's water.
+  double bound_water_fraction_of_water() const noexcept { return bound_water_fraction_of_water_; }
   const models::model_choice& model() const noexcept { return model_; }
 
-  /// Bound water expressed on the scale of water_phase(), kg.
-  double bound_water_in_phase() const noexcept {
-    return bound_water_ * water_phase_.water_mass() / composition_.water;
-  }
+  /// Bound water expressed on the scale of water_phase(), kg (core/bound_water.hpp).
+  double bound_water_in_phase() const { return bound_water_kg(water_phase_, bound_water_fraction_of_water_); }
 
  private:
   food_composition composition_;
   solution water_phase_;
-  double bound_water_;
+  double bound_water_fraction_of_water_;
   models::model_choice model_;
 };
 

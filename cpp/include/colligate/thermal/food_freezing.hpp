@@ -177,7 +177,8 @@ inline food_freezing_inputs freezing_inputs_of_food(const food& f, double initia
         where, "T_initial", initial_temperature,
         "must not lie below the initial freezing point (" + std::to_string(fp.temperature) + " K)"));
   const auto& x = f.composition();
-  const double freezable = x.water - f.bound_water();
+  const double bound = f.bound_water_fraction_of_water() * x.water;  // kg per kg of food
+  const double freezable = x.water - bound;
   r.latent_heat = freezable * detail::latent_heat(constants::ice_point);
   r.density_unfrozen = food_properties(f, curve, initial_temperature, rule).density;
   const auto frozen = food_properties(f, curve, centre_temperature, rule);
@@ -187,7 +188,7 @@ inline food_freezing_inputs freezing_inputs_of_food(const food& f, double initia
   r.specific_heat_unfrozen = unfrozen_specific_heat(x, T_mean);
   r.specific_heat_frozen = solids_specific_heat(x, centre_temperature) +
                            freezable * specific_heat(component::ice, centre_temperature) +
-                           f.bound_water() * specific_heat(component::water, constants::ice_point);
+                           bound * specific_heat(component::water, constants::ice_point);
   return r;
 }
 
