@@ -418,6 +418,7 @@ class ice_curve {
                                                        [](double x) { return x == 0.0; });
     if (plain) n_liq_ = n0_;
     else liquid_ions({}, fixed);
+    if (plain && solve_ice_only_by_slope(ln_aw_ice, T, st)) return true;
     auto g = [&](double u) {
       const double Wu = std::exp(u);
       const double l = plain ? (*ln_aw_)(Wu, T) : evaluate_liquid(Wu, T);
@@ -428,6 +429,54 @@ class ice_curve {
     st.xi.assign(onsets_.size(), 0.0);
     st.iterations = root.iterations;
     return root.status == root_status::converged;
+  }
+
+  /// Ice alone for a model with d ln a_w / d W in closed form (ideal, Raoult, Norrish:
+  /// activity_evaluator::ln_water_activity_with_slope): Newton on
+  /// h(u) = ln(-ln a_w(e^u)) - ln(-ln a_w,ice), u = ln W_u, which is linear in u for the
+  /// ideal law and close to it for the others (one to four steps), from u = ln W, where
+  /// h > 0. Every evaluation narrows the bracket [lo, hi] (h(lo) < 0 < h(hi)); a step
+  /// leaving it is replaced by bisection once lo is known. Stops when a step is below
+  /// 1e-10 (the error left is of the order of its square). False when the model has no
+  /// derivative or the iteration leaves its assumptions (ln a_w >= 0, NaN, 60 steps): the
+  /// caller then takes the general root finder, so results do not depend on this path.
+  bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
+    if (!(ln_aw_ice < 0.0)) return false;
+    double l = 0.0, dl_dW = 0.0;
+    double u = std::log(W_);
+    if (!ln_aw_->with_slope(W_, T, l, dl_dW)) return false;
+    const double target = std::log(-ln_aw_ice);
+    double hi = u, lo = -std::numeric_limits<double>::infinity();
+    for (int it = 0; it < 60; ++it) {
+      if (!(l < 0.0) || !std::isfinite(dl_dW)) return false;
+      const double h = std::log(-l) - target;
+      if (h > 0.0) hi = u;
+      else if (h < 0.0) lo = u;
+      else {
+        st.u = u;
+        st.xi.assign(onsets_.size(), 0.0);
+        st.iterations = it + 1;
+        return true;
+      }
+      const double dh = std::exp(u) * dl_dW / l;  // dh/du
+      double next = u - h / dh;
+      if (!std::isfinite(next)) return false;
+      // a step below the tolerance is accepted also when it lands on a bracket end
+      bool converged = std::abs(next - u) <= 1e-10 && next >= lo && next <= hi;
+      if (!converged && !(next > lo && next < hi)) {
+        if (std::isinf(lo)) return false;
+        next = 0.5 * (lo + hi);
+      }
+      if (converged) {
+        st.u = next;
+        st.xi.assign(onsets_.size(), 0.0);
+        st.iterations = it + 1;
+        return true;
+      }
+      u = next;
+      ln_aw_->with_slope(std::exp(u), T, l, dl_dW);
+    }
+    return false;
   }
 
   /// Ice and the active salts of `seg` at T by damped Newton from `st`.
