@@ -250,7 +250,7 @@ class ice_curve {
     r.precipitated.assign(onsets_.size(), 0.0);
     const double T = temperature;
     const double ln_aw_solution = (*ln_aw_)(W_, T);
-    const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
+    const double ln_aw_ice = T < constants::ice_point ? ice_line(T) : 0.0;
     if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
       r.state = phase_state::liquid;
       r.status = solve_status::not_frozen;
@@ -409,11 +409,21 @@ class ice_curve {
     return std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
   }
 
+  /// ln a_w,ice(T), kept for the last temperature asked (a batch asks every row at the same
+  /// temperatures; the value depends on T alone, so it survives reset()).
+  double ice_line(double T) {
+    if (!(T == ice_line_T_)) {
+      ice_line_value_ = water::ln_water_activity_of_ice(T);
+      ice_line_T_ = T;
+    }
+    return ice_line_value_;
+  }
+
   // --- solves ----------------------------------------------------------------------
 
   /// Ice alone (no salt): the 1-D root on ln W_u. `fixed` removals apply (fractional).
   bool solve_ice_only(double T, const std::vector<double>* fixed, liquid_state& st) {
-    const double ln_aw_ice = water::ln_water_activity_of_ice(T);
+    const double ln_aw_ice = ice_line(T);
     const bool plain = fixed == nullptr || std::all_of(fixed->begin(), fixed->end(),
                                                        [](double x) { return x == 0.0; });
     if (plain) n_liq_ = n0_;
@@ -437,7 +447,7 @@ class ice_curve {
   /// ideal law and close to it for the others (one to four steps), from u = ln W, where
   /// h > 0. Every evaluation narrows the bracket [lo, hi] (h(lo) < 0 < h(hi)); a step
   /// leaving it is replaced by bisection once lo is known. Stops when a step is below
-  /// 1e-10 (the error left is of the order of its square). False when the model has no
+  /// 1e-8 (the error left is of the order of its square, 1e-16). False when the model has no
   /// derivative or the iteration leaves its assumptions (ln a_w >= 0, NaN, 60 steps): the
   /// caller then takes the general root finder, so results do not depend on this path.
   bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
@@ -462,7 +472,7 @@ class ice_curve {
       double next = u - h / dh;
       if (!std::isfinite(next)) return false;
       // a step below the tolerance is accepted also when it lands on a bracket end
-      bool converged = std::abs(next - u) <= 1e-10 && next >= lo && next <= hi;
+      const bool converged = std::abs(next - u) <= 1e-8 && next >= lo && next <= hi;
       if (!converged && !(next > lo && next < hi)) {
         if (std::isinf(lo)) return false;
         next = 0.5 * (lo + hi);
@@ -842,6 +852,7 @@ class ice_curve {
   std::vector<std::size_t> onset_candidate_;
   std::vector<segment> segments_;
   std::vector<node> nodes_;
+  double ice_line_T_ = std::numeric_limits<double>::quiet_NaN(), ice_line_value_ = 0.0;
   double explored_to_ = -1.0;  // K; < 0: nothing to explore
   double end_temperature_ = std::numeric_limits<double>::quiet_NaN();
   curve_end end_ = curve_end::search_limit;
