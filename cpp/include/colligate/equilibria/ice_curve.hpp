@@ -57,6 +57,7 @@
 #include "colligate/core/roots.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/equilibria/detail/unfrozen_water_newton.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
@@ -441,52 +442,16 @@ class ice_curve {
     return root.status == root_status::converged;
   }
 
-  /// Ice alone for a model with d ln a_w / d W in closed form (ideal, Raoult, Norrish:
-  /// activity_evaluator::ln_water_activity_with_slope): Newton on
-  /// h(u) = ln(-ln a_w(e^u)) - ln(-ln a_w,ice), u = ln W_u, which is linear in u for the
-  /// ideal law and close to it for the others (one to four steps), from u = ln W, where
-  /// h > 0. Every evaluation narrows the bracket [lo, hi] (h(lo) < 0 < h(hi)); a step
-  /// leaving it is replaced by bisection once lo is known. Stops when a step is below
-  /// 1e-8 (the error left is of the order of its square, 1e-16). False when the model has no
-  /// derivative or the iteration leaves its assumptions (ln a_w >= 0, NaN, 60 steps): the
-  /// caller then takes the general root finder, so results do not depend on this path.
+  /// Ice alone for a model with d ln a_w / d W in closed form (ideal, Raoult, Norrish):
+  /// Newton on the water mass (detail/unfrozen_water_newton.hpp). False when that path does
+  /// not apply or does not converge; the caller then takes the general root finder.
   bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
-    if (!(ln_aw_ice < 0.0)) return false;
-    double l = 0.0, dl_dW = 0.0;
-    double u = std::log(W_);
-    if (!ln_aw_->with_slope(W_, T, l, dl_dW)) return false;
-    const double target = std::log(-ln_aw_ice);
-    double hi = u, lo = -std::numeric_limits<double>::infinity();
-    for (int it = 0; it < 60; ++it) {
-      if (!(l < 0.0) || !std::isfinite(dl_dW)) return false;
-      const double h = std::log(-l) - target;
-      if (h > 0.0) hi = u;
-      else if (h < 0.0) lo = u;
-      else {
-        st.u = u;
-        st.xi.assign(onsets_.size(), 0.0);
-        st.iterations = it + 1;
-        return true;
-      }
-      const double dh = std::exp(u) * dl_dW / l;  // dh/du
-      double next = u - h / dh;
-      if (!std::isfinite(next)) return false;
-      // a step below the tolerance is accepted also when it lands on a bracket end
-      const bool converged = std::abs(next - u) <= 1e-8 && next >= lo && next <= hi;
-      if (!converged && !(next > lo && next < hi)) {
-        if (std::isinf(lo)) return false;
-        next = 0.5 * (lo + hi);
-      }
-      if (converged) {
-        st.u = next;
-        st.xi.assign(onsets_.size(), 0.0);
-        st.iterations = it + 1;
-        return true;
-      }
-      u = next;
-      ln_aw_->with_slope(std::exp(u), T, l, dl_dW);
-    }
-    return false;
+    const auto root = detail::unfrozen_water_by_slope(*ln_aw_, W_, T, ln_aw_ice);
+    if (root.status != root_status::converged) return false;
+    st.u = root.x;
+    st.xi.assign(onsets_.size(), 0.0);
+    st.iterations = root.iterations;
+    return true;
   }
 
   /// Ice and the active salts of `seg` at T by damped Newton from `st`.
