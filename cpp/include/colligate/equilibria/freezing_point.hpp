@@ -3,7 +3,8 @@
 /// Initial freezing point: the temperature T at which the whole solution is in
 /// equilibrium with ice, ln a_w(solution, T) = ln a_w,ice(T) (DESIGN section 1).
 /// Solved between the ice point and `search_min_temperature` by a safeguarded Newton
-/// iteration (see freezing_point below). Water that cannot freeze (`bound_water_kg`, e.g. bound to
+/// iteration (see freezing_point below); for models whose ln a_w does not depend on T, by
+/// reading the ice line backwards (water/ice_line_inverse.hpp). Water that cannot freeze (`bound_water_kg`, e.g. bound to
 /// protein) is taken out of the solvent.
 
 #include <cmath>
