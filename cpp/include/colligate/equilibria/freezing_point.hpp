@@ -3,7 +3,8 @@
 /// Initial freezing point: the temperature T at which the whole solution is in
 /// equilibrium with ice, ln a_w(solution, T) = ln a_w,ice(T) (DESIGN section 1).
 /// Solved between the ice point and `search_min_temperature` by a safeguarded Newton
-/// iteration (see freezing_point below). Water that cannot freeze (`bound_water_kg`, e.g. bound to
+/// iteration (see freezing_point below); for models whose ln a_w does not depend on T, by
+/// reading the ice line backwards (water/ice_line_inverse.hpp). Water that cannot freeze (`bound_water_kg`, e.g. bound to
 /// protein) is taken out of the solvent.
 
 #include <cmath>
@@ -18,6 +19,7 @@
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/water/ice.hpp"
+#include "colligate/water/ice_line_inverse.hpp"
 
 namespace colligate::equilibria {
 
@@ -87,9 +89,12 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
     return r;
   };
   if (!ln_aw.model().traits.temperature_dependent) {
-    // a_w does not depend on T: invert the ice equilibrium directly (Newton on ice.hpp).
+    // a_w does not depend on T: read the ice line backwards (water/ice_line_inverse.hpp:
+    // interpolated inverse plus one Newton step) over its validated range; below it, the
+    // Newton inverse of ice.hpp down to the lowest temperature searched.
     const double ln_aw_0 = ln_aw(W, constants::ice_point);
-    const double T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
+    double T = water::temperature_on_ice_line(ln_aw_0);
+    if (std::isnan(T)) T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
     if (std::isnan(T)) return below_limit();
     r.temperature = T;
     r.check = ln_aw.check(W, T);

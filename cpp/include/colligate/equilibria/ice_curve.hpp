@@ -57,6 +57,7 @@
 #include "colligate/core/roots.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/equilibria/detail/unfrozen_water_newton.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
@@ -251,7 +252,7 @@ class ice_curve {
     const double T = temperature;
     if (T < water::ice_model_lowest_temperature) return below_formulation(r);
     const double ln_aw_solution = (*ln_aw_)(W_, T);
-    const double ln_aw_ice = T < constants::ice_point ? water::ln_water_activity_of_ice(T) : 0.0;
+    const double ln_aw_ice = T < constants::ice_point ? ice_line(T) : 0.0;
     if (!(std::exp(ln_aw_solution) > 0.0 && ln_aw_solution <= 0.0))
       return no_physical_value(r, "water activity of the solution", std::exp(ln_aw_solution), T);
     if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
@@ -423,15 +424,26 @@ class ice_curve {
     return std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
   }
 
+  /// ln a_w,ice(T), kept for the last temperature asked (a batch asks every row at the same
+  /// temperatures; the value depends on T alone, so it survives reset()).
+  double ice_line(double T) {
+    if (!(T == ice_line_T_)) {
+      ice_line_value_ = water::ln_water_activity_of_ice(T);
+      ice_line_T_ = T;
+    }
+    return ice_line_value_;
+  }
+
   // --- solves ----------------------------------------------------------------------
 
   /// Ice alone (no salt): the 1-D root on ln W_u. `fixed` removals apply (fractional).
   bool solve_ice_only(double T, const std::vector<double>* fixed, liquid_state& st) {
-    const double ln_aw_ice = water::ln_water_activity_of_ice(T);
+    const double ln_aw_ice = ice_line(T);
     const bool plain = fixed == nullptr || std::all_of(fixed->begin(), fixed->end(),
                                                        [](double x) { return x == 0.0; });
     if (plain) n_liq_ = n0_;
     else liquid_ions({}, fixed);
+    if (plain && solve_ice_only_by_slope(ln_aw_ice, T, st)) return true;
     auto g = [&](double u) {
       const double Wu = std::exp(u);
       const double l = plain ? (*ln_aw_)(Wu, T) : evaluate_liquid(Wu, T);
@@ -442,6 +454,18 @@ class ice_curve {
     st.xi.assign(onsets_.size(), 0.0);
     st.iterations = root.iterations;
     return root.status == root_status::converged;
+  }
+
+  /// Ice alone for a model with d ln a_w / d W in closed form (ideal, Raoult, Norrish):
+  /// Newton on the water mass (detail/unfrozen_water_newton.hpp). False when that path does
+  /// not apply or does not converge; the caller then takes the general root finder.
+  bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
+    const auto root = detail::unfrozen_water_by_slope(*ln_aw_, W_, T, ln_aw_ice);
+    if (root.status != root_status::converged) return false;
+    st.u = root.x;
+    st.xi.assign(onsets_.size(), 0.0);
+    st.iterations = root.iterations;
+    return true;
   }
 
   /// Ice and the active salts of `seg` at T by damped Newton from `st`.
@@ -839,6 +863,7 @@ class ice_curve {
   std::vector<std::size_t> onset_candidate_;
   std::vector<segment> segments_;
   std::vector<node> nodes_;
+  double ice_line_T_ = std::numeric_limits<double>::quiet_NaN(), ice_line_value_ = 0.0;
   double explored_to_ = -1.0;  // K; < 0: nothing to explore
   double end_temperature_ = std::numeric_limits<double>::quiet_NaN();
   curve_end end_ = curve_end::search_limit;

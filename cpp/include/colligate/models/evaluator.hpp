@@ -45,6 +45,13 @@ class activity_evaluator {
   virtual double ln_water_activity(double water_kg, double temperature) = 0;
   /// Validity of that state.
   virtual validity check(double water_kg, double temperature) = 0;
+  /// ln a_w as ln_water_activity() gives it (bit-identical) and its derivative with
+  /// respect to the water mass, d ln a_w / d water_kg (1/kg), in closed form. False (and
+  /// nothing written) for a model without one; the ice curve then uses a root finder.
+  virtual bool ln_water_activity_with_slope(double /*water_kg*/, double /*temperature*/,
+                                            double& /*ln_aw*/, double& /*slope*/) {
+    return false;
+  }
   /// The ion activities, or nullptr for models without them.
   virtual ion_activity_model* ions() noexcept { return nullptr; }
 };

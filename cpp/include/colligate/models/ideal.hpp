@@ -34,6 +34,14 @@ struct ideal {
     return -constants::molar_mass_water * particle_molality(s, water_kg);
   }
 
+  /// ln a_w and d ln a_w / d water_kg = -ln a_w / water_kg (ln a_w is proportional to
+  /// 1 / water_kg).
+  static void ln_water_activity_with_slope(const solution& s, double water_kg, double temperature,
+                                           double& ln_aw, double& slope) {
+    ln_aw = ln_water_activity(s, water_kg, temperature);
+    slope = -ln_aw / water_kg;
+  }
+
   static validity check(const solution& s, double water_kg, double /*temperature*/) {
     validity v;
     const double m = particle_molality(s, water_kg);

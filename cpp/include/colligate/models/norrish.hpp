@@ -70,6 +70,22 @@ struct norrish {
     });
   }
 
+  /// ln a_w (bit-identical to ln_water_activity) and its derivative with respect to the
+  /// water mass, d ln a_w / d water_kg (1/kg), in closed form (see sum()).
+  static void ln_water_activity_with_slope(const solution& s, double water_kg, double /*temperature*/,
+                                           double& ln_aw, double& slope) {
+    const auto& species = s.species();
+    const double* moles = s.moles().data();
+    ln_aw = sum(
+        s.size(), water_kg,
+        [&](std::size_t i) {
+          const auto& rec = species[i];
+          return solute_view{static_cast<double>(rec.particles), moles[i], rec.norrish.available,
+                             rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
+        },
+        &slope);
+  }
+
   /// The constants of one solute, copied out of its record, for evaluations on a subset of
   /// a solution's species (the non-electrolytes of a salt + sugar mixture, Ross rule).
   struct term {
@@ -153,8 +169,13 @@ struct norrish {
   /// Ferro Fontan & Benmergui 1980 eq. 4, extended as described there) over solutes
   /// 0..n-1, read through `view(i)` -> solute_view. Two passes: the mole total, then the
   /// terms, in index order (so every caller gets the same rounding).
+  ///
+  /// With `slope`, also d ln a_w / d water_kg (the value's arithmetic is unchanged). With
+  /// n = n_w + sum nu_i n_i, every x_i = n_i / n has d x_i / d n_w = -x_i / n, so a term
+  /// -g(x_i) contributes g'(x_i) x_i / n, -S^2 (S = sum sqrt(K_i) x_i) contributes
+  /// 2 S^2 / n, and -ln(1 + P / n_w) contributes P / (n_w n); d n_w / d water_kg = 1 / M_w.
   template <class View>
-  static double sum(std::size_t n, double water_kg, const View& view) {
+  static double sum(std::size_t n, double water_kg, const View& view, double* slope = nullptr) {
     const double nw = water_kg / constants::molar_mass_water;
     double n_total = nw;
     for (std::size_t i = 0; i < n; ++i) {
@@ -162,12 +183,17 @@ struct norrish {
       n_total += v.particles * v.moles;
     }
     double sqrt_sum = 0.0, extra = 0.0;
+    double d_extra = 0.0;  // sum of g'(x_i) x_i (slope only)
     for (std::size_t i = 0; i < n; ++i) {
       const solute_view v = view(i);
       if (!v.available) continue;
       const double x = v.moles / n_total;
       if (v.volume_ratio != 1.0) {  // per-solute term in the effective volume fraction
         extra -= volume_fraction_terms(v, x);
+        if (slope) {
+          const double r = v.volume_ratio, q = x + r * (1.0 - x), z = x / q;
+          d_extra += z * (2.0 * v.k + z * (3.0 * v.k3 + 4.0 * v.k4 * z)) * (r / (q * q)) * x;
+        }
         continue;
       }
       if (v.k > 0.0)
@@ -175,6 +201,13 @@ struct norrish {
       else
         extra -= v.k * x * x;
       extra -= x * x * x * (v.k3 + v.k4 * x);
+      if (slope)
+        d_extra += (v.k > 0.0 ? 0.0 : 2.0 * v.k * x * x) + x * x * x * (3.0 * v.k3 + 4.0 * v.k4 * x);
+    }
+    if (slope) {
+      const double P = n_total - nw;
+      *slope = (P / (nw * n_total) + (2.0 * sqrt_sum * sqrt_sum + d_extra) / n_total) /
+               constants::molar_mass_water;
     }
     return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
   }

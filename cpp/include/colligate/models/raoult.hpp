@@ -29,6 +29,18 @@ struct raoult {
     return -std::log1p(np / nw);
   }
 
+  /// ln a_w and d ln a_w / d water_kg: with n_w = water_kg / M_w and n_p the particles,
+  /// d(-ln(1 + n_p/n_w))/d n_w = n_p / (n_w (n_w + n_p)).
+  static void ln_water_activity_with_slope(const solution& s, double water_kg, double temperature,
+                                           double& ln_aw, double& slope) {
+    static_cast<void>(temperature);
+    const double nw = water_kg / constants::molar_mass_water;
+    double np = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) np += s.species()[i].particles * s.moles()[i];
+    ln_aw = -std::log1p(np / nw);
+    slope = np / (nw * (nw + np)) / constants::molar_mass_water;
+  }
+
   static validity check(const solution& s, double water_kg, double /*temperature*/) {
     validity v;
     double m = 0.0;

@@ -36,6 +36,11 @@ class ln_water_activity_evaluator {
   double operator()(double water_kg, double temperature) {
     return impl_->ln_water_activity(water_kg, temperature);
   }
+  /// ln a_w (bit-identical to operator()) and d ln a_w / d water_kg (1/kg) in closed
+  /// form; false for a model without the derivative (activity_evaluator).
+  bool with_slope(double water_kg, double temperature, double& ln_aw, double& slope) {
+    return impl_->ln_water_activity_with_slope(water_kg, temperature, ln_aw, slope);
+  }
   /// Validity of the prepared solution with `water_kg` at T.
   validity check(double water_kg, double temperature) { return impl_->check(water_kg, temperature); }
   /// Ion activities, or nullptr for a model without them.

@@ -7,6 +7,7 @@
 #include <functional>
 #include <memory>
 #include <string>
+#include <type_traits>
 #include <utility>
 
 #include "colligate/core/solution.hpp"
@@ -15,6 +16,15 @@
 #include "colligate/models/registry.hpp"
 
 namespace colligate::models::detail {
+
+/// Whether Model has `ln_water_activity_with_slope(solution, water_kg, T, ln_aw, slope)`.
+template <class Model, class = void>
+struct has_water_slope : std::false_type {};
+template <class Model>
+struct has_water_slope<Model, std::void_t<decltype(Model::ln_water_activity_with_slope(
+                                  std::declval<const solution&>(), 0.0, 0.0,
+                                  std::declval<double&>(), std::declval<double&>()))>>
+    : std::true_type {};
 
 template <class Model>
 class static_model_evaluator final : public activity_evaluator {
@@ -25,6 +35,17 @@ class static_model_evaluator final : public activity_evaluator {
   }
   validity check(double water_kg, double temperature) override {
     return Model::check(*s_, water_kg, temperature);
+  }
+  bool ln_water_activity_with_slope(double water_kg, double temperature, double& ln_aw,
+                                    double& slope) override {
+    if constexpr (has_water_slope<Model>::value) {
+      Model::ln_water_activity_with_slope(*s_, water_kg, temperature, ln_aw, slope);
+      return true;
+    } else {
+      static_cast<void>(water_kg), static_cast<void>(temperature), static_cast<void>(ln_aw),
+          static_cast<void>(slope);
+      return false;
+    }
   }
 
  private:
