@@ -48,6 +48,7 @@
 #include <cstdio>
 #include <limits>
 #include <memory>
+#include <stdexcept>
 #include <string>
 #include <utility>
 #include <vector>
@@ -551,10 +552,18 @@ class ice_curve {
           return solve_ice_only(mid, nullptr, sm) && max_saturation(mid, sm, nullptr) >= 0.0;
         },
         lo_T, initial_freezing_point().temperature, 1e-7, 60);
-    const double T_on = 0.5 * (b.lo + b.hi);
-    solve_ice_only(T_on, nullptr, st);
+    double T_on = 0.5 * (b.lo + b.hi);
     const salt_phase* first = nullptr;
-    max_saturation(T_on, st, &first);
+    if (!solve_ice_only(T_on, nullptr, st) || (max_saturation(T_on, st, &first), first == nullptr)) {
+      // The midpoint fell where the ice-only solve fails (no salt is then named): take the
+      // bracket's cold end, where the solve held and a salt was saturated when tested.
+      T_on = b.lo;
+      first = nullptr;
+      if (!solve_ice_only(T_on, nullptr, st) || (max_saturation(T_on, st, &first), first == nullptr)) {
+        explored_to_ = std::min(explored_to_, lo_T);
+        return;
+      }
+    }
     segments_.push_back({initial_freezing_point().temperature, T_on, {}, {}});
     add_onset(first, T_on, st);
   }
@@ -563,7 +572,9 @@ class ice_curve {
   /// more solids with the liquid.
   void add_onset(const salt_phase* phase, double T_on, const liquid_state& st) {
     std::size_t c = 0;
-    while (candidates_[c].phase != phase) ++c;
+    while (c < candidates_.size() && candidates_[c].phase != phase) ++c;
+    if (c == candidates_.size())
+      throw std::logic_error("ice_curve::add_onset: the salt phase is not among the candidates");
     // Phase rule: the liquid's composition directions (its amounts and the removal
     // vector of each salt in equilibrium with it) must stay independent.
     const auto& prev = segments_.back();
