@@ -285,7 +285,7 @@ inline const std::vector<citation>& citations() {
        "International Alcoholometric Tables (OIML R 22)", "OIML, Paris", "OIML R 22 (1975)",
        "density of ethanol-water mixtures at 20 C as a polynomial in the ethanol mass fraction "
        "(coefficients A_1..A_12, the formula of the tables), pure ethanol 789.24 kg/m3 at 20 C; "
-       "coefficients read in several public transcriptions that agree digit for digit; table "
+       "coefficients read in several public copies that agree digit for digit; table "
        "densities (e.g. 40 %vol: 948.05 kg/m3) read in a public copy of the tables: "
        "data/ethanol_water_density.hpp"},
       {"hyde_rothwell_1973", "Hyde, K. A.; Rothwell, J.", 1973, "Ice Cream",
