@@ -141,6 +141,28 @@ TEST_CASE("amounts too large for double sums are refused by name", "[robustness]
   CHECK(std::isfinite(big.mole_fraction(0)));
 }
 
+TEST_CASE("a water mass too small for the mole fractions is refused by name",
+          "[robustness][solution]") {
+  // Found by fuzzing: 4.9e-317 kg of water (subnormal) with 0.25 kg of solute gave a
+  // water mole fraction of exactly 0. The least water is 1e-12 kg in every factory.
+  try {
+    solution::from_masses(4.9e-317, {{"sucrose", 0.25}});
+    FAIL("no error");
+  } catch (const invalid_input& e) {
+    CHECK_THAT(e.what(), Contains("water") && Contains("1e-12"));
+  }
+  CHECK_THROWS_AS(solution::from_molalities({{"NaCl", 1.0}}, 1e-300), invalid_input);
+  try {
+    solution::from_mass_fractions({{"sucrose", 1.0 - 1e-16}}, 1e-3);
+    FAIL("no error");
+  } catch (const invalid_input& e) {
+    CHECK_THAT(e.what(), Contains("sum of solute mass fractions") && Contains("1e-12"));
+  }
+  const auto least = solution::from_masses(solution::min_water, {{"glucose", 1e15}});
+  CHECK(least.water_mole_fraction() > 0.0);
+  CHECK(least.water_mole_fraction() < 1e-20);
+}
+
 TEST_CASE("a solution at its own freezing point: no root-finder text, ice fraction 0",
           "[robustness][glycerol]") {
   // Identity: at the initial freezing point no ice has formed yet.

@@ -33,6 +33,11 @@ class solution {
   /// stays finite in double precision.
   static constexpr double max_amount = 1e15;
 
+  /// Least water a factory accepts, kg: with solutes up to `max_amount` the water mole
+  /// fraction then stays above about 1e-30, far from underflow (a subnormal water mass
+  /// gave a water mole fraction of exactly 0, found by fuzzing).
+  static constexpr double min_water = 1e-12;
+
   /// Water plus solute masses, kg.
   static solution from_masses(double water_kg, const std::vector<named_amount>& solute_kg,
                               const data::solute_table& table = data::builtin_solutes()) {
@@ -40,6 +45,7 @@ class solution {
     if (!(water_kg > 0.0))
       throw invalid_input(detail::describe("solution", "water", water_kg,
                                            "a solution needs water > 0 kg"));
+    check_least_water("solution", "water", water_kg);
     solution s;
     s.water_kg_ = water_kg;
     for (const auto& [name, kg] : solute_kg) {
@@ -58,6 +64,7 @@ class solution {
     if (!(water_kg > 0.0))
       throw invalid_input(detail::describe("from_molalities", "water", water_kg,
                                            "a solution needs water > 0 kg"));
+    check_least_water("from_molalities", "water", water_kg);
     solution s;
     s.water_kg_ = water_kg;
     for (const auto& [name, m] : molalities) {
@@ -89,6 +96,10 @@ class solution {
       throw invalid_input(detail::describe(
           "from_mass_fractions", "sum of solute mass fractions", sum,
           "must be below 1 (the rest is water); give percentages as fractions (20 % -> 0.20)"));
+    if (!((1.0 - sum) * total_kg >= min_water))
+      throw invalid_input(detail::describe(
+          "from_mass_fractions", "sum of solute mass fractions", sum,
+          "leaves less than 1e-12 kg of water in total_mass; a solution needs water >= 1e-12 kg"));
     std::vector<named_amount> masses;
     for (const auto& [name, w] : fractions) masses.emplace_back(name, w * total_kg);
     return from_masses((1.0 - sum) * total_kg, masses, table);
@@ -254,6 +265,12 @@ class solution {
     double n = water_moles();
     for (double x : moles_) n += x;
     return n;
+  }
+
+  static void check_least_water(const char* where, const char* field, double water_kg) {
+    if (water_kg < min_water)
+      throw invalid_input(detail::describe(where, field, water_kg,
+                                           "a solution needs water >= 1e-12 kg"));
   }
 
   static void check_amount(const char* where, const std::string& field, double value,
