@@ -16,7 +16,9 @@ if [ "${COLLIGATE_SKIP_CPP:-0}" = "1" ]; then
   echo "== C++: SKIPPED (COLLIGATE_SKIP_CPP=1): no ctest, no find_package consumer"
 else
   echo "== C++: configure, build, ctest"
-  cmake -S . -B build/cpp -G Ninja -DCOLLIGATE_BUILD_TESTS=ON >/dev/null
+  launcher=()   # ccache when the machine has it (rebuilds after small changes take seconds)
+  command -v ccache >/dev/null && launcher=(-DCMAKE_CXX_COMPILER_LAUNCHER=ccache)
+  cmake -S . -B build/cpp -G Ninja -DCOLLIGATE_BUILD_TESTS=ON "${launcher[@]}" >/dev/null
   cmake --build build/cpp -j2
   ctest --test-dir build/cpp --output-on-failure -j2
 

@@ -262,3 +262,28 @@ TEST_CASE("an ice curve without a located salt onset answers without undefined b
     }
   }
 }
+
+TEST_CASE("an infinitesimal amount of any solute gives an osmotic coefficient of 1",
+          "[robustness][osmotic]") {
+  // Limiting law (common practice: phi -> 1 as m -> 0). Found by fuzzing: 1.9e-77 kg of
+  // lactic acid (negative Norrish K) gave phi = -5.8e-78, because n_total - n_w rounded
+  // to 0 and the K x^2 term then made ln a_w positive.
+  const auto& records = data::builtin_solutes().records();
+  const auto ids = models::builtin_models().ids();
+  int evaluated = 0;
+  for (double m : {1e-300, 1e-77, 1e-30, 1e-12})
+    for (const auto& rec : records)
+      for (const auto& id : ids) {
+        const auto s = solution::from_molalities({{rec.id, m}});
+        double phi = 0.0;
+        try {
+          phi = models::osmotic_coefficient(s, 260.0, id, range_policy::extrapolate).value;
+        } catch (const invalid_input&) {
+          continue;  // the model does not take this solute
+        }
+        ++evaluated;
+        INFO(rec.id << " with model " << id << " at " << m << " mol/kg");
+        CHECK(std::fabs(phi - 1.0) < 1e-5);
+      }
+  CHECK(evaluated > 300);
+}

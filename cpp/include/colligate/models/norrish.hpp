@@ -177,11 +177,15 @@ struct norrish {
   template <class View>
   static double sum(std::size_t n, double water_kg, const View& view, double* slope = nullptr) {
     const double nw = water_kg / constants::molar_mass_water;
-    double n_total = nw;
+    // The particle moles are summed apart from the water: -ln x_w = ln(1 + P / n_w) keeps
+    // its value for any P > 0 (a P below n_w's rounding made n_total - n_w exactly 0, and
+    // a negative K then gave ln a_w > 0: found by fuzzing at 1e-77 kg of solute).
+    double P = 0.0;
     for (std::size_t i = 0; i < n; ++i) {
       const solute_view v = view(i);
-      n_total += v.particles * v.moles;
+      P += v.particles * v.moles;
     }
+    const double n_total = nw + P;
     double sqrt_sum = 0.0, extra = 0.0;
     double d_extra = 0.0;  // sum of g'(x_i) x_i (slope only)
     for (std::size_t i = 0; i < n; ++i) {
@@ -205,11 +209,10 @@ struct norrish {
         d_extra += (v.k > 0.0 ? 0.0 : 2.0 * v.k * x * x) + x * x * x * (3.0 * v.k3 + 4.0 * v.k4 * x);
     }
     if (slope) {
-      const double P = n_total - nw;
       *slope = (P / (nw * n_total) + (2.0 * sqrt_sum * sqrt_sum + d_extra) / n_total) /
                constants::molar_mass_water;
     }
-    return -std::log1p((n_total - nw) / nw) - sqrt_sum * sqrt_sum + extra;
+    return -std::log1p(P / nw) - sqrt_sum * sqrt_sum + extra;
   }
 };
 
