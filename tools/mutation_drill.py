@@ -79,6 +79,15 @@ MUTATIONS = [
              f"{INC}/water/ice.hpp",
              "constants::heat_capacity_water_0c - constants::heat_capacity_ice_0c,  // 38.25",
              "constants::heat_capacity_ice_0c - constants::heat_capacity_water_0c,  // 38.25"),
+    Mutation("solids_sensible_heat_dropped", "enthalpy: the sensible heat of the solid components left out",
+             f"{INC}/thermal/components.hpp",
+             "inline double solids_sensible_enthalpy(const food_composition& x, double t1, double t2) {",
+             "inline double solids_sensible_enthalpy(const food_composition& x, double t1, double t2) {\n"
+             "  if (t1 == t1) return 0.0;  // planted"),
+    Mutation("propylene_glycol_k3_dropped", "propylene glycol: the fitted cubic Norrish constant K3 left out",
+             f"{INC}/data/detail/builtin_solutes.inc",
+             'norrish(4.23023, "colligate_fit_melinder", -9.94711, 0.0, "colligate_fit_melinder", 0.40,',
+             'norrish(4.23023, "colligate_fit_melinder", 0.0, 0.0, "colligate_fit_melinder", 0.40,'),
 ]
 
 

@@ -29,10 +29,24 @@ def test_ice_water_activity_vs_murphy_koop_to_minus_40():
     assert worst < 2e-4
 
 
+# Tolerances, each with its basis (the rows include those the fitted constants were fitted
+# to, so for maltose, glycerol and ethanol this shows the fit holds; held-out rows are
+# checked alone in tests/cpp/validation/):
+#   sucrose, glucose, fructose 0.2 K: a named limitation, one temperature-independent
+#     Norrish constant taken from the literature (Chirife et al. 1980) over 0-42 wt%; the
+#     K x^2 term alone is worth 1.1 K for sucrose at 42 wt% and 0.4 K for glucose at 30 wt%;
+#   maltose 0.1 K, glycerol 0.05 K: the fit's stated worst deviation (0.051 and 0.019 K,
+#     data/detail/builtin_solutes.inc), plus 0.01 K, the CRC's printed resolution, plus
+#     0.02 K, the ice line's agreement with Murphy & Koop (2005) (2e-4 in a_w). Glycerol's
+#     0.5 and 1 wt% rows lie outside the fit (2-40 wt%) and below the dilute limit
+#     (0.07 K printed at 0.5 wt% where Kf m = 1.86 x 0.0546 = 0.10 K): the model is 0.032 K
+#     off there, inside the same 0.05 K; achieved on the fitted range 0.019 K;
+#   ethanol 0.4 K: the fit's stated worst deviation 0.35 K over 0.5-68 wt% plus 0.05 K for
+#     the rounding of the published depressions (as tests/python/test_ethanol.py).
 @pytest.mark.parametrize(
     "solute, top, tol",
-    [("sucrose", 42, 0.2), ("glucose", 30, 0.2), ("fructose", 28, 0.2), ("maltose", 44, 0.2),
-     ("glycerol", 40, 0.5), ("ethanol", 40, 0.5)],
+    [("sucrose", 42, 0.2), ("glucose", 30, 0.2), ("fructose", 28, 0.2), ("maltose", 44, 0.1),
+     ("glycerol", 40, 0.05), ("ethanol", 40, 0.4)],
 )
 def test_crc_freezing_points(crc_freezing, solute, top, tol):
     # CRC Handbook 102nd ed. (2021), concentrative properties (source_key per row).

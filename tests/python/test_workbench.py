@@ -92,7 +92,9 @@ def test_dairy_mix_75_percent_frozen_within_1_K_of_goff_hartel():
     # worked mix (10 % MSNF, 2 % whey solids, 12 % sucrose, 4 % 42DE corn syrup solids, 60 %
     # water, 12 % fat) has 75 % of its water frozen at -13.16 C by Leighton's method. The
     # method counts no water as unable to freeze, so neither does this comparison.
-    # Tolerance 1 K.
+    # Tolerance 1 K: a named limitation, the method's sucrose-equivalence factors and its
+    # milk-salt term approximate the activity model (the same basis as the C++ check in
+    # tests/cpp/equilibria/test_ice_fraction_temperature.cpp).
     css = {"glucose": 0.19 * 0.04, "maltose": 0.14 * 0.04, "maltotriose": 0.12 * 0.04,
            "higher_saccharides": 0.55 * 0.04}
     mix = Ingredient("Goff & Hartel example mix", water=0.60, fat=0.12, msnf=0.10,

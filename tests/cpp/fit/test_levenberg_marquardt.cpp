@@ -180,6 +180,8 @@ TEST_CASE("confidence intervals use Student t with n - k degrees of freedom", "[
   };
   const auto r = curve_fit(line, x, y, Eigen::Vector2d(0.0, 1.0));
   REQUIRE(r.success());
+  // Student t, 2 degrees of freedom, two-sided 95 %: 4.302653 (common practice: the
+  // printed t tables; seven digits, so rel 1e-6).
   CHECK_THAT(r.t_quantile(0.95), WithinRel(4.302653, 1e-6));
   const auto ci = r.confidence_intervals(0.95);
   CHECK_THAT(ci(1, 1) - r.params[1], WithinRel(4.302653 * r.standard_errors[1], 1e-6));

@@ -183,17 +183,27 @@ TEST_CASE("ASHRAE Refrigeration (2006) ch. 9 Table 3 foods", "[thermal][referenc
     REQUIRE(!r.at("source_key").empty());
     const auto f = ashrae_food(r);
     const auto& x = f.composition();
-    // Specific heat above freezing: Choi & Okos sum at 0 C vs the table, rel 5 %.
+    // Specific heat above freezing: Choi & Okos sum at 0 C vs the table, rel 3 %. The column
+    // is itself an estimate from composition (Chen's 1985 unfrozen correlation 4.19 - 2.30 x_s
+    // - 0.628 x_s^3, from memory, reproduces it within 0.9 %); Choi & Okos and that
+    // correlation differ by up to 2.3 % on these rows (garlic), plus 0.16 % for the table's
+    // two decimals (the same basis as the heat-load check in tests/cpp/validation/).
     CHECK_THAT(thermal::unfrozen_specific_heat(x, T0) / 1e3,
-               WithinRel(std::stod(r.at("specific_heat_above_freezing_kJ_per_kgK")), 0.05));
-    // Latent heat of fusion: x_w L(0 C) vs the table (printed to 1 kJ/kg), rel 5 %.
+               WithinRel(std::stod(r.at("specific_heat_above_freezing_kJ_per_kgK")), 0.03));
+    // Latent heat of fusion: x_w L(0 C) vs the table, rel 0.5 %: the table's 334 kJ/kg against
+    // 333.44 from dH_fus = 6007 J/mol (0.17 %) plus its rounding to 1 kJ/kg (up to 0.17 %).
     CHECK_THAT(thermal::latent_heat_of_fusion(x) / 1e3,
-               WithinRel(std::stod(r.at("latent_heat_kJ_per_kg")), 0.05));
-    // Specific heat below freezing. The table's column is the Chen (1985) correlation at
-    // -40 C (thermal/frozen_specific_heat.hpp, as presented by ASHRAE); checked against
-    // the table at rel 5 %. Our physical model (enthalpy.hpp) uses the heat capacity of
-    // ice (1.82 kJ/(kg K) at -40 C, IAPWS R10-06) where the correlation has 1.55, and
-    // differs from the column by -11 % (garlic) to +14 % (cucumbers): checked at rel 20 %.
+               WithinRel(std::stod(r.at("latent_heat_kJ_per_kg")), 0.005));
+    // Specific heat below freezing. The table's column is computed from composition; Chen's
+    // (1985) correlation at -40 C as ASHRAE presents it (thermal/frozen_specific_heat.hpp)
+    // reproduces it within 2.5 %, always below it (the table's exact constants are not
+    // identified in our copy): checked at rel 5 %, common practice for a handbook
+    // correlation re-evaluated from a secondary presentation. Our physical model
+    // (enthalpy.hpp) uses the heat capacity of ice (1.82 kJ/(kg K) at -40 C, IAPWS R10-06)
+    // where the correlation has 1.55, which alone puts it about 0.27 x_w kJ/(kg K) (up to
+    // +15 %) above the column; it differs by -11 % (garlic) to +14 % (cucumbers): checked at
+    // rel 20 %, a bound on the ice and solids heat capacities (dropping the ice term fails
+    // it), not a validation of the latent term, which is 6 % of the total at -40 C.
     const double cpb = std::stod(r.at("specific_heat_below_freezing_kJ_per_kgK"));
     const double ours = thermal::apparent_specific_heat(f, T0 - 40.0).value / 1e3;
     CHECK_THAT(ours, WithinRel(cpb, 0.20));

@@ -53,6 +53,19 @@ thermal::food seawater_food(double SA) {
 
 constexpr double standard_seawater_SA = 35.16504;  // g/kg, Millero et al. (2008)
 
+/// Proximate composition of a row of ashrae_food_properties.csv (the table's total
+/// carbohydrate includes fibre).
+thermal::food_composition ashrae_composition(const csv_row& r) {
+  thermal::food_composition x;
+  x.water = num(r, "water_percent") / 100.0;
+  x.protein = num(r, "protein_percent") / 100.0;
+  x.fat = num(r, "fat_percent") / 100.0;
+  x.fibre = num(r, "fibre_percent") / 100.0;
+  x.carbohydrate = num(r, "carbohydrate_total_percent") / 100.0 - x.fibre;
+  x.ash = num(r, "ash_percent") / 100.0;
+  return x;
+}
+
 }  // namespace
 
 TEST_CASE("every reference row says whether it was used in a fit", "[validation]") {
@@ -61,7 +74,7 @@ TEST_CASE("every reference row says whether it was used in a fit", "[validation]
         "seawater_teos10_enthalpy.csv", "seawater_teos10_freezing_points.csv",
         "seawater_teos10_ice_fraction.csv", "nacl_osmotic_coefficients_25c.csv",
         "sucrose_osmotic_coefficients_25c.csv", "norrish_constants.csv", "seawater_brine_path.csv",
-        "nist_strd_data.csv", "nist_strd_certified.csv"}) {
+        "nist_strd_data.csv", "nist_strd_certified.csv", "lange_propylene_glycol_freezing.csv"}) {
     const auto rows = read_reference(file);
     REQUIRE(!rows.empty());
     for (const auto& r : rows) {
@@ -149,6 +162,40 @@ TEST_CASE("glycerol and ethanol constants against Melinder (2010), not used in t
     ++n;
   }
   CHECK(n >= 15);
+}
+
+TEST_CASE("propylene glycol constants against Lange's Handbook (Dean 1999), not used in any fit",
+          "[validation][independent]") {
+  // tests/reference/lange_propylene_glycol_freezing.csv: Dean (1999) Table 5.13, freezing
+  // points of propylene glycol-water by volume, printed in whole degrees F (the C column is
+  // their conversion). The K and K3 of propylene glycol were fitted to Melinder's (2010)
+  // curve only, so these rows are an independent check, within the constants' range (the
+  // rows to 40 vol%, 5-40 wt%).
+  // Volume to mass: w = phi SG_glycol / SG_solution, with the row's solution specific gravity
+  // at 60 F and SG_glycol = 1.038 at 60/60 F (from memory; +-0.002 moves w by 0.2 %), taking
+  // "% by volume" as glycol volume per solution volume.
+  // Tolerance 1.3 K, from the two published sources, not from this model: the model follows
+  // Melinder's curve within 0.13 K (the fit's stated worst deviation), and the two tables
+  // differ by up to 1.15 K at these compositions (Melinder via CoolProp 8.0 INCOMP::MPG minus
+  // this table: -0.15, -0.77, -1.15, -0.70, -1.14, -0.28, -0.47, -0.22 K at 5-40 vol%; the
+  // table's 5-15 vol% rows lie even above the ideal-solution freezing line, which propylene
+  // glycol, with its negative deviation from Raoult's law, cannot reach). So the check is
+  // coarse: it catches a dropped or mis-signed constant (K3 alone is worth about 2.5 K at
+  // 40 vol%), not an error of a few tenths of a kelvin.
+  constexpr double sg_glycol = 1.038;
+  int n = 0;
+  for (const auto& r : read_reference("lange_propylene_glycol_freezing.csv")) {
+    REQUIRE(held_out(r));
+    const double phi = num(r, "volume_percent") / 100.0;
+    if (phi > 0.40 + 1e-12) continue;  // beyond the range of the fitted constants (40 wt%)
+    const double w = phi * sg_glycol / num(r, "specific_gravity_60F");
+    const double published = C + (num(r, "freezing_point_F") - 32.0) / 1.8;
+    INFO("propylene glycol " << r.at("volume_percent") << " vol% = " << 100.0 * w << " wt% ["
+                             << r.at("source_key") << "]");
+    CHECK_THAT(C - depression("propylene_glycol", w), Catch::Matchers::WithinAbs(published, 1.3));
+    ++n;
+  }
+  CHECK(n == 8);
 }
 
 TEST_CASE("Pitzer ice-line curvature (spencer_1990_icefit) against CRC rows not in its fit",
@@ -271,7 +318,17 @@ TEST_CASE("heat to cool and freeze seawater against TEOS-10 enthalpies", "[valid
   // Choi & Okos (1986) heat capacity of ash for the dissolved sea salt, which makes the
   // heat capacity of seawater 4.07 kJ/(kg K) at 35 g/kg and 5 C where TEOS-10
   // (gsw.cp_t_exact) gives 3.99, 2 % higher (dissolved salts lower the heat capacity of
-  // water; component additivity does not know that).
+  // water; component additivity does not know that). Why this is not fixed here: it is a
+  // real gap in the model, not in its constants. The ash term adds +1.09 kJ/(kg K) per kg of
+  // dissolved salt, while an electrolyte's apparent molar heat capacity in water is
+  // negative (NaCl about -90 J/(mol K) at 25 C at infinite dilution, more negative in the
+  // cold; from memory); TEOS-10's 3.99 against 0.965 x 4.202 (IAPWS-95 water at 5 C) puts
+  // sea salt near -1.9 kJ/(kg K). A fix needs each dissolved solute's apparent molar heat
+  // capacity as a function of T and molality (for salts the temperature derivatives of the
+  // Pitzer parameters, e.g. Archer 1992 for NaCl), which the solute records do not carry,
+  // and taking it from the TEOS-10 seawater values would fit the model to this check. The
+  // 3 % of the sensible part therefore stays, with this reason, and the latent part keeps
+  // its own 1 % check.
   const auto f = seawater_food(standard_seawater_SA);
   int n = 0;
   for (const auto& r : read_reference("seawater_teos10_enthalpy.csv")) {
@@ -297,15 +354,35 @@ TEST_CASE("latent heat of fusion of foods, ASHRAE Refrigeration (2006) ch. 9 Tab
   REQUIRE(rows.size() >= 3);
   for (const auto& r : rows) {
     INFO(r.at("food") << " [" << r.at("source_key") << "]");
-    thermal::food_composition x;
-    x.water = num(r, "water_percent") / 100.0;
-    x.protein = num(r, "protein_percent") / 100.0;
-    x.fat = num(r, "fat_percent") / 100.0;
-    x.fibre = num(r, "fibre_percent") / 100.0;
-    x.carbohydrate = num(r, "carbohydrate_total_percent") / 100.0 - x.fibre;
-    x.ash = num(r, "ash_percent") / 100.0;
-    CHECK_THAT(thermal::latent_heat_of_fusion(x),
+    CHECK_THAT(thermal::latent_heat_of_fusion(ashrae_composition(r)),
                Catch::Matchers::WithinRel(1e3 * num(r, "latent_heat_kJ_per_kg"), 0.005));
+  }
+}
+
+TEST_CASE("heat to cool foods from 20 C to 0 C against ASHRAE Refrigeration (2006) ch. 9 Table 3",
+          "[validation][thermal]") {
+  // The enthalpy path above freezing (heat_load: Choi & Okos 1986 sensible heat of water and
+  // of every solid component) against the table's specific heat above freezing times 20 K.
+  // That column is itself an estimate from composition: Chen's (1985) unfrozen correlation
+  // 4.19 - 2.30 x_s - 0.628 x_s^3 kJ/(kg K) (from memory) reproduces it within 0.9 % on these
+  // rows. Tolerance 3 %, from the published estimates, not from this model: Choi & Okos and
+  // Chen's correlation differ by up to 2.3 % on these compositions (garlic, 41 % solids),
+  // the table's two decimals add up to 0.16 %, and the spread of the column about Chen's
+  // correlation up to 0.9 %. The solids' own sensible heat is 1.6 % (cucumbers) to 21 %
+  // (garlic) of the total, so a food whose solids lost their heat capacity fails here.
+  const auto rows = read_reference("ashrae_food_properties.csv");
+  REQUIRE(rows.size() >= 5);
+  for (const auto& r : rows) {
+    INFO(r.at("food") << " [" << r.at("source_key") << "]");
+    REQUIRE(held_out(r));
+    const auto x = ashrae_composition(r);
+    // Above 0 C no ice forms, so the water phase only has to be valid: its sugars as glucose.
+    const double sugars = x.carbohydrate / (x.water + x.carbohydrate);
+    const thermal::food f(x, solution::from_mass_fractions({{"glucose", sugars}}));
+    const auto q = thermal::heat_load(f, C + 20.0, C);
+    CHECK(q.latent == 0.0);
+    const double cp = 1e3 * num(r, "specific_heat_above_freezing_kJ_per_kgK");
+    CHECK_THAT(q.total, Catch::Matchers::WithinRel(20.0 * cp, 0.03));
   }
 }
 

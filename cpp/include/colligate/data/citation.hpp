@@ -328,6 +328,11 @@ inline const std::vector<citation>& citations() {
       {"colligate_fit_user", "the user of colligate", 0,
        "Constants fitted by colligate.fit to the user's own data",
        "the provenance fields of the fitted-solute file", "", "see the record's note"},
+      {"dean_1999_lange", "Dean, J. A. (ed.)", 1999, "Lange's Handbook of Chemistry, 15th ed.",
+       "McGraw-Hill, New York", "ISBN 0-07-016384-7 (from memory)",
+       "Table 5.13, compositions of aqueous antifreeze solutions: freezing point of "
+       "propylene glycol-water mixtures by volume, p. 5.85; copied in "
+       "tests/reference/lange_propylene_glycol_freezing.csv"},
   };
   return table;
 }
