@@ -117,6 +117,7 @@ class Quantity:
     x: str            # column on the horizontal axis
     x_label: str
     group: str = ""   # column that splits the rows into curves ("" for one curve)
+    curve: bool = True  # False: separate items (foods), the model drawn as markers
 
 
 QUANTITIES: dict[str, Quantity] = {
@@ -132,8 +133,10 @@ QUANTITIES: dict[str, Quantity] = {
                                     "from_temperature_C"),
     "seawater_heat_latent": Quantity(_seawater_heat("latent"), "to_temperature_C", "cooled to, C",
                                      "from_temperature_C"),
-    "food_specific_heat_above_freezing": Quantity(_food_cp_above, "water_percent", "water, mass %"),
-    "food_specific_heat_below_freezing_chen": Quantity(_food_cp_below_chen, "water_percent", "water, mass %"),
+    "food_specific_heat_above_freezing": Quantity(_food_cp_above, "water_percent", "water, mass %",
+                                                  curve=False),
+    "food_specific_heat_below_freezing_chen": Quantity(_food_cp_below_chen, "water_percent", "water, mass %",
+                                                       curve=False),
 }
 
 
@@ -234,7 +237,8 @@ def plot(result: CheckResult, path: pathlib.Path) -> None:
     groups = t.groupby(q.group, sort=False) if q.group else [("", t)]
     for name, g in groups:
         g = g.sort_values(q.x)
-        line, = top.plot(g[q.x], g["model"], "-", lw=1.4, label=f"colligate {name}".strip())
+        line, = top.plot(g[q.x], g["model"], "-" if q.curve else "x", lw=1.4,
+                         label=f"colligate {name}".strip())
         top.plot(g[q.x], g[result.published], "o", ms=4, mfc="none", color=line.get_color(),
                  label=f"published {name}".strip())
         bottom.plot(g[q.x], g["residual"], "o", ms=4, color=line.get_color())
