@@ -59,9 +59,13 @@ def models_page() -> str:
                      f"{'yes' if row['temperature_dependent'] else 'no'} | "
                      f"{'yes' if row['ion_activities'] else 'no'} |")
     lines += ["", "## Pitzer parameter sets", "",
-              "Each set carries its own temperature range and the molality limit of each salt; "
-              "see [the electrolyte notes](../electrolytes.md).", ""]
-    lines += [f"- `{s}`" for s in cg.pitzer_parameter_sets()]
+              "Each set carries its own temperature range (below) and a molality limit per salt; "
+              "see [the electrolyte notes](../electrolytes.md). The first set is the default.", "",
+              "| set | temperature range | description | source |", "|---|---|---|---|"]
+    for name in cg.pitzer_parameter_sets():
+        t_min, t_max, description, source = _core.pitzer_parameter_set_range(name)
+        lines.append(f"| `{name}` | {t_min:.2f}-{t_max:.2f} K ({t_min - 273.15:.0f} to "
+                     f"{t_max - 273.15:.0f} °C) | {_cell(description)} | `{source}` |")
     solutes = cg.solutes()
     lines += ["", "## Solutes and the range their constants were checked over", "",
               "`kind` says which model family `auto` gives the solute. The Norrish columns give "
