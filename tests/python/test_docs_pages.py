@@ -43,3 +43,17 @@ def test_model_page_lists_every_registered_model_with_its_sources():
             assert f"| `{model}` |" in page
     assert "Chirife" in page and "Pitzer" in page        # sources named in the summaries
     assert "verify" in page                               # the cautions
+
+
+def test_pages_on_brines_water_activity_or_ethanol_carry_the_cautions():
+    # common practice: food-safety results come with "verify by measurement, defer to local
+    # codes and licensed practice"
+    pages = [p for p in (ROOT / "docs").rglob("*.md") if "_generated" not in p.parts]
+    topics = ("brine", "water activity", "ethanol", "alcohol")
+    checked = 0
+    for page in pages:
+        text = page.read_text(encoding="utf-8").lower()
+        if any(t in text for t in topics):
+            checked += 1
+            assert "verify" in text and "measure" in text, page.name
+    assert checked >= 5
