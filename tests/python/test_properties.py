@@ -104,7 +104,8 @@ def test_no_policy_returns_a_value_outside_physical_bounds(recipe, T, model, pol
 def test_more_solute_lowers_freezing_point_and_water_activity(recipe, extra, amount):
     base = cg.Solution.from_mass_fractions(recipe)
     more = dict(base.solutes)
-    more[extra] = more.get(extra, 0.0) + amount
+    key = next(iter(cg.Solution.from_molalities({extra: 1.0}).solutes))  # the id base.solutes uses
+    more[key] = more.get(key, 0.0) + amount
     richer = cg.Solution(water=base.water, solutes=more)
     tf0, tf1 = quietly(cg.freezing_point, base), quietly(cg.freezing_point, richer)
     if np.isfinite(tf0) and np.isfinite(tf1):
