@@ -214,6 +214,18 @@ Solution from solute mole fractions (formula units, undissociated); rest is wate
     for (const auto& id : colligate::models::builtin_models().ids()) ids.push_back(id);
     return ids;
   }, "Ids of the activity models.");
+  m.def("model_summaries", [] {
+    py::list rows;
+    for (const auto& d : colligate::models::builtin_models().models()) {
+      py::dict row;
+      row["id"] = d.id;
+      row["summary"] = d.summary;
+      row["temperature_dependent"] = d.traits.temperature_dependent;
+      row["ion_activities"] = d.traits.ion_activities;
+      rows.append(row);
+    }
+    return rows;
+  }, "The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities.");
   m.def(
       "describe_model",
       [](const solution& s, const std::string& model) {

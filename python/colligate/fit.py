@@ -107,7 +107,12 @@ class FitResult:
         Parameter covariance, scaled by chi^2/dof.
     residuals : numpy.ndarray
         Data minus model, in the unit of the fitted quantity.
-    status, success, message : fit status (non-convergence is a status, not an error).
+    status : str
+        Fit status (non-convergence is a status, not an error).
+    success : bool
+        Whether the fit converged.
+    message : str
+        The status in words.
     """
 
     def __init__(self, core: Any, *, model: str, x: np.ndarray, y: np.ndarray,

@@ -357,6 +357,8 @@ class Recipe:
         name : str, optional
             Name of the copy (default: the name with " (changed)").
 
+        Notes
+        -----
         Every problem (unknown name, negative amount, removing what is not there) is
         reported at once in one :class:`RecipeError`. Bound water given explicitly is kept;
         bound water that followed the protein (ingredient recipes) follows the new protein.
