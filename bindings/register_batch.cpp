@@ -111,9 +111,10 @@ void register_batch(py::module_& m) {
   m.def(
       "batch_water_activities",
       [](const solution_batch& b, double T, const std::string& model, int threads,
-         const std::string& policy) {
+         const std::string& policy, const std::string& saturation) {
         const auto id = colligate::models::model_choice(model);
         auto opt = make_options(threads, policy, 0.0);
+        opt.salts_crystallise = colligate::equilibria::salts_crystallise_from_string(saturation);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
         double* o = out.mutable_data();
@@ -122,7 +123,7 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperature"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate");
+      py::arg("range_policy") = "extrapolate", py::arg("saturation") = "equilibrium");
 
   m.def(
       "batch_ice_fractions",

@@ -73,6 +73,53 @@ void register_electrolytes(py::module_& m) {
       },
       py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
       "(temperature K, found, phase, formula, source key, reason) of the eutectic.");
+  m.def(
+      "salt_equilibrium",
+      [](const solution& s, double T, const std::string& model) {
+        eq::salt_equilibrium_state r;
+        {
+          py::gil_scoped_release release;
+          r = eq::salt_equilibrium(s, T, colligate::models::model_choice(model));
+        }
+        py::dict d;
+        d["temperature_K"] = r.temperature;
+        d["supersaturated"] = r.supersaturated;
+        d["phase"] = r.phase ? py::object(py::str(r.phase->name)) : py::object(py::none());
+        d["formula"] = r.phase ? py::object(py::str(r.phase->formula)) : py::object(py::none());
+        d["phase_source"] = r.phase ? py::object(py::str(r.phase->source)) : py::object(py::none());
+        d["saturation_index"] = r.saturation_index;
+        d["precipitated_mol"] = r.precipitated;
+        d["liquid_water_kg"] = r.liquid_water;
+        d["water_activity"] = r.water_activity;
+        d["metastable_water_activity"] = r.metastable_water_activity;
+        d["also_supersaturated"] =
+            r.also_supersaturated ? py::object(py::str(r.also_supersaturated->name)) : py::object(py::none());
+        d["reason"] = r.check.reason();
+        return d;
+      },
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      "The state of ``solution`` at ``temperature`` (K) with salts allowed to crystallise "
+      "(no ice), as a dict (equilibria/salt_equilibrium.hpp).");
+  m.def(
+      "salt_crystallisation_temperature",
+      [](const solution& s, const std::string& model) {
+        eq::salt_crystallisation r;
+        {
+          py::gil_scoped_release release;
+          r = eq::salt_crystallisation_temperature(s, colligate::models::model_choice(model));
+        }
+        py::dict d;
+        d["temperature_K"] = r.temperature;
+        d["phase"] = r.phase ? py::object(py::str(r.phase->name)) : py::object(py::none());
+        d["formula"] = r.phase ? py::object(py::str(r.phase->formula)) : py::object(py::none());
+        d["phase_source"] = r.phase ? py::object(py::str(r.phase->source)) : py::object(py::none());
+        d["above_data"] = r.above_data;
+        d["reason"] = r.reason;
+        return d;
+      },
+      py::arg("solution"), py::arg("model") = "auto",
+      "Temperature (K) at which ``solution`` first crystallises a salt on cooling, without "
+      "ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).");
 }
 
 }  // namespace colligate_bindings

@@ -50,12 +50,25 @@ void register_equilibria(py::module_& m) {
 
   m.def(
       "water_activity",
-      [](const solution& s, double T, const std::string& model, const std::string& policy) {
-        return as_tuple(colligate::models::water_activity(
-            s, T, colligate::models::model_choice(model), colligate::range_policy_from_string(policy)));
+      [](const solution& s, double T, const std::string& model, const std::string& policy,
+         const std::string& saturation) {
+        const auto choice = colligate::models::model_choice(model);
+        const auto p = colligate::range_policy_from_string(policy);
+        if (!eq::salts_crystallise_from_string(saturation)) {
+          const auto v = colligate::models::water_activity(s, T, choice, p);
+          return std::make_tuple(v.value, v.check.reason(), std::string());
+        }
+        colligate::models::check_temperature_argument("water_activity", T);
+        colligate::models::ln_water_activity_evaluator ln_aw(choice, s);
+        eq::salt_equilibrium_state st;
+        const auto v = eq::water_activity_at_equilibrium(ln_aw, s, T, p, &st);
+        return std::make_tuple(v.value, v.check.reason(), eq::supersaturation_notice(st));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate");
+      py::arg("range_policy") = "extrapolate", py::arg("saturation") = "equilibrium",
+      "(a_w, reason, supersaturation notice). saturation='equilibrium' (default): a solution "
+      "above a salt's solubility gives the a_w of its equilibrium state, salt crystallised; "
+      "'metastable': the solution as one liquid.");
   m.def(
       "osmotic_coefficient",
       [](const solution& s, double T, const std::string& model, const std::string& policy) {

@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'model_summaries', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_of_ice']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'salt_crystallisation_temperature', 'salt_equilibrium', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_of_ice']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -567,7 +567,7 @@ def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def boiling_point(solution: Solution, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
     """
@@ -726,10 +726,6 @@ def max_msnf_for_lactose_in_solution(water_fraction: typing.SupportsFloat | typi
     """
 def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
-def model_summaries() -> list:
-    """
-    The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities.
-    """
 def models() -> list[str]:
     """
     Ids of the activity models.
@@ -774,6 +770,14 @@ def row_status_reasons() -> list[str]:
     """
     Readable reason for each row status code (index = code).
     """
+def salt_crystallisation_temperature(solution: Solution, model: str = 'auto') -> dict:
+    """
+    Temperature (K) at which ``solution`` first crystallises a salt on cooling, without ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).
+    """
+def salt_equilibrium(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto') -> dict:
+    """
+    The state of ``solution`` at ``temperature`` (K) with salts allowed to crystallise (no ice), as a dict (equilibria/salt_equilibrium.hpp).
+    """
 def saturation_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Saturation vapour pressure of water, Pa, at T (K); Wagner & Pruss (1993), IAPWS.
@@ -810,8 +814,10 @@ def unfrozen_specific_heat(composition: typing.Any, temperature: typing.Supports
     """
     Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).
     """
-def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
-    ...
+def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[float, str, str]:
+    """
+    (a_w, reason, supersaturation notice). saturation='equilibrium' (default): a solution above a salt's solubility gives the a_w of its equilibrium state, salt crystallised; 'metastable': the solution as one liquid.
+    """
 def water_activity_of_ice(temperature: typing.SupportsFloat | typing.SupportsIndex, range_policy: str = 'extrapolate') -> tuple[float, str]:
     """
     Water activity of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere, and the reason when outside 233.15-273.15 K (value, reason). No value below 215 K or above the ice point (NaN, or OutOfValidityRangeError with 'raise').

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import warnings
 
-__all__ = ["CAUTIONS", "RANGE_POLICIES", "OutOfValidityRangeWarning"]
+__all__ = ["CAUTIONS", "RANGE_POLICIES", "OutOfValidityRangeWarning", "SupersaturatedWarning"]
 
 #: Cautions shown with every report and by the command line.
 CAUTIONS = (
@@ -25,6 +25,17 @@ RANGE_POLICIES = ("extrapolate", "nan", "raise")
 
 class OutOfValidityRangeWarning(UserWarning):
     """A result was computed outside the validated range of its model (see the message)."""
+
+
+class SupersaturatedWarning(UserWarning):
+    """A solution lies above a salt's solubility; the message says which salt crystallises
+    and which value was computed (the equilibrium state unless the metastable one was asked)."""
+
+
+def _warn_supersaturated(notice: str) -> None:
+    """Issue a supersaturation notice from the core as a :class:`SupersaturatedWarning`."""
+    if notice:
+        warnings.warn(notice, SupersaturatedWarning, stacklevel=3)
 
 
 def _warn(reason: str, count: int = 1) -> None:

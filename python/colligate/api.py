@@ -24,6 +24,7 @@ from ._core import (  # noqa: F401
     Validity,
 )
 from ._warnings import CAUTIONS, RANGE_POLICIES, OutOfValidityRangeWarning, _warn  # noqa: F401
+from ._warnings import SupersaturatedWarning, _warn_supersaturated  # noqa: F401
 from .batch import SolutionBatch, batch_freezing_point, batch_ice_fraction, batch_water_activity
 
 __all__ = [
@@ -54,6 +55,9 @@ __all__ = [
     "eutectic",
     "eutectic_of",
     "mean_activity_coefficient",
+    "salt_equilibrium",
+    "salt_crystallisation_temperature",
+    "SupersaturatedWarning",
     "pitzer_parameter_sets",
     "sweetness_table",
     "lactose_solubility",
@@ -126,8 +130,15 @@ def water_activity(
     model: str = "auto",
     *,
     range_policy: str = "extrapolate",
+    saturation: str = "equilibrium",
 ) -> float:
     """Water activity of a solution (no ice) at temperature ``T``.
+
+    A solution above a salt's solubility at ``T`` is supersaturated: by default
+    (``saturation="equilibrium"``) the salt crystallises and the value is the a_w of the
+    saturated liquid left (a :class:`SupersaturatedWarning` says so and names the salt);
+    ``saturation="metastable"`` gives the solution taken as one liquid. Brine a_w values
+    are estimates: see :data:`CAUTIONS`.
 
     Parameters
     ----------
@@ -146,10 +157,40 @@ def water_activity(
         Water activity, dimensionless, in (0, 1].
     """
     if isinstance(solution, SolutionBatch):
-        return batch_water_activity(solution, T, model, range_policy=range_policy)
-    value, reason = _core.water_activity(_as_solution(solution), float(T), model, range_policy)
+        return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation)
+    value, reason, notice = _core.water_activity(_as_solution(solution), float(T), model, range_policy,
+                                                 saturation)
+    _warn_supersaturated(notice)
     _warn(reason)
     return value
+
+
+def salt_equilibrium(solution: Solution, T: float = 298.15, model: str = "auto") -> dict:
+    """The state of a solution at ``T`` (K) with salts allowed to crystallise (no ice).
+
+    Returns a dict: ``supersaturated`` (bool), ``phase``, ``formula`` and ``phase_source``
+    of the salt that crystallises (the most supersaturated; None without salt phases),
+    ``saturation_index`` (ln IAP/K of the solution as given), ``precipitated_mol``,
+    ``liquid_water_kg``, ``water_activity`` (of the equilibrium state),
+    ``metastable_water_activity``, ``also_supersaturated`` (a second salt not solved, or
+    None) and ``reason``. Solubility products hold from 219.15 to 298.15 K. Estimates:
+    verify brine strength by measurement (see :data:`CAUTIONS`).
+    """
+    out = dict(_core.salt_equilibrium(_as_solution(solution), float(T), model))
+    _warn(out["reason"])
+    return out
+
+
+def salt_crystallisation_temperature(solution: Solution, model: str = "auto") -> dict:
+    """Temperature at which a brine first crystallises salt on cooling (no ice yet).
+
+    For a brine richer than its eutectic composition (25 wt% NaCl, say) this, not the
+    metastable ice temperature, is where the first solid forms. Returns a dict:
+    ``temperature_K`` (NaN when none between 219.15 and 298.15 K), ``phase``, ``formula``,
+    ``phase_source``, ``above_data`` (already supersaturated at 298.15 K) and ``reason``.
+    Estimates: verify by measurement before relying on a brine (see :data:`CAUTIONS`).
+    """
+    return dict(_core.salt_crystallisation_temperature(_as_solution(solution), model))
 
 
 def osmotic_coefficient(

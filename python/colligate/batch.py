@@ -178,9 +178,16 @@ def batch_freezing_point(batch: SolutionBatch, model: str = "auto", *, threads: 
 
 
 def batch_water_activity(batch: SolutionBatch, T: float = 298.15, model: str = "auto", *,
-                         threads: int = 0, range_policy: str = "extrapolate", return_status: bool = False):
-    """Water activity of every row at temperature ``T`` (K)."""
-    values, status = _core.batch_water_activities(batch._core, float(T), model, threads, range_policy)
+                         threads: int = 0, range_policy: str = "extrapolate", return_status: bool = False,
+                         saturation: str = "equilibrium"):
+    """Water activity of every row at temperature ``T`` (K).
+
+    ``saturation`` as in :func:`colligate.water_activity`: a row above a salt's solubility
+    gives the a_w of its equilibrium state (salt crystallised) unless "metastable" is asked
+    (no warning per row here; :func:`colligate.salt_equilibrium` says which salt).
+    """
+    values, status = _core.batch_water_activities(batch._core, float(T), model, threads, range_policy,
+                                                  saturation)
     _report(status, "water_activity", batch)
     return _result(values, status, batch, "water_activity", return_status)
 

@@ -1,6 +1,8 @@
 """Electrolytes with the Pitzer model: seawater against TEOS-10 (gsw), eutectics, warnings."""
 from __future__ import annotations
 
+import warnings
+
 import numpy as np
 import pytest
 
@@ -40,8 +42,10 @@ def test_pitzer_bad_input_warns_and_raises():
     with pytest.warns(cg.OutOfValidityRangeWarning, match="219.15-298.15 K"):
         cg.water_activity(brine, 310.15, model="pitzer")
     with pytest.raises(cg.OutOfValidityRangeError):
+        # Above halite's solubility: the metastable liquid is outside the set's molality range
+        # (the default equilibrium state is the saturated brine, inside it).
         cg.water_activity(cg.Solution.from_molalities({"NaCl": 7.0}), 298.15, model="pitzer",
-                          range_policy="raise")
+                          range_policy="raise", saturation="metastable")
     with pytest.warns(cg.OutOfValidityRangeWarning, match="293.15-303.15 K"):
         cg.mean_activity_coefficient(brine, "NaCl", 263.15, parameter_set="harvie_1984")
     assert "Ross (1975)" in cg.describe_model(
@@ -99,3 +103,58 @@ def test_icefit_set_keeps_the_published_25c_parameters(salt):
     cold_fit = cg._core.pitzer_osmotic_coefficient(s, 263.15, "spencer_1990_icefit")[0]
     cold_pub = cg._core.pitzer_osmotic_coefficient(s, 263.15, "spencer_1990")[0]
     assert abs(cold_fit - cold_pub) > 1e-4
+
+
+# --- saturated and supersaturated brines (issue 12) ------------------------------------------
+
+def _greenspan_25c():
+    """Greenspan (1977) a_w of saturated salt solutions at 25 C (tests/reference CSV)."""
+    import pandas as pd
+    from pathlib import Path
+
+    path = Path(__file__).resolve().parents[1] / "reference" / "greenspan_saturated_salts_25c.csv"
+    return pd.read_csv(path).set_index("salt")
+
+
+def test_supersaturated_brine_gives_saturated_water_activity_by_default():
+    # A 30 % NaCl solution (7.3 mol/kg) is above halite's solubility at 25 C: by default the
+    # library says so and gives the a_w of the saturated brine, Greenspan (1977) 0.7530
+    # within 0.003 (the limit of issue 12, about Greenspan's stated 0.0012).
+    ref = _greenspan_25c().loc["NaCl"]
+    s = cg.Solution.from_mass_fractions({"NaCl": 0.30})
+    with pytest.warns(cg.SupersaturatedWarning, match="halite"):
+        aw = cg.water_activity(s, 298.15)
+    assert aw == pytest.approx(ref.water_activity, abs=0.003)
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="molality"):
+        metastable = cg.water_activity(s, 298.15, saturation="metastable")
+    assert metastable < aw - 0.02
+    state = cg.salt_equilibrium(s, 298.15)
+    assert state["supersaturated"] and state["phase"] == "halite" and state["formula"] == "NaCl"
+    assert state["water_activity"] == aw
+    assert state["precipitated_mol"] > 0.0
+
+
+def test_batch_water_activity_equals_scalar_above_saturation():
+    rows = {"NaCl": [0.05, 0.26, 0.30, 0.35], "KCl": [0.0, 0.0, 0.02, 0.0]}
+    batch = cg.SolutionBatch.from_mass_fractions(rows)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        for saturation in ("equilibrium", "metastable"):
+            aw = cg.batch_water_activity(batch, 298.15, saturation=saturation)
+            for i in range(4):
+                s = cg.Solution.from_mass_fractions({"NaCl": rows["NaCl"][i], "KCl": rows["KCl"][i]})
+                assert aw[i] == cg.water_activity(s, 298.15, saturation=saturation)
+
+
+def test_saturation_option_is_checked():
+    with pytest.raises(cg.InvalidInputError, match="saturation = 'dry'.*'equilibrium' and 'metastable'"):
+        cg.water_activity(cg.Solution.from_molalities({"NaCl": 1.0}), 298.15, saturation="dry")
+
+
+def test_brine_above_eutectic_composition_names_its_salt_crystallisation_temperature():
+    # 25 wt% NaCl is richer than the eutectic (23.3 wt%, Archer 1992): the first solid on
+    # cooling is hydrohalite, warmer than the eutectic (-21.2 C), below 0 C.
+    x = cg.salt_crystallisation_temperature(cg.Solution.from_mass_fractions({"NaCl": 0.25}))
+    assert x["phase"] == "hydrohalite" and x["formula"] == "NaCl.2H2O"
+    assert 273.15 - 21.2 + 2.0 < x["temperature_K"] < 273.15
+    assert not x["above_data"] and x["reason"] == ""

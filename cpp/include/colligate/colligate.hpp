@@ -23,6 +23,7 @@
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/equilibria/ice_fraction_temperature.hpp"
 #include "colligate/equilibria/leighton_method.hpp"
+#include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/ideal.hpp"

@@ -1,6 +1,7 @@
 // Tests of the Pitzer model: published values, identities and validity.
 #include <array>
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
 #include <vector>
 
@@ -592,4 +593,40 @@ TEST_CASE("pitzer_system: ion slots, ln gamma and the one osmotic routine", "[mo
   CHECK(std::isnan(r.ln_gamma[data::pitzer_ion_index("Na+")]));
   CHECK(std::isnan(r.ln_gamma[data::pitzer_ion_index("SO4-2")]));
   CHECK(std::isfinite(r.ln_gamma[data::pitzer_ion_index("Mg+2")]));
+}
+
+TEST_CASE("bad input: salts without parameters at T, missing mixing parameters listed",
+          "[models][pitzer][validity]") {
+  // Issue 12: a salt with no parameters at the temperature asked is named with the set and
+  // its range; a missing interaction parameter is not treated as zero without saying so.
+  const auto brine = solution::from_molalities({{"NaCl", 1.0}, {"KCl", 0.5}});
+  const auto& harvie = data::find_pitzer_parameter_set("harvie_1984");
+  const auto hot = pitzer::check(brine, 1.0, 263.15, harvie);
+  CHECK(hot.code == validity_code::temperature_out_of_range);
+  const std::string why = hot.reason();
+  CHECK_THAT(why, Catch::Matchers::Contains("harvie_1984") && Catch::Matchers::Contains("293.15-303.15 K") &&
+                      Catch::Matchers::Contains("sodium_chloride") &&
+                      Catch::Matchers::Contains("potassium_chloride"));
+  // Every built-in set with all six ions lists every theta and psi of them.
+  const auto sea = solution::seawater(35.0);
+  for (const char* id : {"spencer_1990_icefit", "spencer_1990", "harvie_1984"})
+    CHECK(pitzer::missing_mixing_parameters(sea, data::find_pitzer_parameter_set(id)).empty());
+  // A set without theta(Na+, K+) and psi(Na+, K+, Cl-): both named, code missing_constants.
+  auto partial = harvie;
+  partial.id = "partial";
+  partial.thetas.erase(std::remove_if(partial.thetas.begin(), partial.thetas.end(),
+                                      [](const data::pitzer_theta& t) { return t.ion1 == "Na+" && t.ion2 == "K+"; }),
+                       partial.thetas.end());
+  partial.psis.erase(std::remove_if(partial.psis.begin(), partial.psis.end(),
+                                    [](const data::pitzer_psi& p) {
+                                      return p.ion1 == "Na+" && p.ion2 == "K+" && p.ion3 == "Cl-";
+                                    }),
+                     partial.psis.end());
+  const auto v = pitzer::check(brine, 1.0, 298.15, partial);
+  CHECK(v.code == validity_code::missing_constants);
+  CHECK_THAT(v.reason(), Catch::Matchers::Contains("theta(Na+, K+)") &&
+                             Catch::Matchers::Contains("psi(Na+, K+, Cl-)") &&
+                             Catch::Matchers::Contains("treated as zero"));
+  // One salt alone needs no mixing parameters.
+  CHECK(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 298.15, partial).in_range());
 }

@@ -39,6 +39,7 @@
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/models/water_activity.hpp"
 
 namespace colligate::batch {
@@ -51,6 +52,10 @@ struct options {
   /// Called from the calling thread between pieces of work (about every 50 ms); true
   /// stops the batch (batch::interrupted). Empty: never interrupted.
   std::function<bool()> interrupted;
+  /// water_activities: a row above a salt's solubility gives the a_w of its equilibrium
+  /// state, salt crystallised (equilibria/salt_equilibrium.hpp), as the scalar default;
+  /// false gives the metastable value of the row as one liquid.
+  bool salts_crystallise = true;
 };
 
 /// A batch stopped by options::interrupted; its outputs are incomplete.
@@ -281,12 +286,24 @@ inline void water_activities(const solution_batch& b, double temperature, const 
     double v = detail::nan;
     if (st == row_status::ok) {
       const solution& s = ws.load(b, i);
-      const double aw = std::exp(ws.evaluator(m)(s.water_mass(), temperature));
-      if (!(aw > 0.0 && aw <= 1.0))
-        st = row_status::no_physical_value;
-      else
-        v = detail::policy_value(aw, ws.evaluator(m).check(s.water_mass(), temperature).in_range(),
-                                 opt.policy, st);
+      if (opt.salts_crystallise) {
+        // The scalar equilibria::water_activity_at_equilibrium on the same evaluator.
+        const auto r = equilibria::water_activity_at_equilibrium(ws.evaluator(m), s, temperature,
+                                                                 range_policy::extrapolate);
+        if (r.check.code == validity_code::outside_physical_bounds)
+          st = row_status::no_physical_value;
+        else if (r.check.code == validity_code::not_converged)
+          st = row_status::not_converged;
+        else
+          v = detail::policy_value(r.value, r.check.in_range(), opt.policy, st);
+      } else {
+        const double aw = std::exp(ws.evaluator(m)(s.water_mass(), temperature));
+        if (!(aw > 0.0 && aw <= 1.0))
+          st = row_status::no_physical_value;
+        else
+          v = detail::policy_value(aw, ws.evaluator(m).check(s.water_mass(), temperature).in_range(),
+                                   opt.policy, st);
+      }
     }
     out[i] = v;
     status[i] = static_cast<std::uint8_t>(st);

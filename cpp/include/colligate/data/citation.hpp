@@ -325,6 +325,18 @@ inline const std::vector<citation>& citations() {
       {"singh_heldman_2009", "Singh, R. P.; Heldman, D. R.", 2009, "Introduction to Food Engineering",
        "4th ed., Academic Press", "ISBN 978-0-12-370900-4",
        "ch. 7, worked example on Plank's equation (beef steak; from memory)"},
+      {"crc_mean_activity", "Rumble, J. R. (ed.)", 2021,
+       "Mean activity coefficients of electrolytes as a function of concentration",
+       "CRC Handbook of Chemistry and Physics, CRC Press (edition of the copy not stated)", "",
+       "25 C table built on Hamer & Wu (1972), Goldberg & Nuttall (1978), Goldberg (1981) "
+       "(the compilations it credits, from memory); read in the pyEQL copy "
+       "(tests/test_benchmark/mean_activity_coefficient.json, commit a6f8678)"},
+      {"greenspan_1977_fit", "Greenspan, L.", 1977,
+       "Humidity fixed points of binary saturated aqueous solutions",
+       "J. Res. Natl. Bur. Stand. 81A, 89-96", "doi:10.6028/jres.081A.011",
+       "polynomial fits of the equilibrium relative humidity over saturated NaCl, KCl and "
+       "MgCl2 solutions (table number not read), coefficients read in the public copy matusm/HumiFixPoints "
+       "(SaturatedSolution.cs, after OIML R 121)"},
       {"colligate_fit_user", "the user of colligate", 0,
        "Constants fitted by colligate.fit to the user's own data",
        "the provenance fields of the fitted-solute file", "", "see the record's note"},

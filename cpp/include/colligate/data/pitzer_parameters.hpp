@@ -385,6 +385,10 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
           {"Cl-", "SO4-2", "Na+", tf(0.0014), "harvie_1984"},
           {"Cl-", "SO4-2", "Ca+2", tf(-0.018), "harvie_1984"},
           {"Cl-", "SO4-2", "Mg+2", tf(-0.004), "harvie_1984"},
+          // Zero in Harvie et al. (1984) as read in pytzer's copy (psi_Ca_K_SO4_HMW84,
+          // psi_K_Cl_SO4_HMW84); listed so that no triplet of the six ions is missing.
+          {"K+", "Ca+2", "SO4-2", tf(0.0), "harvie_1984"},
+          {"Cl-", "SO4-2", "K+", tf(0.0), "harvie_1984"},
       },
       // Harvie et al. (1984) used A_phi = 0.392 at 25 C (from memory); the Clegg et al.
       // (1994) series gives 0.3915 there and is kept for this 25 C set.

@@ -150,12 +150,18 @@ struct pitzer {
     // The message prefix is built only when a reason is reported.
     const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
     if (temperature < set.min_temperature - 1e-9 || temperature > set.max_temperature + 1e-9) {
+      // Name the salts that have no parameters at this temperature (issue 12).
+      std::string salts;
+      for (const auto& rec : s.species())
+        if (rec.kind == data::solute_class::electrolyte)
+          salts += (salts.empty() ? "'" : ", '") + rec.id + "'";
       return outside_range(where(), "temperature", temperature, set.min_temperature,
                            set.max_temperature, " K",
-                           "where its parameters are valid; salts have no parameters at this "
-                           "temperature",
+                           "where its parameters are valid; " +
+                               (salts.empty() ? std::string("salts have") : salts + " have") +
+                               " no parameters at this temperature in this set (they are "
+                               "extrapolated)",
                            set.range_source);
-      return v;
     }
     const auto aphi = detail::aphi_validity(set.aphi);
     if (temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9) {
@@ -193,6 +199,9 @@ struct pitzer {
       if (auto why = detail::record_temperature_validity(rec, temperature); !why.in_range())
         return why;
     }
+    if (auto missing = missing_mixing_parameters(s, set); !missing.empty())
+      return flagged(validity_code::missing_constants, where(), "mixing parameters",
+                     "not in this set, treated as zero: " + missing);
     if (non_electrolytes > max_non_electrolyte_molality)
       v = beyond_limit(where(), "non-electrolyte molality (mol/kg)", non_electrolytes,
                        max_non_electrolyte_molality, " mol/kg",
@@ -203,6 +212,46 @@ struct pitzer {
 
   static validity check(const solution& s, double water_kg, double temperature) {
     return check(s, water_kg, temperature, default_parameters());
+  }
+
+  /// The mixing parameters (theta of two like-charged ions, psi of two like-charged ions
+  /// and one of the other sign) that the ions present in `s` need and `set` does not list,
+  /// as "theta(Na+, K+), psi(Na+, K+, Cl-)"; empty when none is missing. The sums treat a
+  /// missing one as zero, so check() reports them (issue 12).
+  static std::string missing_mixing_parameters(const solution& s, const data::pitzer_parameter_set& set) {
+    std::array<bool, data::pitzer_ion_count> present{};
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      if (rec.kind != data::solute_class::electrolyte || !(s.moles()[i] > 0.0)) continue;
+      for (const auto& ion : rec.ions) {
+        const auto g = data::pitzer_ion_index(ion.ion);
+        if (g < data::pitzer_ion_count) present[g] = true;
+      }
+    }
+    auto same = [](const std::string& a, const std::string& b, const char* x, const char* y) {
+      return (a == x && b == y) || (a == y && b == x);
+    };
+    std::string out;
+    const auto& ions = data::pitzer_ions;
+    for (std::size_t i = 0; i < ions.size(); ++i) {
+      for (std::size_t j = i + 1; j < ions.size(); ++j) {
+        if (!present[i] || !present[j] || (ions[i].charge > 0) != (ions[j].charge > 0)) continue;
+        bool theta = false;
+        for (const auto& t : set.thetas) theta = theta || same(t.ion1, t.ion2, ions[i].name, ions[j].name);
+        if (!theta)
+          out += (out.empty() ? "" : ", ") + std::string("theta(") + ions[i].name + ", " + ions[j].name + ")";
+        for (std::size_t k = 0; k < ions.size(); ++k) {
+          if (!present[k] || (ions[k].charge > 0) == (ions[i].charge > 0)) continue;
+          bool psi = false;
+          for (const auto& p : set.psis)
+            psi = psi || (same(p.ion1, p.ion2, ions[i].name, ions[j].name) && p.ion3 == ions[k].name);
+          if (!psi)
+            out += (out.empty() ? "" : ", ") + std::string("psi(") + ions[i].name + ", " +
+                   ions[j].name + ", " + ions[k].name + ")";
+        }
+      }
+    }
+    return out;
   }
 
  private:
