@@ -85,6 +85,11 @@ from .api import (  # noqa: E402,F401
 from .ingredients import Ingredient, ingredients  # noqa: E402
 from .library import Library, LibraryError  # noqa: E402
 from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
+from . import storage  # noqa: E402,F401  (colligate.storage: glass transition, state diagram)
+from .storage import StateDiagram, glass_transition, glass_transition_table, state_diagram  # noqa: E402
+from .storage import solubility, crystallisation_check  # noqa: E402
+from . import sorption  # noqa: E402,F401  (colligate.sorption: isotherms, mixed foods)
+from .sorption import fit_gab, fit_bet, fit_oswin, moisture_equilibrium  # noqa: E402
 from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
 from .freezing_time import (  # noqa: E402,F401
     FREEZING_TIME_CAUTION,
@@ -126,4 +131,7 @@ __all__ = [
     "finite_cylinder_shape_factor", "freezing_inputs", "pham_estimate", "pham_time",
     "pham_times", "plank_time", "rod_shape_factor", "saturation_pressure",
     "saturation_temperature", "simulate_freezing", "thermal_properties", "__version__",
+    "storage", "StateDiagram", "glass_transition", "glass_transition_table", "state_diagram",
+    "solubility", "crystallisation_check", "sorption", "fit_gab", "fit_bet", "fit_oswin",
+    "moisture_equilibrium",
 ]

@@ -135,6 +135,7 @@ PERCENT_TOLERANCE = 0.01
 DEMO_SCENARIOS: dict[str, str] = {
     "ice_cream": "demo_strawberry_ice_cream.toml",
     "sorbet": "demo_sorbet.toml",
+    "fig_gelato": "demo_fig_gelato.toml",
 }
 
 #: The scenario ``colligate demo`` runs without ``--scenario``.

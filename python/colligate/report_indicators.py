@@ -1,8 +1,10 @@
 """Reports, second layer: figures derived from the core's numbers, and the report dict.
 
 Total solids, sweetness as sucrose equivalent, freezing power relative to sucrose, the
-concentrations of the unfrozen phase (sugars, salts, lactose), whether a dairy mix keeps its
-lactose in solution by the trade's rule (Hyde & Rothwell 1973) and
+concentrations of the unfrozen phase (sugars, salts, lactose), which sugars are
+supersaturated in the unfrozen phase above its glass transition Tg' (crystallisation,
+lactose sandiness; from the core), the trade's MSNF rule (Hyde & Rothwell 1973) as a
+cross-check, and
 the cautions that depend on the composition. :func:`build_report` puts them together with
 the numbers of :mod:`colligate.report_compute` into one JSON-ready dict.
 """
@@ -35,13 +37,14 @@ __all__ = [
     "build_report",
     "group_warnings",
     "lactose_in_solution",
+    "sugar_crystallisation",
     "extra_cautions",
     "freezing_power",
     "indicators",
 ]
 
 #: Identifier and version of the dict layout produced by :func:`build_report`.
-REPORT_FORMAT = "colligate-report/2"
+REPORT_FORMAT = "colligate-report/3"
 
 
 
@@ -71,6 +74,7 @@ def indicators(recipe: Recipe, path: IcePath, temps: Mapping[str, float]) -> dic
         },
         "unfrozen_phase": [],
         "lactose_in_solution": lactose_in_solution(recipe),
+        "sugar_crystallisation": sugar_crystallisation(recipe, temps),
     }
     t_eut = report_eutectic_K(path)
     for point in ("serving", "scooping", "holding", "storage", "frozen_storage", "lowest_use"):
@@ -119,6 +123,50 @@ def lactose_in_solution(recipe: Recipe) -> dict[str, Any] | None:
         "at_risk": bool(msnf > limit),
         "rule": LACTOSE_RULE,
         "source": "hyde_rothwell_1973",
+    }
+
+
+#: What the crystallisation indicator means, shown with it.
+CRYSTALLISATION_BASIS = (
+    "a sugar can crystallise where its concentration in the unfrozen water exceeds its solubility "
+    "in pure water (ratio > 1) and the unfrozen phase is above its glass transition Tg'; a "
+    "supersaturated phase may still take months to nucleate; solubilities below 0 degC are "
+    "extrapolated from tables starting at 0 degC, and Tg' lies where the ice curve is extrapolated")
+
+
+def sugar_crystallisation(recipe: Recipe, temps: Mapping[str, float]) -> dict[str, Any] | None:
+    """Supersaturation of sucrose, lactose and glucose in the unfrozen phase at each named
+    temperature, Tg' and the ranges where each can crystallise (from the core,
+    ``equilibria/sugar_crystallisation.hpp``). None without any of those sugars."""
+    from . import storage
+
+    solution = recipe.solution()
+    sugars = [k for k in ("sucrose", "lactose", "glucose") if solution.solutes.get(k, 0.0) > 0.0]
+    if not sugars:
+        return None
+    with warnings.catch_warnings():
+        # Below 0 degC every solubility is extrapolated (the tables start at 0 degC) and the ice
+        # curve near Tg' may be beyond its model's range: said once in the basis text instead.
+        warnings.simplefilter("ignore", api.OutOfValidityRangeWarning)
+        cc = storage.crystallisation_check(recipe, dict(temps))
+    per: dict[str, Any] = {}
+    for sid in sugars:
+        rows = cc.states[cc.states["solute"] == sid]
+        per[sid] = {
+            "ranges_C": [[celsius_from_kelvin(lo), celsius_from_kelvin(hi)] for lo, hi in cc.ranges.get(sid, [])],
+            "at": [{"name": str(r["name"]), "temperature_C": celsius_from_kelvin(float(r["temperature"])),
+                    "supersaturation_ratio": (float(r["ratio"]) if r["ratio"] == r["ratio"] else None),
+                    "glassy": bool(r["glassy"]),
+                    "crystallisation_possible": bool(r["crystallisation_possible"])}
+                   for _, r in rows.iterrows()],
+        }
+    tgp = cc.tg_prime
+    return {
+        "tg_prime_C": celsius_from_kelvin(tgp) if tgp == tgp else None,
+        "sugars": per,
+        "basis": CRYSTALLISATION_BASIS,
+        "source_keys": sorted({c["source"] for c in storage.sugar_solubility_curves().to_dict("records")}
+                              | {"roos_1993"}),
     }
 
 
@@ -201,7 +249,7 @@ def build_report(
         ``..._of_aqueous_phase`` (the water and what is dissolved in it),
         ``..._of_unfrozen_liquid``, ``..._of_water``); the layout is described by the JSON
         schema :func:`colligate.report_schema.report_schema` (``report_format``
-        "colligate-report/2"). ``warnings`` lists each distinct warning once (``message``,
+        "colligate-report/3"). ``warnings`` lists each distinct warning once (``message``,
         ``category``, ``occurrences``); ``cautions`` comes last. A recipe adds
         ``batch_mass_kg``, ``ingredients``, ``composition_summary``, ``indicators`` and
         ``heat_load``.

@@ -268,12 +268,23 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
             if row["lactose_g_per_100g_unfrozen_water"] > 0:
                 lines.append(f"           lactose {row['lactose_g_per_100g_unfrozen_water']:.1f} g per 100 g "
                              "unfrozen water")
+        cry = ind.get("sugar_crystallisation")
+        if cry:
+            tgp = cry["tg_prime_C"]
+            lines.extend(_wrap("glass transition of the maximally freeze-concentrated phase Tg' "
+                               + (f"{tgp:.1f} °C" if tgp is not None else "unknown (no glass data)")))
+            for sid, row in cry["sugars"].items():
+                spots = [a for a in row["at"] if a["crystallisation_possible"]]
+                where = ", ".join(f"{a['name']} ({a['supersaturation_ratio']:.1f} x its solubility)" for a in spots)
+                verdict = (f"may crystallise at {where}" + (" (sandiness)" if sid == "lactose" else "")
+                           if spots else "not supersaturated above Tg' at the named temperatures")
+                lines.extend(_wrap(f"{sid}: {verdict}"))
+            lines.extend(_wrap(f"({cry['basis']})"))
         lac = ind.get("lactose_in_solution")
         if lac:
-            verdict = ("above it: lactose may crystallise in storage (sandiness)" if lac["at_risk"]
-                       else "within it")
+            verdict = ("above it" if lac["at_risk"] else "within it")
             lines.extend(_wrap(
-                f"lactose: MSNF {lac['msnf_mass_percent_of_batch']:.2f} % of batch against at most "
+                f"trade rule cross-check: MSNF {lac['msnf_mass_percent_of_batch']:.2f} % of batch against at most "
                 f"{lac['max_msnf_mass_percent_of_batch']:.2f} % ({lac['rule']}): {verdict}"))
     if report.get("contributions"):
         lines += _contributions_text(report["contributions"])

@@ -30,6 +30,8 @@ LAYER_ORDER = (
     "batch",
     "api",
     "fit",
+    "storage",
+    "sorption",
     "design",
     "dask",
     "ingredients",
