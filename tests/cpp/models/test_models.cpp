@@ -57,6 +57,24 @@ TEST_CASE("Norrish multi-solute extension reduces to the single-solute form", "[
   CHECK_THAT(ln_aw("norrish", s), WithinRel(expected, 1e-13));
 }
 
+TEST_CASE("prepared Norrish evaluator equals the static sum bit for bit", "[models][norrish]") {
+  // Identity: the evaluator a solver or batch thread prepares (constants copied out of the
+  // records, sqrt(K) taken once) does the same arithmetic as norrish::ln_water_activity on
+  // the solution, so values and slopes agree exactly; lactic acid (K < 0) and ethanol
+  // (volume-fraction terms) take the other branches of the sum.
+  const auto s = solution::from_mass_fractions(
+      {{"sucrose", 0.12}, {"glucose", 0.05}, {"lactic_acid", 0.02}, {"ethanol", 0.04}, {"glycerol", 0.03}});
+  models::ln_water_activity_evaluator ev("norrish", s);
+  for (double W : {s.water_mass(), 0.6 * s.water_mass(), 0.2 * s.water_mass()}) {
+    CHECK(ev(W, 263.15) == models::norrish::ln_water_activity(s, W, 263.15));
+    double l = 0.0, slope = 0.0, l_static = 0.0, slope_static = 0.0;
+    REQUIRE(ev.with_slope(W, 263.15, l, slope));
+    models::norrish::ln_water_activity_with_slope(s, W, 263.15, l_static, slope_static);
+    CHECK(l == l_static);
+    CHECK(slope == slope_static);
+  }
+}
+
 TEST_CASE("water activity lies between 0 and 1 and osmotic coefficient tends to 1", "[models]") {
   for (auto m : {"ideal", "raoult", "norrish"}) {
     const auto s = solution::from_mass_fractions({{"sucrose", 0.3}, {"glucose", 0.1}});

@@ -358,6 +358,31 @@ TEST_CASE("auto picks Pitzer, Norrish or the Ross product rule", "[models][pitze
   CHECK(models::ross::check(dilute, 1.0, T).in_range());
 }
 
+TEST_CASE("ZSR: the water each class needs alone at the mixture's activity adds up to the water",
+          "[models][ross][zsr]") {
+  // Identity (the ZSR rule's definition, Stokes & Robinson 1966): at the a_w the solver
+  // returns, the water that the salt alone and the sugar alone need to reach it, each
+  // found by its own root solve, sum to the mixture's water. Concentrated mixtures, where
+  // the two rules part, and a dilute one.
+  const double T = 271.15;
+  for (const auto& [m_salt, m_sugar] : {std::pair{0.1, 0.1}, std::pair{1.5, 2.0},
+                                        std::pair{3.0, 0.5}, std::pair{0.3, 4.0}}) {
+    const auto mix = solution::from_molalities({{"NaCl", m_salt}, {"sucrose", m_sugar}});
+    models::detail::ross_system sys(mix, models::pitzer::default_parameters());
+    const double* n = mix.moles().data();
+    const double target = models::detail::zsr_ln_water_activity(sys, n, 1.0, T);
+    REQUIRE(target < 0.0);
+    const double W_salt = models::detail::water_for_activity(
+        [&](double W) { return sys.ln_electrolytes(n, W, T); }, target, 1.0);
+    const double W_sugar = models::detail::water_for_activity(
+        [&](double W) { return sys.ln_non_electrolytes(n, W); }, target, 1.0);
+    // tolerance: the nested solves run to 40 bits (about 1e-12 relative), rel 1e-9
+    CHECK_THAT(W_salt + W_sugar, WithinRel(1.0, 1e-9));
+    // The public entry point gives the same value (it prepares its own system).
+    CHECK(models::zsr_ln_water_activity(mix, 1.0, T) == target);
+  }
+}
+
 TEST_CASE("a salt column with zero amount does not trigger the combining-rule flag",
           "[models][ross]") {
   // Identity: with no salt, Ross and ZSR both reduce to the non-electrolyte model.

@@ -81,10 +81,12 @@ class workspace {
   /// ln a_w evaluator for model `m` on this workspace's solution, prepared on first use
   /// (the species list is the same for every row; the evaluator reads each row's amounts).
   models::ln_water_activity_evaluator& evaluator(const models::model_choice& m) {
+    if (evaluator_ && last_requested_ == &m) return *evaluator_;  // the same choice as the last row
     if (!evaluator_ || !(requested_ == m)) {
       evaluator_.emplace(m, s_);
       requested_ = m;
     }
+    last_requested_ = &m;
     return *evaluator_;
   }
   /// The ice curve of the row loaded last (prepared on first use for the species list,
@@ -107,6 +109,7 @@ class workspace {
   const std::atomic<bool>* stop_ = nullptr;
   std::optional<models::ln_water_activity_evaluator> evaluator_;
   models::model_choice requested_ = "auto";
+  const models::model_choice* last_requested_ = nullptr;  ///< the object asked for last (a batch passes one)
   std::optional<equilibria::ice_curve> curve_;
   models::model_choice curve_model_ = "auto";
 };

@@ -66,7 +66,7 @@ inline double ice_imbalance(const models::model_choice& m, const solution& s, do
 /// step leaving it is replaced by bisection, and f at the lowest temperature searched is
 /// evaluated only then (a solution with f <= 0 there does not freeze above it). Stops when
 /// a step is below 1e-9 K (four evaluations for seawater). The validity check (for Ross,
-/// the comparison with the ZSR rule, itself a nested root solve) runs once, at the result,
+/// the comparison with the ZSR rule, itself a 1-D root solve) runs once, at the result,
 /// on the evaluator's prepared system.
 inline freezing_point_result freezing_point(const solution& s, const models::model_choice& m,
                                             double bound_water_kg,

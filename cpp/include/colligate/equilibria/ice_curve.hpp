@@ -194,6 +194,7 @@ class ice_curve {
     solver_stopped_ = false;
     saturated_phase_ = nullptr;
     explored_to_ = -1.0;
+    at_W_temperature_ = std::numeric_limits<double>::quiet_NaN();  // the amounts changed
     end_temperature_ = ions_ ? lowest_salt_temperature : search_min_temperature;
     end_ = ions_ ? curve_end::salt_data_limit : curve_end::search_limit;
     if (ions_) ions_->ion_moles(n0_.data());
@@ -252,7 +253,16 @@ class ice_curve {
     r.precipitated.assign(onsets_.size(), 0.0);
     const double T = temperature;
     if (T < water::ice_model_lowest_temperature) return below_formulation(r);
-    const double ln_aw_solution = (*ln_aw_)(W_, T);
+    // ln a_w at W (with its slope for a model that has one: the ice-only Newton on the water
+    // mass starts there, detail/unfrozen_water_newton.hpp, and reuses it).
+    double ln_aw_solution = 0.0;
+    if (ln_aw_->with_slope(W_, T, at_W_[0], at_W_[1])) {
+      ln_aw_solution = at_W_[0];
+      at_W_temperature_ = T;
+    } else {
+      ln_aw_solution = (*ln_aw_)(W_, T);
+      at_W_temperature_ = std::numeric_limits<double>::quiet_NaN();
+    }
     const double ln_aw_ice = T < constants::ice_point ? ice_line(T) : 0.0;
     if (!(std::exp(ln_aw_solution) > 0.0 && ln_aw_solution <= 0.0))
       return no_physical_value(r, "water activity of the solution", std::exp(ln_aw_solution), T);
@@ -435,6 +445,15 @@ class ice_curve {
     return ice_line_value_;
   }
 
+  /// exp(ln_aw_ice), kept for the last value asked (the same for every row at one T).
+  double ice_line_activity(double ln_aw_ice) {
+    if (!(ln_aw_ice == ice_activity_ln_)) {
+      ice_activity_ = std::exp(ln_aw_ice);
+      ice_activity_ln_ = ln_aw_ice;
+    }
+    return ice_activity_;
+  }
+
   // --- solves ----------------------------------------------------------------------
 
   /// Ice alone (no salt): the 1-D root on ln W_u. `fixed` removals apply (fractional).
@@ -461,7 +480,8 @@ class ice_curve {
   /// Newton on the water mass (detail/unfrozen_water_newton.hpp). False when that path does
   /// not apply or does not converge; the caller then takes the general root finder.
   bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
-    const auto root = detail::unfrozen_water_by_slope(*ln_aw_, W_, T, ln_aw_ice);
+    const auto root = detail::unfrozen_water_by_slope(*ln_aw_, W_, T, ln_aw_ice,
+                                                      at_W_temperature_ == T ? at_W_ : nullptr);
     if (root.status != root_status::converged) return false;
     st.u = root.x;
     st.xi.assign(onsets_.size(), 0.0);
@@ -775,7 +795,7 @@ class ice_curve {
     const double Wu = std::exp(st.u);
     r.iterations = st.iterations;
     r.unfrozen_water = Wu;
-    r.water_activity = std::exp(ln_aw_ice);
+    r.water_activity = ice_line_activity(ln_aw_ice);
     double hydrate_mol = 0.0;
     r.precipitated.assign(onsets_.size(), 0.0);
     for (std::size_t j = 0; j < onsets_.size() && j < st.xi.size(); ++j) {
@@ -875,6 +895,10 @@ class ice_curve {
   std::vector<segment> segments_;
   std::vector<node> nodes_;
   double ice_line_T_ = std::numeric_limits<double>::quiet_NaN(), ice_line_value_ = 0.0;
+  double ice_activity_ln_ = std::numeric_limits<double>::quiet_NaN(), ice_activity_ = 0.0;
+  /// ln a_w and d ln a_w / d W at W_ and at_W_temperature_ (NaN: not known for these amounts).
+  double at_W_[2] = {0.0, 0.0};
+  double at_W_temperature_ = std::numeric_limits<double>::quiet_NaN();
   double explored_to_ = -1.0;  // K; < 0: nothing to explore
   double end_temperature_ = std::numeric_limits<double>::quiet_NaN();
   curve_end end_ = curve_end::search_limit;

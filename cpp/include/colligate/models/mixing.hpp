@@ -22,6 +22,8 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
+#include <limits>
+#include <algorithm>
 #include <memory>
 #include <optional>
 #include <string>
@@ -101,25 +103,55 @@ double water_for_activity(LnAw&& ln_aw, double target, double W_hint) {
 
 /// ZSR ln a_w of a mixture holding both classes, on a prepared system (see
 /// zsr_ln_water_activity below).
+///
+/// The ZSR condition sum_k W_k(a_w) = W is solved as one equation: the water splits into
+/// W_e + W_n = W so that each class alone reaches the same activity,
+///     f(v) = ln a_w,el(W_e) - ln a_w,ne(W_n) = 0,  W_e = W / (1 + e^-v),  W_n = W / (1 + e^v),
+/// and f rises in v (each class's ln a_w rises with its own water). The start is the split
+/// that is exact when both classes are ideal (ln a_w,k proportional to 1/W, so W_k is
+/// proportional to -ln a_w,k(W)); the first step uses the slope of that ideal case,
+/// -(1 - s) ln a_w,el - s ln a_w,ne with s = W_e / W, later steps the secant slope, each
+/// kept inside the bracket of the values seen (bisection otherwise). Stops when a step in v
+/// is below 1e-12 (a few evaluations: the rules differ only through the non-ideality).
 inline double zsr_ln_water_activity(ross_system& sys, const double* moles, double water_kg,
                                     double temperature) {
   const double l_el = sys.ln_electrolytes(moles, water_kg, temperature);
   const double l_ne = sys.ln_non_electrolytes(moles, water_kg);
   if (l_el == 0.0) return l_ne;  // a class present with zero amounts counts as absent
   if (l_ne == 0.0) return l_el;
-  // g(target) = sum_k W_k(target) - W rises with the target activity: at the lower of
-  // the two single-class values one class needs all of W, so g > 0; far below, g < 0.
-  const auto el = [&](double W) { return sys.ln_electrolytes(moles, W, temperature); };
-  const auto ne = [&](double W) { return sys.ln_non_electrolytes(moles, W); };
-  auto g = [&](double target) {
-    return water_for_activity(el, target, water_kg) + water_for_activity(ne, target, water_kg) -
-           water_kg;
+  const double nan = std::numeric_limits<double>::quiet_NaN();
+  if (!(l_el < 0.0) || !(l_ne < 0.0)) return nan;
+  double le = 0.0, ln = 0.0, share = 0.0;  // at the last v: both ln a_w, W_e / W
+  const auto f = [&](double v) {
+    share = 1.0 / (1.0 + std::exp(-v));
+    le = sys.ln_electrolytes(moles, water_kg * share, temperature);
+    ln = sys.ln_non_electrolytes(moles, water_kg / (1.0 + std::exp(v)));
+    return le - ln;
   };
-  double hi = std::min(l_el, l_ne), lo = l_el + l_ne;
-  double ghi = g(hi), glo = g(lo);
-  for (int i = 0; i < 30 && !(glo < 0.0); ++i) glo = g(lo *= 1.5);
-  if (!(glo < 0.0) || !(ghi > 0.0)) return std::nan("");
-  return toms748_root(g, lo, hi, glo, ghi, 40, 100).x;
+  const auto ideal_slope = [&] { return -(1.0 - share) * le - share * ln; };
+  double v = std::log(l_el / l_ne);
+  double fv = f(v);
+  double slope = ideal_slope();
+  double lo = -std::numeric_limits<double>::infinity(), hi = -lo;
+  for (int it = 0; it < 100; ++it) {
+    if (std::isnan(fv)) return nan;
+    if (fv == 0.0) return le;
+    (fv < 0.0 ? lo : hi) = v;
+    double next = v - fv / slope;
+    if (!(next > lo && next < hi)) {  // outside the bracket (or a bad slope): bisect or widen
+      if (std::isinf(lo)) next = hi - 1.0;
+      else if (std::isinf(hi)) next = lo + 1.0;
+      else next = 0.5 * (lo + hi);
+    }
+    if (std::abs(next - v) <= 1e-12 * std::max(1.0, std::abs(v)))
+      return le;  // the step left changes ln a_w by about 1e-13
+    const double f_next = f(next);
+    slope = (f_next - fv) / (next - v);
+    if (!(slope > 0.0) || !std::isfinite(slope)) slope = ideal_slope();
+    v = next;
+    fv = f_next;
+  }
+  return nan;
 }
 
 }  // namespace detail
@@ -150,7 +182,7 @@ struct ross {
   }
 
   /// Validity of each class's model and, for a mixture of both classes, the comparison of
-  /// the Ross and ZSR rules at this state (one ZSR solve, nested root finding: a solver
+  /// the Ross and ZSR rules at this state (one ZSR solve, a 1-D root on the water split: a solver
   /// calls it once, at its final state). `sys` must be prepared for the species of `s`.
   static validity check(const solution& s, double water_kg, double temperature,
                         detail::ross_system& sys) {
@@ -170,12 +202,15 @@ struct ross {
   }
 
  private:
+  /// Each class checked by its model, as on a solution holding that class only
+  /// (solution::only), without copying the solution (one check per batch row).
   static validity check_classes(const solution& s, double water_kg, double temperature) {
     validity v;
     if (s.has_electrolytes())
-      v.merge(pitzer::check(s.only(data::solute_class::electrolyte), water_kg, temperature));
+      v.merge(pitzer::check(s, water_kg, temperature, pitzer::default_parameters(),
+                            pitzer::species_checked::electrolytes_only));
     if (s.has_non_electrolytes())
-      v.merge(norrish::check(s.only(data::solute_class::non_electrolyte), water_kg, temperature));
+      v.merge(norrish::check(s, water_kg, temperature, norrish::species_checked::non_electrolytes_only));
     return v;
   }
 

@@ -42,6 +42,8 @@
 #include <cmath>
 #include <cstddef>
 #include <string>
+#include <vector>
+#include <memory>
 
 #include "colligate/core/constants.hpp"
 #include "colligate/core/solution.hpp"
@@ -66,7 +68,8 @@ struct norrish {
     return sum(s.size(), water_kg, [&](std::size_t i) {
       const auto& rec = species[i];
       return solute_view{static_cast<double>(rec.particles), moles[i], rec.norrish.available,
-                         rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
+                         rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio,
+                         sqrt_of_positive(rec.norrish.k)};
     });
   }
 
@@ -81,7 +84,8 @@ struct norrish {
         [&](std::size_t i) {
           const auto& rec = species[i];
           return solute_view{static_cast<double>(rec.particles), moles[i], rec.norrish.available,
-                             rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
+                             rec.norrish.k, rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio,
+                             sqrt_of_positive(rec.norrish.k)};
         },
         &slope);
   }
@@ -94,12 +98,14 @@ struct norrish {
     bool available;
     double k, k3, k4;
     double volume_ratio;  ///< 1: mole-fraction terms; else effective volume fraction
+    double sqrt_k;        ///< sqrt(k) for k > 0, else 0
   };
 
   static term term_of(const solution& s, std::size_t i) {
     const auto& rec = s.species()[i];
     return {i, static_cast<double>(rec.particles), rec.norrish.available, rec.norrish.k,
-            rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio};
+            rec.norrish.k3, rec.norrish.k4, rec.norrish.volume_ratio,
+            sqrt_of_positive(rec.norrish.k)};
   }
 
   /// ln a_w of the solutes `terms[0..n)` alone with `water_kg` of water, `moles` indexed
@@ -110,11 +116,30 @@ struct norrish {
     return sum(n, water_kg, [&](std::size_t i) {
       const auto& t = terms[i];
       return solute_view{t.particles, moles[t.species], t.available, t.k, t.k3, t.k4,
-                         t.volume_ratio};
+                         t.volume_ratio, t.sqrt_k};
     });
   }
 
-  static validity check(const solution& s, double water_kg, double temperature) {
+  /// The same with d ln a_w / d water_kg (1/kg), as ln_water_activity_with_slope().
+  static void ln_water_activity_with_slope(const term* terms, std::size_t n, const double* moles,
+                                           double water_kg, double& ln_aw, double& slope) {
+    ln_aw = sum(
+        n, water_kg,
+        [&](std::size_t i) {
+          const auto& t = terms[i];
+          return solute_view{t.particles, moles[t.species], t.available, t.k, t.k3, t.k4,
+                             t.volume_ratio, t.sqrt_k};
+        },
+        &slope);
+  }
+
+  /// Which species check() reads: all of them, or the non-electrolytes alone (the check of
+  /// a solution holding only the non-electrolytes of `s`, as the Ross rule needs, without a
+  /// copy: no ionic-strength limit then).
+  enum class species_checked { all, non_electrolytes_only };
+
+  static validity check(const solution& s, double water_kg, double temperature,
+                        species_checked which = species_checked::all) {
     validity v;
     if (temperature < min_temperature - 1e-9 || temperature > max_temperature + 1e-9) {
       v = outside_range("model 'norrish'", "temperature", temperature, min_temperature,
@@ -140,6 +165,7 @@ struct norrish {
         return v;
       }
     }
+    if (which == species_checked::non_electrolytes_only) return v;
     const double I = s.ionic_strength(water_kg);
     if (I > max_ionic_strength)
       v = beyond_limit("model 'norrish'", "ionic strength (mol/kg)", I, max_ionic_strength,
@@ -156,7 +182,10 @@ struct norrish {
     bool available;
     double k, k3, k4;
     double volume_ratio;
+    double sqrt_k;  ///< sqrt(k) for k > 0 (correctly rounded: the same wherever it is taken)
   };
+
+  static double sqrt_of_positive(double k) { return k > 0.0 ? std::sqrt(k) : 0.0; }
 
   /// K z^2 + K3 z^3 + K4 z^4 of one solute at mole fraction x, z = x / (x + r (1 - x)).
   static double volume_fraction_terms(const solute_view& v, double x) {
@@ -201,7 +230,7 @@ struct norrish {
         continue;
       }
       if (v.k > 0.0)
-        sqrt_sum += std::sqrt(v.k) * x;
+        sqrt_sum += v.sqrt_k * x;
       else
         extra -= v.k * x * x;
       extra -= x * x * x * (v.k3 + v.k4 * x);
@@ -217,11 +246,46 @@ struct norrish {
 };
 
 
+namespace detail {
+
+/// Model 'norrish' prepared for one species list: each solute's constants copied out of
+/// its record once (norrish::term, sqrt(K) taken there), so an evaluation reads a short
+/// array. The same sum as norrish::ln_water_activity on the solution, bit for bit.
+class norrish_evaluator final : public activity_evaluator {
+ public:
+  explicit norrish_evaluator(const solution& s) : s_(&s) {
+    terms_.reserve(s.size());
+    for (std::size_t i = 0; i < s.size(); ++i) terms_.push_back(norrish::term_of(s, i));
+  }
+  double ln_water_activity(double water_kg, double /*temperature*/) override {
+    return norrish::ln_water_activity(terms_.data(), terms_.size(), s_->moles().data(), water_kg);
+  }
+  bool ln_water_activity_with_slope(double water_kg, double /*temperature*/, double& ln_aw,
+                                    double& slope) override {
+    norrish::ln_water_activity_with_slope(terms_.data(), terms_.size(), s_->moles().data(),
+                                          water_kg, ln_aw, slope);
+    return true;
+  }
+  validity check(double water_kg, double temperature) override {
+    return norrish::check(*s_, water_kg, temperature);
+  }
+
+ private:
+  const solution* s_;
+  std::vector<norrish::term> terms_;
+};
+
+}  // namespace detail
+
 /// The registry entry of model 'norrish' (models/builtin_models.hpp).
 inline model_descriptor norrish::descriptor() {
-  return detail::static_model_descriptor<norrish>(
+  auto d = detail::static_model_descriptor<norrish>(
       "Norrish (1966) with the multi-solute extension of Chirife et al. (1980)", {false, false},
       [](const solution& s) { return s.has_electrolytes() ? 0 : 10; }, &detail::describe_norrish_constants);
+  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+    return std::make_unique<detail::norrish_evaluator>(s);
+  };
+  return d;
 }
 
 }  // namespace colligate::models

@@ -144,8 +144,13 @@ struct pitzer {
     return sum / nu;
   }
 
+  /// Which species check() reads: all of them, or the electrolytes alone (the check of a
+  /// solution holding only the electrolytes of `s`, as the Ross rule needs, without a copy).
+  enum class species_checked { all, electrolytes_only };
+
   static validity check(const solution& s, double water_kg, double temperature,
-                        const data::pitzer_parameter_set& set) {
+                        const data::pitzer_parameter_set& set,
+                        species_checked which = species_checked::all) {
     validity v;
     // The message prefix is built only when a reason is reported.
     const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
@@ -176,7 +181,7 @@ struct pitzer {
       const auto& rec = s.species()[i];
       const double mi = s.moles()[i] / water_kg;
       if (rec.kind != data::solute_class::electrolyte) {
-        non_electrolytes += mi;
+        if (which == species_checked::all) non_electrolytes += mi;
         continue;
       }
       if (mi == 0.0) continue;

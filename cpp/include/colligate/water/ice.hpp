@@ -140,10 +140,21 @@ inline double ln_water_activity_of_ice(double temperature) {
     return std::numeric_limits<double>::quiet_NaN();
   const double w = (temperature - constants::ice_point) / temperature;
   if (std::abs(w) <= 0.3) {
+    // Horner in w^4 on four interleaved chains (terms j = 4i + k, k = 0..3), joined at the
+    // end: the same sum with a quarter of the dependent steps (rounding of the same order
+    // as one chain; the freezing-point and ice-fraction kernels call this once per row).
     static const auto e = detail::ice_series_coefficients();
-    double sum = e[detail::ice_series_terms - 1];
-    for (std::size_t j = detail::ice_series_terms - 1; j-- > 0;) sum = e[j] + w * sum;
-    return w * sum;
+    constexpr std::size_t n = detail::ice_series_terms;
+    static_assert(n % 4 == 0, "the series is summed on four chains");
+    const double w2 = w * w, w4 = w2 * w2;
+    double s0 = e[n - 4], s1 = e[n - 3], s2 = e[n - 2], s3 = e[n - 1];
+    for (std::size_t j = n - 4; j >= 4; j -= 4) {
+      s0 = e[j - 4] + w4 * s0;
+      s1 = e[j - 3] + w4 * s1;
+      s2 = e[j - 2] + w4 * s2;
+      s3 = e[j - 1] + w4 * s3;
+    }
+    return w * ((s0 + w * s1) + w2 * (s2 + w * s3));
   }
   static const std::array<double, 5> a = detail::enthalpy_power_coefficients();
   return (detail::enthalpy_over_t2_antiderivative(a, temperature) -

@@ -7,7 +7,8 @@
 /// ice line, 233.15-273.15 K) T(ln a_w) is a smooth, almost linear function. It is held
 /// as `pieces` Chebyshev interpolants of degree `degree`, on equal intervals of ln a_w,
 /// built once from the Newton inverse of ice.hpp (temperature_of_ice_equilibrium) at the
-/// Chebyshev points of each piece. The interpolant is accurate to about 1e-12 K
+/// Chebyshev points of each piece (16 pieces of degree 7: a short Clenshaw recurrence per
+/// call, one of the kernels' costs). The interpolant is accurate to about 2e-12 K
 /// (tests/cpp/water/test_ice_line_inverse.cpp checks 1e-10 K on a dense grid); one Newton
 /// step on ln_water_activity_of_ice then takes it to the rounding of that function, so the
 /// result follows ice.hpp exactly as the Newton inverse does. Outside that range the
@@ -29,8 +30,8 @@ namespace colligate::water {
 namespace detail {
 
 struct ice_line_inverse_table {
-  static constexpr std::size_t pieces = 8;
-  static constexpr std::size_t degree = 12;
+  static constexpr std::size_t pieces = 16;
+  static constexpr std::size_t degree = 7;
   double ln_aw_min = 0.0;  ///< ln a_w,ice at the lowest validated temperature
   double scale = 0.0;      ///< pieces / (0 - ln_aw_min)
   /// Chebyshev coefficients of T (K) in t = 2 (piece position) - 1, per piece.

@@ -24,13 +24,23 @@ namespace colligate::equilibria::detail {
 /// no_sign_change when the model has no closed-form derivative, ln a_w is not negative,
 /// or h(ln W) <= 0 (not frozen); max_iterations after 60 evaluations. Callers fall back on
 /// solve_on_log_water (core/roots.hpp) for anything but converged.
+///
+/// `at_W`, if given, holds ln a_w and d ln a_w / d W at W and T as with_slope() gives them
+/// (the caller evaluated them already): the first evaluation is then skipped.
 inline root_result unfrozen_water_by_slope(models::ln_water_activity_evaluator& ln_aw, double W,
-                                          double T, double ln_aw_ice) {
+                                          double T, double ln_aw_ice,
+                                          const double* at_W = nullptr) {
   root_result r;
   if (!(ln_aw_ice < 0.0) || !(W > 0.0)) return r;
   double l = 0.0, dl_dW = 0.0;
   double u = std::log(W);
-  if (!ln_aw.with_slope(W, T, l, dl_dW)) return r;
+  double Wu = W;  // e^u
+  if (at_W != nullptr) {
+    l = at_W[0];
+    dl_dW = at_W[1];
+  } else if (!ln_aw.with_slope(W, T, l, dl_dW)) {
+    return r;
+  }
   const double target = std::log(-ln_aw_ice);
   double lo = -std::numeric_limits<double>::infinity(), hi = u;
   for (int it = 0; it < 60; ++it) {
@@ -47,7 +57,7 @@ inline root_result unfrozen_water_by_slope(models::ln_water_activity_evaluator& 
       r.status = root_status::converged;
       return r;
     }
-    const double dh = -std::exp(u) * dl_dW / l;  // dh/du > 0
+    const double dh = -Wu * dl_dW / l;  // dh/du > 0
     double next = u - h / dh;
     if (!std::isfinite(next)) return r;
     // a step below the tolerance is accepted also when it lands on a bracket end
@@ -64,7 +74,8 @@ inline root_result unfrozen_water_by_slope(models::ln_water_activity_evaluator& 
       return r;
     }
     u = next;
-    ln_aw.with_slope(std::exp(u), T, l, dl_dW);
+    Wu = std::exp(u);
+    ln_aw.with_slope(Wu, T, l, dl_dW);
   }
   r.status = root_status::max_iterations;
   return r;
