@@ -17,4 +17,5 @@ PYBIND11_MODULE(_core, m) {
   colligate_bindings::register_ice_curve(m);
   colligate_bindings::register_data(m);
   colligate_bindings::register_freezing_time(m);
+  colligate_bindings::register_uncertainty(m);
 }

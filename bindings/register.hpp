@@ -37,6 +37,7 @@ void register_electrolytes(py::module_& m);
 void register_ice_curve(py::module_& m);
 void register_data(py::module_& m);
 void register_freezing_time(py::module_& m);
+void register_uncertainty(py::module_& m);
 
 using array_in = py::array_t<double, py::array::c_style | py::array::forcecast>;
 

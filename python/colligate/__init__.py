@@ -83,6 +83,8 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
+from . import uncertainty  # noqa: E402,F401  (colligate.uncertainty: predictions with their uncertainty)
+from .uncertainty import PoorlyDeterminedFitWarning, UncertainValue  # noqa: E402,F401
 from .library import Library, LibraryError  # noqa: E402
 from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
 from . import freezing_time  # noqa: E402,F401  (colligate.freezing_time: times and boiling points)
@@ -125,4 +127,5 @@ __all__ = [
     "finite_cylinder_shape_factor", "freezing_inputs", "pham_estimate", "pham_time",
     "pham_times", "plank_time", "rod_shape_factor", "saturation_pressure",
     "saturation_temperature", "simulate_freezing", "thermal_properties", "__version__",
+    "uncertainty", "UncertainValue", "PoorlyDeterminedFitWarning",
 ]

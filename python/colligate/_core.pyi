@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_of_ice']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'correlation_matrix', 'coverage_factor', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'food_thermal_uncertainty', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'propagate_uncertainty', 'record_with_uncertainty', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_of_ice']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -320,6 +320,11 @@ class SoluteRecord:
         """
         The record's own Pitzer binary parameters (dict: values at 298.15 K, d/dT per K, max_molality mol/kg, temperature range K), or None.
         """
+    @property
+    def uncertainty(self) -> typing.Any:
+        """
+        Covariance of the record's constants as a dict (names, covariance, degrees_of_freedom, source), or None: uncertainty not stated.
+        """
 class SoluteTable:
     """
     A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
@@ -597,6 +602,14 @@ def concentration_for_boiling_point(solution: Solution, temperature: typing.Supp
     """
     The solution with the same solutes (water adjusted) that boils at temperature (K) under pressure (Pa).
     """
+def correlation_matrix(covariance: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"]) -> typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"]:
+    """
+    Correlation matrix r_ij = u_ij / (u_i u_j) of a covariance matrix.
+    """
+def coverage_factor(level: typing.SupportsFloat | typing.SupportsIndex, degrees_of_freedom: typing.SupportsInt | typing.SupportsIndex) -> float:
+    """
+    Two-sided coverage factor: Student t with `degrees_of_freedom` (> 0), normal for 0.
+    """
 def curve_fit(model: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"]], x: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], y: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], p0: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, jacobian: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"]] | None = None, lower_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, upper_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, max_iterations: typing.SupportsInt | typing.SupportsIndex = 500, scale_covariance: bool = True) -> FitResult:
     """
     Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) to y.
@@ -673,6 +686,10 @@ def food_heat_load(composition: typing.Any, solution: Solution, from_temperature
 def food_properties(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], conductivity_rule: str = 'parallel') -> dict:
     """
     Density (kg/m^3), conductivity (W/(m K)), enthalpy (J/kg) and ice fraction of a food.
+    """
+def food_thermal_uncertainty(composition: typing.Any, solution: Solution, quantity: str, from_temperature: typing.SupportsFloat | typing.SupportsIndex, to_temperature: typing.SupportsFloat | typing.SupportsIndex = 0.0, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+    """
+    Enthalpy at from_temperature (J/kg, H = 0 at 233.15 K) or the heat load H(from) - H(to) (J/kg), with its standard uncertainty by linear propagation.
     """
 def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
@@ -761,6 +778,14 @@ def pitzer_solute_record(result: FitResult, salt: str, id: str, name: str, max_m
 def plank_time(shape: str, size: typing.SupportsFloat | typing.SupportsIndex, density: typing.SupportsFloat | typing.SupportsIndex, latent_heat: typing.SupportsFloat | typing.SupportsIndex, T_freeze: typing.SupportsFloat | typing.SupportsIndex, T_medium: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Plank's freezing time, s (shape slab|cylinder|sphere; size = full thickness or diameter, m).
+    """
+def propagate_uncertainty(solution: Solution, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, method: str = 'linear', draws: typing.SupportsInt | typing.SupportsIndex = 100000, seed: typing.SupportsInt | typing.SupportsIndex = 0) -> dict:
+    """
+    A prediction with its standard uncertainty from the covariance of the solution's constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' (`draws` samples, generator seeded with `seed`). Temperature in K (unused for the freezing point).
+    """
+def record_with_uncertainty(record: SoluteRecord, names: collections.abc.Sequence[str], covariance: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], degrees_of_freedom: typing.SupportsInt | typing.SupportsIndex, source: str = 'colligate_fit_user') -> SoluteRecord:
+    """
+    A copy of `record` whose constants `names` carry `covariance` (SI units squared) resting on `degrees_of_freedom` (0: known covariance, normal law).
     """
 def rod_shape_factor(a: typing.SupportsFloat | typing.SupportsIndex, b: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
