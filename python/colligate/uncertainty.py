@@ -123,6 +123,22 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
         raise _core.InvalidInputError(f"propagate: quantity = {quantity!r}: must be one of {', '.join(QUANTITIES)}")
     if method not in METHODS:
         raise _core.InvalidInputError(f"propagate: method = {method!r}: must be 'linear' or 'monte_carlo'")
+    if range_policy not in ("extrapolate", "nan", "raise"):
+        raise _core.InvalidInputError(
+            f"range_policy = {range_policy!r}: must be 'extrapolate', 'nan' or 'raise'")
+    if isinstance(T, (int, float)) and method == "linear":  # one temperature: no array shaping
+        r = _core.propagate_uncertainty(solution, quantity, float(T), model, float(bound_water_fraction_of_water),
+                                        method, int(draws), int(seed))
+        if r["reason"]:
+            if range_policy == "raise":
+                raise _core.OutOfValidityRangeError(r["reason"])
+            if range_policy == "nan":
+                r["value"] = r["std"] = float("nan")
+            _warn(r["reason"])
+        names = r["constants"]
+        sens = dict(zip(names, (float(v) for v in r["sensitivities"])))
+        return UncertainValue(r["value"], r["std"], r["degrees_of_freedom"], method=method, constants=names,
+                              not_stated=r["not_stated"], sensitivities=sens, quantity=quantity)
     scalar = np.ndim(T) == 0
     temps = np.atleast_1d(np.asarray(T, dtype=float))
     rows = [_core.propagate_uncertainty(solution, quantity, float(t), model, float(bound_water_fraction_of_water),
@@ -134,9 +150,6 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
         for r in rows:
             if r["reason"]:
                 r["value"] = r["std"] = float("nan")
-    elif range_policy != "extrapolate":
-        raise _core.InvalidInputError(
-            f"range_policy = {range_policy!r}: must be 'extrapolate', 'nan' or 'raise'")
     if reasons:
         _warn(reasons[0], len(reasons))
     first = rows[0]

@@ -238,3 +238,19 @@ def test_recipe_methods_take_with_uncertainty(my_sucrose):
     assert tf.value == r.freezing_point() and tf.std > 0.0
     assert r.ice_fraction(270.15, with_uncertainty=True).std > 0.0
     assert r.water_activity(with_uncertainty=True).value == r.water_activity()
+
+
+def test_range_policy_applies_with_uncertainty(my_sucrose):
+    # 50 wt% lies beyond the fitted solute's range (CRC rows to 42 wt%)
+    _, lib = my_sucrose
+    s = cg.Solution.from_mass_fractions({"my sucrose": 0.50}, table=lib)
+    with pytest.warns(cg.OutOfValidityRangeWarning):
+        r = cg.freezing_point(s, with_uncertainty=True)
+    assert math.isfinite(r.value) and r.std > 0.0
+    with pytest.raises(cg.OutOfValidityRangeError):
+        cg.freezing_point(s, with_uncertainty=True, range_policy="raise")
+    with pytest.warns(cg.OutOfValidityRangeWarning):
+        r = cg.freezing_point(s, with_uncertainty=True, range_policy="nan")
+    assert math.isnan(r.value) and math.isnan(r.std)
+    with pytest.raises(cg.InvalidInputError, match="range_policy"):
+        cg.freezing_point(s, with_uncertainty=True, range_policy="clip")
