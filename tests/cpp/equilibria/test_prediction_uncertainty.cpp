@@ -152,7 +152,12 @@ TEST_CASE("Coverage of the 95 % interval on synthetic freezing data", "[uncertai
   // point, seed 20261202, 1000 data sets. Each set is fitted (K alone, 9 degrees of freedom)
   // and the 95 % Student-t interval on the freezing point at 2.6 mol/kg (beyond the data)
   // is asked to contain the true value. Binomial spread of the count: sqrt(1000 .95 .05) = 7;
-  // the issue's acceptance band 930-970 is about 3 of those either side.
+  // the issue's acceptance band 930-970 is about 3 of those either side. At this seed the
+  // count is 933 (2.4 spreads low); the same experiment through the Python API with numpy's
+  // generator (seeds 1-3, 2000 sets each) covered 95.25, 94.75 and 95.05 %, and the
+  // standardised errors had the spread of Student's t with 9 dof (1.13), so the low count is
+  // taken as the luck of this seed, not a bias; a standard library with another normal
+  // sampler draws other sets.
   std::mt19937_64 rng(20261202u);
   std::normal_distribution<double> noise(0.0, 0.02);
   const auto truth_rec = fit::detail::trial_record(0.3423, 6.5, 0.0);

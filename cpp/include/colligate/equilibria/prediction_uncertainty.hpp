@@ -246,7 +246,9 @@ inline int effective_dof(const constant_set& c, const Eigen::VectorXd& y_gradien
     any = true;
   }
   if (!any || !(denom > 0.0)) return 0;
-  return static_cast<int>(std::floor(u2 * u2 / denom));  // rounded down (GUM G.4.1 note 1)
+  // Rounded down (GUM G.4.1 note 1); the relative 1e-9 keeps a single block's own degrees
+  // of freedom from rounding to one less (u^2 and its block sum are summed in other orders).
+  return static_cast<int>(std::floor(u2 * u2 / denom * (1.0 + 1e-9)));
 }
 
 }  // namespace detail
