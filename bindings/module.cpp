@@ -18,4 +18,5 @@ PYBIND11_MODULE(_core, m) {
   colligate_bindings::register_data(m);
   colligate_bindings::register_freezing_time(m);
   colligate_bindings::register_storage(m);
+  colligate_bindings::register_uncertainty(m);
 }

@@ -38,6 +38,7 @@ void register_ice_curve(py::module_& m);
 void register_data(py::module_& m);
 void register_freezing_time(py::module_& m);
 void register_storage(py::module_& m);
+void register_uncertainty(py::module_& m);
 
 using array_in = py::array_t<double, py::array::c_style | py::array::forcecast>;
 

@@ -83,6 +83,8 @@ from .api import (  # noqa: E402,F401
     water_activity_of_ice,
 )
 from .ingredients import Ingredient, ingredients  # noqa: E402
+from . import uncertainty  # noqa: E402,F401  (colligate.uncertainty: predictions with their uncertainty)
+from .uncertainty import PoorlyDeterminedFitWarning, UncertainValue  # noqa: E402,F401
 from .library import Library, LibraryError  # noqa: E402
 from .recipe import Recipe, SuspectUnitWarning  # noqa: E402
 from . import storage  # noqa: E402,F401  (colligate.storage: glass transition, state diagram)
@@ -134,4 +136,5 @@ __all__ = [
     "storage", "StateDiagram", "glass_transition", "glass_transition_table", "state_diagram",
     "solubility", "crystallisation_check", "sorption", "fit_gab", "fit_bet", "fit_oswin",
     "moisture_equilibrium",
+    "uncertainty", "UncertainValue", "PoorlyDeterminedFitWarning",
 ]

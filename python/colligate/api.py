@@ -26,6 +26,7 @@ from ._core import (  # noqa: F401
 from ._warnings import CAUTIONS, RANGE_POLICIES, OutOfValidityRangeWarning, _warn  # noqa: F401
 from ._warnings import SupersaturatedWarning, _warn_supersaturated  # noqa: F401
 from .batch import SolutionBatch, batch_freezing_point, batch_ice_fraction, batch_water_activity
+from .uncertainty import UncertainValue, _method, propagate, thermal as _thermal_uncertainty
 
 __all__ = [
     "Solution",
@@ -92,7 +93,8 @@ def freezing_point(
     *,
     bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
-) -> float:
+    with_uncertainty: Union[bool, str] = False,
+) -> Union[float, UncertainValue]:
     """Initial freezing point of a solution.
 
     Parameters
@@ -108,6 +110,11 @@ def freezing_point(
     range_policy : str
         Outside the model's validated range: "extrapolate" (compute and warn, default),
         "nan" (return NaN and warn) or "raise" (:class:`OutOfValidityRangeError`).
+    with_uncertainty : bool or str
+        False (default): return the value. True or "linear": return an
+        :class:`~colligate.uncertainty.UncertainValue` (``.value``, ``.std``, ``.ci(level)``)
+        carrying the covariance of fitted constants (linear propagation); "monte_carlo":
+        the same by 10^5 seeded draws (:func:`colligate.uncertainty.propagate` sets both).
 
     Returns
     -------
@@ -115,6 +122,10 @@ def freezing_point(
         Temperature, K, at which ice starts to form. NaN if the solution does not freeze
         above 223.15 K.
     """
+    if with_uncertainty is not False:
+        return propagate(_as_solution(solution), "freezing_point", 0.0, model, range_policy=range_policy,
+                         bound_water_fraction_of_water=bound_water_fraction_of_water,
+                         method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_freezing_point(solution, model, range_policy=range_policy,
                                     bound_water_fraction_of_water=bound_water_fraction_of_water)
@@ -131,7 +142,8 @@ def water_activity(
     *,
     range_policy: str = "extrapolate",
     saturation: str = "equilibrium",
-) -> float:
+    with_uncertainty: Union[bool, str] = False,
+) -> Union[float, UncertainValue]:
     """Water activity of a solution (no ice) at temperature ``T``.
 
     A solution above a salt's solubility at ``T`` is supersaturated: by default
@@ -150,12 +162,17 @@ def water_activity(
         Activity model id (see :func:`models`).
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
+    with_uncertainty : bool or str
+        See :func:`freezing_point`.
 
     Returns
     -------
     float
         Water activity, dimensionless, in (0, 1].
     """
+    if with_uncertainty is not False:
+        return propagate(_as_solution(solution), "water_activity", T, model, range_policy=range_policy,
+                         method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation)
     value, reason, notice = _core.water_activity(_as_solution(solution), float(T), model, range_policy,
@@ -199,8 +216,13 @@ def osmotic_coefficient(
     model: str = "auto",
     *,
     range_policy: str = "extrapolate",
-) -> float:
-    """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K)."""
+    with_uncertainty: Union[bool, str] = False,
+) -> Union[float, UncertainValue]:
+    """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K).
+    ``with_uncertainty``: see :func:`freezing_point`."""
+    if with_uncertainty is not False:
+        return propagate(_as_solution(solution), "osmotic_coefficient", T, model, range_policy=range_policy,
+                         method=_method(with_uncertainty))
     value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy)
     _warn(reason)
     return value
@@ -213,7 +235,8 @@ def ice_fraction(
     *,
     bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
-) -> Union[float, np.ndarray]:
+    with_uncertainty: Union[bool, str] = False,
+) -> Union[float, np.ndarray, UncertainValue]:
     """Ice mass over total water mass at temperature(s) ``T``.
 
     Parameters
@@ -230,11 +253,18 @@ def ice_fraction(
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
 
+    with_uncertainty : bool or str
+        See :func:`freezing_point`; value and std then have the shape of ``T``.
+
     Returns
     -------
     float or numpy.ndarray
         Ice fraction in [0, 1), same shape as ``T``.
     """
+    if with_uncertainty is not False:
+        return propagate(_as_solution(solution), "ice_fraction", T, model, range_policy=range_policy,
+                         bound_water_fraction_of_water=bound_water_fraction_of_water,
+                         method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_ice_fraction(solution, T, model, range_policy=range_policy,
                                   bound_water_fraction_of_water=bound_water_fraction_of_water)
@@ -396,7 +426,8 @@ def enthalpy(
     model: str = "auto",
     *,
     bound_water_fraction_of_water: float = 0.0,
-) -> Union[float, np.ndarray]:
+    with_uncertainty: bool = False,
+) -> Union[float, np.ndarray, UncertainValue]:
     """Specific enthalpy of a food, J/kg, with H = 0 at 233.15 K (-40 C).
 
     Parameters
@@ -411,7 +442,16 @@ def enthalpy(
         Activity model id of the ice curve.
     bound_water_fraction_of_water : float
         Unfreezable water, kg per kg of the food's water, in [0, 1).
+    with_uncertainty : bool
+        True: an :class:`~colligate.uncertainty.UncertainValue` carrying the covariance of
+        fitted constants of the water phase (linear propagation through the ice fraction).
     """
+    if with_uncertainty is not False:
+        if _method(with_uncertainty) != "linear":
+            raise InvalidInputError("enthalpy: with_uncertainty = 'monte_carlo' is not available for the "
+                                    "thermal quantities; use True (linear propagation)")
+        return _thermal_uncertainty(composition, _as_solution(solution), "enthalpy", T, 0.0, model,
+                                    bound_water_fraction_of_water=bound_water_fraction_of_water)
     return _thermal_call(_core.food_enthalpy, composition, solution, T, model, bound_water_fraction_of_water)
 
 
@@ -465,12 +505,20 @@ def heat_load(
     model: str = "auto",
     *,
     bound_water_fraction_of_water: float = 0.0,
-) -> dict[str, float]:
+    with_uncertainty: bool = False,
+) -> Union[dict[str, float], UncertainValue]:
     """Heat to remove per kg of food from ``from_T`` to ``to_T`` (K).
 
     Returns a dict with ``total``, ``sensible`` and ``latent`` (J/kg, positive when
-    cooling) and ``ice_fraction_from``, ``ice_fraction_to``.
+    cooling) and ``ice_fraction_from``, ``ice_fraction_to``. With ``with_uncertainty=True``,
+    the ``total`` as an :class:`~colligate.uncertainty.UncertainValue` (linear propagation).
     """
+    if with_uncertainty is not False:
+        if _method(with_uncertainty) != "linear":
+            raise InvalidInputError("heat_load: with_uncertainty = 'monte_carlo' is not available for the "
+                                    "thermal quantities; use True (linear propagation)")
+        return _thermal_uncertainty(composition, _as_solution(solution), "heat_load", from_T, float(to_T),
+                                    model, bound_water_fraction_of_water=bound_water_fraction_of_water)
     comp = {str(k): float(v) for k, v in dict(composition).items()}
     out = dict(_core.food_heat_load(comp, _as_solution(solution), float(from_T), float(to_T), model,
                                     bound_water_fraction_of_water))

@@ -39,6 +39,7 @@ import numpy as np
 
 from . import _core
 from ._files import InputFileError, OutputSet, atomic_write, atomic_write_text, read_input_bytes
+from .uncertainty import PoorlyDeterminedFitWarning
 
 __all__ = [
     "FitResult",
@@ -67,11 +68,17 @@ _UNITS = {
     "dcphi_dT": "kg^2/(mol^2 K)",
 }
 FORMAT_NAME = "colligate-fitted-solute"
-FORMAT_VERSION = 2  # 2 adds [solute.pitzer] (fitted salts); Norrish files are still written as 1
+FORMAT_VERSION = 3  # 2 adds [solute.pitzer] (fitted salts), 3 [solute.uncertainty] (a fit's covariance);
+# a file is written with the lowest version that holds it
 _PITZER_KEYS = ("beta0", "beta1", "beta2", "cphi", "dbeta0_dT", "dbeta1_dT", "dbeta2_dT", "dcphi_dT")
 # Widening of a fitted salt's temperature range beyond its data, K: the same 5 K as
 # colligate::fit::pitzer_fit_temperature_margin (the 25 C harvie_1984 set is used at 298.15 +/- 5 K).
 _PITZER_T_MARGIN = 5.0
+#: |correlation| above which two fitted constants are reported as strongly correlated: the
+#: data then fix one combination of them, not each (a common rule of thumb, no source).
+CORRELATION_LIMIT = 0.99
+#: Confidence level of the intervals checked for spanning zero or a bound of the fit.
+_CHECK_LEVEL = 0.95
 
 
 def _column(value: Any, data: Any, name: str) -> Optional[np.ndarray]:
@@ -145,6 +152,48 @@ class FitResult:
         import pandas as pd
 
         return pd.DataFrame(np.asarray(self._core.covariance), index=self.names, columns=self.names)
+
+    @property
+    def correlation(self):
+        """Parameter correlation matrix r_ij = u_ij / (u_i u_j), a DataFrame (NaN when the
+        covariance is not defined)."""
+        import pandas as pd
+
+        r = np.asarray(_core.correlation_matrix(np.asarray(self._core.covariance)))
+        return pd.DataFrame(r, index=self.names, columns=self.names)
+
+    def poorly_determined(self, level: float = _CHECK_LEVEL) -> list:
+        """Reasons the data do not pin the constants down, one sentence each (empty if none):
+        a pair correlated beyond :data:`CORRELATION_LIMIT`, a ``level`` interval that spans
+        zero, a constant that ended on a bound of the fit (a physical limit)."""
+        if not self.success:
+            return []
+        out = []
+        corr = np.asarray(_core.correlation_matrix(np.asarray(self._core.covariance)))
+        k = len(self.names)
+        for i in range(k):
+            for j in range(i + 1, k):
+                if np.isfinite(corr[i, j]) and abs(corr[i, j]) > CORRELATION_LIMIT:
+                    out.append(f"{self.names[i]} and {self.names[j]} are correlated at r = {corr[i, j]:+.4f} "
+                               f"(|r| > {CORRELATION_LIMIT}): the data fix a combination of them, not each; "
+                               "add data of another kind or range, or fix one of them")
+        lim = np.asarray(self._core.confidence_intervals(float(level)))
+        for j, n in enumerate(self.names):
+            lo, hi = lim[j]
+            if np.isfinite(lo) and np.isfinite(hi) and lo < 0.0 < hi:
+                out.append(f"the {100 * level:g} % interval of {n} spans zero ({lo:.4g} to {hi:.4g}): "
+                           "the data do not show that this constant is needed")
+            if bool(self._core.at_bound[j]):
+                out.append(f"{n} = {self.params[n]:.6g} ended on a bound of the fit: its interval is "
+                           "one-sided and its standard error does not describe it")
+        return out
+
+    def _warn_if_poorly_determined(self) -> None:
+        import warnings
+
+        reasons = self.poorly_determined()
+        if reasons:
+            warnings.warn(f"fit ({self.model}): " + "; ".join(reasons), PoorlyDeterminedFitWarning, stacklevel=3)
 
     def ci(self, level: float = 0.95):
         """Confidence intervals at ``level`` (Student t, n - k degrees of freedom), a DataFrame
@@ -318,12 +367,18 @@ class FittedSolute:
                                    "min_temperature": float(pz["min_temperature"]),
                                    "max_temperature": float(pz["max_temperature"]),
                                    "source": str(pz["source"])}})
+        u = r.uncertainty
+        if u is not None:  # the fit's covariance (GUM: u(p_i, p_j)) and its degrees of freedom
+            out["uncertainty"] = {"names": [str(n) for n in u["names"]],
+                                  "covariance": [[float(v) for v in row] for row in np.asarray(u["covariance"])],
+                                  "degrees_of_freedom": int(u["degrees_of_freedom"]), "source": str(u["source"])}
         return out
 
     def document(self) -> dict:
         """The whole fitted-solute file as a dict (see :meth:`to_toml`)."""
         doc: dict[str, Any] = {"format": FORMAT_NAME,
-                               "version": FORMAT_VERSION if self.record.pitzer is not None else 1,
+                               "version": (3 if self.record.uncertainty is not None
+                                           else 2 if self.record.pitzer is not None else 1),
                                "solute": self.entry()}
         if self.fit is not None:
             a = self.fit.attrs
@@ -399,7 +454,7 @@ def _toml_text(path: str, table: dict, key: str, where: str, default: Optional[s
 
 #: Keys of one solute table (``[solute]`` of a fitted-solute file, ``[solutes.<id>]`` of a library).
 _SOLUTE_KEYS = ("id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
-                "bound_water_per_solids", "note", "salt", "pitzer")
+                "bound_water_per_solids", "note", "salt", "pitzer", "uncertainty")
 
 
 def solute_from_entry(entry: Any, where: str, *, table: str = "solute", default_id: Optional[str] = None,
@@ -447,6 +502,9 @@ def solute_from_entry(entry: Any, where: str, *, table: str = "solute", default_
     if bound < 0.0:
         raise _solute_file_error(where, f"[{table}] bound_water_per_solids = {bound!r}",
                                  "must be >= 0 (kg per kg of solute)")
+    ut = _toml_table(where, s, "uncertainty", f"{table}.uncertainty", required=False)
+    if ut is not None:
+        rec = _core.record_with_uncertainty(rec, *_uncertainty_from_toml(where, ut, table))
     return FittedSolute(rec, bound_water_per_solids=bound, fit=fit, source=source, salt=salt)
 
 
@@ -514,6 +572,31 @@ def solute_from_document(doc: dict, where: str) -> FittedSolute:
     prov = _toml_table(where, doc, "provenance", "provenance", required=False) or {}
     return solute_from_entry(entry, where, table="solute", fit=fit_df,
                              source={str(k): str(v) for k, v in prov.items()})
+
+
+def _uncertainty_from_toml(where: str, t: dict, table: str) -> tuple:
+    """(names, covariance, degrees of freedom, source) of a [<solute>.uncertainty] table."""
+    tw = f"{table}.uncertainty"
+    extra = sorted(set(t) - {"names", "covariance", "degrees_of_freedom", "source"})
+    if extra:
+        raise _solute_file_error(where, f"[{tw}] {extra[0]}",
+                                 "unknown key; allowed keys are covariance, degrees_of_freedom, names, source")
+    names = t.get("names")
+    if not isinstance(names, list) or not all(isinstance(n, str) for n in names):
+        raise _solute_file_error(where, f"[{tw}] names = {names!r}"[:200], "must be a list of constant names")
+    matrix = t.get("covariance")
+    ok = (isinstance(matrix, list) and len(matrix) == len(names)
+          and all(isinstance(r, list) and len(r) == len(names) for r in matrix)
+          and all(isinstance(v, (int, float)) and not isinstance(v, bool) for r in matrix for v in r))
+    if not ok:
+        raise _solute_file_error(where, f"[{tw}] covariance = {matrix!r}"[:200],
+                                 f"must be a {len(names)} x {len(names)} array of numbers, one row per name")
+    dof = t.get("degrees_of_freedom", 0)
+    if isinstance(dof, bool) or not isinstance(dof, int) or not 0 <= dof <= 10**9:
+        raise _solute_file_error(where, f"[{tw}] degrees_of_freedom = {dof!r}"[:200],
+                                 "must be an integer >= 0 (0: covariance taken as known)")
+    source = _toml_text(where, t, "source", tw, default="colligate_fit_user")
+    return names, np.asarray(matrix, dtype=float).reshape(len(names), len(names)), dof, source
 
 
 class SoluteLibrary(_core.SoluteTable):
@@ -628,8 +711,10 @@ def fit_norrish(molality, water_activity=None, freezing_point=None, T: float = 2
         core = _core.fit_norrish_freezing_point(m, tf, w, k3, k_start, k3_start)
         y, ylab, model = tf, "initial freezing point / K", "norrish (freezing point)"
     src = _provenance(data_name, [m, y])
-    return FitResult(core, model=model, x=m, y=y, x_label="molality / (mol/kg)", y_label=ylab,
-                     source=src, extra={"molality": m})
+    res = FitResult(core, model=model, x=m, y=y, x_label="molality / (mol/kg)", y_label=ylab,
+                    source=src, extra={"molality": m})
+    res._warn_if_poorly_determined()
+    return res
 
 
 def fit_effective_solute(water_fraction, freezing_point=None, *, temperature=None,
@@ -671,8 +756,10 @@ def fit_effective_solute(water_fraction, freezing_point=None, *, temperature=Non
         x, y = T, ice
         xl, yl, model = "temperature / K", "ice mass / total water", "effective solute (ice curve)"
     extra = {} if fit_bound_water else {"bound_water_fixed": bound_water_start}
-    return FitResult(core, model=model, x=x, y=y, x_label=xl, y_label=yl,
-                     source=_provenance(data_name, [wf, y]), extra=extra)
+    res = FitResult(core, model=model, x=x, y=y, x_label=xl, y_label=yl,
+                    source=_provenance(data_name, [wf, y]), extra=extra)
+    res._warn_if_poorly_determined()
+    return res
 
 
 def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=None,
@@ -738,9 +825,11 @@ def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=Non
     salt_id = (table if table is not None else _core.SoluteTable()).find(salt).id
     src = _provenance(data_name, [m, y] + ([] if tf is not None else [temps]))
     src["salt"] = salt_id
-    return FitResult(core, model=f"pitzer {salt_id} ({kind})", x=m, y=y,
-                     x_label="molality / (mol/kg)", y_label=ylab, source=src,
-                     extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
+    res = FitResult(core, model=f"pitzer {salt_id} ({kind})", x=m, y=y,
+                    x_label="molality / (mol/kg)", y_label=ylab, source=src,
+                    extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
+    res._warn_if_poorly_determined()
+    return res
 
 
 #: Column names ``colligate fit`` accepts for each quantity, with the factor or conversion to

@@ -442,14 +442,15 @@ class Recipe:
 
     # ------------------------------------------------------------ evaluations (SI)
 
-    def freezing_point(self) -> float:
-        """Initial freezing point, K."""
-        return float(api.freezing_point(self.solution(), model=self.model,
-                                        bound_water_fraction_of_water=self.bound_water_fraction_of_water))
+    def freezing_point(self, *, with_uncertainty: "bool | str" = False) -> Any:
+        """Initial freezing point, K (``with_uncertainty``: see :func:`colligate.freezing_point`)."""
+        r = api.freezing_point(self.solution(), model=self.model, with_uncertainty=with_uncertainty,
+                               bound_water_fraction_of_water=self.bound_water_fraction_of_water)
+        return r if with_uncertainty is not False else float(r)
 
-    def ice_fraction(self, T):
+    def ice_fraction(self, T, *, with_uncertainty: "bool | str" = False):
         """Ice mass / total water at T (K, scalar or array)."""
-        return api.ice_fraction(self.solution(), T, model=self.model,
+        return api.ice_fraction(self.solution(), T, model=self.model, with_uncertainty=with_uncertainty,
                                 bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def temperature_for_ice_fraction(self, ice_fraction):
@@ -465,13 +466,14 @@ class Recipe:
         Goff & Hartel (2013); a cross-check against the dairy texts (no bound water)."""
         return api.leighton_ice_fraction(self.solution(), T)
 
-    def water_activity(self, T: float = 298.15) -> float:
+    def water_activity(self, T: float = 298.15, *, with_uncertainty: "bool | str" = False) -> Any:
         """Water activity of the unfrozen recipe at T (K), no ice."""
-        return float(api.water_activity(self.solution(), T=T, model=self.model))
+        r = api.water_activity(self.solution(), T=T, model=self.model, with_uncertainty=with_uncertainty)
+        return r if with_uncertainty is not False else float(r)
 
-    def enthalpy(self, T):
+    def enthalpy(self, T, *, with_uncertainty: bool = False):
         """Specific enthalpy, J/kg, with H = 0 at 233.15 K (-40 C); T in K (scalar or array)."""
-        return api.enthalpy(self.proximate, self.solution(), T, model=self.model,
+        return api.enthalpy(self.proximate, self.solution(), T, model=self.model, with_uncertainty=with_uncertainty,
                             bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def apparent_specific_heat(self, T):
@@ -479,9 +481,11 @@ class Recipe:
         return api.apparent_specific_heat(self.proximate, self.solution(), T, model=self.model,
                                           bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
-    def heat_load(self, from_T: float, to_T: float) -> dict[str, float]:
-        """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg)."""
+    def heat_load(self, from_T: float, to_T: float, *, with_uncertainty: bool = False) -> Any:
+        """Heat to remove per kg from ``from_T`` to ``to_T`` (K): total, sensible, latent (J/kg);
+        with ``with_uncertainty=True`` the total with its standard uncertainty."""
         return api.heat_load(self.proximate, self.solution(), from_T, to_T, model=self.model,
+                             with_uncertainty=with_uncertainty,
                              bound_water_fraction_of_water=self.bound_water_fraction_of_water)
 
     def solution(self) -> "api.Solution":

@@ -108,7 +108,13 @@ def solute_documents(draw):
     solute = {k: draw(st.one_of(values, _finite, st.text(max_size=8)))
               for k in draw(st.lists(st.sampled_from(
                   ["id", "name", "molar_mass", "norrish_k", "norrish_k3", "max_mass_fraction",
-                   "bound_water_per_solids", "note", "salt", "pitzer"]), unique=True, max_size=8))}
+                   "bound_water_per_solids", "note", "salt", "pitzer", "uncertainty"]), unique=True, max_size=8))}
+    if "uncertainty" in solute and draw(st.booleans()):
+        n = draw(st.integers(0, 2))
+        solute["uncertainty"] = {"names": draw(st.lists(st.sampled_from(["norrish_k", "norrish_k3", "beta0", "x"]),
+                                                        min_size=n, max_size=n)),
+                                 "covariance": [[draw(st.one_of(_finite, values)) for _ in range(n)] for _ in range(n)],
+                                 "degrees_of_freedom": draw(st.one_of(st.integers(-1, 50), values))}
     if "pitzer" in solute and draw(st.booleans()):
         solute["pitzer"] = {k: draw(st.one_of(_finite, values)) for k in draw(st.lists(st.sampled_from(
             ["beta0", "beta1", "beta2", "cphi", "max_molality", "min_temperature", "max_temperature",

@@ -28,6 +28,7 @@ LAYER_ORDER = (
     "units",
     "_files",
     "batch",
+    "uncertainty",
     "api",
     "fit",
     "storage",

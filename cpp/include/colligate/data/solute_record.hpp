@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "colligate/data/constant_uncertainty.hpp"
 #include "colligate/data/pitzer_parameters.hpp"
 
 namespace colligate::data {
@@ -70,6 +71,7 @@ struct solute_record {
   std::vector<ion_count> ions;
   norrish_constants norrish;
   record_pitzer_parameters pitzer;  ///< own Pitzer binary parameters (fitted salts only)
+  constant_uncertainty uncertainty;  ///< covariance of the constants; empty: "not stated"
 };
 
 }  // namespace colligate::data

@@ -40,6 +40,7 @@
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
+#include "colligate/fit/fitted_uncertainty.hpp"
 #include "colligate/fit/levenberg_marquardt.hpp"
 #include "colligate/models/norrish.hpp"
 #include "colligate/water/ice.hpp"
@@ -235,6 +236,7 @@ inline data::solute_record norrish_solute_record(const fit_result& r, const std:
   rec.norrish.max_mass_fraction = max_mass_fraction;
   if (r.params.size() < 2) rec.norrish.k3_source.clear();
   rec.norrish.note = note;
+  rec.uncertainty = uncertainty_of(r);  // the fit's covariance travels with the record
   return rec;
 }
 

@@ -51,6 +51,7 @@
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/fit/fitters.hpp"
+#include "colligate/fit/fitted_uncertainty.hpp"
 #include "colligate/fit/levenberg_marquardt.hpp"
 #include "colligate/models/pitzer.hpp"
 #include "colligate/water/ice.hpp"
@@ -420,8 +421,10 @@ inline data::solute_record pitzer_solute_record(const fit_result& r,
                                                 const std::string& id, const std::string& name,
                                                 double max_molality, double min_temperature,
                                                 double max_temperature, const std::string& note) {
-  return pitzer_salt_record(salt, id, name, pitzer_parameters_of(r), max_molality,
-                            min_temperature, max_temperature, "colligate_fit_user", note);
+  auto rec = pitzer_salt_record(salt, id, name, pitzer_parameters_of(r), max_molality,
+                                min_temperature, max_temperature, "colligate_fit_user", note);
+  rec.uncertainty = uncertainty_of(r);  // the fit's covariance travels with the record
+  return rec;
 }
 
 }  // namespace colligate::fit

@@ -1,0 +1,52 @@
+"""Cost of carrying a fitted constant's uncertainty, measured in the same run: the scalar
+freezing point and ice fraction of 200 solutions of a one-parameter fitted solute (Norrish
+K fitted to the CRC sucrose freezing points to 42 wt%), plain against
+``with_uncertainty=True`` (linear propagation) and against Monte Carlo with 1000 draws.
+Prints the ratios (with uncertainty / plain; the issue's target for linear propagation is at
+most 3).
+
+This measures the scalar path (one call per solution, Python overhead included); there is
+no batch kernel with uncertainty yet.
+
+    python3 bench/bench_uncertainty.py [repeats]
+"""
+from __future__ import annotations
+
+import pathlib
+import sys
+
+import numpy as np
+import pandas as pd
+
+import colligate as cg
+from _timing import best_of  # bench/_timing.py (run as python3 bench/<file>.py)
+
+REF = pathlib.Path(__file__).resolve().parents[1] / "tests" / "reference"
+
+
+def main() -> None:
+    repeats = int(sys.argv[1]) if len(sys.argv) > 1 else 5
+    t = pd.read_csv(REF / "crc_freezing_points.csv", keep_default_na=False)
+    t = t[(t.solute == "sucrose") & (t.mass_percent <= 42.0)]
+    res = cg.fit_norrish(t.molality_mol_per_kg.to_numpy(),
+                         freezing_point=cg._core.ICE_POINT - t.depression_K.to_numpy())
+    lib = cg.SoluteLibrary([res.as_solute("lab sucrose", molar_mass=0.3422965)])
+    sols = [cg.Solution.from_mass_fractions({"lab sucrose": w}, table=lib) for w in np.linspace(0.05, 0.40, 200)]
+    cases = {
+        "freezing point": (lambda s: cg.freezing_point(s), lambda s: cg.freezing_point(s, with_uncertainty=True),
+                           lambda s: cg.uncertainty.propagate(s, "freezing_point", method="monte_carlo", draws=1000)),
+        "ice fraction at -2 C": (lambda s: cg.ice_fraction(s, 271.15),
+                                 lambda s: cg.ice_fraction(s, 271.15, with_uncertainty=True),
+                                 lambda s: cg.uncertainty.propagate(s, "ice_fraction", 271.15,
+                                                                    method="monte_carlo", draws=1000)),
+    }
+    for name, (plain, linear, mc) in cases.items():
+        tp = best_of(lambda: [plain(s) for s in sols], repeats)
+        tl = best_of(lambda: [linear(s) for s in sols], repeats)
+        tm = best_of(lambda: [mc(s) for s in sols[:20]], 1) * 10  # 20 of the 200, scaled
+        print(f"{name}: plain {tp * 1e3:.2f} ms, linear {tl * 1e3:.2f} ms (ratio {tl / tp:.2f}), "
+              f"Monte Carlo 1000 draws {tm * 1e3:.0f} ms (ratio {tm / tp:.0f})")
+
+
+if __name__ == "__main__":
+    main()

@@ -1,0 +1,61 @@
+#pragma once
+/// \file norrish_sensitivity.hpp
+/// Derivatives of the Norrish ln a_w (models/norrish.hpp) with respect to one solute's
+/// constants K and K3, in closed form, at a given water mass: what the law of propagation
+/// of uncertainty needs (equilibria/prediction_uncertainty.hpp).
+///
+/// With x_i = n_i / (n_w + sum nu n) and S = sum_{K_i > 0} sqrt(K_i) x_i (Chirife, Ferro
+/// Fontan & Benmergui 1980, eq. 4, in our sign convention):
+///
+///     d ln a_w / d K_j  = -S x_j / sqrt(K_j)      (K_j > 0: the term -S^2)
+///                       = -x_j^2                  (K_j <= 0: the per-solute term)
+///     d ln a_w / d K3_j = -x_j^3
+///
+/// and for a solute with volume ratio r != 1, z_j = x_j / (x_j + r (1 - x_j)) in place of x_j
+/// in the per-solute terms (-z_j^2, -z_j^3). For a single solute with K > 0 the first line
+/// is -x^2, the same as the second: the derivative is continuous there. In a mixture it
+/// jumps at K_j = 0 (the square-root form has an infinite slope), so a constant whose
+/// interval spans zero is no case for the linear propagation: use Monte Carlo.
+
+#include <cmath>
+#include <cstddef>
+#include <string>
+
+#include "colligate/core/constants.hpp"
+#include "colligate/core/errors.hpp"
+#include "colligate/core/solution.hpp"
+
+namespace colligate::models {
+
+enum class norrish_constant { k, k3 };
+
+/// d ln a_w / d (K or K3 of species `j`) of `s` with `water_kg` of water (model 'norrish').
+inline double norrish_ln_water_activity_derivative(const solution& s, double water_kg,
+                                                   std::size_t j, norrish_constant which) {
+  if (j >= s.size())
+    throw invalid_input("norrish sensitivity: species index " + std::to_string(j) +
+                        " is beyond the solution's " + std::to_string(s.size()) + " solutes");
+  const auto& species = s.species();
+  const auto& moles = s.moles();
+  const double nw = water_kg / constants::molar_mass_water;
+  double n_total = nw;
+  for (std::size_t i = 0; i < s.size(); ++i) n_total += species[i].particles * moles[i];
+  const auto& rj = species[j];
+  if (!rj.norrish.available) return 0.0;  // counted as an ideal particle: no constant to vary
+  const double xj = moles[j] / n_total;
+  if (rj.norrish.volume_ratio != 1.0) {
+    const double r = rj.norrish.volume_ratio;
+    const double z = xj / (xj + r * (1.0 - xj));
+    return which == norrish_constant::k ? -z * z : -z * z * z;
+  }
+  if (which == norrish_constant::k3) return -xj * xj * xj;
+  if (!(rj.norrish.k > 0.0)) return -xj * xj;
+  double S = 0.0;
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const auto& n = species[i].norrish;
+    if (n.available && n.volume_ratio == 1.0 && n.k > 0.0) S += std::sqrt(n.k) * moles[i] / n_total;
+  }
+  return -S * xj / std::sqrt(rj.norrish.k);
+}
+
+}  // namespace colligate::models

@@ -1,0 +1,214 @@
+// Predictions with their standard uncertainty: linear propagation (analytic sensitivities on
+// the ice line) against Monte Carlo, against central differences of the plain prediction,
+// and the coverage of the intervals on synthetic data.
+#include <catch2/catch.hpp>
+#include <cmath>
+#include <random>
+#include <string>
+#include <vector>
+
+#include "../crc_reference.hpp"
+#include "colligate/colligate.hpp"
+#include "colligate/equilibria/prediction_uncertainty.hpp"
+#include "colligate/fit/fitters.hpp"
+
+using namespace colligate;
+using Catch::Matchers::WithinAbs;
+using Catch::Matchers::WithinRel;
+using equilibria::predicted_quantity;
+
+namespace {
+
+Eigen::VectorXd vec(const std::vector<double>& v) {
+  return Eigen::Map<const Eigen::VectorXd>(v.data(), static_cast<Eigen::Index>(v.size()));
+}
+
+/// A Norrish fit (K, optionally K3) to the CRC Handbook sucrose freezing points to 42 wt%
+/// (source key crc_concentrative, printed to 0.01 K): a fitted sucrose-like solute.
+fit::fit_result crc_sucrose_fit(bool k3) {
+  std::vector<double> m, tf;
+  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
+    if (row.at("solute") != "sucrose" || std::stod(row.at("mass_percent")) > 42.0) continue;
+    if (colligate_test::doubtful_crc_row(row)) continue;
+    m.push_back(std::stod(row.at("molality_mol_per_kg")));
+    tf.push_back(constants::ice_point - std::stod(row.at("depression_K")));
+  }
+  fit::norrish_fit_options o;
+  o.fit_k3 = k3;
+  return fit::fit_norrish_freezing_point(vec(m), vec(tf), Eigen::VectorXd(), o);
+}
+
+data::solute_table table_with(const std::vector<data::solute_record>& extra) {
+  std::vector<data::solute_record> recs = extra;
+  return data::solute_table(std::move(recs));
+}
+
+/// Central difference of the plain prediction in one constant (test only: the library
+/// itself never differentiates numerically).
+double central_difference(predicted_quantity q, const solution& s, double T, std::size_t k,
+                          double h, double bound = 0.0) {
+  const auto c = equilibria::uncertain_constants(s);
+  Eigen::VectorXd p = c.values;
+  p[static_cast<Eigen::Index>(k)] += h;
+  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", bound);
+  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
+  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", bound);
+  return (up - down) / (2.0 * h);
+}
+
+}  // namespace
+
+TEST_CASE("A fitted record carries its fit's covariance and degrees of freedom", "[uncertainty][fit]") {
+  const auto r = crc_sucrose_fit(true);
+  REQUIRE(r.success());
+  const auto rec = fit::norrish_solute_record(r, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test");
+  REQUIRE(rec.uncertainty.stated());
+  CHECK(rec.uncertainty.names == std::vector<std::string>{"norrish_k", "norrish_k3"});
+  CHECK(rec.uncertainty.degrees_of_freedom == r.degrees_of_freedom);
+  CHECK(rec.uncertainty.source == "colligate_fit_user");
+  for (int i = 0; i < 2; ++i)
+    for (int j = 0; j < 2; ++j)
+      CHECK(rec.uncertainty.at(i, j) == r.covariance(i, j));
+  // The correlation of K and K3 fitted together is strong (both scale x^2-like terms).
+  const auto corr = fit::correlation_matrix(r.covariance);
+  CHECK_THAT(corr(0, 0), WithinAbs(1.0, 1e-12));
+  CHECK(std::abs(corr(0, 1)) > 0.9);
+  // Built-in records state no uncertainty (their sources give none): they enter as exact.
+  const auto s = solution::from_mass_fractions({{"sucrose", 0.3}});
+  const auto u = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "norrish");
+  CHECK(u.not_stated == std::vector<std::string>{"sucrose"});
+  CHECK(u.result.standard_uncertainty == 0.0);
+  CHECK(u.result.degrees_of_freedom == 0);
+}
+
+TEST_CASE("Analytic sensitivities equal central differences of the plain prediction", "[uncertainty]") {
+  // Identity check (no literature): two fitted solutes in one mixture, so the multi-solute
+  // Norrish sum (Chirife et al. 1980 eq. 4) with its square-root cross term is exercised.
+  const auto r = crc_sucrose_fit(true);
+  REQUIRE(r.success());
+  auto su = fit::norrish_solute_record(r, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test");
+  auto gl = data::builtin_solutes().find("glucose");
+  gl.id = "my_glucose";
+  gl.aliases.clear();
+  gl.uncertainty.names = {"norrish_k"};
+  gl.uncertainty.covariance = {0.01};  // invented variance, test only
+  gl.uncertainty.degrees_of_freedom = 8;
+  const auto table = table_with({su, gl});
+  const auto s = solution::from_mass_fractions({{"my_sucrose", 0.20}, {"my_glucose", 0.10}}, 1.0, table);
+  struct probe { predicted_quantity q; double T; };
+  for (const auto& p : {probe{predicted_quantity::freezing_point, 0.0},
+                        probe{predicted_quantity::water_activity, 298.15},
+                        probe{predicted_quantity::osmotic_coefficient, 298.15},
+                        probe{predicted_quantity::ice_fraction, 263.15},
+                        probe{predicted_quantity::unfrozen_water, 263.15}}) {
+    const auto u = equilibria::propagate_linear(p.q, s, p.T, "norrish");
+    REQUIRE(u.sensitivities.size() == 3);
+    INFO(equilibria::to_string(p.q));
+    for (std::size_t k = 0; k < 3; ++k) {
+      const double h = 1e-3 * std::max(1.0, std::abs(equilibria::uncertain_constants(s).values[k]));
+      const double fd = central_difference(p.q, s, p.T, k, h);
+      INFO("constant " << u.constants[k] << ": analytic " << u.sensitivities[k] << ", difference " << fd);
+      // central difference error O(h^2) plus the solvers' 1e-9 K / 1e-12 kg tolerances
+      CHECK_THAT(u.sensitivities[k], WithinRel(fd, 1e-5) || WithinAbs(fd, 1e-9));
+    }
+    CHECK(u.result.standard_uncertainty > 0.0);
+  }
+  // Bound water: the freezing point of the solvent left over
+  const auto ub = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "norrish", 0.1);
+  CHECK_THAT(ub.sensitivities[0], WithinRel(central_difference(predicted_quantity::freezing_point, s, 0.0, 0, 1e-4, 0.1), 1e-5));
+}
+
+TEST_CASE("Delta method and Monte Carlo agree on a fitted sucrose-like solute", "[uncertainty][monte_carlo]") {
+  // The acceptance check: within 5 % on the standard uncertainty and on the width of
+  // the 95 % interval, with 10^5 draws (seed 20261202). K and K3 fitted together to the CRC
+  // sucrose freezing points (strongly correlated, so the covariance's off-diagonal matters).
+  const auto r = crc_sucrose_fit(true);
+  REQUIRE(r.success());
+  const auto rec = fit::norrish_solute_record(r, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test");
+  const auto table = table_with({rec});
+  const auto s = solution::from_mass_fractions({{"my_sucrose", 0.40}}, 1.0, table);
+  for (const auto q : {predicted_quantity::freezing_point, predicted_quantity::ice_fraction}) {
+    const double T = 263.15;
+    const auto lin = equilibria::propagate_linear(q, s, T, "norrish");
+    const auto mc = equilibria::propagate_monte_carlo(q, s, T, "norrish", 0.0, 100000, 20261202u);
+    INFO(equilibria::to_string(q) << ": delta " << lin.result.standard_uncertainty << ", Monte Carlo "
+                                  << mc.standard_deviation);
+    REQUIRE(mc.finite_draws == 100000);
+    CHECK_THAT(mc.standard_deviation, WithinRel(lin.result.standard_uncertainty, 0.05));
+    CHECK_THAT(mc.mean, WithinAbs(lin.result.value, 0.05 * lin.result.standard_uncertainty + 1e-12));
+    // The normal-law interval against the sample one (the draws are normal in p).
+    fit::uncertain_value normal = lin.result;
+    normal.degrees_of_freedom = 0;
+    const auto a = normal.coverage_interval(0.95);
+    const auto b = mc.interval(0.95);
+    CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
+    CHECK(lin.result.degrees_of_freedom == r.degrees_of_freedom);
+  }
+}
+
+TEST_CASE("Coverage of the 95 % interval on synthetic freezing data", "[uncertainty][coverage]") {
+  // Synthetic data, invented for this test: a sucrose-like solute (molar mass 0.3423 kg/mol,
+  // true K = 6.5), ten molalities 0.2-2.0 mol/kg, Gaussian noise of 0.02 K on each freezing
+  // point, seed 20261202, 1000 data sets. Each set is fitted (K alone, 9 degrees of freedom)
+  // and the 95 % Student-t interval on the freezing point at 2.6 mol/kg (beyond the data)
+  // is asked to contain the true value. Binomial spread of the count: sqrt(1000 .95 .05) = 7;
+  // the acceptance band 930-970 is about 3 of those either side. At this seed the
+  // count is 933 (2.4 spreads low); the same experiment through the Python API with numpy's
+  // generator (seeds 1-3, 2000 sets each) covered 95.25, 94.75 and 95.05 %, and the
+  // standardised errors had the spread of Student's t with 9 dof (1.13), so the low count is
+  // taken as the luck of this seed, not a bias; a standard library with another normal
+  // sampler draws other sets.
+  std::mt19937_64 rng(20261202u);
+  std::normal_distribution<double> noise(0.0, 0.02);
+  const auto truth_rec = fit::detail::trial_record(0.3423, 6.5, 0.0);
+  const data::solute_table truth_table({truth_rec});
+  std::vector<double> m;
+  for (int i = 1; i <= 10; ++i) m.push_back(0.2 * i);
+  std::vector<double> t_true;
+  for (double mi : m)
+    t_true.push_back(equilibria::freezing_point(
+        solution::from_molalities({{fit::detail::fitted_id, mi}}, 1.0, truth_table), "norrish").temperature);
+  const double m_new = 2.6;
+  const double T_new_true = equilibria::freezing_point(
+      solution::from_molalities({{fit::detail::fitted_id, m_new}}, 1.0, truth_table), "norrish").temperature;
+  int covered = 0, fitted = 0;
+  for (int set = 0; set < 1000; ++set) {
+    std::vector<double> y = t_true;
+    for (double& yi : y) yi += noise(rng);
+    const auto r = fit::fit_norrish_freezing_point(vec(m), vec(y));
+    if (!r.success()) continue;
+    ++fitted;
+    const auto rec = fit::norrish_solute_record(r, "syn", "syn", 0.3423, 0.6, "synthetic");
+    const data::solute_table table({rec});
+    const auto s = solution::from_molalities({{"syn", m_new}}, 1.0, table);
+    const auto u = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "norrish");
+    REQUIRE(u.result.degrees_of_freedom == 9);
+    const auto ci = u.result.coverage_interval(0.95);
+    if (ci.first <= T_new_true && T_new_true <= ci.second) ++covered;
+  }
+  REQUIRE(fitted == 1000);
+  INFO("covered " << covered << " of 1000");
+  CHECK(covered >= 930);
+  CHECK(covered <= 970);
+}
+
+TEST_CASE("Propagation refuses what it cannot do and names it", "[uncertainty][errors]") {
+  const auto r = crc_sucrose_fit(false);
+  const auto rec = fit::norrish_solute_record(r, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test");
+  const auto table = table_with({rec});
+  const auto s = solution::from_mass_fractions({{"my_sucrose", 0.30}}, 1.0, table);
+  // 'raoult' has no constants: no closed-form sensitivity for a constant it does not use
+  CHECK_THROWS_WITH(equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "raoult"),
+                    Catch::Contains("model 'raoult'") && Catch::Contains("Monte Carlo"));
+  CHECK_THROWS_WITH(equilibria::propagate_linear(predicted_quantity::water_activity, s, -1.0, "norrish"),
+                    Catch::Contains("temperature"));
+  CHECK_THROWS_WITH(equilibria::propagate_monte_carlo(predicted_quantity::freezing_point, s, 0.0, "norrish", 0.0, 1, 1u),
+                    Catch::Contains("draws"));
+  fit::uncertain_value v{1.0, 0.1, 5};
+  // Student t, 5 dof, 97.5 % quantile 2.5706 (common practice: any t table)
+  CHECK_THAT(v.coverage_factor(0.95), WithinRel(2.5706, 1e-4));
+  v.degrees_of_freedom = 0;
+  // normal 97.5 % quantile 1.95996 (common practice)
+  CHECK_THAT(v.coverage_factor(0.95), WithinRel(1.95996, 1e-5));
+  CHECK_THROWS_WITH(v.coverage_factor(1.5), Catch::Contains("level"));
+}
