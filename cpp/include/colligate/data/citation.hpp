@@ -325,6 +325,11 @@ inline const std::vector<citation>& citations() {
       {"singh_heldman_2009", "Singh, R. P.; Heldman, D. R.", 2009, "Introduction to Food Engineering",
        "4th ed., Academic Press", "ISBN 978-0-12-370900-4",
        "ch. 7, worked example on Plank's equation (beef steak; from memory)"},
+      {"starzak_peacock_1997", "Starzak, M.; Peacock, S. D.", 1997,
+       "Water activity coefficient in aqueous solutions of sucrose - a comprehensive data analysis",
+       "Zuckerindustrie 122(5), 380-387", "",
+       "ln gamma_w = (Q/RT) x_s^2 (1 + a x_s + b x_s^2), Q = -17638 J/mol, a = -1.0038, "
+       "b = -0.24653 (constants as printed in a summary of the paper; the form inferred from them)"},
       {"colligate_fit_user", "the user of colligate", 0,
        "Constants fitted by colligate.fit to the user's own data",
        "the provenance fields of the fitted-solute file", "", "see the record's note"},
