@@ -29,6 +29,7 @@ def quietly(fn, *args, **kwargs):
 def test_adding_solute_never_raises_the_freezing_point(recipe, extra, amount):
     base = cg.Solution.from_mass_fractions(recipe, total_mass=1.0)
     more = dict(base.solutes)
+    (extra,) = cg.Solution.from_molalities({extra: 1.0}).solutes  # its id ('NaCl' -> 'sodium_chloride')
     more[extra] = more.get(extra, 0.0) + amount
     richer = cg.Solution(water=base.water, solutes=more)
     assert quietly(cg.freezing_point, richer) <= quietly(cg.freezing_point, base)
@@ -104,6 +105,7 @@ def test_no_policy_returns_a_value_outside_physical_bounds(recipe, T, model, pol
 def test_more_solute_lowers_freezing_point_and_water_activity(recipe, extra, amount):
     base = cg.Solution.from_mass_fractions(recipe)
     more = dict(base.solutes)
+    (extra,) = cg.Solution.from_molalities({extra: 1.0}).solutes  # its id ('NaCl' -> 'sodium_chloride')
     more[extra] = more.get(extra, 0.0) + amount
     richer = cg.Solution(water=base.water, solutes=more)
     tf0, tf1 = quietly(cg.freezing_point, base), quietly(cg.freezing_point, richer)
