@@ -3,18 +3,20 @@
 ::
 
     colligate freeze-time RECIPE.toml --shape slab --size 0.05 --initial 5 --medium -30
-                          --h 20 --target -18 [--plot PNG] [--json]
+                          --h 20 --target -18 [--plot PNG] [--save FILE] [--json]
 
 Temperatures on the command line are in degC (converted to K here, at the edge); size is
 the full thickness or diameter in m; h in W/(m^2 K). Prints Plank's time (phase change
 only), Pham's (1986) time and the enthalpy-method simulation's time for the thermal centre
 to reach the target, and writes a plot of the temperature histories and the heat flow.
+The plot and the saved text are written together or not at all (``_files.OutputSet``).
 """
 from __future__ import annotations
 
 import argparse
 import json
 import math
+import os
 
 __all__ = ["add_parser", "run"]
 
@@ -33,6 +35,7 @@ def add_parser(sub) -> None:
     p.add_argument("--target", type=float, required=True, metavar="DEGC", help="target centre temperature, degC")
     p.add_argument("--plot", metavar="PNG", help="write the temperature histories and heat flow to this PNG")
     p.add_argument("--json", action="store_true", help="print machine-readable results (units in the keys)")
+    p.add_argument("--save", metavar="FILE", help="also write the printed text (or JSON) to this file")
 
 
 def _estimates(recipe, args) -> tuple[dict, object]:
@@ -73,16 +76,32 @@ def run(args: argparse.Namespace, recipe, inputs: list[str]) -> str:
     """Computes, writes the plot if asked, and returns the text (or JSON) to print."""
     from ._warnings import CAUTIONS
 
-    if args.plot:
-        from ._files import check_output_path
+    from ._files import OutputSet
 
-        check_output_path(args.plot, inputs, "plot")
-    result, sim = _estimates(recipe, args)
-    if args.plot:
-        result["plot"] = sim.plot(args.plot, inputs=inputs)
+    # All outputs or none (as ``colligate report``): every path is checked before computing,
+    # files are staged and renamed into place together only once everything succeeded.
+    with OutputSet(inputs) as out:
+        if args.plot:
+            from .plot import check_plot_path
+
+            check_plot_path(args.plot, inputs, "--plot")
+            out.plan(args.plot, "--plot")
+        if args.save:
+            out.plan(args.save, "--save")
+        result, sim = _estimates(recipe, args)
+        if args.plot:
+            result["plot"] = os.path.abspath(sim.plot(args.plot, inputs=inputs, outputs=out))
+        text = _format(result, recipe, args, CAUTIONS)
+        if args.save:
+            out.write_text(args.save, text)
+        out.commit()
+    return text
+
+
+def _format(result: dict, recipe, args: argparse.Namespace, cautions) -> str:
     if args.json:
         clean = {k: (None if isinstance(v, float) and math.isnan(v) else v) for k, v in result.items()}
-        clean["cautions"] = list(CAUTIONS)
+        clean["cautions"] = list(cautions)
         return json.dumps(clean, indent=2) + "\n"
     lines = [
         f"{result['mode'].capitalize()} time of '{getattr(recipe, 'name', 'recipe')}': {args.shape}, "
@@ -101,5 +120,5 @@ def run(args: argparse.Namespace, recipe, inputs: list[str]) -> str:
                   f"k_frozen {i['k_frozen_W_mK']:.2f} W/(m K)"]
     if result.get("plot"):
         lines += ["", f"  plot: {result['plot']}"]
-    lines += ["", "Caution: " + result["caution"]] + ["Caution: " + c for c in CAUTIONS]
+    lines += ["", "Caution: " + result["caution"]] + ["Caution: " + c for c in cautions]
     return "\n".join(lines) + "\n"

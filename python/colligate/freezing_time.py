@@ -199,8 +199,11 @@ class FreezingSimulation:
     def success(self) -> bool:
         return self.status == "reached_target"
 
-    def plot(self, path, *, title: str | None = None, inputs: Sequence[str] = ()) -> str:
-        """Write a PNG of the centre, surface and medium temperatures and the heat flow."""
+    def plot(self, path, *, title: str | None = None, inputs: Sequence[str] = (), outputs: Any = None) -> str:
+        """Write a PNG of the centre, surface and medium temperatures and the heat flow.
+
+        With ``outputs`` (a ``_files.OutputSet``) the file is staged in that set and appears
+        only when the set is committed, with the command's other outputs."""
         from .plot import _figure
 
         h = self.history
@@ -221,7 +224,7 @@ class FreezingSimulation:
         fig.text(0.01, 0.01, "colligate estimate; " + FREEZING_TIME_CAUTION, fontsize=6, color="#555555",
                  wrap=True)
         fig.tight_layout(rect=(0, 0.05, 1, 1))
-        return atomic_write(path, lambda fh: fig.savefig(fh, format="png"), inputs, "plot")
+        return atomic_write(path, lambda fh: fig.savefig(fh, format="png"), inputs, "plot", into=outputs)
 
 
 def _medium(T_medium: Any) -> tuple[list[float], list[float]]:
@@ -299,7 +302,8 @@ def boiling_point(solution: Any, pressure: float = 101325.0, model: str = "auto"
 
     Warns (:class:`OutOfValidityRangeWarning`) when the activity model is used outside its
     validated temperature range, which is the case for the Norrish constants (fitted near
-    0-25 C) at atmospheric boiling points.
+    0-25 C) at atmospheric boiling points. For a sucrose syrup pass
+    ``model="starzak_peacock"`` (temperature-dependent, Starzak & Peacock 1997).
     """
     r = _core.boiling_point(solution, pressure, model, range_policy)
     _warn(r["reason"])

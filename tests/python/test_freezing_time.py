@@ -127,6 +127,10 @@ def test_boiling_point_of_water_and_sucrose():
         back = cg.concentration_for_boiling_point(cg.Solution.from_mass_fractions({"sucrose": 0.1}), Tb)
     # the 50 % solution boiling at Tb comes back (round trip)
     assert back.brix == pytest.approx(50.0, rel=1e-6)
+    # the temperature-dependent sucrose model (Starzak & Peacock 1997) is in range at 100 C
+    # and gives a lower elevation than the 25 C Norrish constant (no warning raised)
+    sp = cg.boiling_point(s, model="starzak_peacock")
+    assert C0 + 99.97 < sp < Tb
 
 
 def test_thermal_properties_frame():
@@ -166,3 +170,25 @@ def test_cli_freeze_time_bad_input(capsys):
     rc = main(["freeze-time", "demo", "--size", "-1", "--initial", "5", "--medium", "-30", "--h", "20",
                "--target", "-18"])
     assert rc == 2 and "size" in capsys.readouterr().err
+
+
+def test_cli_freeze_time_writes_all_outputs_or_none(tmp_path, capsys):
+    from colligate.cli import main
+
+    png, txt = tmp_path / "ft.png", tmp_path / "ft.txt"
+    base = ["freeze-time", "demo", "--size", "0.05", "--initial", "5", "--h", "20", "--target", "-18",
+            "--plot", str(png), "--save", str(txt)]
+    # A medium warmer than the target fails after both paths were planned: no file appears.
+    rc = main(base + ["--medium", "-10"])
+    assert rc == 2 and "T_medium" in capsys.readouterr().err
+    assert not png.exists() and not txt.exists()
+    assert [p.name for p in tmp_path.iterdir()] == []  # no temporary file left either
+    # Both outputs on one file are refused before anything is computed.
+    rc = main(["freeze-time", "demo", "--size", "0.05", "--initial", "5", "--h", "20", "--target", "-18",
+               "--medium", "-30", "--plot", str(png), "--save", str(png)])
+    assert rc == 2 and "same file" in capsys.readouterr().err and not png.exists()
+    # A good run writes both; the saved text is what was printed, with the cautions.
+    rc = main(base + ["--medium", "-30"])
+    out = capsys.readouterr().out
+    assert rc == 0 and png.stat().st_size > 1000
+    assert txt.read_text(encoding="utf-8") == out and "local codes" in out

@@ -29,6 +29,7 @@ def quietly(fn, *args, **kwargs):
 def test_adding_solute_never_raises_the_freezing_point(recipe, extra, amount):
     base = cg.Solution.from_mass_fractions(recipe, total_mass=1.0)
     more = dict(base.solutes)
+    (extra,) = cg.Solution.from_molalities({extra: 1.0}).solutes  # its id ('NaCl' -> 'sodium_chloride')
     more[extra] = more.get(extra, 0.0) + amount
     richer = cg.Solution(water=base.water, solutes=more)
     assert quietly(cg.freezing_point, richer) <= quietly(cg.freezing_point, base)

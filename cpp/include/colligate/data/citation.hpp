@@ -337,6 +337,11 @@ inline const std::vector<citation>& citations() {
        "polynomial fits of the equilibrium relative humidity over saturated NaCl, KCl and "
        "MgCl2 solutions (table number not read), coefficients read in the public copy matusm/HumiFixPoints "
        "(SaturatedSolution.cs, after OIML R 121)"},
+      {"starzak_peacock_1997", "Starzak, M.; Peacock, S. D.", 1997,
+       "Water activity coefficient in aqueous solutions of sucrose - a comprehensive data analysis",
+       "Zuckerindustrie 122(5), 380-387", "",
+       "ln gamma_w = (Q/RT) x_s^2 (1 + a x_s + b x_s^2), Q = -17638 J/mol, a = -1.0038, "
+       "b = -0.24653 (constants as printed in a summary of the paper; the form inferred from them)"},
       {"colligate_fit_user", "the user of colligate", 0,
        "Constants fitted by colligate.fit to the user's own data",
        "the provenance fields of the fitted-solute file", "", "see the record's note"},

@@ -12,9 +12,11 @@
 /// activity models (models/water_activity.hpp). The elevation is T_b - T_s(P).
 ///
 /// Validity: every result carries the activity model's own validity record at the boiling
-/// temperature. The Norrish constants are fitted to data between about -30 and +25 C and
-/// are used unchanged at 100 C (the model's temperature range ends at 323.15 K, so
-/// boiling points at atmospheric pressure are flagged out of range); the Pitzer sets end
+/// temperature. For a sucrose syrup, ask for the temperature-dependent model
+/// 'starzak_peacock' (Starzak & Peacock 1997, models/starzak_peacock.hpp, in range to
+/// 150 C; 'auto' does not pick it). The Norrish constants are fitted to data between about
+/// -30 and +25 C and are used unchanged at 100 C (the model's temperature range ends at
+/// 323.15 K, so boiling points at atmospheric pressure are flagged out of range); the Pitzer sets end
 /// where their temperature functions end. Ethanol is volatile: its boiling point is not
 /// described by this relation at all, and solutions with it are rejected.
 

@@ -12,6 +12,7 @@
 #include "colligate/models/pitzer.hpp"
 #include "colligate/models/raoult.hpp"
 #include "colligate/models/registry.hpp"
+#include "colligate/models/starzak_peacock.hpp"
 
 namespace colligate::models {
 
@@ -23,6 +24,7 @@ inline const model_registry& builtin_models() {
       norrish::descriptor(),
       pitzer::descriptor(),
       ross::descriptor(),
+      starzak_peacock::descriptor(),
   });
   return registry;
 }
