@@ -6,7 +6,7 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'correlation_matrix', 'coverage_factor', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'food_thermal_uncertainty', 'freezing_point', 'ice_fraction', 'ice_vapour_pressure', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'mean_activity_coefficient', 'models', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'propagate_uncertainty', 'record_with_uncertainty', 'rod_shape_factor', 'row_status_reasons', 'saturation_pressure', 'saturation_temperature', 'simulate_food', 'simulate_material', 'solute_table', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_of_ice']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'correlation_matrix', 'coverage_factor', 'crystallisation_check', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_isotherm', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'food_thermal_uncertainty', 'freezing_point', 'glass_curve', 'glass_transition', 'glass_transition_table', 'ice_fraction', 'ice_vapour_pressure', 'isosteric_heat', 'isotherm_moisture', 'isotherm_range_reason', 'isotherm_water_activity', 'lactose_initial_solubility', 'lactose_mutarotation_ratio', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'liquidus_curve', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'maximal_freeze_concentration', 'mean_activity_coefficient', 'model_summaries', 'models', 'moisture_equilibrium', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'propagate_uncertainty', 'record_with_uncertainty', 'rod_shape_factor', 'row_status_reasons', 'salt_crystallisation_temperature', 'salt_equilibrium', 'saturation_pressure', 'saturation_temperature', 'shift_water_activity', 'simulate_food', 'simulate_material', 'solute_table', 'sugar_solubility', 'sugar_solubility_curves', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_growth_limits', 'water_activity_of_ice', 'water_glass_transition_temperature']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
@@ -572,7 +572,7 @@ def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def boiling_point(solution: Solution, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
     """
@@ -610,6 +610,10 @@ def coverage_factor(level: typing.SupportsFloat | typing.SupportsIndex, degrees_
     """
     Two-sided coverage factor: Student t with `degrees_of_freedom` (> 0), normal for 0.
     """
+def crystallisation_check(solution: Solution, temperatures: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> dict:
+    """
+    Supersaturation of each sugar with a solubility curve in the unfrozen phase at each temperature (K), Tg' (K, NaN if unknown) and the temperature intervals (K) where each can crystallise (supersaturated and above Tg').
+    """
 def curve_fit(model: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"]], x: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], y: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], p0: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, jacobian: collections.abc.Callable[[typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, n]"], typing.Annotated[numpy.typing.NDArray[numpy.float64], "[m, 1]"]], typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"]] | None = None, lower_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, upper_bounds: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, max_iterations: typing.SupportsInt | typing.SupportsIndex = 500, scale_covariance: bool = True) -> FitResult:
     """
     Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) to y.
@@ -646,6 +650,10 @@ def fit_effective_solute_freezing(water_fraction: typing.Annotated[numpy.typing.
 def fit_effective_solute_ice_curve(water_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_bound_water: bool = True, molar_mass_start: typing.SupportsFloat | typing.SupportsIndex = 0.2, bound_water_start: typing.SupportsFloat | typing.SupportsIndex = 0.1) -> FitResult:
     """
     Effective solute from an ice-fraction curve (ice mass / total water vs T in K).
+    """
+def fit_isotherm(model: str, water_activity: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], moisture: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None) -> FitResult:
+    """
+    Fit a 'gab', 'bet' or 'oswin' isotherm to (a_w, moisture kg/kg dry solids) data.
     """
 def fit_norrish_freezing_point(molality: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], freezing_point: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"], weights: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, 1]"] | None = None, fit_k3: bool = False, k_start: typing.SupportsFloat | typing.SupportsIndex = 2.0, k3_start: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> FitResult:
     """
@@ -693,11 +701,47 @@ def food_thermal_uncertainty(composition: typing.Any, solution: Solution, quanti
     """
 def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
     ...
+def glass_curve(solution: Solution, solute_mass_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], rule: str = 'gordon_taylor') -> numpy.typing.NDArray[numpy.float64]:
+    """
+    Tg (K) of the solution's solutes, in their proportions, at each total solute mass fraction in (0, 1].
+    """
+def glass_transition(solution: Solution, water_kg: typing.SupportsFloat | typing.SupportsIndex | None = None, rule: str = 'gordon_taylor') -> dict:
+    """
+    Glass transition of water_kg of water (default None: all the solution's water) with the solution's solutes: dict with temperature (K), counted and lacking solute ids and counted_solute_mass_fraction. Raises ValueError naming the solutes if none has data.
+    """
+def glass_transition_table() -> list:
+    """
+    The built-in glass-transition constants: Tg of the anhydrous solute (K), Gordon-Taylor k with water, Delta Cp at Tg (J/(kg K), 0 if not known), source keys and notes.
+    """
 def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
 def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Vapour pressure of ice, Pa (Murphy & Koop 2005 eq. 7).
+    """
+def isosteric_heat(model1: str, p1_1: typing.SupportsFloat | typing.SupportsIndex, p2_1: typing.SupportsFloat | typing.SupportsIndex, p3_1: typing.SupportsFloat | typing.SupportsIndex, temperature1: typing.SupportsFloat | typing.SupportsIndex, model2: str, p1_2: typing.SupportsFloat | typing.SupportsIndex, p2_2: typing.SupportsFloat | typing.SupportsIndex, p3_2: typing.SupportsFloat | typing.SupportsIndex, temperature2: typing.SupportsFloat | typing.SupportsIndex, moisture: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Net isosteric heat of sorption (J/mol) at a moisture from isotherms at two temperatures.
+    """
+def isotherm_moisture(model: str, p1: typing.SupportsFloat | typing.SupportsIndex, p2: typing.SupportsFloat | typing.SupportsIndex, p3: typing.SupportsFloat | typing.SupportsIndex, water_activity: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> numpy.typing.NDArray[numpy.float64]:
+    """
+    Equilibrium moisture (kg water per kg dry solids) at each water activity in (0, 1).
+    """
+def isotherm_range_reason(model: str, p1: typing.SupportsFloat | typing.SupportsIndex, p2: typing.SupportsFloat | typing.SupportsIndex, p3: typing.SupportsFloat | typing.SupportsIndex, aw_min: typing.SupportsFloat | typing.SupportsIndex, aw_max: typing.SupportsFloat | typing.SupportsIndex, water_activity: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> tuple[str, int]:
+    """
+    (first reason, count) of the water activities outside the isotherm's data range.
+    """
+def isotherm_water_activity(model: str, p1: typing.SupportsFloat | typing.SupportsIndex, p2: typing.SupportsFloat | typing.SupportsIndex, p3: typing.SupportsFloat | typing.SupportsIndex, moisture: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> numpy.typing.NDArray[numpy.float64]:
+    """
+    Water activity at each moisture (kg water per kg dry solids, > 0).
+    """
+def lactose_initial_solubility(temperature: typing.SupportsFloat | typing.SupportsIndex) -> tuple[float, float, str, str]:
+    """
+    Initial solubility of alpha-lactose at T (K), as sugar_solubility.
+    """
+def lactose_mutarotation_ratio(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Equilibrium beta/alpha ratio of lactose in solution at T (K).
     """
 def lactose_solubility(temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> numpy.typing.NDArray[numpy.float64]:
     """
@@ -725,6 +769,10 @@ def liquid_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIn
     """
     Vapour pressure of liquid or supercooled water, Pa (Murphy & Koop 2005 eq. 10).
     """
+def liquidus_curve(solution: Solution, solute_mass_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+    """
+    Freezing point (K; NaN where none above the search limit) of the solution's solutes, in their proportions, at each total solute mass fraction in (0, 1): (values, first reason, count out of range).
+    """
 def ln_water_activity_of_ice(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     ln a_w of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere.
@@ -741,11 +789,23 @@ def max_msnf_for_lactose_in_solution(water_fraction: typing.SupportsFloat | typi
     """
     Largest milk solids-not-fat (kg per kg of mix) that keeps lactose in solution by the rule of Hyde & Rothwell (1973), (water + MSNF) / 7; source key ``hyde_rothwell_1973``.
     """
+def maximal_freeze_concentration(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, rule: str = 'gordon_taylor') -> dict:
+    """
+    Tg' (K) and Cg' (solute mass fraction) where the unfrozen phase on the ice curve meets its glass curve, with Wg' (kg unfrozen water per kg solutes), the ice fraction there, the solve status and the ice curve's validity reason ('' when in range).
+    """
 def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
     ...
+def model_summaries() -> list:
+    """
+    The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities.
+    """
 def models() -> list[str]:
     """
     Ids of the activity models.
+    """
+def moisture_equilibrium(parts: collections.abc.Sequence[tuple[str, typing.SupportsFloat | typing.SupportsIndex, typing.SupportsFloat | typing.SupportsIndex, typing.SupportsFloat | typing.SupportsIndex, typing.SupportsFloat | typing.SupportsIndex, typing.SupportsFloat | typing.SupportsIndex]]) -> dict:
+    """
+    Equilibrium of parts (model, p1, p2, p3, dry solids kg, moisture kg/kg dry solids): common water activity, final moisture and water gained (kg) of each part, their initial water activities, and the Salwin-Slawson estimate.
     """
 def norrish_solute_record(result: FitResult, id: str, name: str, molar_mass: typing.SupportsFloat | typing.SupportsIndex, max_mass_fraction: typing.SupportsFloat | typing.SupportsIndex, note: str) -> SoluteRecord:
     """
@@ -795,6 +855,14 @@ def row_status_reasons() -> list[str]:
     """
     Readable reason for each row status code (index = code).
     """
+def salt_crystallisation_temperature(solution: Solution, model: str = 'auto') -> dict:
+    """
+    Temperature (K) at which ``solution`` first crystallises a salt on cooling, without ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).
+    """
+def salt_equilibrium(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto') -> dict:
+    """
+    The state of ``solution`` at ``temperature`` (K) with salts allowed to crystallise (no ice), as a dict (equilibria/salt_equilibrium.hpp).
+    """
 def saturation_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Saturation vapour pressure of water, Pa, at T (K); Wagner & Pruss (1993), IAPWS.
@@ -802,6 +870,10 @@ def saturation_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex
 def saturation_temperature(pressure: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
     Boiling temperature of pure water, K, at P (Pa); Wagner & Pruss (1993), IAPWS.
+    """
+def shift_water_activity(water_activity: typing.SupportsFloat | typing.SupportsIndex, reference_temperature: typing.SupportsFloat | typing.SupportsIndex, temperature: typing.SupportsFloat | typing.SupportsIndex, isosteric_heat: typing.SupportsFloat | typing.SupportsIndex) -> float:
+    """
+    Water activity at T (K) at the same moisture, from a_w at the reference T and the net isosteric heat (J/mol), by Clausius-Clapeyron.
     """
 def simulate_food(composition: typing.Any, solution: Solution, bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex, model: str, shape: str, size: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, medium_time: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], medium_temperature: collections.abc.Sequence[typing.SupportsFloat | typing.SupportsIndex], h: typing.SupportsFloat | typing.SupportsIndex, T_target: typing.SupportsFloat | typing.SupportsIndex, max_time: typing.SupportsFloat | typing.SupportsIndex, intervals: typing.SupportsInt | typing.SupportsIndex, time_step: typing.SupportsFloat | typing.SupportsIndex, record_every: typing.SupportsInt | typing.SupportsIndex = 1, conductivity_rule: str = 'parallel') -> dict:
     """
@@ -814,6 +886,14 @@ def simulate_material(temperature: collections.abc.Sequence[typing.SupportsFloat
 def solute_table() -> list:
     """
     The built-in solute table as a list of dicts (SI units, with source keys).
+    """
+def sugar_solubility(solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex) -> tuple[float, float, str, str]:
+    """
+    Solubility of a sugar (sucrose, lactose: final; glucose: stable phase) at T (K): (mass fraction of the saturated solution, kg per kg water, solid phase, reason).
+    """
+def sugar_solubility_curves() -> list:
+    """
+    The sugar solubility curves: ln S = a + b/T + c ln T (S kg per kg water, T in K), the data range (K), source keys and notes.
     """
 def sweetness_table() -> list:
     """
@@ -831,11 +911,21 @@ def unfrozen_specific_heat(composition: typing.Any, temperature: typing.Supports
     """
     Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).
     """
-def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
-    ...
+def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[float, str, str]:
+    """
+    (a_w, reason, supersaturation notice). saturation='equilibrium' (default): a solution above a salt's solubility gives the a_w of its equilibrium state, salt crystallised; 'metastable': the solution as one liquid.
+    """
+def water_activity_growth_limits() -> list:
+    """
+    Published minimum water activities for growth of groups of microorganisms, with sources.
+    """
 def water_activity_of_ice(temperature: typing.SupportsFloat | typing.SupportsIndex, range_policy: str = 'extrapolate') -> tuple[float, str]:
     """
     Water activity of a solution in equilibrium with ice at ``temperature`` (K), one atmosphere, and the reason when outside 233.15-273.15 K (value, reason). No value below 215 K or above the ice point (NaN, or OutOfValidityRangeError with 'raise').
+    """
+def water_glass_transition_temperature() -> float:
+    """
+    Glass transition temperature of amorphous water used by the glass curves, K.
     """
 CRYOSCOPIC_CONSTANT: float = 1.8604572278991671
 ENTHALPY_REFERENCE_TEMPERATURE: float = 233.15
