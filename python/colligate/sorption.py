@@ -118,8 +118,11 @@ def fit_gab(moisture, water_activity, *, temperature: float = 298.15, weights=No
     weights : array_like or str, optional
         Relative weights (e.g. 1/sigma^2).
 
-    Returns an :class:`IsothermFit` (parameters xm, c, k with standard errors, ``ci()``,
-    ``plot()`` with a residual panel, and ``.isotherm``).
+    Returns
+    -------
+    IsothermFit
+        Parameters xm, c, k with standard errors, ``ci()``, ``plot()`` with a residual
+        panel, and ``.isotherm``.
     """
     return _fit("gab", moisture, water_activity, temperature, weights, data, data_name)
 

@@ -79,6 +79,8 @@ def glass_transition(solution: "api.Solution", rule: str = "gordon_taylor", *,
     water_kg : float, optional
         Water of the phase, kg (for example an unfrozen phase's liquid plus bound water).
 
+    Notes
+    -----
     Solutes without data are left out with a :class:`GlassDataWarning`; with none left a
     ValueError names them.
     """
