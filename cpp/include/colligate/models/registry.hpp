@@ -5,7 +5,7 @@
 /// solutions 'auto' gives it) in one registry. Every caller looks models up here; no code
 /// outside the model headers switches over model names.
 ///
-/// Adding a model: one header (models/<id>.hpp, with a `descriptor()`), one line in
+/// Adding a model: one header (models/ID.hpp, with a `descriptor()`), one line in
 /// builtin_models() below, one test. A caller may also extend a registry at run time
 /// (model_registry::with) without touching this file; registries are values, so there is
 /// no global mutable state.
