@@ -1,7 +1,10 @@
 """Glass transition and state diagram (colligate.storage)."""
 import warnings
 
+from pathlib import Path
+
 import matplotlib
+import pandas as pd
 import pytest
 
 import colligate as cg
@@ -10,6 +13,7 @@ from colligate.storage import GlassDataWarning
 # An invented demo scenario (not a real product): a fig-and-honey gelato base, stored in a
 # -18 degC display cabinet and a -25 degC back store. Mass fractions of the whole mix.
 DEMO_MIX = {"sucrose": 0.15, "lactose": 0.06, "glucose": 0.04, "fructose": 0.02}
+REFERENCE = Path(__file__).resolve().parents[1] / "reference"
 DEMO_STORES = {"display cabinet": 273.15 - 18.0, "back store": 273.15 - 25.0}
 
 
@@ -31,6 +35,26 @@ def test_sucrose_cg_prime_against_dsc():
     # Tg' lies on the glass curve at Cg' (identity of the two curves' meeting point).
     assert float(sd.glass_curve([sd.cg_prime])[0]) == pytest.approx(sd.tg_prime, abs=1e-3)
     assert sd.margin(273.15 - 18.0) == pytest.approx(273.15 - 18.0 - sd.tg_prime)
+
+
+def test_sucrose_tg_prime_on_the_temperature_dependent_ice_curve():
+    # Published measurements of the maximally freeze-concentrated sucrose phase (copies read):
+    # Tg' "around -47 degC" by DSC (Cryobiology 2006, "Enthalpy relaxation of freeze
+    # concentrated sucrose-water glass", abstract); Cg' "close to 80 % (w/w)" by TMA (Le Meste
+    # & Huang 1992, J. Food Sci., abstract). 3 K and 0.03 as issue 14 asks. The ice curve is
+    # the temperature-dependent sucrose activity (Starzak & Peacock 1997), which the default
+    # 'auto' (25 degC Norrish constant, Tg' -42.4 degC) is not; below -40 degC it is an
+    # extrapolation and warns.
+    # Values from tests/reference/sucrose_freeze_concentration.csv (source_key per row).
+    published = pd.read_csv(REFERENCE / "sucrose_freeze_concentration.csv").set_index("quantity")
+    assert (published.used_in_fit == "no").all()
+    assert all(cg.citation(key) for key in published.source_key)
+    s = cg.Solution.from_mass_fractions({"sucrose": 0.20})
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="starzak_peacock"):
+        sd = cg.state_diagram(s, model="starzak_peacock")
+    assert sd.status == "converged"
+    assert sd.tg_prime == pytest.approx(273.15 + published.at["tg_prime", "value"], abs=3.0)  # -47 C
+    assert sd.cg_prime == pytest.approx(published.at["cg_prime", "value"], abs=0.03)  # 0.80
 
 
 def test_couchman_karasz_is_an_option_and_differs():

@@ -5,6 +5,8 @@
 #include "colligate/data/citation.hpp"
 #include "colligate/equilibria/state_diagram.hpp"
 
+#include "../reference_csv.hpp"
+
 using namespace colligate;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
@@ -12,6 +14,13 @@ using equilibria::glass_rule;
 
 namespace {
 constexpr double celsius(double t) { return t + 273.15; }
+
+// A value of tests/reference/sucrose_freeze_concentration.csv (published, source_key per row).
+double sucrose_published(const std::string& quantity) {
+  for (const auto& row : colligate_test::read_reference("sucrose_freeze_concentration.csv"))
+    if (row.at("quantity") == quantity) return std::stod(row.at("value"));
+  throw std::runtime_error("no row " + quantity + " in sucrose_freeze_concentration.csv");
+}
 }  // namespace
 
 TEST_CASE("Gordon-Taylor reduces to Roos's binary form and to its end points", "[glass]") {
@@ -77,16 +86,62 @@ TEST_CASE("Sucrose Cg' from the ice and glass curves against DSC", "[glass][publ
   CHECK_FALSE(r.check.in_range());
 }
 
-// Known miss, kept visible: the library gives Tg' = -42.4 degC for sucrose (Gordon-Taylor
-// with Roos 1993 Tg and k on the Norrish ice curve, extrapolated above 70 wt%), 3.6 K above
-// the -46 degC of Roos & Karel (1991) (from memory). Cause not yet found (the ice curve above
-// 70 wt% and the source's onset-versus-intersection definition are the suspects); this
-// check fails today and Catch2's [!shouldfail] turns it red the day it passes, so the
-// tag must then be removed.
-TEST_CASE("Sucrose Tg' against DSC within 3 K (known miss)", "[glass][published][!shouldfail]") {
+// Published magnitudes of the maximally freeze-concentrated sucrose phase, read from copies
+// (tests/reference/sucrose_freeze_concentration.csv, used_in_fit = no):
+//  - Tg' "around -47 degC": DSC of frozen 40 % sucrose aged 1-6 days at -70 to -55 degC, the
+//    glass transition of the freeze-concentrated phase (Cryobiology 2006, "Enthalpy relaxation
+//    of freeze concentrated sucrose-water glass", abstract; source key
+//    cryobiology_2006_sucrose_glass). Roos & Karel (1991) give -46 degC (from memory).
+//  - Cg' "close to 80 % (w/w)": thermomechanical analysis of frozen sucrose solutions
+//    (Le Meste & Huang 1992, J. Food Sci., abstract; source key le_meste_huang_1992).
+// Tolerances 3 K and 0.03, as issue 14 asks; the sources print -47 degC and 80 % only.
+//
+// Cause of the former 4.6 K miss: the ice curve. 'auto' describes sucrose with one Norrish
+// constant fitted near 0-25 degC and no temperature dependence; at 80 wt% and -40 degC that
+// sets the liquidus 3.7 K warmer than the temperature-dependent sucrose activity of Starzak &
+// Peacock (1997, excess enthalpy Q = -17638 J/mol: ln gamma_w grows as 1/T, so a_w at a given
+// concentration falls on cooling). The glass curve (Gordon-Taylor, Roos 1993 Tg and k) is
+// unchanged. On the temperature-dependent ice curve the intersection meets both published
+// values; on the 25 degC one it does not (the known miss below).
+TEST_CASE("Sucrose Tg' and Cg' on the temperature-dependent ice curve against measurements",
+          "[glass][published]") {
+  const auto s = solution::from_mass_fractions({{"sucrose", 0.20}});
+  const auto r = equilibria::maximal_freeze_concentration_of(s, "starzak_peacock");
+  REQUIRE(r.success());
+  // -47 degC, cryobiology_2006_sucrose_glass (DSC); 0.80, le_meste_huang_1992 (TMA)
+  CHECK_THAT(r.tg_prime, WithinAbs(celsius(sucrose_published("tg_prime")), 3.0));
+  CHECK_THAT(r.cg_prime, WithinAbs(sucrose_published("cg_prime"), 0.03));
+  // Below -40 degC the sucrose model's temperature dependence is extrapolated, and says so.
+  CHECK_FALSE(r.check.in_range());
+  // The cause, shown: at 80 wt% the 25 degC Norrish liquidus lies more than 3 K above the
+  // temperature-dependent one, while at 20 wt% the two agree within 0.1 K (both meet the CRC
+  // freezing points there).
+  const double norrish80 = equilibria::liquidus_point(s, 0.80, "norrish").temperature;
+  const double sp80 = equilibria::liquidus_point(s, 0.80, "starzak_peacock").temperature;
+  CHECK(norrish80 - sp80 > 3.0);
+  CHECK_THAT(equilibria::liquidus_point(s, 0.20, "norrish").temperature,
+             WithinAbs(equilibria::liquidus_point(s, 0.20, "starzak_peacock").temperature, 0.1));
+}
+
+TEST_CASE("Glass curve end point: Tg of dry amorphous sucrose against DSC", "[glass][published]") {
+  // DSC of freeze-dried sucrose: Tg 60 degC (Int. J. Food Prop. 2006, "Glass transition and
+  // crystallization of amorphous trehalose-sucrose mixtures", abstract; source key
+  // ijfp_2006_trehalose_sucrose). The table's 62 degC is Roos (1993, from memory). Tolerance
+  // 3 K: published DSC values of dry sucrose differ by a few K with heating rate and the
+  // onset/midpoint reading.
+  const auto s = solution::from_mass_fractions({{"sucrose", 0.5}});
+  CHECK_THAT(equilibria::glass_curve_point(s, 1.0).temperature,
+             WithinAbs(celsius(sucrose_published("tg_dry")), 3.0));  // 60 degC
+}
+
+// Known miss of the default, kept visible: 'auto' (the 25 degC Norrish constant) puts Tg' at
+// -42.4 degC, 4.6 K above the DSC value; the cause is the ice curve (see above). Catch2's
+// [!shouldfail] turns this red the day it passes, so the tag must then be removed.
+TEST_CASE("Sucrose Tg' on the default ice curve against DSC within 3 K (known miss)",
+          "[glass][published][!shouldfail]") {
   const auto r = equilibria::maximal_freeze_concentration_of(solution::from_mass_fractions({{"sucrose", 0.20}}));
   REQUIRE(r.success());
-  CHECK_THAT(r.tg_prime, WithinAbs(celsius(-46.0), 3.0));
+  CHECK_THAT(r.tg_prime, WithinAbs(celsius(sucrose_published("tg_prime")), 3.0));  // -47 degC
 }
 
 TEST_CASE("Tg' lies below the freezing point and above the ice data's limit", "[glass]") {

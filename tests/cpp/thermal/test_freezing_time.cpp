@@ -24,9 +24,11 @@ constexpr double C0 = 273.15;
 
 TEST_CASE("Plank: beef steak worked example", "[thermal][freezing_time][plank]") {
   // Singh & Heldman, Introduction to Food Engineering (4th ed., 2009), ch. 7 example on
-  // Plank's equation (from memory, not re-read): 5 cm beef steak, 73 % water, density
-  // 970 kg/m^3, k_frozen 1.1 W/(m K), initial freezing point -1.75 C, room -30 C,
-  // h = 5 W/(m^2 K), latent heat 0.73 x 333.22 kJ/kg; printed answer 12.26 h.
+  // Plank's equation: 5 cm beef steak, 73 % water, density 970 kg/m^3, k_frozen 1.1 W/(m K),
+  // initial freezing point -1.75 C, room -30 C, h = 5 W/(m^2 K), latent heat 0.73 x 333.22
+  // kJ/kg. The problem statement was re-read in two copies (askfilo.com and bartleby.com
+  // question pages: the same inputs; the latter misprints -75 C for -1.75 C); neither copy
+  // prints the book's answer, so the 12.26 h checked here is still from memory.
   const double t = thermal::plank_time(body_shape::slab, 0.05, 970.0, 0.73 * 333.22e3, C0 - 1.75,
                                        C0 - 30.0, 5.0, 1.1);
   // printed to 4 significant figures: within half a unit of the last digit

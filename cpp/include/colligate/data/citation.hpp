@@ -408,6 +408,19 @@ inline const std::vector<citation>& citations() {
        "Development of B.E.T.-like models for sorption of water on foods, theory and relevance",
        "in Simatos, D.; Multon, J. L. (eds.), Properties of Water in Foods, Martinus Nijhoff, 119-131", "",
        "the GAB isotherm and its linearised form"},
+      {"cryobiology_2006_sucrose_glass", "(authors not shown in the copy read)", 2006,
+       "Enthalpy relaxation of freeze concentrated sucrose-water glass", "Cryobiology (2006)", "",
+       "abstract (copy read on daneshyari.com, article 2169628): DSC of frozen 40 % sucrose aged "
+       "at -70 to -55 C; glass transition of the freeze-concentrated phase around -47 C"},
+      {"le_meste_huang_1992", "Le Meste, M.; Huang, V.", 1992,
+       "Thermomechanical properties of frozen sucrose solutions", "J. Food Sci. 57",
+       "doi:10.1111/j.1365-2621.1992.tb11305.x",
+       "abstract: TMA; maximum solute concentration of the amorphous phase close to 80 % (w/w); "
+       "ice melting from -32 C"},
+      {"ijfp_2006_trehalose_sucrose", "(authors not shown in the copy read)", 2006,
+       "Glass transition and crystallization of amorphous trehalose-sucrose mixtures",
+       "Int. J. Food Prop., 559-574", "doi:10.1080/10942910500269824",
+       "abstract: DSC of freeze-dried sugars; Tg of dry sucrose 60 C, trehalose 106 C"},
   };
   return table;
 }
