@@ -11,6 +11,9 @@ namespace colligate_test {
 
 using csv_row = std::map<std::string, std::string>;
 
+/// The folder of tests/reference/ (defined in main.cpp, the one file compiled with it).
+const char* reference_dir();
+
 inline std::vector<std::string> split_csv_line(const std::string& line) {
   std::vector<std::string> out;
   std::string field;
@@ -40,7 +43,7 @@ inline std::vector<std::string> split_csv_line(const std::string& line) {
 }
 
 inline std::vector<csv_row> read_reference(const std::string& name) {
-  const std::string path = std::string(COLLIGATE_REFERENCE_DIR) + "/" + name;
+  const std::string path = std::string(reference_dir()) + "/" + name;
   std::ifstream in(path);
   if (!in) throw std::runtime_error("cannot open reference table " + path);
   std::string line;
