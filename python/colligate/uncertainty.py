@@ -111,10 +111,11 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     quantity : str
         One of :data:`QUANTITIES`. ``T`` is unused for the freezing point.
     method : str
-        "linear" (analytic sensitivities; model 'norrish', constants norrish_k and
-        norrish_k3) or "monte_carlo" (any model and constant the record carries, e.g. a
-        fitted salt's Pitzer parameters): ``draws`` samples from a generator seeded with
-        ``seed`` (the same seed gives the same draws).
+        "linear" (analytic sensitivities: model 'norrish' with constants norrish_k and
+        norrish_k3; model 'pitzer' with a fitted salt's beta0, beta1, beta2, cphi and their
+        d/dT; 'auto' where it resolves to one of those) or "monte_carlo" (any model and
+        constant the record carries, e.g. a salt + sugar mixture under 'ross'): ``draws``
+        samples from a generator seeded with ``seed`` (the same seed gives the same draws).
     range_policy : str
         Outside the model's validated range: "extrapolate" (warn), "nan" (NaN value and
         uncertainty, warn) or "raise" (:class:`colligate.OutOfValidityRangeError`).
