@@ -4,6 +4,7 @@ keeps its covariance (also through its TOML file), the scalar functions take
 constants are poorly determined."""
 from __future__ import annotations
 
+import json
 import math
 import pathlib
 import tomllib
@@ -123,11 +124,30 @@ def test_coverage_factors_match_tables():
 
 
 def test_builtin_solutes_state_no_uncertainty():
+    # Chirife et al. (1980)'s sucrose K comes without a standard uncertainty: "not stated"
     assert cg.SoluteLibrary().find("sucrose").uncertainty is None
     s = cg.Solution.from_mass_fractions({"sucrose": 0.3})
     r = cg.freezing_point(s, with_uncertainty=True)
     assert r.std == 0.0 and r.not_stated == ["sucrose"] and r.constants == []
     assert r.value == cg.freezing_point(s)
+    table = cg.solutes()
+    assert table.loc["sucrose", "constant_uncertainty"] == "not stated"
+    assert table.loc["sodium_chloride", "constant_uncertainty"] == "not stated"
+
+
+def test_builtin_solutes_fitted_by_colligate_state_their_fit_uncertainty():
+    # Maltose's K is colligate's fit to the CRC Handbook rows marked used_in_fit
+    # (tools/fit_crc_norrish.py --covariance: u(K) = 0.102 with 16 degrees of freedom); the
+    # same fit by the C++ fitter on those rows is checked in test_prediction_uncertainty.cpp.
+    rec = cg.SoluteLibrary().find("maltose")
+    assert rec.uncertainty["names"] == ["norrish_k"]
+    assert rec.uncertainty["degrees_of_freedom"] == 16
+    assert rec.uncertainty["source"] == "colligate_fit_crc"
+    assert "u(norrish_k) = 0.102" in cg.solutes().loc["maltose", "constant_uncertainty"]
+    s = cg.Solution.from_mass_fractions({"maltose": 0.3, "sucrose": 0.1})
+    r = cg.freezing_point(s, with_uncertainty=True)
+    assert r.constants == ["maltose.norrish_k"] and r.not_stated == ["sucrose"]
+    assert r.std > 0.0 and r.degrees_of_freedom == 16
 
 
 def test_linear_and_monte_carlo_agree_within_5_percent(my_sucrose):
@@ -266,3 +286,84 @@ def test_range_policy_applies_with_uncertainty(my_sucrose):
     assert math.isnan(r.value) and math.isnan(r.std)
     with pytest.raises(cg.InvalidInputError, match="range_policy"):
         cg.freezing_point(s, with_uncertainty=True, range_policy="clip")
+
+
+def test_batch_returns_value_and_standard_uncertainty_columns(my_sucrose):
+    # A sweep over an invented range of syrup strengths (0-40 wt% of the fitted sucrose-like
+    # solute), one row per strength: the C++ kernel's columns equal the scalar results row
+    # by row (identity; no literature), in the caller's index.
+    _, lib = my_sucrose
+    w = np.linspace(0.0, 0.40, 9)
+    df_in = pd.DataFrame({"my sucrose": w}, index=[f"mix{i}" for i in range(len(w))])
+    batch = cg.SolutionBatch.from_mass_fractions(df_in, library=lib)
+    out = cg.freezing_point(batch, with_uncertainty=True)
+    assert list(out.columns) == ["freezing_point_K", "freezing_point_K_std", "degrees_of_freedom", "status"]
+    assert list(out.index) == list(df_in.index)
+    for name, wi in zip(df_in.index, w):
+        s = cg.Solution.from_mass_fractions({"my sucrose": float(wi)}, table=lib)
+        r = cg.freezing_point(s, with_uncertainty=True)
+        assert out.loc[name, "freezing_point_K"] == r.value
+        assert out.loc[name, "freezing_point_K_std"] == r.std
+        assert out.loc[name, "degrees_of_freedom"] == r.degrees_of_freedom
+    assert out["freezing_point_K_std"].iloc[0] == 0.0  # pure water: nothing to propagate
+    assert (out["freezing_point_K_std"].iloc[1:] > 0.0).all()
+    ice = cg.ice_fraction(batch, 270.15, with_uncertainty=True)  # -3 C: inside the fit's range
+    assert list(ice.columns)[:2] == ["ice_fraction", "ice_fraction_std"]
+    assert ice["ice_fraction"].iloc[0] == 1.0 and ice["ice_fraction_std"].iloc[0] == 0.0  # water: all ice
+    for i in (2, 6):
+        s = cg.Solution.from_mass_fractions({"my sucrose": float(w[i])}, table=lib)
+        r = cg.ice_fraction(s, 270.15, with_uncertainty=True)
+        assert ice["ice_fraction"].iloc[i] == r.value and ice["ice_fraction_std"].iloc[i] == r.std
+    assert ice["ice_fraction_std"].iloc[6] > 0.0
+    # built-in solutes state no uncertainty: std 0, not NaN
+    plain = cg.SolutionBatch.from_mass_fractions({"sucrose": w[1:]})
+    assert (cg.water_activity(plain, with_uncertainty=True)["water_activity_std"] == 0.0).all()
+    with pytest.raises(cg.InvalidInputError, match="linear"):
+        cg.freezing_point(batch, with_uncertainty="monte_carlo")
+
+
+def test_report_shows_the_band_when_a_solute_has_stated_uncertainty(my_sucrose):
+    # An invented recipe: 0.25 kg of the fitted syrup solids (CRC sucrose fit) in 0.75 kg
+    # water. The report's figures carry value ± u and the 95 % interval, equal to the scalar
+    # results (identity); a recipe of built-in solutes without stated uncertainty has none.
+    import jsonschema
+    from colligate.report import build_report, format_json, format_text, report_schema
+
+    fs, _ = my_sucrose
+    r = cg.Recipe(water=0.75, solutes={"my sucrose": 0.25}, library=cg.Library([fs]))
+    rep = build_report(r)
+    jsonschema.validate(json.loads(format_json(rep)), report_schema())
+    u = rep["uncertainty"]
+    assert u["constants"] == ["my_sucrose.norrish_k"] and u["level"] == 0.95
+    tf = r.freezing_point(with_uncertainty=True)
+    assert u["freezing_point_K"]["value"] == pytest.approx(tf.value, rel=1e-12)
+    assert u["freezing_point_K"]["standard_uncertainty"] == pytest.approx(tf.std, rel=1e-12)
+    assert u["freezing_point_K"]["interval"] == pytest.approx(list(tf.ci(0.95)), rel=1e-12)
+    assert u["freezing_point_K"]["method"] == "linear"
+    assert len(u["ice_fraction_of_water"]) == len(rep["ice_table"])
+    text = format_text(rep)
+    assert "initial freezing point" in text and "±" in text and "95 % coverage interval" in text
+    plain = build_report(cg.Recipe(water=0.75, solutes={"sucrose": 0.25}))
+    assert plain["uncertainty"] is None
+    assert "coverage interval" not in format_text(plain)
+
+
+def test_ice_curve_plot_draws_the_band(my_sucrose, tmp_path):
+    # The band is the 95 % interval of the ice fraction along the curve (identity with the
+    # scalar results); a solution of built-in solutes without stated uncertainty has none.
+    from colligate import plot
+    from colligate.report_compute import IcePath
+
+    _, lib = my_sucrose
+    s = cg.Solution.from_mass_fractions({"my sucrose": 0.20}, table=lib)
+    temps = np.array([272.15, 270.15, 269.15])
+    frac = np.asarray(cg.ice_fraction(s, temps), dtype=float)
+    lo, hi = plot._ice_band(IcePath(s, "auto", 0.0), temps, frac)
+    r = cg.ice_fraction(s, 270.15, with_uncertainty=True)
+    assert (lo[1], hi[1]) == pytest.approx(r.ci(0.95), rel=1e-12)
+    assert np.all(lo <= frac) and np.all(frac <= hi) and hi[2] > lo[2]
+    plain = cg.Solution.from_mass_fractions({"sucrose": 0.20})
+    assert plot._ice_band(IcePath(plain, "auto", 0.0), temps, frac) is None
+    with pytest.warns(cg.OutOfValidityRangeWarning):  # the curve runs past the fit's 42 wt%
+        out = plot.plot_ice_curve(s, str(tmp_path / "band.png"))
+    assert pathlib.Path(out).stat().st_size > 0

@@ -9,6 +9,7 @@
 
 #include "../crc_reference.hpp"
 #include "colligate/colligate.hpp"
+#include "colligate/batch/uncertainty_kernels.hpp"
 #include "colligate/equilibria/prediction_uncertainty.hpp"
 #include "colligate/fit/fitters.hpp"
 #include "colligate/fit/pitzer_fitter.hpp"
@@ -361,4 +362,108 @@ TEST_CASE("Delta method and Monte Carlo agree on a fitted Pitzer salt", "[uncert
     const auto b = mc.interval(0.95);
     CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
   }
+}
+
+TEST_CASE("Batch rows carry value and standard uncertainty equal to the scalar path", "[uncertainty][batch]") {
+  // Identity check (no literature): the batch kernel runs the scalar propagation per row,
+  // so each row equals it bit for bit, whatever the thread count; a bad row gets NaN and
+  // its status, a row with no closed form keeps its value with u = NaN.
+  const auto r = crc_salt_fit();
+  REQUIRE(r.success());
+  auto records = data::builtin_solutes().records();
+  records.push_back(crc_salt_record(r));
+  const data::solute_table table(std::move(records));
+  const std::vector<std::string> species{"my_salt", "CaCl2"};
+  const std::vector<double> m{0.5, 0.0, 1.0, 0.0, 2.0, 0.1, 3.0, 0.0, -1.0, 0.0, 3.0, 0.5};
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), 6, table);
+  struct probe { predicted_quantity q; double T; };
+  int no_closed_form = 0;
+  for (const auto& p : {probe{predicted_quantity::freezing_point, 0.0},
+                        probe{predicted_quantity::water_activity, 298.15},
+                        probe{predicted_quantity::ice_fraction, 263.15},
+                        probe{predicted_quantity::ice_fraction, 243.15}}) {
+    for (unsigned threads : {1u, 3u}) {
+      batch::options o;
+      o.threads = threads;
+      std::vector<double> v(6), u(6);
+      std::vector<std::int32_t> dof(6);
+      std::vector<std::uint8_t> st(6);
+      batch::predictions_with_uncertainty(b, p.q, p.T, "pitzer", o, v.data(), u.data(), dof.data(), st.data());
+      INFO(equilibria::to_string(p.q) << ", threads " << threads);
+      for (std::size_t i = 0; i < 6; ++i) {
+        INFO("row " << i);
+        if (i == 4) {
+          CHECK(st[i] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
+          CHECK(std::isnan(v[i]));
+          CHECK(std::isnan(u[i]));
+          continue;
+        }
+        const auto s = solution::from_molalities({{"my_salt", m[2 * i]}, {"CaCl2", m[2 * i + 1]}}, 1.0, table);
+        equilibria::prediction_uncertainty ref;
+        try {
+          ref = equilibria::propagate_linear(p.q, s, p.T, "pitzer");
+        } catch (const invalid_input&) {  // hydrohalite has crystallised: no closed form
+          CHECK(v[i] == equilibria::predict(p.q, s, p.T, "pitzer", 0.0));
+          CHECK(std::isnan(u[i]));
+          ++no_closed_form;
+          continue;
+        }
+        if (std::isnan(ref.result.value)) {
+          CHECK(std::isnan(v[i]));
+          CHECK(st[i] != 0);
+          continue;
+        }
+        CHECK(v[i] == ref.result.value);
+        CHECK(u[i] == ref.result.standard_uncertainty);
+        CHECK(dof[i] == ref.result.degrees_of_freedom);
+      }
+    }
+  }
+  CHECK(no_closed_form > 0);  // the crystallised rows were exercised
+  // Model 'ross' has no closed form: refused once, before any row runs
+  batch::options o;
+  std::vector<double> v(6), u(6);
+  std::vector<std::int32_t> dof(6);
+  std::vector<std::uint8_t> st(6);
+  CHECK_THROWS_WITH(batch::predictions_with_uncertainty(b, predicted_quantity::freezing_point, 0.0, "ross", o,
+                                                        v.data(), u.data(), dof.data(), st.data()),
+                    Catch::Contains("Monte Carlo"));
+}
+
+TEST_CASE("Built-in constants fitted by colligate state their fit's uncertainty", "[uncertainty][data]") {
+  // data/builtin_uncertainty.hpp holds the covariance printed by tools/fit_crc_norrish.py
+  // --covariance (NumPy re-implementation, scipy least squares). The C++ fitter on the same
+  // CRC Handbook rows (crc_concentrative, used_in_fit = yes, printed to 0.01 K) must give
+  // the same K and variance: rel 1e-3 on K (two implementations of the ice line, ~1e-4 K
+  // apart) and 2 % on the variance (its scaling by the residuals, which are ~0.02 K).
+  std::vector<double> m, tf;
+  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
+    if (row.at("solute") != "maltose" || colligate_test::doubtful_crc_row(row) ||
+        row.at("used_in_fit") != "yes" || std::stod(row.at("mass_percent")) > 44.0)
+      continue;
+    m.push_back(std::stod(row.at("molality_mol_per_kg")));
+    tf.push_back(constants::ice_point - std::stod(row.at("depression_K")));
+  }
+  REQUIRE(m.size() == 17);
+  const auto r = fit::fit_norrish_freezing_point(vec(m), vec(tf));
+  REQUIRE(r.success());
+  const auto& maltose = data::builtin_solutes().find("maltose");
+  const auto u = data::stated_uncertainty(maltose);
+  REQUIRE(u.names == std::vector<std::string>{"norrish_k"});
+  CHECK(u.degrees_of_freedom == r.degrees_of_freedom);
+  CHECK_THAT(r.params[0], WithinRel(maltose.norrish.k, 1e-3));
+  CHECK_THAT(r.covariance(0, 0), WithinRel(u.at(0, 0), 0.02));
+  // the statement a table shows, and "not stated" for a published K without one
+  CHECK(data::uncertainty_statement(maltose).find("u(norrish_k) = 0.102") == 0);
+  CHECK(data::uncertainty_statement(data::builtin_solutes().find("sucrose")) == "not stated");
+  // a copy with other constants does not inherit it
+  auto own = maltose;
+  own.norrish.k = 7.0;
+  CHECK_FALSE(data::stated_uncertainty(own).stated());
+  // and it propagates: a maltose syrup's freezing point carries it
+  const auto s = solution::from_mass_fractions({{"maltose", 0.3}});
+  const auto p = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "norrish");
+  CHECK(p.constants == std::vector<std::string>{"maltose.norrish_k"});
+  CHECK(p.result.standard_uncertainty > 0.0);
+  CHECK(p.result.degrees_of_freedom == 16);
 }

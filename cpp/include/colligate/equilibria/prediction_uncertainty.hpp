@@ -23,9 +23,10 @@
 /// effective solute, a state with a salt crystallised) go through Monte Carlo, which
 /// evaluates the plain prediction with constants drawn from N(p, Sigma) (JCGM 101:2008).
 ///
-/// Solutes whose constants carry no covariance are "not stated": they enter as exact and
-/// are listed. Constants of different solutes are taken as uncorrelated (separate fits);
-/// the degrees of freedom of the result follow Welch-Satterthwaite (GUM G.4.1) over the
+/// Solutes whose constants carry no covariance (a fitted record's own, or a built-in one's
+/// from data/builtin_uncertainty.hpp) are "not stated": they enter as exact and are
+/// listed. Constants of different solutes are taken as uncorrelated (separate fits); the
+/// degrees of freedom of the result follow Welch-Satterthwaite (GUM G.4.1) over the
 /// solutes' contributions, 0 (normal law) when none comes from a fit.
 
 #include <Eigen/Dense>
@@ -40,6 +41,7 @@
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/data/builtin_uncertainty.hpp"
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
@@ -132,8 +134,12 @@ inline void set_constant(data::solute_record& r, const std::string& name, double
 inline constant_set uncertain_constants(const solution& s) {
   constant_set c;
   std::vector<double> vals;
+  // A fitted record's own covariance, or a built-in one's stated uncertainty (data/builtin_uncertainty.hpp).
+  std::vector<data::constant_uncertainty> stated;
+  stated.reserve(s.size());
+  for (const auto& r : s.species()) stated.push_back(data::stated_uncertainty(r));
   for (std::size_t i = 0; i < s.size(); ++i) {
-    const auto& u = s.species()[i].uncertainty;
+    const auto& u = stated[i];
     if (!u.stated()) {
       c.not_stated.push_back(s.species()[i].id);
       continue;
@@ -155,7 +161,7 @@ inline constant_set uncertain_constants(const solution& s) {
   c.covariance = Eigen::MatrixXd::Zero(n, n);
   Eigen::Index at = 0;
   for (std::size_t i = 0; i < s.size(); ++i) {
-    const auto& u = s.species()[i].uncertainty;
+    const auto& u = stated[i];
     if (!u.stated()) continue;
     const auto k = static_cast<Eigen::Index>(u.size());
     for (Eigen::Index a = 0; a < k; ++a)
@@ -349,6 +355,9 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
                               std::to_string(temperature) +
                               " K, where the closed-form sensitivities do not hold; use the "
                               "Monte Carlo propagation");
+      if (!(st.unfrozen_water > 0.0)) break;  // pure water: all ice, nothing to vary
+      const Eigen::VectorXd g = detail::ln_aw_gradient(s, c, st.unfrozen_water, temperature, model.id);
+      if (g.isZero(0.0)) break;  // no solute whose constants enter
       double slope = 0.0;
       if (model.id == "pitzer") {
         slope = models::pitzer_slopes(s, st.unfrozen_water, temperature).by_water;
@@ -359,8 +368,7 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       }
       if (!(slope > 0.0))
         throw convergence_error("linear propagation: no slope d ln a_w / d W at the unfrozen state");
-      const Eigen::VectorXd dW =
-          -detail::ln_aw_gradient(s, c, st.unfrozen_water, temperature, model.id) / slope;
+      const Eigen::VectorXd dW = -g / slope;
       dy = q == predicted_quantity::ice_fraction ? Eigen::VectorXd(-dW / st.total_water) : dW;
       break;
     }
