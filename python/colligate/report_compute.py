@@ -296,7 +296,8 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
 UNCERTAINTY_LEVEL = 0.95
 UNCERTAINTY_NOTE = ("the interval covers the uncertainty of the fitted constants only (their covariance), "
                     "not the model's own error or the variation of real ingredients; " + VERIFY_NOTE)
-_MC_DRAWS = 20_000  # Monte Carlo fallback where no closed form applies (seeded: repeatable)
+_MC_DRAWS = 4_000  # Monte Carlo fallback where no closed form applies (seeded: repeatable;
+# a report holds several figures, so fewer draws than the 10^5 of the acceptance checks)
 
 
 def _uncertain(solution, quantity, T, model, bound):

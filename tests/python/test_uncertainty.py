@@ -367,3 +367,26 @@ def test_ice_curve_plot_draws_the_band(my_sucrose, tmp_path):
     with pytest.warns(cg.OutOfValidityRangeWarning):  # the curve runs past the fit's 42 wt%
         out = plot.plot_ice_curve(s, str(tmp_path / "band.png"))
     assert pathlib.Path(out).stat().st_size > 0
+
+
+def test_correlation_warning_on_synthetic_data_from_known_constants():
+    # Synthetic data, invented for this test: the built-in NaCl (model 'pitzer') taken as the
+    # truth, with Gaussian noise (seed 20261202) of 0.002 on osmotic coefficients at 25 C
+    # over 0.1-6 mol/kg and of 0.01 K on freezing points over 0.2-4 mol/kg. The correlation
+    # of the fitted constants follows from the design (which molalities, which kind of data),
+    # so the freezing points alone tie beta0 to C-phi beyond |r| = 0.99 and the wide osmotic
+    # range does not (|r| about 0.985 at this seed).
+    rng = np.random.default_rng(20261202)
+    m = np.linspace(0.1, 6.0, 15)
+    phi = np.array([cg.osmotic_coefficient(cg.Solution.from_molalities({"NaCl": float(x)}), T=298.15,
+                                           model="pitzer") for x in m]) + rng.normal(0.0, 0.002, m.size)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", cg.PoorlyDeterminedFitWarning)
+        osm = fit.fit_pitzer("NaCl", m, osmotic_coefficient=phi)
+    assert osm.success and osm.poorly_determined() == []
+    mf = np.linspace(0.2, 4.0, 15)
+    tf = np.array([cg.freezing_point(cg.Solution.from_molalities({"NaCl": float(x)}), model="pitzer")
+                   for x in mf]) + rng.normal(0.0, 0.01, mf.size)
+    with pytest.warns(cg.PoorlyDeterminedFitWarning, match="beta0 and cphi are correlated"):
+        fp = fit.fit_pitzer("NaCl", mf, freezing_point=tf)
+    assert abs(fp.correlation.loc["beta0", "cphi"]) > 0.99 > abs(osm.correlation.loc["beta0", "cphi"])
