@@ -134,14 +134,14 @@ def _uncertainty_text(u: Mapping[str, Any] | None) -> list[str]:
             return
         lo, hi = b["interval"]
         k = f", k = {b['coverage_factor']:.2f}" if b.get("coverage_factor") is not None else ", Monte Carlo"
-        lines.append(f"    {label:<22}{scale * b['value'] + offset:9.{digits}f} ± "
+        lines.append(f"    {label[:24]:<24}{scale * b['value'] + offset:9.{digits}f} ± "
                      f"{scale * b['standard_uncertainty']:.2g}{unit}   "
                      f"[{scale * lo + offset:.{digits}f}, {scale * hi + offset:.{digits}f}]{k}")
 
     band("initial freezing point", u["freezing_point_K"], offset=-ZERO_CELSIUS_K, unit=" °C", digits=3)
     band("water activity 25 °C", u["water_activity_25C"], digits=5)
     for row in u.get("ice_fraction_of_water", []):
-        band(f"ice % of water, {row['name']}"[:22], row, scale=100.0, unit=" %", digits=2)
+        band(f"ice % at {row['name']}", row, scale=100.0, unit=" %", digits=2)
     if u.get("not_stated"):
         lines.extend(_wrap(f"taken as exact (uncertainty not stated by their sources): {', '.join(u['not_stated'])}",
                            indent="    ", first="    "))
