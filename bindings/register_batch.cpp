@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "colligate/batch/kernels.hpp"
+#include "colligate/batch/uncertainty_kernels.hpp"
 #include "colligate/batch/solution_batch.hpp"
 #include "colligate/models/builtin_models.hpp"
 #include "register.hpp"
@@ -66,18 +67,22 @@ void register_batch(py::module_& m) {
   bound_class<solution_batch>(m, "SolutionBatchCore")
       .def_static(
           "from_molalities",
-          [](const std::vector<std::string>& species, const array_in& data) {
+          [](const std::vector<std::string>& species, const array_in& data,
+             const colligate::data::solute_table* table) {
             const double* p = check_matrix(data, species.size(), "molalities");
-            return solution_batch::from_molalities(species, p, static_cast<std::size_t>(data.shape(0)));
+            return solution_batch::from_molalities(species, p, static_cast<std::size_t>(data.shape(0)),
+                                                   table ? *table : colligate::data::builtin_solutes());
           },
-          py::arg("species"), py::arg("molalities"))
+          py::arg("species"), py::arg("molalities"), py::arg("table") = nullptr)
       .def_static(
           "from_mass_fractions",
-          [](const std::vector<std::string>& species, const array_in& data) {
+          [](const std::vector<std::string>& species, const array_in& data,
+             const colligate::data::solute_table* table) {
             const double* p = check_matrix(data, species.size(), "mass fractions");
-            return solution_batch::from_mass_fractions(species, p, static_cast<std::size_t>(data.shape(0)));
+            return solution_batch::from_mass_fractions(species, p, static_cast<std::size_t>(data.shape(0)),
+                                                       table ? *table : colligate::data::builtin_solutes());
           },
-          py::arg("species"), py::arg("mass_fractions"))
+          py::arg("species"), py::arg("mass_fractions"), py::arg("table") = nullptr)
       .def_property_readonly("rows", &solution_batch::rows)
       .def_property_readonly("species", [](const solution_batch& b) {
         std::vector<std::string> ids;
@@ -144,6 +149,43 @@ void register_batch(py::module_& m) {
       },
       py::arg("batch"), py::arg("temperatures"), py::arg("model") = "auto", py::arg("threads") = 0,
       py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
+
+  m.def(
+      "batch_predictions_with_uncertainty",
+      [](const solution_batch& b, const std::string& quantity, double temperature, const std::string& model,
+         int threads, const std::string& policy, double bound) {
+        namespace eq = colligate::equilibria;
+        eq::predicted_quantity q = eq::predicted_quantity::freezing_point;
+        bool known = false;
+        for (auto v : {eq::predicted_quantity::freezing_point, eq::predicted_quantity::water_activity,
+                       eq::predicted_quantity::osmotic_coefficient, eq::predicted_quantity::ice_fraction,
+                       eq::predicted_quantity::unfrozen_water})
+          if (quantity == eq::to_string(v)) q = v, known = true;
+        if (!known)
+          throw colligate::invalid_input("batch uncertainty: quantity = '" + quantity +
+                                         "': must be one of freezing_point, water_activity, "
+                                         "osmotic_coefficient, ice_fraction, unfrozen_water");
+        const auto id = colligate::models::model_choice(model);
+        auto opt = make_options(threads, policy, bound);
+        const auto n = static_cast<py::ssize_t>(b.rows());
+        py::array_t<double> value(n), u(n);
+        py::array_t<std::int32_t> dof(n);
+        py::array_t<std::uint8_t> status(n);
+        double* v = value.mutable_data();
+        double* up = u.mutable_data();
+        std::int32_t* d = dof.mutable_data();
+        std::uint8_t* st = status.mutable_data();
+        run_interruptible(opt, [&] {
+          colligate::batch::predictions_with_uncertainty(b, q, temperature, id, opt, v, up, d, st);
+        });
+        return py::make_tuple(value, u, dof, status);
+      },
+      py::arg("batch"), py::arg("quantity"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("threads") = 0, py::arg("range_policy") = "extrapolate",
+      py::arg("bound_water_fraction_of_water") = 0.0,
+      "Value, standard uncertainty, effective degrees of freedom and row status of `quantity` "
+      "for every row (linear propagation per row in C++; temperature in K, unused for the "
+      "freezing point).");
 }
 
 }  // namespace colligate_bindings

@@ -10,6 +10,8 @@
 #include <vector>
 
 #include "colligate/core/bound_water.hpp"
+#include "colligate/data/builtin_solutes.hpp"
+#include "colligate/data/builtin_uncertainty.hpp"
 #include "colligate/data/solute_record.hpp"
 #include "colligate/equilibria/prediction_uncertainty.hpp"
 #include "colligate/fit/fitted_uncertainty.hpp"
@@ -36,7 +38,7 @@ eq::predicted_quantity quantity_from_string(const std::string& q) {
 }
 
 py::object record_uncertainty(const data::solute_record& r) {
-  const auto& u = r.uncertainty;
+  const auto u = data::stated_uncertainty(r);
   if (!u.stated()) return py::none();
   const auto n = static_cast<Eigen::Index>(u.size());
   Eigen::MatrixXd cov(n, n);
@@ -69,7 +71,20 @@ void register_uncertainty(py::module_& m) {
   bound_class<data::solute_record>(m, "SoluteRecord")
       .def_property_readonly("uncertainty", &record_uncertainty,
                              "Covariance of the record's constants as a dict (names, covariance, "
-                             "degrees_of_freedom, source), or None: uncertainty not stated.");
+                             "degrees_of_freedom, source), or None: uncertainty not stated.")
+      .def_property_readonly("uncertainty_statement", &data::uncertainty_statement,
+                             "The standard uncertainties of the record's constants with their "
+                             "source, or 'not stated'.");
+
+  m.def(
+      "uncertainty_statements",
+      [] {
+        py::dict d;
+        for (const auto& r : data::builtin_solutes().records()) d[py::str(r.id)] = data::uncertainty_statement(r);
+        return d;
+      },
+      "The standard uncertainties of each built-in solute's constants with their source, or "
+      "'not stated' (data/builtin_uncertainty.hpp).");
 
   m.def(
       "record_with_uncertainty",

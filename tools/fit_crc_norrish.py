@@ -17,6 +17,8 @@ import csv
 import pathlib
 
 import numpy as np
+import sys
+
 from scipy.optimize import brentq, least_squares, linprog, minimize_scalar
 
 R = 8.314462618
@@ -237,7 +239,6 @@ def report_ethanol(consts, r, percent, dT, fit, dev) -> None:
 
 
 if __name__ == "__main__":
-    import sys
 
     if "--propylene-glycol" in sys.argv:
         fit_propylene_glycol()
@@ -264,9 +265,17 @@ if __name__ == "__main__":
         def resid(p):
             return np.array([depression(mi, fixed + list(p)) for mi in m]) - dT
 
-        p = least_squares(resid, np.zeros(n_fit)).x if n_fit else np.array([])
+        sol = least_squares(resid, np.zeros(n_fit)) if n_fit else None
+        p = sol.x if n_fit else np.array([])
         consts = fixed + list(p)
         r = resid(p)
+        if n_fit and "--covariance" in sys.argv:
+            # Standard uncertainties of the fitted constants (GUM C.3.4): covariance
+            # s^2 (J^T J)^-1 with s^2 = sum r^2 / (n - k), n - k degrees of freedom; the
+            # rows data/builtin_uncertainty.hpp carries.
+            dof = len(m) - n_fit
+            cov = np.linalg.inv(sol.jac.T @ sol.jac) * float(r @ r) / dof
+            print(f"{solute:12s} covariance={[['%.6g' % c for c in row] for row in cov]} dof={dof}")
         wtop = max(float(w) for w, _ in [(100 * mi * MOLAR_MASS[solute] / (1 + mi * MOLAR_MASS[solute]), 0) for mi in m])
         held = list(rows(solute, wmax, "no")) if n_fit else []
         dev_held = [depression(mh, [float("%.6g" % c) for c in consts]) - dh for mh, dh in held]

@@ -6,16 +6,16 @@ import collections.abc
 import numpy
 import numpy.typing
 import typing
-__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'correlation_matrix', 'coverage_factor', 'crystallisation_check', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_isotherm', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'food_thermal_uncertainty', 'freezing_point', 'glass_curve', 'glass_transition', 'glass_transition_table', 'ice_fraction', 'ice_vapour_pressure', 'isosteric_heat', 'isotherm_moisture', 'isotherm_range_reason', 'isotherm_water_activity', 'lactose_initial_solubility', 'lactose_mutarotation_ratio', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'liquidus_curve', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'maximal_freeze_concentration', 'mean_activity_coefficient', 'model_summaries', 'models', 'moisture_equilibrium', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'propagate_uncertainty', 'record_with_uncertainty', 'rod_shape_factor', 'row_status_reasons', 'salt_crystallisation_temperature', 'salt_equilibrium', 'saturation_pressure', 'saturation_temperature', 'shift_water_activity', 'simulate_food', 'simulate_material', 'solute_table', 'sugar_solubility', 'sugar_solubility_curves', 'sweetness_table', 'temperature_for_ice_fraction', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_growth_limits', 'water_activity_of_ice', 'water_glass_transition_temperature']
+__all__: list[str] = ['CRYOSCOPIC_CONSTANT', 'ConvergenceError', 'ENTHALPY_REFERENCE_TEMPERATURE', 'ETHANOL_DENSITY_20C', 'FitResult', 'GAS_CONSTANT', 'ICE_POINT', 'IceCurve', 'IceCurveState', 'InvalidInputError', 'LeightonTerms', 'MOLAR_MASS_WATER', 'OutOfValidityRangeError', 'RowStatus', 'SoluteRecord', 'SoluteTable', 'Solution', 'SolutionBatchCore', 'UnfrozenPhaseState', 'Validity', 'alcohol_by_volume_20c', 'batch_freezing_points', 'batch_ice_fractions', 'batch_predictions_with_uncertainty', 'batch_water_activities', 'boiling_point', 'brick_shape_factor', 'chen_frozen_specific_heat', 'citation', 'citation_table', 'component_specific_heat', 'concentration_for_boiling_point', 'correlation_matrix', 'coverage_factor', 'crystallisation_check', 'curve_fit', 'describe_model', 'effective_solute_record', 'enthalpy_of_fusion', 'ethanol_water_density_20c', 'eutectic', 'finite_cylinder_shape_factor', 'fit_effective_solute_freezing', 'fit_effective_solute_ice_curve', 'fit_isotherm', 'fit_norrish_freezing_point', 'fit_norrish_water_activity', 'fit_pitzer_freezing_point', 'fit_pitzer_osmotic_coefficient', 'fit_pitzer_water_activity', 'food_apparent_specific_heat', 'food_enthalpy', 'food_freezing_inputs', 'food_heat_load', 'food_properties', 'food_thermal_uncertainty', 'freezing_point', 'glass_curve', 'glass_transition', 'glass_transition_table', 'ice_fraction', 'ice_vapour_pressure', 'isosteric_heat', 'isotherm_moisture', 'isotherm_range_reason', 'isotherm_water_activity', 'lactose_initial_solubility', 'lactose_mutarotation_ratio', 'lactose_solubility', 'lactose_solubility_table', 'latent_heat_of_fusion', 'leighton_depression', 'leighton_freezing_point', 'leighton_ice_fraction', 'leighton_terms', 'liquid_vapour_pressure', 'liquidus_curve', 'ln_water_activity_of_ice', 'make_pitzer_solute_record', 'make_solute_record', 'max_msnf_for_lactose_in_solution', 'maximal_freeze_concentration', 'mean_activity_coefficient', 'model_summaries', 'models', 'moisture_equilibrium', 'norrish_solute_record', 'osmotic_coefficient', 'pham_estimate', 'pham_times', 'pitzer_osmotic_coefficient', 'pitzer_parameter_set_range', 'pitzer_parameter_sets', 'pitzer_solute_record', 'plank_time', 'propagate_uncertainty', 'record_with_uncertainty', 'rod_shape_factor', 'row_status_reasons', 'salt_crystallisation_temperature', 'salt_equilibrium', 'saturation_pressure', 'saturation_temperature', 'shift_water_activity', 'simulate_food', 'simulate_material', 'solute_table', 'sugar_solubility', 'sugar_solubility_curves', 'sweetness_table', 'temperature_for_ice_fraction', 'uncertainty_statements', 'unfrozen_phase', 'unfrozen_specific_heat', 'water_activity', 'water_activity_growth_limits', 'water_activity_of_ice', 'water_glass_transition_temperature']
 class SolutionBatchCore:
     """
     Many solutions with one species list (molalities, mol/kg water).
     """
     @staticmethod
-    def from_mass_fractions(species: collections.abc.Sequence[str], mass_fractions: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+    def from_mass_fractions(species: collections.abc.Sequence[str], mass_fractions: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], table: SoluteTable = None) -> SolutionBatchCore:
         ...
     @staticmethod
-    def from_molalities(species: collections.abc.Sequence[str], molalities: typing.Annotated[numpy.typing.ArrayLike, numpy.float64]) -> SolutionBatchCore:
+    def from_molalities(species: collections.abc.Sequence[str], molalities: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], table: SoluteTable = None) -> SolutionBatchCore:
         ...
     @property
     def rows(self) -> int:
@@ -325,6 +325,11 @@ class SoluteRecord:
         """
         Covariance of the record's constants as a dict (names, covariance, degrees_of_freedom, source), or None: uncertainty not stated.
         """
+    @property
+    def uncertainty_statement(self) -> str:
+        """
+        The standard uncertainties of the record's constants with their source, or 'not stated'.
+        """
 class SoluteTable:
     """
     A set of solute records with name resolution. ``SoluteTable()`` starts from the built-in
@@ -572,6 +577,10 @@ def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
+def batch_predictions_with_uncertainty(batch: SolutionBatchCore, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.int32], numpy.typing.NDArray[numpy.uint8]]:
+    """
+    Value, standard uncertainty, effective degrees of freedom and row status of `quantity` for every row (linear propagation per row in C++; temperature in K, unused for the freezing point).
+    """
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def boiling_point(solution: Solution, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
@@ -902,6 +911,10 @@ def sweetness_table() -> list:
 def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
+    """
+def uncertainty_statements() -> dict:
+    """
+    The standard uncertainties of each built-in solute's constants with their source, or 'not stated' (data/builtin_uncertainty.hpp).
     """
 def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
     """

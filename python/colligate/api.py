@@ -78,6 +78,11 @@ __all__ = [
 Temperature = Union[float, "np.typing.ArrayLike"]
 
 
+def _uncertain_input(solution: Any) -> Any:
+    """A Solution, or a SolutionBatch (value and standard-uncertainty columns)."""
+    return solution if isinstance(solution, SolutionBatch) else _as_solution(solution)
+
+
 def _as_solution(solution: Any) -> Solution:
     if isinstance(solution, Solution):
         return solution
@@ -123,7 +128,7 @@ def freezing_point(
         above 223.15 K.
     """
     if with_uncertainty is not False:
-        return propagate(_as_solution(solution), "freezing_point", 0.0, model, range_policy=range_policy,
+        return propagate(_uncertain_input(solution), "freezing_point", 0.0, model, range_policy=range_policy,
                          bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
@@ -171,7 +176,7 @@ def water_activity(
         Water activity, dimensionless, in (0, 1].
     """
     if with_uncertainty is not False:
-        return propagate(_as_solution(solution), "water_activity", T, model, range_policy=range_policy,
+        return propagate(_uncertain_input(solution), "water_activity", T, model, range_policy=range_policy,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation)
@@ -221,7 +226,7 @@ def osmotic_coefficient(
     """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K).
     ``with_uncertainty``: see :func:`freezing_point`."""
     if with_uncertainty is not False:
-        return propagate(_as_solution(solution), "osmotic_coefficient", T, model, range_policy=range_policy,
+        return propagate(_uncertain_input(solution), "osmotic_coefficient", T, model, range_policy=range_policy,
                          method=_method(with_uncertainty))
     value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy)
     _warn(reason)
@@ -262,7 +267,7 @@ def ice_fraction(
         Ice fraction in [0, 1), same shape as ``T``.
     """
     if with_uncertainty is not False:
-        return propagate(_as_solution(solution), "ice_fraction", T, model, range_policy=range_policy,
+        return propagate(_uncertain_input(solution), "ice_fraction", T, model, range_policy=range_policy,
                          bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
@@ -558,12 +563,15 @@ def describe_model(solution: Solution, model: str = "auto") -> str:
 def solutes():
     """The built-in solute table as a pandas DataFrame (SI units, source keys).
 
-    Every source key resolves with :func:`citation`.
+    Every source key resolves with :func:`citation`. ``constant_uncertainty`` gives the
+    standard uncertainties of a solute's constants where a source gives them, or "not
+    stated" (those enter a propagation with ``with_uncertainty`` as exact).
     """
     import pandas as pd
 
     df = pd.DataFrame(_core.solute_table()).set_index("id")
     df["aliases"] = df["aliases"].map(", ".join)
+    df["constant_uncertainty"] = pd.Series(_core.uncertainty_statements())  # or "not stated"
     return df
 
 

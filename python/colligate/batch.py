@@ -82,17 +82,20 @@ class SolutionBatch:
         self._basis = basis
 
     @classmethod
-    def from_mass_fractions(cls, table: Any) -> "SolutionBatch":
-        """Rows of solute mass fractions (each row's remainder is water)."""
+    def from_mass_fractions(cls, table: Any, *, library: Optional[Any] = None) -> "SolutionBatch":
+        """Rows of solute mass fractions (each row's remainder is water). ``library``: a
+        :class:`colligate.fit.SoluteLibrary` (own and fitted solutes next to the built-in
+        ones), so a batch can hold fitted solutes and carry their uncertainty."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data), index, data=data,
+        return cls(_core.SolutionBatchCore.from_mass_fractions(names, data, library), index, data=data,
                    basis="mass_fractions")
 
     @classmethod
-    def from_molalities(cls, table: Any) -> "SolutionBatch":
-        """Rows of molalities, mol per kg of water."""
+    def from_molalities(cls, table: Any, *, library: Optional[Any] = None) -> "SolutionBatch":
+        """Rows of molalities, mol per kg of water (``library`` as in :meth:`from_mass_fractions`)."""
         names, data, index = _columns(table)
-        return cls(_core.SolutionBatchCore.from_molalities(names, data), index, data=data, basis="molalities")
+        return cls(_core.SolutionBatchCore.from_molalities(names, data, library), index, data=data,
+                   basis="molalities")
 
     @property
     def species(self) -> list[str]:
@@ -205,3 +208,41 @@ def batch_ice_fraction(batch: SolutionBatch, T: Union[float, Sequence[float]], m
     if scalar:
         return _result(values[:, 0], status[:, 0], batch, "ice_fraction", return_status)
     return _result(values, status, batch, "ice_fraction", return_status, temps)
+
+
+UNCERTAIN_QUANTITIES = {"freezing_point": "freezing_point_K", "water_activity": "water_activity",
+                        "osmotic_coefficient": "osmotic_coefficient", "ice_fraction": "ice_fraction",
+                        "unfrozen_water": "unfrozen_water_kg"}
+
+
+def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.15, model: str = "auto", *,
+                           threads: int = 0, range_policy: str = "extrapolate",
+                           bound_water_fraction_of_water: float = 0.0):
+    """``quantity`` of every row with its standard uncertainty, as a pandas DataFrame with
+    the batch's index: the value column (``freezing_point_K``, ``water_activity``,
+    ``osmotic_coefficient``, ``ice_fraction`` or ``unfrozen_water_kg``), the same name with
+    ``_std`` (standard uncertainty, same unit), ``degrees_of_freedom`` (0: normal law) and
+    ``status`` (row status codes, :data:`ROW_STATUS`).
+
+    Linear propagation (closed-form sensitivities, models 'norrish' and 'pitzer') per row in
+    the C++ core, the rows shared among ``threads``; each row equals the scalar
+    ``with_uncertainty=True`` result. ``T`` in K (unused for the freezing point). Solutes
+    without a stated uncertainty contribute none (std 0). A row whose state has no closed
+    form (a salt crystallised) keeps its value with std NaN and a warning."""
+    import pandas as pd
+
+    if quantity not in UNCERTAIN_QUANTITIES:
+        raise _core.InvalidInputError(
+            f"batch_with_uncertainty: quantity = {quantity!r}: must be one of {', '.join(UNCERTAIN_QUANTITIES)}")
+    value, std, dof, status = _core.batch_predictions_with_uncertainty(
+        batch._core, quantity, float(T), model, threads, range_policy, bound_water_fraction_of_water)
+    _report(status, quantity, batch)
+    no_u = np.isfinite(value) & np.isnan(std)
+    if np.any(no_u):
+        warnings.warn(f"{quantity}: {int(no_u.sum())} row(s) have no closed-form standard uncertainty "
+                      "(a salt has crystallised at this temperature); use the Monte Carlo propagation "
+                      "of single solutions for them (std NaN)", BatchRowWarning, stacklevel=2)
+    name = UNCERTAIN_QUANTITIES[quantity]
+    index = batch.index if batch.index is not None else pd.RangeIndex(len(value))
+    return pd.DataFrame({name: value, f"{name}_std": std, "degrees_of_freedom": dof, "status": status},
+                        index=index)

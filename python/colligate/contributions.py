@@ -117,9 +117,15 @@ def contribution_table(recipe: Recipe, temperature: float) -> tuple[Any, dict[st
     bound = float(recipe.bound_water_fraction_of_water or 0.0)
     notes: list[str] = []
 
+    table = recipe.library.solute_table if recipe.library is not None else None
+
     def alone(solutes: Mapping[str, float]) -> "api.Solution | None":
         s = {k: v for k, v in solutes.items() if v > 0.0}
-        return api.Solution(water=water, solutes=s) if s else None
+        if not s:
+            return None
+        # the recipe's own solutes (a library's fitted ones) resolve in its table
+        return api.Solution(water=water, solutes=s, table=table) if table is not None else \
+            api.Solution(water=water, solutes=s)
 
     # depression
     tf, n = _quiet(api.freezing_point, solution, model=model, bound_water_fraction_of_water=bound)

@@ -15,6 +15,7 @@ eutectic lies inside the range, the curves stop there and the eutectic is marked
 from __future__ import annotations
 
 import os
+import warnings
 from typing import Iterable, Mapping
 
 import numpy as np
@@ -23,6 +24,7 @@ from . import api
 from ._files import OutputSet, atomic_write, check_output_path
 from .report_compute import EUTECTIC_MARGIN_K as _EUTECTIC_MARGIN_K
 from .report_compute import IcePath
+from .uncertainty import propagate
 from .units import ZERO_CELSIUS_K, celsius_from_kelvin
 
 __all__ = [
@@ -125,6 +127,10 @@ def plot_ice_curve(
     fig = _figure(8.0, 5.0)
     ax = fig.add_subplot(1, 1, 1)
     ax.plot(temps_c, 100.0 * frac, color=_CURVE_COLOUR, linewidth=2.0, label="ice, % of the water")
+    band = _ice_band(ice_path, temps_k, frac)
+    if band is not None:
+        ax.fill_between(temps_c, 100.0 * band[0], 100.0 * band[1], color=_CURVE_COLOUR, alpha=0.25,
+                        linewidth=0.0, label="95 % interval (uncertainty of fitted constants)")
 
     if freezes:
         ax.axvline(tf_c, color=_FREEZE_COLOUR, linestyle="-", linewidth=1.0, alpha=0.8)
@@ -154,6 +160,29 @@ def plot_ice_curve(
 
 
 # --------------------------------------------------------------------------- helpers
+
+
+def _ice_band(ice_path: IcePath, temps_k: np.ndarray, frac: np.ndarray):
+    """(lower, upper) 95 % coverage interval of the ice fraction along the curve when a
+    solute's constants carry a stated covariance (linear propagation in the core); None
+    when none does or no closed form applies (a salt + sugar mixture, a salt crystallised)."""
+    bound = float(ice_path.bound_water_fraction_of_water)
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")  # the curve itself already warned
+            first = propagate(ice_path.solution, "freezing_point", 0.0, ice_path.model,
+                              bound_water_fraction_of_water=bound)
+            if not first.constants:
+                return None  # nothing stated: no band (one call, not one per point)
+            u = propagate(ice_path.solution, "ice_fraction", np.asarray(temps_k, dtype=float), ice_path.model,
+                          bound_water_fraction_of_water=bound)
+    except (api.InvalidInputError, api.ConvergenceError):
+        return None
+    lo, hi = u.ci(0.95)
+    ok = np.isfinite(lo) & np.isfinite(hi)
+    lo = np.clip(np.where(ok, lo, frac), 0.0, 1.0)
+    hi = np.clip(np.where(ok, hi, frac), 0.0, 1.0)
+    return lo, hi
 
 
 def plot_formats() -> dict[str, str]:

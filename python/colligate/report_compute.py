@@ -21,6 +21,7 @@ import numpy as np
 from . import api
 from ._warnings import _warn
 from .recipe import VOLATILE_SOLUTES, Recipe
+from .uncertainty import propagate
 from .units import ZERO_CELSIUS_K as ZERO_C_K
 from .units import celsius_from_kelvin, fahrenheit_from_kelvin, kelvin_from_celsius
 
@@ -37,6 +38,8 @@ __all__ = [
     "solute_kinds",
     "electrolytes",
     "compute_solution",
+    "uncertainty_entry",
+    "UNCERTAINTY_LEVEL",
     "dairy_method",
     "eutectic_entry",
     "heat_load_end",
@@ -286,6 +289,60 @@ def compute_solution(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any
         "water_activity_note": WATER_ACTIVITY_NOTE,
         "eutectic": eutectic,
         "ice_table": rows,
+        "uncertainty": uncertainty_entry(path, temps),
+    }
+
+
+UNCERTAINTY_LEVEL = 0.95
+UNCERTAINTY_NOTE = ("the interval covers the uncertainty of the fitted constants only (their covariance), "
+                    "not the model's own error or the variation of real ingredients; " + VERIFY_NOTE)
+_MC_DRAWS = 4_000  # Monte Carlo fallback where no closed form applies (seeded: repeatable;
+# a report holds several figures, so fewer draws than the 10^5 of the acceptance checks)
+
+
+def _uncertain(solution, quantity, T, model, bound):
+    """(UncertainValue, method): linear propagation, else seeded Monte Carlo."""
+    try:
+        return propagate(solution, quantity, T, model, bound_water_fraction_of_water=bound), "linear"
+    except api.InvalidInputError:
+        return propagate(solution, quantity, T, model, bound_water_fraction_of_water=bound,
+                         method="monte_carlo", draws=_MC_DRAWS, seed=0), "monte_carlo"
+
+
+def _band(u, method: str) -> dict[str, Any]:
+    lo, hi = u.ci(UNCERTAINTY_LEVEL)
+    return {"value": _f(u.value), "standard_uncertainty": _f(u.std), "method": method,
+            "degrees_of_freedom": int(u.degrees_of_freedom),
+            "coverage_factor": _f(u.coverage_factor(UNCERTAINTY_LEVEL)) if method == "linear" else None,
+            "interval": [_f(lo), _f(hi)]}
+
+
+def uncertainty_entry(path: IcePath, temps: Mapping[str, float]) -> dict[str, Any] | None:
+    """The freezing point, a_w at 25 C and the ice fraction at each named temperature with
+    their standard uncertainty and 95 % coverage interval, when a solute of the solution
+    has constants with a stated covariance (a fitted solute, or a built-in constant whose
+    source gives one); None otherwise. Computed by the core (colligate.uncertainty)."""
+    solution, model, bound = path.solution, path.model, float(path.bound_water_fraction_of_water)
+    tf, how = _uncertain(solution, "freezing_point", 0.0, model, bound)
+    if not tf.constants:
+        return None
+    aw, how_aw = _uncertain(solution, "water_activity", AW_REFERENCE_T_K, model, 0.0)
+    t_eut = report_eutectic_K(path)
+    ice = []
+    for point, t_k in temps.items():
+        t_k = float(t_k)
+        if t_eut is not None and t_k < t_eut:
+            continue  # below the eutectic the report gives no ice figure
+        u, how_ice = _uncertain(solution, "ice_fraction", t_k, model, bound)
+        ice.append({"name": point, "temperature_K": t_k, **_band(u, how_ice)})
+    return {
+        "level": UNCERTAINTY_LEVEL,
+        "constants": list(tf.constants),
+        "not_stated": list(tf.not_stated),
+        "freezing_point_K": _band(tf, how),
+        "water_activity_25C": _band(aw, how_aw),
+        "ice_fraction_of_water": ice,
+        "note": UNCERTAINTY_NOTE,
     }
 
 

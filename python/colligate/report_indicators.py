@@ -44,7 +44,7 @@ __all__ = [
 ]
 
 #: Identifier and version of the dict layout produced by :func:`build_report`.
-REPORT_FORMAT = "colligate-report/3"
+REPORT_FORMAT = "colligate-report/4"
 
 
 
@@ -249,7 +249,7 @@ def build_report(
         ``..._of_aqueous_phase`` (the water and what is dissolved in it),
         ``..._of_unfrozen_liquid``, ``..._of_water``); the layout is described by the JSON
         schema :func:`colligate.report_schema.report_schema` (``report_format``
-        "colligate-report/3"). ``warnings`` lists each distinct warning once (``message``,
+        "colligate-report/4"). ``warnings`` lists each distinct warning once (``message``,
         ``category``, ``occurrences``); ``cautions`` comes last. A recipe adds
         ``batch_mass_kg``, ``ingredients``, ``composition_summary``, ``indicators`` and
         ``heat_load``.

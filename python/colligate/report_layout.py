@@ -13,6 +13,7 @@ import warnings
 from typing import Any, Mapping
 
 from ._files import OutputSet, atomic_write_text, check_output_path
+from .units import ZERO_CELSIUS_K
 
 __all__ = ["format_text", "format_json", "write_table_csv", "NonFiniteValueWarning"]
 
@@ -118,6 +119,36 @@ def _temp(t_c: float, t_f: float, fahrenheit: bool) -> str:
     return s
 
 
+def _uncertainty_text(u: Mapping[str, Any] | None) -> list[str]:
+    """value ± standard uncertainty and the coverage interval of the key figures, when the
+    report carries an ``uncertainty`` entry (a solute with stated covariance)."""
+    if not u:
+        return []
+    pct = f"{100.0 * u['level']:g} %"
+    lines = _wrap(f"with the uncertainty of the constants of {', '.join(u['constants'])} "
+                  f"(value ± standard uncertainty; {pct} coverage interval):", indent="    ", first="  ")
+
+    def band(label: str, b: Mapping[str, Any], scale: float = 1.0, offset: float = 0.0,
+             unit: str = "", digits: int = 3) -> None:
+        if b.get("value") is None or b.get("standard_uncertainty") is None:
+            return
+        lo, hi = b["interval"]
+        k = f", k = {b['coverage_factor']:.2f}" if b.get("coverage_factor") is not None else ", Monte Carlo"
+        lines.append(f"    {label[:24]:<24}{scale * b['value'] + offset:9.{digits}f} ± "
+                     f"{scale * b['standard_uncertainty']:.2g}{unit}   "
+                     f"[{scale * lo + offset:.{digits}f}, {scale * hi + offset:.{digits}f}]{k}")
+
+    band("initial freezing point", u["freezing_point_K"], offset=-ZERO_CELSIUS_K, unit=" °C", digits=3)
+    band("water activity 25 °C", u["water_activity_25C"], digits=5)
+    for row in u.get("ice_fraction_of_water", []):
+        band(f"ice % at {row['name']}", row, scale=100.0, unit=" %", digits=2)
+    if u.get("not_stated"):
+        lines.extend(_wrap(f"taken as exact (uncertainty not stated by their sources): {', '.join(u['not_stated'])}",
+                           indent="    ", first="    "))
+    lines.extend(_wrap(f"({u['note']})", indent="    ", first="    "))
+    return lines
+
+
 def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
     """Lay out a report dict (from :func:`build_report`) as plain text.
 
@@ -174,6 +205,7 @@ def format_text(report: Mapping[str, Any], fahrenheit: bool = False) -> str:
             f"{report['freezing_point_F']:6.1f} °F   {report['freezing_point_K']:.2f} K"
         )
     lines.append(f"  water activity at 25 °C  {report['water_activity_25C']:8.4f}")
+    lines.extend(_uncertainty_text(report.get("uncertainty")))
     if report.get("water_activity_note"):
         lines.extend(_wrap(f"({report['water_activity_note']})", indent="    ", first="    "))
     eut = report.get("eutectic")

@@ -25,6 +25,7 @@ import numpy as np
 
 from . import _core
 from ._warnings import _warn
+from .batch import SolutionBatch, batch_with_uncertainty
 
 __all__ = ["UncertainValue", "PoorlyDeterminedFitWarning", "propagate", "thermal", "QUANTITIES"]
 
@@ -103,24 +104,36 @@ class UncertainValue:
 
 def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto", *,
               bound_water_fraction_of_water: float = 0.0, method: str = "linear",
-              draws: int = 100_000, seed: int = 0, range_policy: str = "extrapolate") -> UncertainValue:
+              draws: int = 100_000, seed: int = 0, range_policy: str = "extrapolate") -> Any:
     """``quantity`` of ``solution`` at temperature(s) ``T`` (K) with its standard uncertainty.
+
+    For a :class:`colligate.SolutionBatch` the result is a pandas DataFrame of value and
+    standard-uncertainty columns (:func:`colligate.batch.batch_with_uncertainty`).
 
     Parameters
     ----------
     quantity : str
         One of :data:`QUANTITIES`. ``T`` is unused for the freezing point.
     method : str
-        "linear" (analytic sensitivities; model 'norrish', constants norrish_k and
-        norrish_k3) or "monte_carlo" (any model and constant the record carries, e.g. a
-        fitted salt's Pitzer parameters): ``draws`` samples from a generator seeded with
-        ``seed`` (the same seed gives the same draws).
+        "linear" (analytic sensitivities: model 'norrish' with constants norrish_k and
+        norrish_k3; model 'pitzer' with a fitted salt's beta0, beta1, beta2, cphi and their
+        d/dT; 'auto' where it resolves to one of those) or "monte_carlo" (any model and
+        constant the record carries, e.g. a salt + sugar mixture under 'ross'): ``draws``
+        samples from a generator seeded with ``seed`` (the same seed gives the same draws).
     range_policy : str
         Outside the model's validated range: "extrapolate" (warn), "nan" (NaN value and
         uncertainty, warn) or "raise" (:class:`colligate.OutOfValidityRangeError`).
     """
     if quantity not in QUANTITIES:
         raise _core.InvalidInputError(f"propagate: quantity = {quantity!r}: must be one of {', '.join(QUANTITIES)}")
+    if isinstance(solution, SolutionBatch):
+        if method != "linear" or range_policy == "raise" or np.ndim(T) != 0:
+            raise _core.InvalidInputError(
+                f"propagate: a SolutionBatch takes the linear method, one temperature and range_policy "
+                f"'extrapolate' or 'nan' (got method={method!r}, range_policy={range_policy!r}, "
+                f"T of shape {np.shape(T)})")
+        return batch_with_uncertainty(solution, quantity, float(T), model, range_policy=range_policy,
+                                      bound_water_fraction_of_water=bound_water_fraction_of_water)
     if method not in METHODS:
         raise _core.InvalidInputError(f"propagate: method = {method!r}: must be 'linear' or 'monte_carlo'")
     if range_policy not in ("extrapolate", "nan", "raise"):

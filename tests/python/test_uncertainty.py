@@ -4,6 +4,7 @@ keeps its covariance (also through its TOML file), the scalar functions take
 constants are poorly determined."""
 from __future__ import annotations
 
+import json
 import math
 import pathlib
 import tomllib
@@ -123,11 +124,30 @@ def test_coverage_factors_match_tables():
 
 
 def test_builtin_solutes_state_no_uncertainty():
+    # Chirife et al. (1980)'s sucrose K comes without a standard uncertainty: "not stated"
     assert cg.SoluteLibrary().find("sucrose").uncertainty is None
     s = cg.Solution.from_mass_fractions({"sucrose": 0.3})
     r = cg.freezing_point(s, with_uncertainty=True)
     assert r.std == 0.0 and r.not_stated == ["sucrose"] and r.constants == []
     assert r.value == cg.freezing_point(s)
+    table = cg.solutes()
+    assert table.loc["sucrose", "constant_uncertainty"] == "not stated"
+    assert table.loc["sodium_chloride", "constant_uncertainty"] == "not stated"
+
+
+def test_builtin_solutes_fitted_by_colligate_state_their_fit_uncertainty():
+    # Maltose's K is colligate's fit to the CRC Handbook rows marked used_in_fit
+    # (tools/fit_crc_norrish.py --covariance: u(K) = 0.102 with 16 degrees of freedom); the
+    # same fit by the C++ fitter on those rows is checked in test_prediction_uncertainty.cpp.
+    rec = cg.SoluteLibrary().find("maltose")
+    assert rec.uncertainty["names"] == ["norrish_k"]
+    assert rec.uncertainty["degrees_of_freedom"] == 16
+    assert rec.uncertainty["source"] == "colligate_fit_crc"
+    assert "u(norrish_k) = 0.102" in cg.solutes().loc["maltose", "constant_uncertainty"]
+    s = cg.Solution.from_mass_fractions({"maltose": 0.3, "sucrose": 0.1})
+    r = cg.freezing_point(s, with_uncertainty=True)
+    assert r.constants == ["maltose.norrish_k"] and r.not_stated == ["sucrose"]
+    assert r.std > 0.0 and r.degrees_of_freedom == 16
 
 
 def test_linear_and_monte_carlo_agree_within_5_percent(my_sucrose):
@@ -185,23 +205,35 @@ def test_no_warning_on_wide_range_osmotic_fit():
     assert res.success and res.poorly_determined() == []
 
 
-def test_fitted_salt_propagates_by_monte_carlo():
+def test_fitted_salt_propagates_linearly_and_by_monte_carlo():
     # A salt fitted to the osmotic coefficients carries its Pitzer covariance; the linear
-    # path has no closed form for Pitzer and says so, Monte Carlo (seed 11) gives the band.
+    # path (closed-form Pitzer sensitivities) and Monte Carlo (10^5 draws, seed 11) agree
+    # within 5 % of the standard uncertainty and of the 95 % interval's width.
     m, phi = nacl_osmotic()
     res = fit.fit_pitzer("NaCl", m, osmotic_coefficient=phi)
     salt = res.as_solute("my salt")
     assert salt.record.uncertainty["names"] == ["beta0", "beta1", "cphi"]
     s = cg.Solution.from_molalities({"my salt": 2.0}, table=fit.SoluteLibrary([salt]))
-    with pytest.raises(cg.InvalidInputError, match="Monte Carlo"):
-        cg.osmotic_coefficient(s, model="pitzer", with_uncertainty=True)
-    r = cg.osmotic_coefficient(s, model="pitzer", with_uncertainty="monte_carlo")
-    assert r.value == cg.osmotic_coefficient(s, model="pitzer")
+    lin = cg.osmotic_coefficient(s, model="pitzer", with_uncertainty=True)
+    mc = cg.osmotic_coefficient(s, model="pitzer", with_uncertainty="monte_carlo")
+    assert lin.value == mc.value == cg.osmotic_coefficient(s, model="pitzer")
     # the fit reproduces its data within 0.002 (test_fit_pitzer.py): the band at 2 mol/kg,
     # inside the data, is of that order
-    assert 1e-5 < r.std < 2e-3
-    lo, hi = r.ci(0.95)
-    assert lo < r.value < hi
+    assert 1e-5 < lin.std < 2e-3
+    assert mc.std == pytest.approx(lin.std, rel=0.05)
+    lo, hi = mc.ci(0.95)
+    k = 1.959964  # normal 97.5 % quantile (common practice)
+    assert hi - lo == pytest.approx(2 * k * lin.std, rel=0.05)
+    assert lin.degrees_of_freedom == res.degrees_of_freedom
+    assert set(lin.sensitivities) == {"my_salt.beta0", "my_salt.beta1", "my_salt.cphi"}
+    # the ice line of the fitted salt (its data are at 25 C: flagged as extrapolated)
+    with pytest.warns(cg.OutOfValidityRangeWarning):
+        tf = cg.freezing_point(s, model="pitzer", with_uncertainty=True)
+    assert tf.std > 0.0
+    # a salt + sugar mixture under the Ross rule has no closed form: the error says what to use
+    s2 = cg.Solution.from_molalities({"my salt": 1.0, "sucrose": 0.5}, table=fit.SoluteLibrary([salt]))
+    with pytest.raises(cg.InvalidInputError, match="Monte Carlo"):
+        cg.water_activity(s2, model="ross", with_uncertainty=True)
 
 
 def test_enthalpy_and_heat_load_carry_the_fitted_constant(sucrose_fit, my_sucrose):
@@ -254,3 +286,107 @@ def test_range_policy_applies_with_uncertainty(my_sucrose):
     assert math.isnan(r.value) and math.isnan(r.std)
     with pytest.raises(cg.InvalidInputError, match="range_policy"):
         cg.freezing_point(s, with_uncertainty=True, range_policy="clip")
+
+
+def test_batch_returns_value_and_standard_uncertainty_columns(my_sucrose):
+    # A sweep over an invented range of syrup strengths (0-40 wt% of the fitted sucrose-like
+    # solute), one row per strength: the C++ kernel's columns equal the scalar results row
+    # by row (identity; no literature), in the caller's index.
+    _, lib = my_sucrose
+    w = np.linspace(0.0, 0.40, 9)
+    df_in = pd.DataFrame({"my sucrose": w}, index=[f"mix{i}" for i in range(len(w))])
+    batch = cg.SolutionBatch.from_mass_fractions(df_in, library=lib)
+    out = cg.freezing_point(batch, with_uncertainty=True)
+    assert list(out.columns) == ["freezing_point_K", "freezing_point_K_std", "degrees_of_freedom", "status"]
+    assert list(out.index) == list(df_in.index)
+    for name, wi in zip(df_in.index, w):
+        s = cg.Solution.from_mass_fractions({"my sucrose": float(wi)}, table=lib)
+        r = cg.freezing_point(s, with_uncertainty=True)
+        assert out.loc[name, "freezing_point_K"] == r.value
+        assert out.loc[name, "freezing_point_K_std"] == r.std
+        assert out.loc[name, "degrees_of_freedom"] == r.degrees_of_freedom
+    assert out["freezing_point_K_std"].iloc[0] == 0.0  # pure water: nothing to propagate
+    assert (out["freezing_point_K_std"].iloc[1:] > 0.0).all()
+    ice = cg.ice_fraction(batch, 270.15, with_uncertainty=True)  # -3 C: inside the fit's range
+    assert list(ice.columns)[:2] == ["ice_fraction", "ice_fraction_std"]
+    assert ice["ice_fraction"].iloc[0] == 1.0 and ice["ice_fraction_std"].iloc[0] == 0.0  # water: all ice
+    for i in (2, 6):
+        s = cg.Solution.from_mass_fractions({"my sucrose": float(w[i])}, table=lib)
+        r = cg.ice_fraction(s, 270.15, with_uncertainty=True)
+        assert ice["ice_fraction"].iloc[i] == r.value and ice["ice_fraction_std"].iloc[i] == r.std
+    assert ice["ice_fraction_std"].iloc[6] > 0.0
+    # built-in solutes state no uncertainty: std 0, not NaN
+    plain = cg.SolutionBatch.from_mass_fractions({"sucrose": w[1:]})
+    assert (cg.water_activity(plain, with_uncertainty=True)["water_activity_std"] == 0.0).all()
+    with pytest.raises(cg.InvalidInputError, match="linear"):
+        cg.freezing_point(batch, with_uncertainty="monte_carlo")
+
+
+def test_report_shows_the_band_when_a_solute_has_stated_uncertainty(my_sucrose):
+    # An invented recipe: 0.25 kg of the fitted syrup solids (CRC sucrose fit) in 0.75 kg
+    # water. The report's figures carry value ± u and the 95 % interval, equal to the scalar
+    # results (identity); a recipe of built-in solutes without stated uncertainty has none.
+    import jsonschema
+    from colligate.report import build_report, format_json, format_text, report_schema
+
+    fs, _ = my_sucrose
+    r = cg.Recipe(water=0.75, solutes={"my sucrose": 0.25}, library=cg.Library([fs]))
+    rep = build_report(r)
+    jsonschema.validate(json.loads(format_json(rep)), report_schema())
+    u = rep["uncertainty"]
+    assert u["constants"] == ["my_sucrose.norrish_k"] and u["level"] == 0.95
+    tf = r.freezing_point(with_uncertainty=True)
+    assert u["freezing_point_K"]["value"] == pytest.approx(tf.value, rel=1e-12)
+    assert u["freezing_point_K"]["standard_uncertainty"] == pytest.approx(tf.std, rel=1e-12)
+    assert u["freezing_point_K"]["interval"] == pytest.approx(list(tf.ci(0.95)), rel=1e-12)
+    assert u["freezing_point_K"]["method"] == "linear"
+    assert len(u["ice_fraction_of_water"]) == len(rep["ice_table"])
+    text = format_text(rep)
+    assert "initial freezing point" in text and "±" in text and "95 % coverage interval" in text
+    plain = build_report(cg.Recipe(water=0.75, solutes={"sucrose": 0.25}))
+    assert plain["uncertainty"] is None
+    assert "coverage interval" not in format_text(plain)
+
+
+def test_ice_curve_plot_draws_the_band(my_sucrose, tmp_path):
+    # The band is the 95 % interval of the ice fraction along the curve (identity with the
+    # scalar results); a solution of built-in solutes without stated uncertainty has none.
+    from colligate import plot
+    from colligate.report_compute import IcePath
+
+    _, lib = my_sucrose
+    s = cg.Solution.from_mass_fractions({"my sucrose": 0.20}, table=lib)
+    temps = np.array([272.15, 270.15, 269.15])
+    frac = np.asarray(cg.ice_fraction(s, temps), dtype=float)
+    lo, hi = plot._ice_band(IcePath(s, "auto", 0.0), temps, frac)
+    r = cg.ice_fraction(s, 270.15, with_uncertainty=True)
+    assert (lo[1], hi[1]) == pytest.approx(r.ci(0.95), rel=1e-12)
+    assert np.all(lo <= frac) and np.all(frac <= hi) and hi[2] > lo[2]
+    plain = cg.Solution.from_mass_fractions({"sucrose": 0.20})
+    assert plot._ice_band(IcePath(plain, "auto", 0.0), temps, frac) is None
+    with pytest.warns(cg.OutOfValidityRangeWarning):  # the curve runs past the fit's 42 wt%
+        out = plot.plot_ice_curve(s, str(tmp_path / "band.png"))
+    assert pathlib.Path(out).stat().st_size > 0
+
+
+def test_correlation_warning_on_synthetic_data_from_known_constants():
+    # Synthetic data, invented for this test: the built-in NaCl (model 'pitzer') taken as the
+    # truth, with Gaussian noise (seed 20261202) of 0.002 on osmotic coefficients at 25 C
+    # over 0.1-6 mol/kg and of 0.01 K on freezing points over 0.2-4 mol/kg. The correlation
+    # of the fitted constants follows from the design (which molalities, which kind of data),
+    # so the freezing points alone tie beta0 to C-phi beyond |r| = 0.99 and the wide osmotic
+    # range does not (|r| about 0.985 at this seed).
+    rng = np.random.default_rng(20261202)
+    m = np.linspace(0.1, 6.0, 15)
+    phi = np.array([cg.osmotic_coefficient(cg.Solution.from_molalities({"NaCl": float(x)}), T=298.15,
+                                           model="pitzer") for x in m]) + rng.normal(0.0, 0.002, m.size)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", cg.PoorlyDeterminedFitWarning)
+        osm = fit.fit_pitzer("NaCl", m, osmotic_coefficient=phi)
+    assert osm.success and osm.poorly_determined() == []
+    mf = np.linspace(0.2, 4.0, 15)
+    tf = np.array([cg.freezing_point(cg.Solution.from_molalities({"NaCl": float(x)}), model="pitzer")
+                   for x in mf]) + rng.normal(0.0, 0.01, mf.size)
+    with pytest.warns(cg.PoorlyDeterminedFitWarning, match="beta0 and cphi are correlated"):
+        fp = fit.fit_pitzer("NaCl", mf, freezing_point=tf)
+    assert abs(fp.correlation.loc["beta0", "cphi"]) > 0.99 > abs(osm.correlation.loc["beta0", "cphi"])

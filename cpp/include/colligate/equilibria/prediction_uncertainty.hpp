@@ -9,21 +9,24 @@
 /// analytic. On the ice line F(T, p) = ln a_w(W, p) - ln a_w,ice(T) = 0 the implicit
 /// function theorem gives
 ///
-///     dT_f / dp = -(dF/dp) / (dF/dT) = (d ln a_w / dp) R T^2 / dH_fus(T)
+///     dT_f / dp = -(dF/dp) / (dF/dT) = (d ln a_w / dp) / (dH_fus(T) / (R T^2) - d ln a_w / dT)
 ///
-/// for a model whose a_w does not depend on T (water/ice.hpp: d ln a_w,ice/dT =
-/// dH_fus/(R T^2)); below the freezing point the unfrozen water W_u at T solves
-/// ln a_w(W_u, p) = ln a_w,ice(T), so dW_u/dp = -(d ln a_w/dp) / (d ln a_w/dW) (the closed
-/// form slope of models/norrish.hpp) and d(ice fraction)/dp = -(dW_u/dp) / W_total. The
-/// derivatives of ln a_w by the constants are those of models/norrish_sensitivity.hpp,
-/// so the linear path covers model 'norrish' (and 'auto' where it resolves to it) and the
-/// constants norrish_k, norrish_k3; other models and constants (Pitzer parameters of a
-/// fitted salt, the molar mass of an effective solute) go through Monte Carlo, which
+/// (water/ice.hpp: d ln a_w,ice/dT = dH_fus/(R T^2); d ln a_w / dT = 0 for model 'norrish');
+/// below the freezing point the unfrozen water W_u at T solves
+/// ln a_w(W_u, p) = ln a_w,ice(T), so dW_u/dp = -(d ln a_w/dp) / (d ln a_w/dW) and
+/// d(ice fraction)/dp = -(dW_u/dp) / W_total. The derivatives of ln a_w are closed forms:
+/// models/norrish_sensitivity.hpp (model 'norrish', constants norrish_k, norrish_k3) and
+/// models/pitzer_sensitivity.hpp (model 'pitzer', the constants of a salt's own Pitzer row:
+/// beta0, beta1, beta2, cphi and their d/dT; its slopes by T and by W include A_phi(T) and
+/// E-theta). 'auto' takes the linear path where it resolves to one of those two. Other
+/// models and constants (a salt + sugar mixture under 'ross', the molar mass of an
+/// effective solute, a state with a salt crystallised) go through Monte Carlo, which
 /// evaluates the plain prediction with constants drawn from N(p, Sigma) (JCGM 101:2008).
 ///
-/// Solutes whose constants carry no covariance are "not stated": they enter as exact and
-/// are listed. Constants of different solutes are taken as uncorrelated (separate fits);
-/// the degrees of freedom of the result follow Welch-Satterthwaite (GUM G.4.1) over the
+/// Solutes whose constants carry no covariance (a fitted record's own, or a built-in one's
+/// from data/builtin_uncertainty.hpp) are "not stated": they enter as exact and are
+/// listed. Constants of different solutes are taken as uncorrelated (separate fits); the
+/// degrees of freedom of the result follow Welch-Satterthwaite (GUM G.4.1) over the
 /// solutes' contributions, 0 (normal law) when none comes from a fit.
 
 #include <Eigen/Dense>
@@ -38,11 +41,13 @@
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/data/builtin_uncertainty.hpp"
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/fit/propagation.hpp"
 #include "colligate/models/norrish_sensitivity.hpp"
+#include "colligate/models/pitzer_sensitivity.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/water/ice.hpp"
 
@@ -129,8 +134,12 @@ inline void set_constant(data::solute_record& r, const std::string& name, double
 inline constant_set uncertain_constants(const solution& s) {
   constant_set c;
   std::vector<double> vals;
+  // A fitted record's own covariance, or a built-in one's stated uncertainty (data/builtin_uncertainty.hpp).
+  std::vector<data::constant_uncertainty> stated;
+  stated.reserve(s.size());
+  for (const auto& r : s.species()) stated.push_back(data::stated_uncertainty(r));
   for (std::size_t i = 0; i < s.size(); ++i) {
-    const auto& u = s.species()[i].uncertainty;
+    const auto& u = stated[i];
     if (!u.stated()) {
       c.not_stated.push_back(s.species()[i].id);
       continue;
@@ -152,7 +161,7 @@ inline constant_set uncertain_constants(const solution& s) {
   c.covariance = Eigen::MatrixXd::Zero(n, n);
   Eigen::Index at = 0;
   for (std::size_t i = 0; i < s.size(); ++i) {
-    const auto& u = s.species()[i].uncertainty;
+    const auto& u = stated[i];
     if (!u.stated()) continue;
     const auto k = static_cast<Eigen::Index>(u.size());
     for (Eigen::Index a = 0; a < k; ++a)
@@ -209,23 +218,50 @@ struct prediction_uncertainty {
 
 namespace detail {
 
-/// d ln a_w / dp at `water_kg` for every constant of `c` (model 'norrish').
+/// True for the models with closed-form sensitivities.
+inline bool has_linear_path(const std::string& model_id) {
+  return model_id == "norrish" || model_id == "pitzer";
+}
+
+/// d ln a_w / dp at `water_kg` and temperature T for every constant of `c` (models
+/// 'norrish' and 'pitzer'; a constant the model does not use has derivative 0).
 inline Eigen::VectorXd ln_aw_gradient(const solution& s, const constant_set& c, double water_kg,
-                                      const std::string& model_id) {
+                                      double T, const std::string& model_id) {
   Eigen::VectorXd g(static_cast<Eigen::Index>(c.constants.size()));
   for (std::size_t k = 0; k < c.constants.size(); ++k) {
     const auto& uc = c.constants[k];
-    models::norrish_constant which;
-    if (uc.name == "norrish_k") which = models::norrish_constant::k;
-    else if (uc.name == "norrish_k3") which = models::norrish_constant::k3;
-    else
+    const bool norrish_k = uc.name == "norrish_k" || uc.name == "norrish_k3";
+    models::pitzer_constant pc;
+    const bool pitzer_k = models::pitzer_constant_named(uc.name, pc);
+    double d = 0.0;
+    if (model_id == "norrish" && norrish_k) {
+      d = models::norrish_ln_water_activity_derivative(
+          s, water_kg, uc.species,
+          uc.name == "norrish_k" ? models::norrish_constant::k : models::norrish_constant::k3);
+    } else if (model_id == "pitzer" && pitzer_k) {
+      d = models::pitzer_ln_water_activity_derivative(s, water_kg, T, uc.species, pc);
+    } else if (model_id == "pitzer" && norrish_k) {
+      d = 0.0;  // model 'pitzer' counts non-electrolytes as ideal particles: K unused
+    } else {
       throw invalid_input("linear propagation: no closed-form sensitivity of ln a_w to '" +
                           c.label(k, s) + "' under model '" + model_id +
                           "'; use the Monte Carlo propagation for it");
-    g[static_cast<Eigen::Index>(k)] =
-        models::norrish_ln_water_activity_derivative(s, water_kg, uc.species, which);
+    }
+    g[static_cast<Eigen::Index>(k)] = d;
   }
   return g;
+}
+
+/// d ln a_w / dT of the solution at fixed amounts (0 for 'norrish', whose a_w does not
+/// depend on T).
+inline double ln_aw_temperature_slope(const solution& s, double water_kg, double T,
+                                      const std::string& model_id) {
+  if (model_id != "pitzer") return 0.0;
+  const double d = models::pitzer_slopes(s, water_kg, T).by_temperature;
+  if (!std::isfinite(d))
+    throw invalid_input("linear propagation: no closed-form temperature slope of ln a_w for this "
+                        "Pitzer row (extended form); use the Monte Carlo propagation");
+  return d;
 }
 
 /// Welch-Satterthwaite effective degrees of freedom (GUM G.4.1) over independent blocks.
@@ -268,11 +304,10 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
   const auto nan = std::numeric_limits<double>::quiet_NaN();
   Eigen::VectorXd dy = Eigen::VectorXd::Zero(static_cast<Eigen::Index>(c.constants.size()));
   const auto& model = m.resolve(s);
-  const bool linear_ok = model.id == "norrish";
-  if (!c.constants.empty() && !linear_ok)
+  if (!c.constants.empty() && !detail::has_linear_path(model.id))
     throw invalid_input("linear propagation: model '" + model.id +
                         "' has no closed-form sensitivities to its constants (only 'norrish' "
-                        "has); use the Monte Carlo propagation");
+                        "and 'pitzer' have); use the Monte Carlo propagation");
   double value = nan;
   switch (q) {
     case predicted_quantity::freezing_point: {
@@ -281,8 +316,10 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       value = r.success() ? r.temperature : nan;
       if (std::isfinite(value) && dy.size()) {
         const double T = value;
-        const double factor = constants::gas_constant * T * T / water::enthalpy_of_fusion(T);
-        dy = detail::ln_aw_gradient(s, c, s.water_mass() - bound_water_kg, model.id) * factor;
+        const double W = s.water_mass() - bound_water_kg;
+        const double ice_slope = water::enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
+        dy = detail::ln_aw_gradient(s, c, W, T, model.id) /
+             (ice_slope - detail::ln_aw_temperature_slope(s, W, T, model.id));
       }
       break;
     }
@@ -291,7 +328,7 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       out.check = r.check;
       value = r.value;
       if (std::isfinite(value) && dy.size())
-        dy = detail::ln_aw_gradient(s, c, s.water_mass(), model.id) * value;
+        dy = detail::ln_aw_gradient(s, c, s.water_mass(), temperature, model.id) * value;
       break;
     }
     case predicted_quantity::osmotic_coefficient: {
@@ -300,7 +337,7 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       value = r.value;
       const double mp = models::ideal::particle_molality(s, s.water_mass());
       if (std::isfinite(value) && dy.size() && mp > 0.0)
-        dy = -detail::ln_aw_gradient(s, c, s.water_mass(), model.id) /
+        dy = -detail::ln_aw_gradient(s, c, s.water_mass(), temperature, model.id) /
              (constants::molar_mass_water * mp);
       break;
     }
@@ -312,11 +349,26 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       if (!st.success()) break;
       value = q == predicted_quantity::ice_fraction ? st.ice_fraction() : st.unfrozen_water;
       if (!(st.ice > 0.0) || !dy.size()) break;  // not frozen: no ice to vary
-      models::ln_water_activity_evaluator ln_aw(m, s);
-      double lnaw = 0.0, slope = 0.0;
-      if (!ln_aw.with_slope(st.unfrozen_water, temperature, lnaw, slope) || !(slope > 0.0))
+      for (double x : st.precipitated)
+        if (x > 0.0)
+          throw invalid_input("linear propagation: a salt has crystallised at T = " +
+                              std::to_string(temperature) +
+                              " K, where the closed-form sensitivities do not hold; use the "
+                              "Monte Carlo propagation");
+      if (!(st.unfrozen_water > 0.0)) break;  // pure water: all ice, nothing to vary
+      const Eigen::VectorXd g = detail::ln_aw_gradient(s, c, st.unfrozen_water, temperature, model.id);
+      if (g.isZero(0.0)) break;  // no solute whose constants enter
+      double slope = 0.0;
+      if (model.id == "pitzer") {
+        slope = models::pitzer_slopes(s, st.unfrozen_water, temperature).by_water;
+      } else {
+        models::ln_water_activity_evaluator ln_aw(m, s);
+        double lnaw = 0.0;
+        if (!ln_aw.with_slope(st.unfrozen_water, temperature, lnaw, slope)) slope = 0.0;
+      }
+      if (!(slope > 0.0))
         throw convergence_error("linear propagation: no slope d ln a_w / d W at the unfrozen state");
-      const Eigen::VectorXd dW = -detail::ln_aw_gradient(s, c, st.unfrozen_water, model.id) / slope;
+      const Eigen::VectorXd dW = -g / slope;
       dy = q == predicted_quantity::ice_fraction ? Eigen::VectorXd(-dW / st.total_water) : dW;
       break;
     }
