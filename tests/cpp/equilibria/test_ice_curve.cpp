@@ -159,6 +159,34 @@ TEST_CASE("binary brines end at their eutectic with the salt hydrate named",
   }
 }
 
+TEST_CASE("a dilute KCl + CaCl2 brine has ice at every temperature down to its eutectic",
+          "[equilibria][ice_curve][eutectic]") {
+  // Found by the hypothesis property test (tests/python/test_properties.py): above 86 %
+  // ice the ice-only root's first bracket step of ln W = 2 missed, and the next (4 more)
+  // landed where the Pitzer sums, far beyond their molality range, give no sign change, so
+  // the curve had no value from 252 K to 232 K. Identity checks, no published value:
+  // colder -> more ice (common practice), the water balance closes, and each temperature
+  // asked alone gives what the path gives.
+  const auto s = solution::from_mass_fractions({{"KCl", 0.0078125}, {"CaCl2", 0.03125}});
+  equilibria::ice_curve c(s);
+  REQUIRE(c.end_reason() == equilibria::curve_end::final_eutectic);
+  const double te = c.end_temperature();
+  double prev = 0.0;
+  for (double T = 270.0; T > te + 0.05; T -= 0.5) {
+    const auto st = c.at(T);
+    INFO(T << " K: " << st.check.reason());
+    REQUIRE(std::isfinite(st.ice_fraction()));
+    CHECK(st.ice_fraction() >= prev - 1e-12);
+    CHECK(std::abs(st.ice + st.unfrozen_water + st.bound_water + st.hydrate_water - s.water_mass()) <=
+          1e-12 * s.water_mass());
+    prev = st.ice_fraction();
+    if (T < 253.0 && T > 245.0) {
+      equilibria::ice_curve alone(s);
+      CHECK_THAT(alone.at(T).ice_fraction(), WithinAbs(st.ice_fraction(), 1e-9));
+    }
+  }
+}
+
 TEST_CASE("above the freezing point there is no ice, not an error", "[equilibria][ice_curve]") {
   equilibria::ice_curve c(solution::from_mass_fractions({{"sucrose", 0.2}}));
   const auto st = c.at(300.0);

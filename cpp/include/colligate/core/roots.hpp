@@ -67,18 +67,25 @@ root_result toms748_root(F&& f, double lo, double hi, double f_lo, double f_hi, 
 }
 
 /// Root of g(u) on u = ln W (water mass) below u_hi, where g(u_hi) > 0 and g falls as
-/// water is removed (the ice equilibrium of the unfrozen water): the lower end is moved
-/// down by 2, then by 4 at a time, to 60 below u_hi, until g < 0 there.
+/// water is removed (the ice equilibrium of the unfrozen water). The lower end is moved
+/// down by 2 (86 % of the water frozen), then by 1/2 at a time to 8 below u_hi, then by 4
+/// at a time to 60 below u_hi, until g < 0 there. The fine steps matter: a virial model
+/// (Pitzer) far beyond its fitted molality may turn back up or give no value, so a coarse
+/// step can jump over the one physical root into that region and find no sign change
+/// (a KCl + CaCl2 brine at 87 % ice lost its curve from 252 to 232 K that way).
 template <class G>
 root_result solve_on_log_water(G&& g, double u_hi) {
+  const double g_hi = g(u_hi);
+  double u_top = u_hi, g_top = g_hi;  // the last point above the root (g > 0)
   double u_lo = u_hi - 2.0;
   double g_lo = g(u_lo);
-  while (!(g_lo < 0.0) && u_lo > u_hi - 60.0) {
-    u_lo -= 4.0;
+  for (int k = 0; !(g_lo < 0.0) && k < 12 + 13; ++k) {
+    if (g_lo > 0.0) u_top = u_lo, g_top = g_lo;
+    u_lo -= k < 12 ? 0.5 : 4.0;  // to 8 below u_hi by 1/2, then to 60 below by 4
     g_lo = g(u_lo);
   }
   if (!(g_lo < 0.0)) return {};
-  return toms748_root(g, u_lo, u_hi, g_lo, g(u_hi), 50, 100);
+  return toms748_root(g, u_lo, u_top, g_lo, g_top, 50, 100);
 }
 
 /// Root of h(u) (rising in u) near u0: the bracket is widened by 1 at a time on each side
