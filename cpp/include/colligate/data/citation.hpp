@@ -408,6 +408,13 @@ inline const std::vector<citation>& citations() {
        "Development of B.E.T.-like models for sorption of water on foods, theory and relevance",
        "in Simatos, D.; Multon, J. L. (eds.), Properties of Water in Foods, Martinus Nijhoff, 119-131", "",
        "the GAB isotherm and its linearised form"},
+      {"laliberte_2009", "Laliberte, M.", 2009,
+       "A model for calculating the heat capacity of aqueous solutions, with updated density "
+       "and viscosity data", "J. Chem. Eng. Data 54, 1725-1760", "doi:10.1021/je8008123",
+       "apparent specific heat of a dissolved solute, c = a1 exp(a2 t + a3 exp(0.01 t) + a4 w_s) "
+       "+ a5 w_s^a6, and its constants a1-a6 with each fit's temperature and concentration "
+       "range (NaCl, KCl, CaCl2, MgCl2, Na2SO4, K2SO4, MgSO4, ethanol, acetic acid); read from "
+       "the copy in the chemicals package (Laliberte2009.tsv, electrochem.py), paper not read"},
   };
   return table;
 }
