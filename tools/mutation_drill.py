@@ -88,6 +88,14 @@ MUTATIONS = [
              f"{INC}/data/detail/builtin_solutes.inc",
              'norrish(4.23023, "colligate_fit_melinder", -9.94711, 0.0, "colligate_fit_melinder", 0.40,',
              'norrish(4.23023, "colligate_fit_melinder", 0.0, 0.0, "colligate_fit_melinder", 0.40,'),
+    Mutation("dissolved_salts_as_ash", "thermal: dissolved salts counted as Choi & Okos ash, their apparent specific heat ignored",
+             f"{INC}/thermal/dissolved_solutes.hpp",
+             "if (!r.heat_capacity.available || !(W > 0.0)) continue;",
+             "if (true || !(W > 0.0)) continue;  // planted"),
+    Mutation("apparent_heat_capacity_sign", "a dissolved solute's apparent specific heat with the wrong sign",
+             f"{INC}/data/dissolved_heat_capacity.hpp",
+             "return 1e3 * (c.a1 * std::exp(alpha) + c.a5 * std::pow(w, c.a6));",
+             "return -1e3 * (c.a1 * std::exp(alpha) + c.a5 * std::pow(w, c.a6));"),
 ]
 
 

@@ -2,11 +2,14 @@
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <string>
+#include <utility>
 
 #include "../reference_csv.hpp"
 #include "colligate/core/constants.hpp"
+#include "colligate/data/builtin_solutes.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/thermal/components.hpp"
+#include "colligate/thermal/dissolved_solutes.hpp"
 #include "colligate/thermal/enthalpy.hpp"
 #include "colligate/thermal/frozen_specific_heat.hpp"
 
@@ -221,4 +224,63 @@ TEST_CASE("Chen frozen specific heat validates its inputs", "[thermal]") {
                     Catch::Contains("below the initial freezing point"));
   // identity: with no water the correlation is 1.55 + 1.26 x_s kJ/(kg K)
   CHECK_THAT(thermal::chen_frozen_specific_heat(0.0, 1.0, 0.0, 272.0, 250.0), WithinRel(2810.0, 1e-12));
+}
+
+TEST_CASE("dissolved salts count with their apparent specific heat (Laliberte 2009)", "[thermal]") {
+  const auto& nacl = data::builtin_solutes().find("NaCl");
+  REQUIRE(nacl.heat_capacity.available);
+  // Worked example of the chemicals package's Laliberte (2009) implementation, the copy the
+  // constants were read from (electrochem.py, Laliberte_heat_capacity_i): NaCl at 1.5 C and
+  // w_s = 0.00398447 gives -2930.7353945880477 J/(kg K). Same equation and constants:
+  // rel 1e-9.
+  CHECK_THAT(data::apparent_specific_heat(nacl.heat_capacity, 274.65, 0.00398447),
+             WithinRel(-2930.7353945880477, 1e-9));
+
+  // Independent source: Pitzer, Peiper & Busey (1984), J. Phys. Chem. Ref. Data 13, 1,
+  // table of standard-state enthalpies, (H - H(25 C))/RT of NaCl(aq) at 1 bar: 0.641 at
+  // 10 C and 0.181 at 20 C (read from the copy in IDAES, idaes/dmf/tests/data_files/
+  // pitzer/pitzer_3.csv). Their difference from 25 C is the integral of the standard
+  // partial molar heat capacity, which Laliberte's correlation gives as w_s -> 0. Tolerance
+  // 5 %: the correlation is fitted to solutions of finite strength (its stated standard
+  // deviation, 0.010 kJ/(kg K) in the solution's c_p, is worth several per cent of the
+  // solute's apparent value in dilute solutions); a temperature-independent -80 J/(mol K)
+  // (the 25 C value) misses the 10 C row by 20 %.
+  const double M = nacl.molar_mass, R = constants::gas_constant;
+  for (const auto& [t, h_over_rt] : {std::pair<double, double>{10.0, 0.641}, {20.0, 0.181}}) {
+    const double a = 273.15 + t, b = 298.15;
+    const int n = 200;  // Simpson on a smooth integrand: exact to far below the tolerance
+    double s = 0.0;
+    for (int i = 0; i <= n; ++i) {
+      const double w = (i == 0 || i == n) ? 1.0 : (i % 2 ? 4.0 : 2.0);
+      s += w * data::apparent_specific_heat(nacl.heat_capacity, a + i * (b - a) / n, 0.0);
+    }
+    const double h_minus_h25 = -s * (b - a) / n / 3.0 * M;  // J/mol
+    INFO(t << " C");
+    CHECK_THAT(h_minus_h25, WithinRel(R * a * h_over_rt, 0.05));
+  }
+
+  // Identity: dH/dT equals the apparent specific heat for a brine, inside and below the
+  // correlation's range and in the ice region (rel 1e-4, central difference as above).
+  thermal::food_composition x;
+  x.water = 0.95;
+  x.ash = 0.05;
+  const thermal::food brine(x, solution::from_mass_fractions({{"sodium_chloride", 0.05}}));
+  for (double T : {T0 - 8.0, T0 + 1.0, T0 + 15.0, T0 + 35.0}) {
+    const double h = 1e-3;
+    const double numeric = (thermal::enthalpy(brine, T + h).value - thermal::enthalpy(brine, T - h).value) / (2.0 * h);
+    INFO(T << " K");
+    CHECK_THAT(thermal::apparent_specific_heat(brine, T).value, WithinRel(numeric, 1e-4));
+  }
+  // The salt lowers the heat capacity of the brine below that of its water (dissolved
+  // NaCl has a negative apparent specific heat): common practice, seawater's c_p is about
+  // 5 % below pure water's.
+  CHECK(thermal::apparent_specific_heat(brine, T0 + 15.0).value <
+        x.water * thermal::specific_heat(component::water, T0 + 15.0));
+
+  // The composition decides how much is replaced: without ash nothing is; sugars carry no
+  // apparent specific heat yet and keep the carbohydrate polynomial.
+  thermal::food_composition no_ash = x;
+  no_ash.ash = 0.0;
+  CHECK(thermal::dissolved_solute_heat(no_ash, brine.water_phase()).sensible_enthalpy(T0, T0 + 20.0) == 0.0);
+  CHECK(thermal::dissolved_solute_heat(sucrose_food().composition(), sucrose_food().water_phase()).empty());
 }

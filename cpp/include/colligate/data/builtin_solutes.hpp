@@ -80,13 +80,21 @@ inline norrish_constants norrish(double k, const char* k_source, double k3, doub
   return n;
 }
 
+/// A record with its dissolved solute's apparent specific heat (data/dissolved_heat_capacity.hpp).
+inline solute_record with_heat_capacity(solute_record r, dissolved_heat_capacity c) {
+  r.heat_capacity = std::move(c);
+  return r;
+}
+
 }  // namespace detail
 
 /// The built-in table; built once, immutable afterwards (thread-safe initialisation).
 inline const solute_table& builtin_solutes() {
   using detail::electrolyte;
   using detail::non_electrolyte;
+  using detail::laliberte;
   using detail::norrish;
+  using detail::with_heat_capacity;
   static const solute_table table(std::vector<solute_record>{
 #include "colligate/data/detail/builtin_solutes.inc"
   });

@@ -421,6 +421,13 @@ inline const std::vector<citation>& citations() {
        "Glass transition and crystallization of amorphous trehalose-sucrose mixtures",
        "Int. J. Food Prop., 559-574", "doi:10.1080/10942910500269824",
        "abstract: DSC of freeze-dried sugars; Tg of dry sucrose 60 C, trehalose 106 C"},
+      {"laliberte_2009", "Laliberte, M.", 2009,
+       "A model for calculating the heat capacity of aqueous solutions, with updated density "
+       "and viscosity data", "J. Chem. Eng. Data 54, 1725-1760", "doi:10.1021/je8008123",
+       "apparent specific heat of a dissolved solute, c = a1 exp(a2 t + a3 exp(0.01 t) + a4 w_s) "
+       "+ a5 w_s^a6, and its constants a1-a6 with each fit's temperature and concentration "
+       "range (NaCl, KCl, CaCl2, MgCl2, Na2SO4, K2SO4, MgSO4, ethanol, acetic acid); read from "
+       "the copy in the chemicals package (Laliberte2009.tsv, electrochem.py), paper not read"},
   };
   return table;
 }

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "colligate/data/constant_uncertainty.hpp"
+#include "colligate/data/dissolved_heat_capacity.hpp"
 #include "colligate/data/pitzer_parameters.hpp"
 
 namespace colligate::data {
@@ -72,6 +73,9 @@ struct solute_record {
   norrish_constants norrish;
   record_pitzer_parameters pitzer;  ///< own Pitzer binary parameters (fitted salts only)
   constant_uncertainty uncertainty;  ///< covariance of the constants; empty: "not stated"
+  /// Apparent specific heat of the dissolved solute (thermal model); when not available
+  /// the solute counts with its proximate component (Choi & Okos carbohydrate or ash).
+  dissolved_heat_capacity heat_capacity;
 };
 
 }  // namespace colligate::data

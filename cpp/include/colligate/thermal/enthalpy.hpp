@@ -19,7 +19,10 @@
 /// unaffected; below the eutectic the functions throw, as the ice curve does. Liquid water below 0 C is taken as ice plus the enthalpy of fusion at the
 /// same temperature, so the model is consistent with the ice equilibrium; above 0 C it
 /// follows the Choi & Okos water polynomial (the heat capacity then jumps by about 0.2 %
-/// at 0 C; the enthalpy is continuous). Crystallisation of fat and of solutes is not
+/// at 0 C; the enthalpy is continuous). H_solids counts each component with its Choi &
+/// Okos polynomial, except the dissolved solutes whose records carry an apparent specific
+/// heat (salts, ethanol, acetic acid; thermal/dissolved_solutes.hpp), which count with
+/// that. Crystallisation of fat and of solutes is not
 /// included. The apparent specific heat is dH/dT, with the derivative of the ice
 /// fraction taken from the ice equilibrium by implicit differentiation (not from H).
 
@@ -39,6 +42,7 @@
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/thermal/components.hpp"
+#include "colligate/thermal/dissolved_solutes.hpp"
 #include "colligate/water/ice.hpp"
 
 namespace colligate::thermal {
@@ -177,7 +181,8 @@ inline double reference_liquid_share(const food& f, equilibria::ice_curve& curve
 inline double raw_enthalpy(const food& f, double T, double phi) {
   const auto& x = f.composition();
   const double T0 = constants::ice_point;
-  double h = solids_sensible_enthalpy(x, reference_temperature, T);
+  double h = solids_sensible_enthalpy(x, reference_temperature, T) +
+             dissolved_solute_heat(x, f.water_phase()).sensible_enthalpy(reference_temperature, T);
   if (T <= T0) {
     h += x.water * (sensible_enthalpy(component::ice, reference_temperature, T) +
                     phi * latent_heat(T));
@@ -219,7 +224,7 @@ inline checked_value apparent_specific_heat(const food& f, equilibria::ice_curve
   detail::check_temperature("apparent_specific_heat", temperature);
   const auto& x = f.composition();
   const double T = temperature;
-  double cp = solids_specific_heat(x, T);
+  double cp = solids_specific_heat(x, T) + dissolved_solute_heat(x, f.water_phase()).specific_heat(T);
   validity v;
   if (T <= constants::ice_point) {
     const auto ls = liquid_water_share(f, curve, T);

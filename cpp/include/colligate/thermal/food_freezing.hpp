@@ -116,7 +116,9 @@ inline material_table food_material(const food& f, double T_lo, double T_hi, dou
   if (T_end > T_lo) {  // below the eutectic: fully frozen sensible heat
     const auto& x = f.composition();
     const double T_mid = 0.5 * (T_lo + T_end);
-    const double cp = solids_specific_heat(x, T_mid) + x.water * specific_heat(component::ice, T_mid);
+    const double cp = solids_specific_heat(x, T_mid) +
+                      dissolved_solute_heat(x, f.water_phase()).specific_heat(T_mid) +
+                      x.water * specific_heat(component::ice, T_mid);
     Ts.insert(Ts.begin(), T_lo);
     H.insert(H.begin(), H.front() - rho * cp * (T_end - T_lo));
     k.insert(k.begin(), k.front());
@@ -185,8 +187,10 @@ inline food_freezing_inputs freezing_inputs_of_food(const food& f, double initia
   r.density_frozen = frozen.density;
   r.k_frozen = frozen.conductivity;
   const double T_mean = std::max(constants::ice_point, 0.5 * (initial_temperature + fp.temperature));
-  r.specific_heat_unfrozen = unfrozen_specific_heat(x, T_mean);
+  const dissolved_solute_heat dissolved(x, f.water_phase());
+  r.specific_heat_unfrozen = unfrozen_specific_heat(x, T_mean) + dissolved.specific_heat(T_mean);
   r.specific_heat_frozen = solids_specific_heat(x, centre_temperature) +
+                           dissolved.specific_heat(centre_temperature) +
                            freezable * specific_heat(component::ice, centre_temperature) +
                            bound * specific_heat(component::water, constants::ice_point);
   return r;
