@@ -131,6 +131,22 @@ def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
     return _gamma_harvie(row) / g01 * float(first.iloc[0].mean_activity_coefficient)
 
 
+# --- seawater: where each salt starts to crystallise --------------------------------------
+
+_SEAWATER_CURVES: dict = {}
+
+
+def _seawater_salt_onset_c(row) -> float:
+    cg = _cg()
+    path = "fractional" if row.pathway.startswith("fractional") else "equilibrium"
+    if path not in _SEAWATER_CURVES:
+        _SEAWATER_CURVES[path] = cg.IceCurve(cg.Solution.seawater(STANDARD_SEAWATER_SA), path=path)
+    for salt in _SEAWATER_CURVES[path].salts:
+        if salt["name"] == row.phase:
+            return salt["onset_temperature_K"] - CELSIUS
+    return float("nan")  # the phase does not form: fails its check
+
+
 # --- saturated salt solutions, sugar solubility, propylene glycol by volume ------------------
 
 # Molality well above saturation at 25 C (NaCl saturates near 6.1, KCl near 4.8 mol/kg): the
@@ -252,6 +268,8 @@ QUANTITIES: dict[str, Quantity] = {
     "food_latent_heat": Quantity(_food_latent_heat, "water_percent", "water, mass %", curve=False),
     "food_mean_specific_heat_20_to_0": Quantity(_food_mean_cp_20_to_0, "water_percent", "water, mass %",
                                                 curve=False),
+    "seawater_salt_onset_C": Quantity(_seawater_salt_onset_c, "onset_temperature_C",
+                                      "published onset, C", "phase", curve=False),
     "mean_activity_coefficient_harvie_1984": Quantity(_gamma_harvie, "molality_mol_per_kg", "molality, mol/kg",
                                                       "salt", log_y=True, relative=True),
     "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",
@@ -424,7 +442,9 @@ def plot(result: CheckResult, path: pathlib.Path) -> None:
             band += " (not checked; off the residual scale when far out)"
     caption = f"{_source_line(t['source_key'])}\n{band}. {result.basis}"
     fig.text(0.01, 0.01, caption, fontsize=6.5, wrap=True, va="bottom")
-    fig.tight_layout(rect=(0, 0.12, 1, 1))
+    # room under the axes for the wrapped caption (about 150 characters a line at this size)
+    lines = sum(-(-len(part) // 150) for part in caption.split("\n"))
+    fig.tight_layout(rect=(0, min(0.3, 0.03 + 0.022 * lines), 1, 1))
     fig.savefig(path, dpi=110)
     plt.close(fig)
 

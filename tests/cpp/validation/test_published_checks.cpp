@@ -20,6 +20,7 @@
 #include "colligate/core/constants.hpp"
 #include "colligate/core/solution.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/equilibria/sugar_crystallisation.hpp"
@@ -597,4 +598,32 @@ TEST_CASE("sugar solubility against the rows held out of its fit", "[validation]
     ++n;
   }
   CHECK(n >= 17);
+}
+
+TEST_CASE("salts crystallising from freezing seawater start where the published paths say",
+          "[validation][seawater][ice_curve]") {
+  // tests/reference/seawater_brine_path.csv: Butler et al. (2016) mirabilite -6.38 C
+  // (measured brines); the FREZCHEM equilibrium run of Wolfenbarger et al. (2022), read in
+  // their data file; Nelson & Thompson (1954) hydrohalite on the fractional path (from
+  // memory). Rows and per-phase tolerances (seawater_salt_onsets), each a named limitation:
+  // mirabilite 0.3 K (FREZCHEM's 0.1 K steps; the lumped carbonate raises sulfate 0.8 %),
+  // hydrohalite 0.6 K (the NaCl curvature follows Melinder's ice line; FREZCHEM's brine holds
+  // bromide), gypsum 1.2 K (strontium lumped with calcium, carbonate with sulfate, and
+  // FREZCHEM takes calcium into ikaite first), sylvite 1.5 K (it closes colligate's six-ion
+  // path, where FREZCHEM's brine goes on with carbonate, bromide and boron).
+  const auto& c = tolerances::find("seawater_salt_onsets");
+  equilibria::ice_curve equilibrium(solution::seawater(standard_seawater_SA));
+  equilibria::ice_curve fractional(solution::seawater(standard_seawater_SA), "auto", 0.0,
+                                   equilibria::crystallisation_path::fractional);
+  int n = 0;
+  for (const auto& r : tolerances::rows(c)) {
+    auto& curve = r.at("pathway").rfind("fractional", 0) == 0 ? fractional : equilibrium;
+    double onset = std::nan("");
+    for (const auto& salt : curve.salts())
+      if (salt.phase->name == r.at("phase")) onset = salt.temperature - C;
+    INFO(r.at("phase") << " (" << r.at("pathway") << ") [" << r.at("source_key") << "]");
+    CHECK_THAT(onset, Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++n;
+  }
+  CHECK(n == 6);
 }
