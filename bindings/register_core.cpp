@@ -222,10 +222,25 @@ Solution from solute mole fractions (formula units, undissociated); rest is wate
       row["summary"] = d.summary;
       row["temperature_dependent"] = d.traits.temperature_dependent;
       row["ion_activities"] = d.traits.ion_activities;
+      py::list limits;  // the validated range the model's check() applies
+      for (const auto& l : d.validated_range) {
+        py::dict limit;
+        limit["quantity"] = l.quantity;
+        limit["unit"] = l.unit;
+        limit["low"] = l.low;
+        limit["high"] = l.high;
+        limit["basis"] = l.basis;
+        limit["source"] = l.source;
+        limit["per_solute"] = l.per_solute;
+        limits.append(limit);
+      }
+      row["validated_range"] = limits;
       rows.append(row);
     }
     return rows;
-  }, "The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities.");
+  }, "The registry's models as dicts: id, summary (equation and sources), temperature_dependent, "
+     "ion_activities, validated_range (list of dicts: quantity, unit, low, high (NaN: no limit), "
+     "basis, source key, per_solute: where each solute's own limit is kept).");
   m.def(
       "describe_model",
       [](const solution& s, const std::string& model) {

@@ -27,6 +27,22 @@ def _cell(text: object) -> str:
     return str(text).replace("|", "\\|").replace("\n", " ")
 
 
+def _range_text(limit: dict) -> str:
+    """'233.15-323.15 K (-40 to 50 °C)', 'up to 0.1 mol/kg', or where per-solute limits are kept."""
+    low, high, unit = limit["low"], limit["high"], limit["unit"]
+    if limit["per_solute"]:
+        return limit["per_solute"]
+    u = f" {unit}" if unit else ""
+    if high != high:  # NaN: no upper limit
+        return f"from {low:g}{u}"
+    if low == low and low != 0.0:
+        text = f"{low:g}-{high:g}{u}"
+        if unit == "K":
+            text += f" ({low - 273.15:.0f} to {high - 273.15:.0f} °C)"
+        return text
+    return f"up to {high:g}{u}"
+
+
 def models_page() -> str:
     import colligate as cg
     from colligate import _core
@@ -58,6 +74,16 @@ def models_page() -> str:
         lines.append(f"| `{row['id']}` | {_cell(row['summary'])} | "
                      f"{'yes' if row['temperature_dependent'] else 'no'} | "
                      f"{'yes' if row['ion_activities'] else 'no'} |")
+    lines += ["", "## Validated range of each model", "",
+              "The limits each model's check applies (the same records: a result outside them "
+              "carries an `OutOfValidityRangeWarning` quoting the limit, its basis and its source). "
+              "A limit kept per solute or salt points to where its numbers are; `source` is a key "
+              "of the citation table, empty where the basis says where the limit comes from.", "",
+              "| model | quantity | range | basis | source |", "|---|---|---|---|---|"]
+    for row in _core.model_summaries():
+        for limit in row["validated_range"]:
+            lines.append(f"| `{row['id']}` | {_cell(limit['quantity'])} | {_cell(_range_text(limit))} | "
+                         f"{_cell(limit['basis'])} | {'`' + limit['source'] + '`' if limit['source'] else ''} |")
     lines += ["", "## Pitzer parameter sets", "",
               "Each set carries its own temperature range (below) and a molality limit per salt; "
               "see [the electrolyte notes](../electrolytes.md). The first set is the default.", "",
@@ -110,7 +136,7 @@ def cpp_api_page() -> str:
                 lines += [f".. doxygenfunction:: {qualified}{args}", ""]
         lines += ["```", ""]
     lines += ["## Errors, validity and range policy", "", "```{eval-rst}"]
-    for name in ("invalid_input", "out_of_validity_range", "convergence_error", "validity"):
+    for name in ("invalid_input", "out_of_validity_range", "convergence_error", "validity", "range_limit"):
         lines += [f".. doxygen{_compound_kind('colligate::' + name)}:: colligate::{name}", ""]
     lines += [".. doxygenenum:: colligate::range_policy", "", ".. doxygenenum:: colligate::validity_code",
               "```", ""]

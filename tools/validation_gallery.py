@@ -111,6 +111,129 @@ def _food_cp_below_chen(row) -> float:
                                         CELSIUS - 40.0) / 1e3
 
 
+# --- 25 C mean activity coefficients (CRC Handbook table) -----------------------------------
+
+def _gamma_harvie(row) -> float:
+    cg = _cg()
+    s = cg.Solution.from_molalities({row.salt: row.molality_mol_per_kg})
+    return cg.mean_activity_coefficient(s, row.salt, row.temperature_K, parameter_set="harvie_1984")
+
+
+def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
+    # gamma(m) / gamma(0.1 mol/kg) of the model, scaled by the table's gamma(0.1 mol/kg): the
+    # residual against the table's gamma(m) is then the residual of the ratio times the
+    # table's gamma(0.1), so a relative tolerance on it is one on the ratio.
+    cg = _cg()
+    first = rows[(rows.salt == row.salt) & (rows.molality_mol_per_kg == 0.1)]
+    if len(first) != 1:
+        raise SystemExit(f"{row.salt}: the ratio check needs the 0.1 mol/kg row of the table")
+    g01 = _gamma_harvie(first.iloc[0])
+    return _gamma_harvie(row) / g01 * float(first.iloc[0].mean_activity_coefficient)
+
+
+# --- seawater: where each salt starts to crystallise --------------------------------------
+
+_SEAWATER_CURVES: dict = {}
+
+
+def _seawater_salt_onset_c(row) -> float:
+    cg = _cg()
+    path = "fractional" if row.pathway.startswith("fractional") else "equilibrium"
+    if path not in _SEAWATER_CURVES:
+        _SEAWATER_CURVES[path] = cg.IceCurve(cg.Solution.seawater(STANDARD_SEAWATER_SA), path=path)
+    for salt in _SEAWATER_CURVES[path].salts:
+        if salt["name"] == row.phase:
+            return salt["onset_temperature_K"] - CELSIUS
+    return float("nan")  # the phase does not form: fails its check
+
+
+# --- saturated salt solutions, sugar solubility, propylene glycol by volume ------------------
+
+# Molality well above saturation at 25 C (NaCl saturates near 6.1, KCl near 4.8 mol/kg): the
+# equilibrium state is the saturated liquid whatever the excess (the same choice as
+# tests/cpp/equilibria/test_salt_equilibrium.cpp).
+ABOVE_SATURATION = {"NaCl": 8.0, "KCl": 6.5}
+
+
+def _saturated_water_activity(row) -> float:
+    cg = _cg()
+    s = cg.Solution.from_molalities({row.salt: ABOVE_SATURATION[row.salt]})
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", cg.SupersaturatedWarning)
+        state = cg.salt_equilibrium(s, row.temperature_K)
+    if state["phase"] != row.phase:
+        raise SystemExit(f"{row.salt}: the model crystallises {state['phase']}, the table {row.phase}")
+    return state["water_activity"]
+
+
+def _sugar_solubility_g_per_100g(row) -> float:
+    cg = _cg()
+    w = float(cg.solubility(row.solute, row.temperature_c + CELSIUS))
+    return 100.0 * w / (1.0 - w)
+
+
+# Specific gravity of propylene glycol at 60/60 F (from memory; +-0.002 moves the mass
+# fraction by 0.2 %), as in tests/cpp/validation/test_published_checks.cpp.
+PROPYLENE_GLYCOL_SG = 1.038
+
+
+def _glycol_freezing_point_f_from_volume(row) -> float:
+    # "% by volume" taken as glycol volume per solution volume: w = phi SG_glycol / SG_solution.
+    cg = _cg()
+    w = row.volume_percent / 100.0 * PROPYLENE_GLYCOL_SG / row.specific_gravity_60F
+    t = cg.freezing_point(cg.Solution.from_mass_fractions({row.solute: w}))
+    return 32.0 + 1.8 * (t - CELSIUS)
+
+
+# --- an ice-cream mix: the ice curve against the dairy method and Goff & Hartel's table ------
+
+def goff_hartel_mix():
+    """Goff & Hartel (2013) Example Problem 13 mix as a recipe: 10 % MSNF, 2 % whey solids,
+    12 % sucrose, 4 % 42DE corn syrup solids, 60 % water, 12 % fat (the same mix as
+    tests/python/test_ingredients.py). Whey solids: lactose 76.5 % (Goff & Hartel 2013), milk
+    salts 0.099 as in MSNF; corn syrup solids: DP1 19, DP2 14, DP3 12, DP4+ 55 % (the
+    library's glucose_syrup_de42; from memory)."""
+    cg = _cg()
+    css = {"glucose": 0.19 * 0.04, "maltose": 0.14 * 0.04, "maltotriose": 0.12 * 0.04,
+           "higher_saccharides": 0.55 * 0.04}
+    mix = cg.Ingredient("Goff & Hartel example mix", water=0.60, fat=0.12, msnf=0.10,
+                        sugars={"sucrose": 0.12, "lactose": 0.765 * 0.02, **css},
+                        salts={"milk_salts": 0.099 * 0.02}, protein=0.02 * (1 - 0.765 - 0.099))
+    return cg.Recipe(ingredients={mix: 1.0})
+
+
+def _ice_cream_ice_percent(row) -> float:
+    return 100.0 * goff_hartel_mix().ice_fraction(CELSIUS - row.depression_K)
+
+
+def _dairy_method_ice_percent(row) -> float:
+    return 100.0 * goff_hartel_mix().leighton_ice_fraction(CELSIUS - row.depression_K)
+
+
+def _dairy_method_curve(x: np.ndarray) -> np.ndarray:
+    """The dairy method's ice curve of the same mix, drawn beside the model (x: depression, K)."""
+    r = goff_hartel_mix()
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        return np.array([100.0 * r.leighton_ice_fraction(CELSIUS - d) for d in x])
+
+
+def _food_latent_heat(row) -> float:
+    # x_w L(0 C), the quantity of ASHRAE's latent heat column (thermal::latent_heat_of_fusion)
+    cg = _cg()
+    return row.water_percent / 100.0 * cg._core.enthalpy_of_fusion(CELSIUS) / cg._core.MOLAR_MASS_WATER / 1e3
+
+
+def _food_mean_cp_20_to_0(row) -> float:
+    # Heat to cool from 20 C to 0 C over 20 K; above 0 C no ice forms, so the water phase only
+    # has to be valid: its sugars as glucose (as tests/cpp/validation/test_published_checks.cpp).
+    cg = _cg()
+    comp = _food_composition(row)
+    sugars = comp["carbohydrate"] / (comp["water"] + comp["carbohydrate"])
+    s = cg.Solution.from_mass_fractions({"glucose": sugars})
+    return cg.heat_load(comp, s, CELSIUS + 20.0, CELSIUS)["total"] / 20.0 / 1e3
+
+
 @dataclass(frozen=True)
 class Quantity:
     compute: Callable
@@ -118,6 +241,11 @@ class Quantity:
     x_label: str
     group: str = ""   # column that splits the rows into curves ("" for one curve)
     curve: bool = True  # False: separate items (foods), the model drawn as markers
+    with_rows: bool = False  # compute(row, selected_rows): a value relative to other rows
+    # extra curves drawn over the x range of the table: label -> function of an x array
+    overlays: tuple = ()
+    log_y: bool = False
+    relative: bool = False  # residuals and tolerance drawn relative to the published value
 
 
 QUANTITIES: dict[str, Quantity] = {
@@ -137,6 +265,27 @@ QUANTITIES: dict[str, Quantity] = {
                                                   curve=False),
     "food_specific_heat_below_freezing_chen": Quantity(_food_cp_below_chen, "water_percent", "water, mass %",
                                                        curve=False),
+    "food_latent_heat": Quantity(_food_latent_heat, "water_percent", "water, mass %", curve=False),
+    "food_mean_specific_heat_20_to_0": Quantity(_food_mean_cp_20_to_0, "water_percent", "water, mass %",
+                                                curve=False),
+    "seawater_salt_onset_C": Quantity(_seawater_salt_onset_c, "onset_temperature_C",
+                                      "published onset, C", "phase", curve=False),
+    "mean_activity_coefficient_harvie_1984": Quantity(_gamma_harvie, "molality_mol_per_kg", "molality, mol/kg",
+                                                      "salt", log_y=True, relative=True),
+    "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",
+                                                            "molality, mol/kg", "salt", with_rows=True,
+                                                            relative=True),
+    "saturated_salt_water_activity": Quantity(_saturated_water_activity, "water_activity",
+                                              "published a_w of the saturated solution", "salt", curve=False),
+    "sugar_solubility_g_per_100g_water": Quantity(_sugar_solubility_g_per_100g, "temperature_c",
+                                                  "temperature, C", "solute"),
+    "propylene_glycol_freezing_point_F_from_volume_percent": Quantity(
+        _glycol_freezing_point_f_from_volume, "volume_percent", "propylene glycol, volume %"),
+    "ice_cream_ice_percent_of_water": Quantity(
+        _ice_cream_ice_percent, "depression_K", "freezing-point depression, K (Table 6.2)",
+        overlays=(("dairy method (Leighton 1927, Goff & Hartel Table 6.1)", _dairy_method_curve),)),
+    "dairy_method_ice_percent_of_water": Quantity(
+        _dairy_method_ice_percent, "depression_K", "freezing-point depression, K (Table 6.2)"),
 }
 
 
@@ -186,7 +335,7 @@ def evaluate(entry: dict, reference_dir: pathlib.Path, checked: bool = True) -> 
         values = []
         for r in rows.itertuples(index=False):
             before = len(caught)
-            values.append(quantity.compute(r))
+            values.append(quantity.compute(r, rows) if quantity.with_rows else quantity.compute(r))
             beyond.append(len(caught) > before)
     rows["model"] = values
     rows["beyond_validated_range"] = beyond
@@ -207,6 +356,11 @@ def evaluate(entry: dict, reference_dir: pathlib.Path, checked: bool = True) -> 
             tol += looked_up.to_numpy(dtype=float)
         rows["tolerance"] = tol
         rows["passed"] = rows["residual"].abs() <= rows["tolerance"]
+        rows["counted"] = True
+        if not entry.get("check_beyond_range", True):
+            # points the model flags as outside its validated range are drawn, not checked
+            rows["counted"] = ~rows["beyond_validated_range"]
+            rows["passed"] |= rows["beyond_validated_range"]
         for r in rows[~rows["passed"]].itertuples(index=False):
             label = ", ".join(f"{c}={getattr(r, c)}" for c in (quantity.group, quantity.x) if c)
             result.failures.append(
@@ -231,7 +385,12 @@ def plot(result: CheckResult, path: pathlib.Path) -> None:
     matplotlib.use("Agg")
     import matplotlib.pyplot as plt
 
-    t, q = result.table, result.quantity
+    t, q = result.table.copy(), result.quantity
+    if q.relative:  # residual and tolerance as fractions of the published value
+        scale = t[result.published].abs()
+        t["residual"] = t["residual"] / scale
+        if result.checked:
+            t["tolerance"] = t["tolerance"] / scale
     fig, (top, bottom) = plt.subplots(2, 1, figsize=(7.0, 6.2), sharex=True,
                                       gridspec_kw={"height_ratios": [2, 1]})
     groups = t.groupby(q.group, sort=False) if q.group else [("", t)]
@@ -242,24 +401,50 @@ def plot(result: CheckResult, path: pathlib.Path) -> None:
         top.plot(g[q.x], g[result.published], "o", ms=4, mfc="none", color=line.get_color(),
                  label=f"published {name}".strip())
         bottom.plot(g[q.x], g["residual"], "o", ms=4, color=line.get_color())
-        if result.checked:
-            bottom.fill_between(g[q.x], -g["tolerance"], g["tolerance"], color=line.get_color(),
+        if result.checked and q.curve:
+            band = g[g["counted"]]
+            bottom.fill_between(band[q.x], -band["tolerance"], band["tolerance"], color=line.get_color(),
                                 alpha=0.15, lw=0)
-    if result.checked:
+        elif result.checked:  # separate items: the tolerance of each as a bar about zero
+            bottom.errorbar(g[q.x], np.zeros(len(g)), yerr=g["tolerance"], fmt="none",
+                            ecolor=line.get_color(), alpha=0.25, lw=6)
+    if result.checked and not t["counted"].all():
+        # points beyond the validated range are drawn, not checked: scale to the checked ones
+        c = t[t["counted"]]
+        span = 1.3 * max(float(c["residual"].abs().max()), float(c["tolerance"].max()))
+        bottom.set_ylim(-span, span)
+    if len(q.overlays):
+        lo, hi = float(t[q.x].min()), float(t[q.x].max())
+        grid = np.linspace(lo, hi, 60)
+        for (label, f), style in zip(q.overlays, ("--", ":")):
+            top.plot(grid, f(grid), style, lw=1.2, color="black" if style == "--" else "grey", label=label)
+    if result.beyond:
+        out = t[t["beyond_validated_range"]]
+        bottom.plot(out[q.x], out["residual"], "s", mfc="none", color="grey", ms=7,
+                    label="beyond the validated range")
+    if q.log_y:
+        top.set_yscale("log")
+    if result.checked and not t["passed"].all():
         bad = t[~t["passed"]]
         bottom.plot(bad[q.x], bad["residual"], "x", color="black", ms=8, label="outside tolerance")
     bottom.axhline(0.0, color="grey", lw=0.8)
+    if result.beyond or (result.checked and not t["passed"].all()):
+        bottom.legend(fontsize=7)
     top.set_ylabel(f"{result.published} [{result.unit}]" if result.unit else result.published)
-    bottom.set_ylabel("model - published")
+    bottom.set_ylabel("(model - published) / published" if q.relative else "model - published")
     bottom.set_xlabel(q.x_label)
     top.set_title(result.title, fontsize=10)
     top.legend(fontsize=7, ncol=2)
-    band = "shaded band: tolerance" if result.checked else "not a check: no tolerance"
+    band = "shaded: tolerance" if result.checked else "not a check: no tolerance"
     if result.beyond:
         band += f"; {result.beyond} points beyond a validated range"
+        if result.checked and not t["counted"].all():
+            band += " (not checked; off the residual scale when far out)"
     caption = f"{_source_line(t['source_key'])}\n{band}. {result.basis}"
     fig.text(0.01, 0.01, caption, fontsize=6.5, wrap=True, va="bottom")
-    fig.tight_layout(rect=(0, 0.12, 1, 1))
+    # room under the axes for the wrapped caption (about 150 characters a line at this size)
+    lines = sum(-(-len(part) // 150) for part in caption.split("\n"))
+    fig.tight_layout(rect=(0, min(0.3, 0.03 + 0.022 * lines), 1, 1))
     fig.savefig(path, dpi=110)
     plt.close(fig)
 
@@ -296,9 +481,12 @@ def write_page(config: dict, results: list[CheckResult], path: pathlib.Path) -> 
              "licensed practice where a result decides food safety.", ""]
     for r in results:
         t = r.table
-        status = (f"{int(t['passed'].sum())} of {len(t)} points within tolerance; worst "
-                  f"|residual| {t['residual'].abs().max():.3g} {r.unit}" if r.checked
+        c = t[t["counted"]] if r.checked else t
+        status = (f"{int(c['passed'].sum())} of {len(c)} points within tolerance; worst "
+                  f"|residual| {c['residual'].abs().max():.3g} {r.unit}" if r.checked
                   else f"{len(t)} points shown, not checked")
+        if r.checked and len(c) < len(t):
+            status += f"; {len(t) - len(c)} beyond the model's validated range drawn, not checked"
         if r.beyond:
             status += f" ({r.beyond} computed outside a validated range, with a warning)"
         lines += [f"## {r.title}", "", f"![{r.title}]({r.id}.png)", "",
@@ -323,8 +511,10 @@ def main(argv=None) -> int:
     for r in results:
         t = r.table
         if r.checked:
-            print(f"{r.id}: {int(t['passed'].sum())}/{len(t)} within tolerance, worst "
-                  f"{t['residual'].abs().max():.3g} {r.unit}")
+            c = t[t["counted"]]
+            print(f"{r.id}: {int(c['passed'].sum())}/{len(c)} within tolerance, worst "
+                  f"{c['residual'].abs().max():.3g} {r.unit}"
+                  + (f" ({len(t) - len(c)} beyond the validated range, not checked)" if len(c) < len(t) else ""))
         else:
             print(f"{r.id}: {len(t)} points shown (not a check)")
     for line in problems:

@@ -806,7 +806,7 @@ def mean_activity_coefficient(solution: Solution, solute: str, temperature: typi
     ...
 def model_summaries() -> list:
     """
-    The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities.
+    The registry's models as dicts: id, summary (equation and sources), temperature_dependent, ion_activities, validated_range (list of dicts: quantity, unit, low, high (NaN: no limit), basis, source key, per_solute: where each solute's own limit is kept).
     """
 def models() -> list[str]:
     """

@@ -2,8 +2,10 @@
 
 from __future__ import annotations
 
+import csv
 import math
 import os
+import tomllib
 import warnings
 from pathlib import Path
 
@@ -111,9 +113,20 @@ def test_ice_cream_mix_freezing_point_and_ice_at_minus_18():
 # Goff & Hartel (2013), Ice Cream, 7th ed., ch. 6, Table 6.2: percent of the water frozen
 # against the freezing-point depression for their Example Problem 13 mix (10 % MSNF, 2 %
 # whey solids, 12 % sucrose, 4 % 42DE corn syrup solids, 60 % water; 12 % fat makes up the
-# rest), read in a public reproduction of that section.
-GOFF_HARTEL_TABLE_6_2 = [(10, 3.06), (20, 3.45), (30, 4.01), (40, 4.76), (50, 5.87),
-                         (60, 7.63), (70, 10.79), (75, 13.16), (80, 16.61)]
+# rest), read in a public reproduction of that section
+# (tests/reference/goff_hartel_ice_cream_freezing_curve.csv; its rows and tolerances in
+# tests/reference/tolerances.toml, shared with the validation gallery and the C++ suite).
+_REFERENCE = Path(__file__).resolve().parents[1] / "reference"
+with open(_REFERENCE / "goff_hartel_ice_cream_freezing_curve.csv", encoding="utf-8", newline="") as _fh:
+    _GOFF_HARTEL = list(csv.DictReader(_fh))
+GOFF_HARTEL_TABLE_6_2 = [(float(r["percent_of_water_frozen"]), float(r["depression_K"])) for r in _GOFF_HARTEL]
+
+
+def _goff_hartel_tolerance(check_id):
+    """Rows (percent frozen) and the constant tolerance of a check of tolerances.toml."""
+    with open(_REFERENCE / "tolerances.toml", "rb") as fh:
+        entry = next(e for e in tomllib.load(fh)["check"] if e["id"] == check_id)
+    return float(entry["tolerance"]), entry.get("rows", "")
 
 
 def test_ice_curve_vs_goff_hartel_worked_freezing_curve():
@@ -130,13 +143,16 @@ def test_ice_curve_vs_goff_hartel_worked_freezing_curve():
     r = Recipe(ingredients={mix: 1.0})
     # Example Problem 13: initial freezing point -2.74 C. Tolerance 0.1 K.
     assert r.freezing_point() - ZERO_C_K == pytest.approx(-2.74, abs=0.1)
+    model_tolerance, _ = _goff_hartel_tolerance("ice_cream_goff_hartel")  # 3 points
     for percent, depression in GOFF_HARTEL_TABLE_6_2:
         f, _ = quiet(r.ice_fraction, ZERO_C_K - depression)
-        assert 100.0 * f == pytest.approx(percent, abs=3.0), (percent, depression)
+        assert 100.0 * f == pytest.approx(percent, abs=model_tolerance), (percent, depression)
     # The dairy method itself reproduces the table (rows to 75 % inside Table 6.1): 0.5 point.
+    dairy_tolerance, rows = _goff_hartel_tolerance("ice_cream_dairy_method")
+    assert rows == "percent_of_water_frozen <= 75"
     for percent, depression in GOFF_HARTEL_TABLE_6_2[:-1]:
         f, _ = quiet(r.leighton_ice_fraction, ZERO_C_K - depression)
-        assert 100.0 * f == pytest.approx(percent, abs=0.5), (percent, depression)
+        assert 100.0 * f == pytest.approx(percent, abs=dairy_tolerance), (percent, depression)
 
 
 # ----------------------------------------------------------------- recipes

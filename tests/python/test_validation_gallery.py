@@ -46,8 +46,22 @@ def test_every_published_point_within_its_tolerance():
     results, problems = _gallery().run(REFERENCE, None)
     assert problems == []
     checked = [r for r in results if r.checked]
-    assert len(checked) >= 14
-    assert sum(len(r.table) for r in checked) >= 300
+    assert len(checked) >= 25
+    assert sum(len(r.table) for r in checked) >= 400
+
+
+def test_every_data_set_is_drawn():
+    # One PNG per data set (issue 18): every reference table is drawn by a check or a shown
+    # entry, except the three that hold no model-versus-data comparison (constants, solver
+    # problems), each listed with its reason.
+    config = _gallery().load_config(REFERENCE)
+    drawn = {e["file"] for e in config["check"] + config["shown"] if "quantity" in e}
+    not_drawn = {e["file"] for e in config["shown"] if "quantity" not in e}
+    assert not_drawn == {"norrish_constants.csv", "nist_strd_data.csv", "nist_strd_certified.csv"}
+    assert drawn | not_drawn == {p.name for p in REFERENCE.glob("*.csv")}
+    # the ice-cream mix against the dairy method, with the tolerance of test_ingredients.py
+    ice_cream = next(e for e in config["check"] if e["id"] == "ice_cream_goff_hartel")
+    assert ice_cream["file"] == "goff_hartel_ice_cream_freezing_curve.csv" and ice_cream["tolerance"] == "3"
 
 
 def test_moved_reference_value_and_unlisted_table_fail_the_script(tmp_path):

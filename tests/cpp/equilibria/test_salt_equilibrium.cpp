@@ -1,6 +1,6 @@
-// Saturated and supersaturated brines without ice (equilibria/salt_equilibrium.hpp):
-// Greenspan's (1977) saturated-salt fixed points, and the identities of the equilibrium
-// state (every solution above saturation gives the saturated liquid; mass balance).
+// Saturated and supersaturated brines without ice (equilibria/salt_equilibrium.hpp): the
+// identities of the equilibrium state (every solution above saturation gives the saturated
+// liquid; mass balance).
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <string>
@@ -13,29 +13,8 @@ using namespace colligate;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
 
-TEST_CASE("a_w at 25 C of solutions above saturation equals Greenspan's (1977) fixed point",
-          "[equilibria][saturation][validation]") {
-  // tests/reference/greenspan_saturated_salts_25c.csv (Greenspan 1977, polynomial fits read
-  // in a public copy). Limit of issue 12: 0.003 in a_w, about Greenspan's stated
-  // uncertainty (0.0012 NaCl, 0.0026 KCl). The solutions are well above saturation (NaCl
-  // saturates near 6.1 mol/kg, KCl near 4.8 mol/kg at 25 C).
-  for (const auto& r : colligate_test::read_reference("greenspan_saturated_salts_25c.csv")) {
-    const std::string salt = r.at("salt");
-    if (salt == "MgCl2") continue;  // no bischofite solubility product (see the row's note)
-    const double aw_ref = std::stod(r.at("water_activity"));
-    for (double m : {salt == "NaCl" ? 6.5 : 5.2, salt == "NaCl" ? 8.0 : 6.5}) {
-      INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
-      const auto st = equilibria::salt_equilibrium(solution::from_molalities({{salt, m}}), 298.15);
-      REQUIRE(st.supersaturated);
-      REQUIRE(st.phase != nullptr);
-      CHECK(st.phase->name == r.at("phase"));
-      CHECK(st.check.code == validity_code::in_range);
-      CHECK_THAT(st.water_activity, WithinAbs(aw_ref, 0.003));
-      // The metastable liquid is drier than the saturated one.
-      CHECK(st.metastable_water_activity < st.water_activity - 0.005);
-    }
-  }
-}
+// Greenspan's (1977) fixed points are checked in tests/cpp/validation/test_published_checks.cpp,
+// with the rows and tolerance of tests/reference/tolerances.toml (greenspan_saturated_salts).
 
 TEST_CASE("every solution above saturation reaches the same saturated liquid",
           "[equilibria][saturation]") {

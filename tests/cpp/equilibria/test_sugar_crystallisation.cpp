@@ -16,28 +16,9 @@ namespace {
 constexpr double celsius(double t) { return t + 273.15; }
 }  // namespace
 
-TEST_CASE("Sugar solubility against the held-out rows of published tables", "[solubility][published]") {
-  // tests/reference/sugar_solubility.csv: Antokolskaya et al. (1964) via Mohos (2010) table
-  // A2.2 for sucrose; Hudson (1908) via Lowe for lactose (final solubility); Jackson &
-  // Silsbee (1922) for glucose (values from memory). Only used_in_fit = no rows are checked.
-  // Tolerance: 1 % of the tabulated mass fraction, as the issue asks (the tables print
-  // 3-4 significant figures). Glucose's 15 and 70 degC rows miss by 1.2 and 1.4 % (the
-  // recalled rows are not smooth) and are checked at 1.5 %; this is a known weakness of
-  // recalled data, not of the form.
-  int checked = 0;
-  for (const auto& row : colligate_test::read_reference("sugar_solubility.csv")) {
-    if (row.at("used_in_fit") != "no") continue;
-    const double t = std::stod(row.at("temperature_c"));
-    const double s_tab = std::stod(row.at("solubility_g_per_100g_water")) / 100.0;
-    const double w_tab = s_tab / (1.0 + s_tab);
-    const auto r = equilibria::sugar_solubility(row.at("solute"), celsius(t));
-    const bool recalled = row.at("source_key") == "jackson_silsbee_1922";
-    INFO(row.at("solute") << " at " << t << " degC");
-    CHECK_THAT(r.mass_fraction, WithinRel(w_tab, recalled ? 0.015 : 0.01));
-    ++checked;
-  }
-  CHECK(checked >= 17);
-}
+// The held-out rows of tests/reference/sugar_solubility.csv are checked in
+// tests/cpp/validation/test_published_checks.cpp, with the rows and tolerance of
+// tests/reference/tolerances.toml (sugar_solubility_held_out).
 
 TEST_CASE("Sucrose, lactose and glucose at 0, 20 and 50 degC", "[solubility][published]") {
   // Sucrose: Browne's Herzfeld table as tabulated by Lowe (table 5): 64.18, 67.09 and

@@ -98,3 +98,27 @@ TEST_CASE("models declare their validity and the policy applies it", "[models][v
   CHECK_THAT(models::water_activity(syrup, 298.15).check.reason(), Contains("ethanol"));
   CHECK_THROWS_WITH(models::model_choice("pitzr"), Contains("valid models"));
 }
+
+TEST_CASE("each descriptor carries the validated range its check applies", "[models][validity]") {
+  // Identity (issue 18): the registry's range_limit records are the ones check() reports, so
+  // the documentation read from the registry and the warnings cannot differ.
+  for (const auto& d : models::builtin_models().models()) {
+    INFO(d.id);
+    REQUIRE_FALSE(d.validated_range.empty());
+    for (const auto& limit : d.validated_range) {
+      CHECK_FALSE(limit.quantity.empty());
+      CHECK_FALSE(limit.basis.empty());
+      CHECK((!std::isnan(limit.high) || !limit.per_solute.empty()));
+    }
+  }
+  const auto& norrish = *models::builtin_models().find("norrish");
+  const auto& t = norrish.validated_range.front();
+  REQUIRE(t.quantity == "temperature");
+  const auto s = solution::from_mass_fractions({{"sucrose", 0.1}});
+  const auto hot = models::water_activity(s, t.high + 5.0, "norrish");
+  CHECK(hot.check.code == validity_code::temperature_out_of_range);
+  CHECK(hot.check.range_low == t.low);
+  CHECK(hot.check.range_high == t.high);
+  CHECK_THAT(hot.check.reason(), Contains(t.basis));
+  CHECK(models::water_activity(s, t.high, "norrish").check.in_range());
+}

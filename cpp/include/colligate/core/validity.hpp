@@ -169,6 +169,42 @@ inline validity flagged(validity_code code, std::string where, std::string what,
   return v;
 }
 
+/// One limit of a model's validated range, as data. A model's registry descriptor lists
+/// its limits (models/registry.hpp; the "which model when" page and Python read them) and
+/// its check() builds its out-of-range records from the same objects, so the range a reader
+/// is shown and the range a result is checked against cannot differ.
+struct range_limit {
+  std::string quantity;  ///< what is limited: "temperature", "ionic strength", ...
+  std::string unit;      ///< SI unit ("K", "mol/kg"); "" for a fraction
+  double low = std::numeric_limits<double>::quiet_NaN();   ///< NaN: no lower limit
+  double high = std::numeric_limits<double>::quiet_NaN();  ///< NaN: no upper limit
+  std::string basis;   ///< why this limit (printed in the out-of-range reason)
+  std::string source;  ///< citation key that sets it; "" when the basis says where it comes from
+  /// "" when the numbers hold for every solution; otherwise where the limit of each solute
+  /// or salt is kept (e.g. the solute table's Norrish range), the numbers then being NaN.
+  std::string per_solute;
+
+  /// `value` above `high`: quantity "name (unit)", as the checks have always printed it.
+  validity above(std::string where, double value, const std::string& extra_note = {}) const {
+    return beyond_limit(std::move(where), unit.empty() ? quantity : quantity + " (" + unit + ")",
+                        value, high, unit.empty() ? "" : " " + unit,
+                        extra_note.empty() ? basis : basis + extra_note, source);
+  }
+
+  /// `value` outside [low, high] (a temperature).
+  validity outside(std::string where, double value, const std::string& extra_note = {}) const {
+    return outside_range(std::move(where), quantity, value, low, high,
+                         unit.empty() ? "" : " " + unit,
+                         extra_note.empty() ? basis : basis + extra_note, source);
+  }
+
+  /// True when `value` lies inside [low, high] (a missing side does not limit; 1e-9 slack
+  /// for temperatures given in Celsius and converted).
+  bool contains(double value) const {
+    return !(value < low - 1e-9) && !(value > high + 1e-9);
+  }
+};
+
 /// A value together with its validity.
 struct checked_value {
   double value = std::numeric_limits<double>::quiet_NaN();

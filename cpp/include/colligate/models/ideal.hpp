@@ -23,6 +23,15 @@ struct ideal {
   static model_descriptor descriptor();
   static constexpr double max_particle_molality = 0.1;  // mol/kg
 
+  /// The validated range (the descriptor lists it; check() applies it).
+  static const range_limit& particle_molality_limit() {  // built once, immutable
+    static const range_limit limit{"particle molality", "mol/kg", 0.0, max_particle_molality,
+                                   "the dilute range where the colligative law holds within "
+                                   "about 1 %",
+                                   "", ""};
+    return limit;
+  }
+
   static double particle_molality(const solution& s, double water_kg) {
     double m = 0.0;
     for (std::size_t i = 0; i < s.size(); ++i) m += s.species()[i].particles * s.moles()[i];
@@ -45,9 +54,8 @@ struct ideal {
   static validity check(const solution& s, double water_kg, double /*temperature*/) {
     validity v;
     const double m = particle_molality(s, water_kg);
-    if (m > max_particle_molality)
-      v = beyond_limit("model 'ideal'", "particle molality (mol/kg)", m, max_particle_molality,
-                       " mol/kg", "the dilute range where the colligative law holds within about 1 %");
+    if (const auto& limit = particle_molality_limit(); m > limit.high)
+      v = limit.above("model 'ideal'", m);
     return v;
   }
 };
@@ -55,9 +63,11 @@ struct ideal {
 
 /// The registry entry of model 'ideal' (models/builtin_models.hpp).
 inline model_descriptor ideal::descriptor() {
-  return detail::static_model_descriptor<ideal>(
+  auto d = detail::static_model_descriptor<ideal>(
       "ideal dilute solution, ln a_w = -M_w sum nu_i m_i", {false, false},
       nullptr, &detail::describe_ideal_particles);
+  d.validated_range = {particle_molality_limit()};
+  return d;
 }
 
 }  // namespace colligate::models

@@ -174,6 +174,17 @@ struct ross {
   /// Largest |a_w(Ross) - a_w(ZSR)| accepted before the mixture is flagged.
   static constexpr double max_rule_disagreement = 0.005;
 
+  /// The validated range: each class's own (Pitzer for the ions, Norrish for the
+  /// non-electrolytes, less the limits on the other class) and the agreement of the two
+  /// combining rules (the descriptor lists it; check() applies it).
+  static const range_limit& rule_disagreement_limit() {  // built once, immutable
+    static const range_limit limit{"|a_w(Ross) - a_w(ZSR)| of a salt + non-electrolyte mixture", "",
+                                   0.0, max_rule_disagreement,
+                                   "salt-sugar interactions are no longer negligible beyond it",
+                                   "", ""};
+    return limit;
+  }
+
   /// ln a_w. Prepares the species once (detail::ross_system); a solver calling this many
   /// times on one solution holds a ross_system itself (ln_water_activity_evaluator).
   static double ln_water_activity(const solution& s, double water_kg, double temperature) {
@@ -220,7 +231,7 @@ struct ross {
     const double a_ross = std::exp(sys.ln_water_activity(moles, water_kg, temperature));
     const double a_zsr =
         std::exp(detail::zsr_ln_water_activity(sys, moles, water_kg, temperature));
-    if (!(std::abs(a_ross - a_zsr) <= max_rule_disagreement)) {
+    if (!(std::abs(a_ross - a_zsr) <= rule_disagreement_limit().high)) {
       char buf[200];
       std::snprintf(buf, sizeof buf,
                     "the Ross (%.4f) and ZSR (%.4f) combining rules differ by more than 0.005 "
@@ -292,6 +303,10 @@ inline model_descriptor ross::descriptor() {
                  : detail::describe_norrish_constants(r);
     });
   };
+  const auto& set = pitzer::default_parameters();
+  d.validated_range = {pitzer::temperature_limit(set), pitzer::aphi_temperature_limit(set),
+                       pitzer::salt_molality_limit(), norrish::temperature_limit(),
+                       norrish::mass_fraction_limit(), rule_disagreement_limit()};
   return d;
 }
 

@@ -62,6 +62,30 @@ struct norrish {
   static constexpr double max_temperature = 323.15;
   static constexpr double max_ionic_strength = 0.3;  // counted as Raoult particles
 
+  /// The validated range (the descriptor lists it; check() applies it).
+  static const range_limit& temperature_limit() {  // built once, immutable
+    static const range_limit limit{"temperature", "K", min_temperature, max_temperature,
+                                   "where its constants were checked",
+                                   "", ""};
+    return limit;
+  }
+  static const range_limit& mass_fraction_limit() {  // built once, immutable
+    static const range_limit limit{"binary mass fraction of each solute", "",
+                                   0.0, std::numeric_limits<double>::quiet_NaN(),
+                                   "the highest concentration its constants were checked at",
+                                   "",
+                                   "each solute's Norrish range in the solute table (max mass "
+                                   "fraction, source key)"};
+    return limit;
+  }
+  static const range_limit& ionic_strength_limit() {  // built once, immutable
+    static const range_limit limit{"ionic strength", "mol/kg", 0.0, max_ionic_strength,
+                                   "electrolytes are counted as ideal ions, which fails beyond "
+                                   "that",
+                                   "", ""};
+    return limit;
+  }
+
   static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
     const auto& species = s.species();
     const double* moles = s.moles().data();
@@ -141,9 +165,8 @@ struct norrish {
   static validity check(const solution& s, double water_kg, double temperature,
                         species_checked which = species_checked::all) {
     validity v;
-    if (temperature < min_temperature - 1e-9 || temperature > max_temperature + 1e-9) {
-      v = outside_range("model 'norrish'", "temperature", temperature, min_temperature,
-                        max_temperature, " K", "where its constants were checked");
+    if (const auto& limit = temperature_limit(); !limit.contains(temperature)) {
+      v = limit.outside("model 'norrish'", temperature);
       return v;
     }
     for (std::size_t i = 0; i < s.size(); ++i) {
@@ -157,19 +180,18 @@ struct norrish {
       }
       const double w = mass / (mass + water_kg);
       if (w > rec.norrish.max_mass_fraction) {
-        v = beyond_limit("model 'norrish'", "binary mass fraction of '" + rec.id + "'", w,
-                         rec.norrish.max_mass_fraction, "",
-                         "the highest concentration its constants were checked at (" +
-                             rec.norrish.note + ")",
-                         rec.norrish.k_source);
+        auto limit = mass_fraction_limit();  // per solute: the record's range and source
+        limit.quantity = "binary mass fraction of '" + rec.id + "'";
+        limit.high = rec.norrish.max_mass_fraction;
+        limit.source = rec.norrish.k_source;
+        v = limit.above("model 'norrish'", w, " (" + rec.norrish.note + ")");
         return v;
       }
     }
     if (which == species_checked::non_electrolytes_only) return v;
     const double I = s.ionic_strength(water_kg);
-    if (I > max_ionic_strength)
-      v = beyond_limit("model 'norrish'", "ionic strength (mol/kg)", I, max_ionic_strength,
-                       " mol/kg", "electrolytes are counted as ideal ions, which fails beyond that");
+    if (const auto& limit = ionic_strength_limit(); I > limit.high)
+      v = limit.above("model 'norrish'", I);
     return v;
   }
 
@@ -285,6 +307,7 @@ inline model_descriptor norrish::descriptor() {
   d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
     return std::make_unique<detail::norrish_evaluator>(s);
   };
+  d.validated_range = {temperature_limit(), mass_fraction_limit(), ionic_strength_limit()};
   return d;
 }
 

@@ -54,6 +54,39 @@ struct pitzer {
   /// Largest total molality of non-electrolytes counted as ideal particles, mol/kg.
   static constexpr double max_non_electrolyte_molality = 0.1;
 
+  /// The validated range with a parameter set (the descriptor lists it for the default set;
+  /// check() applies it for the set in use).
+  static range_limit temperature_limit(const data::pitzer_parameter_set& set) {
+    return {"temperature", "K", set.min_temperature, set.max_temperature,
+            "where its parameters are valid", set.range_source, ""};
+  }
+  static range_limit aphi_temperature_limit(const data::pitzer_parameter_set& set) {
+    const auto aphi = detail::aphi_validity(set.aphi);
+    return {"temperature", "K", aphi.min_temperature, aphi.max_temperature,
+            "the range of the Debye-Hueckel slope A_phi, which is extrapolated", aphi.source, ""};
+  }
+  static const range_limit& salt_molality_limit() {  // built once, immutable
+    static const range_limit limit{"molality of each salt", "mol/kg",
+                                   0.0, std::numeric_limits<double>::quiet_NaN(),
+                                   "the highest molality its parameters are valid for",
+                                   "",
+                                   "each salt's binary row of the parameter set (max molality, "
+                                   "source key)"};
+    return limit;
+  }
+  static const range_limit& non_electrolyte_limit() {  // built once, immutable
+    static const range_limit limit{"non-electrolyte molality", "mol/kg",
+                                   0.0, max_non_electrolyte_molality,
+                                   "the Pitzer model counts non-electrolytes as ideal particles "
+                                   "(use model 'auto' for mixtures)",
+                                   "", ""};
+    return limit;
+  }
+  static std::vector<range_limit> validated_range(const data::pitzer_parameter_set& set) {
+    return {temperature_limit(set), aphi_temperature_limit(set), salt_molality_limit(),
+            non_electrolyte_limit()};
+  }
+
   static const data::pitzer_parameter_set& default_parameters() {
     return data::spencer_1990_icefit_parameters();
   }
@@ -154,28 +187,22 @@ struct pitzer {
     validity v;
     // The message prefix is built only when a reason is reported.
     const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
+    // The set-dependent limits are built only when a state lies outside them (check() runs
+    // once per batch row and must not allocate in range).
     if (temperature < set.min_temperature - 1e-9 || temperature > set.max_temperature + 1e-9) {
       // Name the salts that have no parameters at this temperature (issue 12).
       std::string salts;
       for (const auto& rec : s.species())
         if (rec.kind == data::solute_class::electrolyte)
           salts += (salts.empty() ? "'" : ", '") + rec.id + "'";
-      return outside_range(where(), "temperature", temperature, set.min_temperature,
-                           set.max_temperature, " K",
-                           "where its parameters are valid; " +
-                               (salts.empty() ? std::string("salts have") : salts + " have") +
+      return temperature_limit(set).outside(where(), temperature,
+                           "; " + (salts.empty() ? std::string("salts have") : salts + " have") +
                                " no parameters at this temperature in this set (they are "
-                               "extrapolated)",
-                           set.range_source);
+                               "extrapolated)");
     }
-    const auto aphi = detail::aphi_validity(set.aphi);
-    if (temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9) {
-      return outside_range(where(), "temperature", temperature, aphi.min_temperature,
-                           aphi.max_temperature, " K",
-                           "the range of the Debye-Hueckel slope A_phi, which is extrapolated",
-                           aphi.source);
-      return v;
-    }
+    if (const auto aphi = detail::aphi_validity(set.aphi);
+        temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9)
+      return aphi_temperature_limit(set).outside(where(), temperature);
     double non_electrolytes = 0.0;
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
@@ -196,10 +223,11 @@ struct pitzer {
         return v;
       }
       if (mi > row->max_molality + 1e-12) {
-        return beyond_limit(where(), "molality of '" + rec.id + "' (mol/kg)", mi,
-                            row->max_molality, " mol/kg",
-                            "the highest molality its parameters are valid for", row->source);
-        return v;
+        auto limit = salt_molality_limit();  // per salt: the set's row and its source
+        limit.quantity = "molality of '" + rec.id + "'";
+        limit.high = row->max_molality;
+        limit.source = row->source;
+        return limit.above(where(), mi);
       }
       if (auto why = detail::record_temperature_validity(rec, temperature); !why.in_range())
         return why;
@@ -207,11 +235,8 @@ struct pitzer {
     if (auto missing = missing_mixing_parameters(s, set); !missing.empty())
       return flagged(validity_code::missing_constants, where(), "mixing parameters",
                      "not in this set, treated as zero: " + missing);
-    if (non_electrolytes > max_non_electrolyte_molality)
-      v = beyond_limit(where(), "non-electrolyte molality (mol/kg)", non_electrolytes,
-                       max_non_electrolyte_molality, " mol/kg",
-                       "the Pitzer model counts non-electrolytes as ideal particles (use model "
-                       "'auto' for mixtures)");
+    if (const auto& limit = non_electrolyte_limit(); non_electrolytes > limit.high)
+      v = limit.above(where(), non_electrolytes);
     return v;
   }
 
@@ -364,6 +389,7 @@ inline model_descriptor pitzer::descriptor() {
       return detail::describe_pitzer_pair(r, default_parameters());
     });
   };
+  d.validated_range = validated_range(set);
   return d;
 }
 

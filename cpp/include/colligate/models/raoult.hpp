@@ -22,6 +22,20 @@ struct raoult {
   static constexpr double max_particle_molality = 1.0;        // mol/kg
   static constexpr double max_ionic_strength = 0.3;     // mol/kg of formula units
 
+  /// The validated range (the descriptor lists it; check() applies it).
+  static const range_limit& ionic_strength_limit() {  // built once, immutable
+    static const range_limit limit{"ionic strength", "mol/kg", 0.0, max_ionic_strength,
+                                   "where ideal ions fail",
+                                   "", ""};
+    return limit;
+  }
+  static const range_limit& particle_molality_limit() {  // built once, immutable
+    static const range_limit limit{"particle molality", "mol/kg", 0.0, max_particle_molality,
+                                   "the validated range",
+                                   "", ""};
+    return limit;
+  }
+
   static double ln_water_activity(const solution& s, double water_kg, double /*temperature*/) {
     const double nw = water_kg / constants::molar_mass_water;
     double np = 0.0;
@@ -46,12 +60,12 @@ struct raoult {
     double m = 0.0;
     for (std::size_t i = 0; i < s.size(); ++i) m += s.species()[i].particles * s.moles()[i] / water_kg;
     const double I = s.ionic_strength(water_kg);
-    if (I > max_ionic_strength)
-      v = beyond_limit("model 'raoult'", "ionic strength (mol/kg)", I, max_ionic_strength,
-                       " mol/kg", "where ideal ions fail");
-    else if (m > max_particle_molality)
-      v = beyond_limit("model 'raoult'", "particle molality (mol/kg)", m, max_particle_molality,
-                       " mol/kg", "the validated range");
+    const auto& ionic = ionic_strength_limit();
+    const auto& particles = particle_molality_limit();
+    if (I > ionic.high)
+      v = ionic.above("model 'raoult'", I);
+    else if (m > particles.high)
+      v = particles.above("model 'raoult'", m);
     return v;
   }
 };
@@ -59,9 +73,11 @@ struct raoult {
 
 /// The registry entry of model 'raoult' (models/builtin_models.hpp).
 inline model_descriptor raoult::descriptor() {
-  return detail::static_model_descriptor<raoult>(
+  auto d = detail::static_model_descriptor<raoult>(
       "Raoult's law with dissociated particles counted, a_w = x_w", {false, false},
       nullptr, &detail::describe_ideal_particles);
+  d.validated_range = {ionic_strength_limit(), particle_molality_limit()};
+  return d;
 }
 
 }  // namespace colligate::models

@@ -19,6 +19,7 @@
 
 #include "colligate/core/errors.hpp"
 #include "colligate/core/solution.hpp"
+#include "colligate/core/validity.hpp"
 #include "colligate/models/evaluator.hpp"
 
 namespace colligate::models {
@@ -45,6 +46,9 @@ struct model_descriptor {
   std::function<std::unique_ptr<activity_evaluator>(const solution&)> prepare;
   /// Which constants and sources the model uses for each solute of a solution.
   std::function<std::string(const solution&)> describe;
+  /// The validated range: every limit the model's check() applies, with its basis and
+  /// source (the check builds its out-of-range records from these same objects).
+  std::vector<range_limit> validated_range;
 };
 
 /// The id that asks the registry to choose.

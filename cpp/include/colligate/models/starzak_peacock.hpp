@@ -52,6 +52,20 @@ struct starzak_peacock {
   static constexpr double min_temperature = 233.15;
   static constexpr double max_temperature = 423.15;
   static constexpr double max_mass_fraction = 0.90;
+
+  /// The validated range (the descriptor lists it; check() applies it).
+  static const range_limit& temperature_limit() {  // built once, immutable
+    static const range_limit limit{"temperature", "K", min_temperature, max_temperature,
+                                   "the range of the sucrose data analysed",
+                                   "starzak_peacock_1997", ""};
+    return limit;
+  }
+  static const range_limit& mass_fraction_limit() {  // built once, immutable
+    static const range_limit limit{"mass fraction of sucrose", "", 0.0, max_mass_fraction,
+                                   "the highest concentration checked here",
+                                   "starzak_peacock_1997", ""};
+    return limit;
+  }
   static constexpr const char* solute_id = "sucrose";
 
   static double ln_water_activity(const solution& s, double water_kg, double temperature) {
@@ -70,9 +84,8 @@ struct starzak_peacock {
 
   static validity check(const solution& s, double water_kg, double temperature) {
     const char* where = "model 'starzak_peacock'";
-    if (temperature < min_temperature - 1e-9 || temperature > max_temperature + 1e-9)
-      return outside_range(where, "temperature", temperature, min_temperature, max_temperature,
-                           " K", "the range of the sucrose data analysed", "starzak_peacock_1997");
+    if (const auto& limit = temperature_limit(); !limit.contains(temperature))
+      return limit.outside(where, temperature);
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
       if (rec.id != solute_id)
@@ -81,9 +94,7 @@ struct starzak_peacock {
                        "starzak_peacock_1997");
       const double mass = s.moles()[i] * rec.molar_mass;
       const double w = mass / (mass + water_kg);
-      if (w > max_mass_fraction)
-        return beyond_limit(where, "mass fraction of sucrose", w, max_mass_fraction, "",
-                            "the highest concentration checked here", "starzak_peacock_1997");
+      if (const auto& limit = mass_fraction_limit(); w > limit.high) return limit.above(where, w);
     }
     return validity{};
   }
@@ -113,7 +124,7 @@ struct starzak_peacock {
 /// The registry entry of model 'starzak_peacock' (models/builtin_models.hpp); never chosen
 /// by 'auto'.
 inline model_descriptor starzak_peacock::descriptor() {
-  return detail::static_model_descriptor<starzak_peacock>(
+  auto d = detail::static_model_descriptor<starzak_peacock>(
       "Starzak & Peacock (1997) sucrose water activity, ln gamma_w = (Q/RT) x_s^2 (1 + a x_s + b x_s^2), "
       "temperature dependent",
       {true, false}, nullptr,
@@ -121,6 +132,8 @@ inline model_descriptor starzak_peacock::descriptor() {
         if (rec.id != solute_id) return detail::describe_ideal_particles(rec);
         return "Q = -17638 J/mol, a = -1.0038, b = -0.24653 [starzak_peacock_1997]";
       });
+  d.validated_range = {temperature_limit(), mass_fraction_limit()};
+  return d;
 }
 
 }  // namespace colligate::models
