@@ -59,15 +59,19 @@ inline double ice_imbalance(const models::model_choice& m, const solution& s, do
 /// evaluator prepared for `s` with model `m` (a batch thread keeps one for all its rows).
 ///
 /// Temperature-dependent models (Pitzer, Ross) are solved by a safeguarded Newton
-/// iteration on f(T) = ln a_w(T) - ln a_w,ice(T) from the ice point: the first step is
-/// the linearised depression (slope of ln a_w,ice only), later steps use the exact slope
-/// of ln a_w,ice plus the secant slope of ln a_w of the last two iterates, which changes
-/// little with T. Every evaluation narrows a bracket [lo, hi] with f(lo) > 0 > f(hi); a
+/// iteration on f(T) = ln a_w(T) - ln a_w,ice(T) from the ice point. When the evaluator
+/// gives d ln a_w / dT in closed form (Pitzer and Ross with parameters in the analytic
+/// temperature form), each step meets the model linearised at the iterate with the ice
+/// line itself (a few Newton steps on the cheap ice function), so only the curvature of
+/// ln a_w in T is left as error: two model evaluations for seawater, the second result
+/// accepted when its Taylor bound (curvature from the last two slopes) is below 1e-11 K.
+/// Otherwise the first step is the linearised depression (slope of ln a_w,ice only) and
+/// later steps use the exact slope of ln a_w,ice plus the secant slope of ln a_w of the
+/// last two iterates. Every evaluation narrows a bracket [lo, hi] with f(lo) > 0 > f(hi); a
 /// step leaving it is replaced by bisection, and f at the lowest temperature searched is
 /// evaluated only then (a solution with f <= 0 there does not freeze above it). Stops when
-/// a step is below 1e-9 K (four evaluations for seawater). The validity check (for Ross,
-/// the comparison with the ZSR rule, itself a 1-D root solve) runs once, at the result,
-/// on the evaluator's prepared system.
+/// a step is below 1e-9 K. The validity check (for Ross, the comparison with the ZSR rule,
+/// itself a 1-D root solve) runs once, at the result, on the evaluator's prepared system.
 inline freezing_point_result freezing_point(const solution& s, const models::model_choice& m,
                                             double bound_water_kg,
                                             models::ln_water_activity_evaluator& ln_aw) {
@@ -108,7 +112,11 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   double hi = constants::ice_point;
   double lo = search_min_temperature;
   bool lo_known = false;  // f(lo) > 0 established
-  double L_hi = ln_aw(W, hi);
+  // With a closed-form d ln a_w / dT (Pitzer), the slope of the model at each iterate.
+  double dL_analytic = 0.0, dL_prev = 0.0;
+  double L_hi = 0.0;
+  const bool analytic = ln_aw.with_temperature_slope(W, hi, L_hi, dL_analytic);
+  if (!analytic) L_hi = ln_aw(W, hi);
   const double f_hi = L_hi;  // ln a_w,ice(T0) = 0
   if (std::isnan(f_hi) &&
       !(ln_aw(W, lo) - water::ln_water_activity_of_ice(lo) > 0.0))  // no usable model value
@@ -136,10 +144,38 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   int it = 0;
   bool converged = false;
   for (; it < max_iterations; ++it) {
-    // Newton step on f = L(T) - ln a_w,ice(T): f' = L'(T) - ice_slope(T).
-    const double dL = std::isnan(T_prev) || T_prev == T ? 0.0 : (L - L_prev) / (T - T_prev);
-    const double slope = dL - ice_slope(T);
-    double next = T - f / slope;
+    double next;
+    if (analytic) {
+      // The model linearised at T, L(T) + L'(T) (t - T), met with the ice line itself:
+      // t solves L + L' (t - T) = ln a_w,ice(t), by Newton on the (cheap) ice line from T
+      // (stopped after a step below 1e-6 K: what is left is of order 1e-2 * step^2 K).
+      next = T - f / (dL_analytic - ice_slope(T));
+      for (int k = 0; k < 8 && next > lo && next < hi; ++k) {
+        const double g = L + dL_analytic * (next - T) - water::ln_water_activity_of_ice(next);
+        const double step = g / (dL_analytic - ice_slope(next));
+        next -= step;
+        if (!(std::abs(step) > 1e-6)) break;
+      }
+      // Its error is L''(T) (t - T)^2 / 2 over |f'| (Taylor), with L'' from the slopes of
+      // the last two iterates. From the ice point the first t is within about 1e-4 K of the
+      // root and the second within about 1e-12 K (seawater): a t whose bound, with a
+      // margin of 10, is below 1e-10 K is taken without evaluating the model there.
+      if (!std::isnan(T_prev) && T_prev != T && next >= lo && next <= hi) {
+        const double curvature = std::abs((dL_analytic - dL_prev) / (T - T_prev));
+        const double error = 0.5 * curvature * (next - T) * (next - T) /
+                             std::abs(dL_analytic - ice_slope(next));
+        if (10.0 * error <= 1e-10) {
+          T = next;
+          converged = true;
+          break;
+        }
+      }
+    } else {
+      // Newton step on f = L(T) - ln a_w,ice(T): f' = L'(T) - ice_slope(T).
+      const double dL = std::isnan(T_prev) || T_prev == T ? 0.0 : (L - L_prev) / (T - T_prev);
+      const double slope = dL - ice_slope(T);
+      next = T - f / slope;
+    }
     if (std::abs(next - T) <= step_tolerance && next >= lo && next <= hi) {
       T = next;  // converged (a step below one ulp lands on the bracket end: also accepted)
       converged = true;
@@ -155,8 +191,12 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
     }
     T_prev = T;
     L_prev = L;
+    dL_prev = dL_analytic;
     T = next;
-    L = ln_aw(W, T);
+    if (analytic)
+      ln_aw.with_temperature_slope(W, T, L, dL_analytic);
+    else
+      L = ln_aw(W, T);
     f = L - water::ln_water_activity_of_ice(T);
     if (f > 0.0) {
       lo = T;

@@ -52,6 +52,15 @@ class activity_evaluator {
                                             double& /*ln_aw*/, double& /*slope*/) {
     return false;
   }
+  /// ln a_w as ln_water_activity() gives it (bit-identical) and its derivative with
+  /// respect to temperature at fixed amounts, d ln a_w / dT (1/K), in closed form. False
+  /// (and nothing written) for a model without one; the freezing-point solver then uses
+  /// secant slopes.
+  virtual bool ln_water_activity_with_temperature_slope(double /*water_kg*/,
+                                                        double /*temperature*/,
+                                                        double& /*ln_aw*/, double& /*slope*/) {
+    return false;
+  }
   /// The ion activities, or nullptr for models without them.
   virtual ion_activity_model* ions() noexcept { return nullptr; }
 };

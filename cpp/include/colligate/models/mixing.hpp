@@ -85,6 +85,22 @@ class ross_system {
     if (has_non_electrolytes()) out += ln_non_electrolytes(moles, water_kg);
     return out;
   }
+  /// Whether the Ross ln a_w has a closed-form temperature slope (the Norrish part does not
+  /// depend on T; the Pitzer part has one unless a pair row is in the extended form).
+  bool has_temperature_slope() const noexcept {
+    return !has_electrolytes() || electrolytes_->has_temperature_slope();
+  }
+  /// ln_water_activity() (bit-identical) and d ln a_w / dT (1/K): the Pitzer part's slope.
+  double ln_water_activity_with_temperature_slope(const double* moles, double water_kg,
+                                                  double temperature, double& slope) {
+    double out = 0.0;
+    slope = 0.0;
+    if (has_electrolytes())
+      out += electrolytes_->ln_water_activity_with_temperature_slope(moles, water_kg,
+                                                                     temperature, slope);
+    if (has_non_electrolytes()) out += ln_non_electrolytes(moles, water_kg);
+    return out;
+  }
 
  private:
   std::optional<pitzer_system> electrolytes_;
@@ -196,8 +212,8 @@ struct ross {
   /// the Ross and ZSR rules at this state (one ZSR solve, a 1-D root on the water split: a solver
   /// calls it once, at its final state). `sys` must be prepared for the species of `s`.
   static validity check(const solution& s, double water_kg, double temperature,
-                        detail::ross_system& sys) {
-    validity v = check_classes(s, water_kg, temperature);
+                        detail::ross_system& sys, pitzer::check_memo* memo = nullptr) {
+    validity v = check_classes(s, water_kg, temperature, memo);
     if (v.in_range() && s.has_electrolytes() && s.has_non_electrolytes())
       compare_rules(v, s, water_kg, temperature, sys);
     return v;
@@ -215,11 +231,12 @@ struct ross {
  private:
   /// Each class checked by its model, as on a solution holding that class only
   /// (solution::only), without copying the solution (one check per batch row).
-  static validity check_classes(const solution& s, double water_kg, double temperature) {
+  static validity check_classes(const solution& s, double water_kg, double temperature,
+                                pitzer::check_memo* memo = nullptr) {
     validity v;
     if (s.has_electrolytes())
       v.merge(pitzer::check(s, water_kg, temperature, pitzer::default_parameters(),
-                            pitzer::species_checked::electrolytes_only));
+                            pitzer::species_checked::electrolytes_only, memo));
     if (s.has_non_electrolytes())
       v.merge(norrish::check(s, water_kg, temperature, norrish::species_checked::non_electrolytes_only));
     return v;
@@ -256,8 +273,15 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
   double ln_water_activity(double water_kg, double temperature) override {
     return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
   }
+  bool ln_water_activity_with_temperature_slope(double water_kg, double temperature,
+                                                double& ln_aw, double& slope) override {
+    if (!system_.has_temperature_slope()) return false;
+    ln_aw = system_.ln_water_activity_with_temperature_slope(s_->moles().data(), water_kg,
+                                                             temperature, slope);
+    return true;
+  }
   validity check(double water_kg, double temperature) override {
-    return ross::check(*s_, water_kg, temperature, system_);
+    return ross::check(*s_, water_kg, temperature, system_, &memo_);
   }
   ion_activity_model* ions() noexcept override { return ions_ ? this : nullptr; }
 
@@ -277,6 +301,7 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
   const solution* s_;
   ross_system system_;
   std::optional<pitzer_system_ions> ions_;
+  pitzer::check_memo memo_;
 };
 
 }  // namespace detail

@@ -33,6 +33,7 @@
 #include <limits>
 #include <memory>
 #include <string>
+#include <vector>
 
 #include "colligate/core/constants.hpp"
 #include "colligate/core/solution.hpp"
@@ -181,9 +182,23 @@ struct pitzer {
   /// solution holding only the electrolytes of `s`, as the Ross rule needs, without a copy).
   enum class species_checked { all, electrolytes_only };
 
+  /// What check() finds by name for one species list and parameter set, kept by a caller
+  /// that checks many rows of that list (an evaluator, a batch thread), so a row is
+  /// checked without string lookups: the binary row of each species, the data::pitzer_ions
+  /// index of each ion of each species, and the answer of missing_mixing_parameters() for
+  /// the last set of ions present. Filled on first use; not shared between threads.
+  struct check_memo {
+    bool prepared = false;
+    std::vector<const data::pitzer_binary*> rows;  ///< per species (nullptr: none)
+    std::vector<std::vector<std::size_t>> ions;    ///< per species, its ions' indices
+    int present = -1;  ///< bit g: ion g of data::pitzer_ions present; -1: nothing kept
+    std::string missing;
+  };
+
   static validity check(const solution& s, double water_kg, double temperature,
                         const data::pitzer_parameter_set& set,
-                        species_checked which = species_checked::all) {
+                        species_checked which = species_checked::all,
+                        check_memo* memo = nullptr) {
     validity v;
     // The message prefix is built only when a reason is reported.
     const auto where = [&set] { return "model 'pitzer' (parameter set '" + set.id + "')"; };
@@ -203,7 +218,9 @@ struct pitzer {
     if (const auto aphi = detail::aphi_validity(set.aphi);
         temperature < aphi.min_temperature - 1e-9 || temperature > aphi.max_temperature + 1e-9)
       return aphi_temperature_limit(set).outside(where(), temperature);
+    if (memo != nullptr && !memo->prepared) prepare_memo(s, set, *memo);
     double non_electrolytes = 0.0;
+    int present = 0;  // ions of the electrolytes with a positive amount (memo only)
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
       const double mi = s.moles()[i] / water_kg;
@@ -211,11 +228,18 @@ struct pitzer {
         if (which == species_checked::all) non_electrolytes += mi;
         continue;
       }
+      if (memo != nullptr && s.moles()[i] > 0.0)
+        for (const auto g : memo->ions[i])
+          if (g < data::pitzer_ion_count) present |= 1 << g;
       if (mi == 0.0) continue;
-      std::string cation, anion;
-      for (const auto& ion : rec.ions) (ion.charge > 0 ? cation : anion) = ion.ion;
-      const auto* row =
-          (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
+      const data::pitzer_binary* row = nullptr;
+      if (memo != nullptr) {
+        row = memo->rows[i];
+      } else {
+        std::string cation, anion;
+        for (const auto& ion : rec.ions) (ion.charge > 0 ? cation : anion) = ion.ion;
+        row = (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
+      }
       if (row == nullptr) {
         return flagged(validity_code::missing_constants, where(), "electrolyte '" + rec.id + "'",
                        "has no Pitzer parameters in this set; counted with the Debye-Hueckel "
@@ -232,9 +256,21 @@ struct pitzer {
       if (auto why = detail::record_temperature_validity(rec, temperature); !why.in_range())
         return why;
     }
-    if (auto missing = missing_mixing_parameters(s, set); !missing.empty())
+    const std::string* missing = nullptr;
+    std::string fresh;
+    if (memo != nullptr) {
+      if (memo->present != present) {
+        memo->missing = missing_mixing_parameters(s, set);
+        memo->present = present;
+      }
+      missing = &memo->missing;
+    } else {
+      fresh = missing_mixing_parameters(s, set);
+      missing = &fresh;
+    }
+    if (!missing->empty())
       return flagged(validity_code::missing_constants, where(), "mixing parameters",
-                     "not in this set, treated as zero: " + missing);
+                     "not in this set, treated as zero: " + *missing);
     if (const auto& limit = non_electrolyte_limit(); non_electrolytes > limit.high)
       v = limit.above(where(), non_electrolytes);
     return v;
@@ -242,6 +278,24 @@ struct pitzer {
 
   static validity check(const solution& s, double water_kg, double temperature) {
     return check(s, water_kg, temperature, default_parameters());
+  }
+
+  /// Fills a check_memo for the species of `s` and `set`.
+  static void prepare_memo(const solution& s, const data::pitzer_parameter_set& set,
+                           check_memo& memo) {
+    memo.rows.assign(s.size(), nullptr);
+    memo.ions.assign(s.size(), {});
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      if (rec.kind != data::solute_class::electrolyte) continue;
+      std::string cation, anion;
+      for (const auto& ion : rec.ions) {
+        (ion.charge > 0 ? cation : anion) = ion.ion;
+        memo.ions[i].push_back(data::pitzer_ion_index(ion.ion));
+      }
+      memo.rows[i] = (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
+    }
+    memo.prepared = true;
   }
 
   /// The mixing parameters (theta of two like-charged ions, psi of two like-charged ions
@@ -344,8 +398,16 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
   double ln_water_activity(double water_kg, double temperature) override {
     return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
   }
+  bool ln_water_activity_with_temperature_slope(double water_kg, double temperature,
+                                                double& ln_aw, double& slope) override {
+    if (!system_.has_temperature_slope()) return false;
+    ln_aw = system_.ln_water_activity_with_temperature_slope(s_->moles().data(), water_kg,
+                                                             temperature, slope);
+    return true;
+  }
   validity check(double water_kg, double temperature) override {
-    return pitzer::check(*s_, water_kg, temperature, *set_);
+    return pitzer::check(*s_, water_kg, temperature, *set_, pitzer::species_checked::all,
+                         &memo_);
   }
   ion_activity_model* ions() noexcept override { return this; }
 
@@ -363,6 +425,7 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
   const data::pitzer_parameter_set* set_;
   pitzer_system system_;
   pitzer_system_ions ions_;
+  pitzer::check_memo memo_;
 };
 
 }  // namespace detail

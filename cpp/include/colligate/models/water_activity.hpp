@@ -41,6 +41,11 @@ class ln_water_activity_evaluator {
   bool with_slope(double water_kg, double temperature, double& ln_aw, double& slope) {
     return impl_->ln_water_activity_with_slope(water_kg, temperature, ln_aw, slope);
   }
+  /// ln a_w (bit-identical to operator()) and d ln a_w / dT (1/K) in closed form; false
+  /// for a model without it (activity_evaluator).
+  bool with_temperature_slope(double water_kg, double temperature, double& ln_aw, double& slope) {
+    return impl_->ln_water_activity_with_temperature_slope(water_kg, temperature, ln_aw, slope);
+  }
   /// Validity of the prepared solution with `water_kg` at T.
   validity check(double water_kg, double temperature) { return impl_->check(water_kg, temperature); }
   /// Ion activities, or nullptr for a model without them.

@@ -45,17 +45,21 @@ inline constexpr double pitzer_b = 1.2;
 inline constexpr double aphi_min_temperature = 234.15;
 inline constexpr double aphi_max_temperature = 373.15;
 
+/// Coefficients of the A_phi series of Clegg, Rard & Pitzer (1994), Appendix II, Table 11
+/// (the first halved as the series requires), in x = (2T - 607.3) / 139.
+inline constexpr std::array<double, 19> clegg_rard_pitzer_1994_aphi_series = {
+    0.797256081240 / 2,  0.573389669896e-1,  0.977632177788e-3,  0.489973732417e-2,
+    -0.313151784342e-2,  0.179145971002e-2,  -0.920584241844e-3, 0.443862726879e-3,
+    -0.203661129991e-3,  0.900924147948e-4,  -0.388189392385e-4, 0.164245088592e-4,
+    -0.686031972567e-5,  0.283455806377e-5,  -0.115641433004e-5, 0.461489672579e-6,
+    -0.177069754948e-6,  0.612464488231e-7,  -0.175689013085e-7};
+
 /// Debye-Hueckel osmotic slope A_phi at 0.1 MPa, kg^1/2 mol^-1/2: Chebyshev series of
 /// Clegg, Rard & Pitzer (1994), Appendix II, eqs. AII1-AII2, Table 11 (coefficients
 /// copied from a public copy; the first is halved as the series requires).
 /// 0.3915 at 298.15 K, 0.3767 at 273.15 K. Beyond 234.15-373.15 K it is extrapolated.
 inline double debye_huckel_osmotic_slope(double temperature) {
-  static constexpr std::array<double, 19> a = {
-      0.797256081240 / 2,  0.573389669896e-1,  0.977632177788e-3,  0.489973732417e-2,
-      -0.313151784342e-2,  0.179145971002e-2,  -0.920584241844e-3, 0.443862726879e-3,
-      -0.203661129991e-3,  0.900924147948e-4,  -0.388189392385e-4, 0.164245088592e-4,
-      -0.686031972567e-5,  0.283455806377e-5,  -0.115641433004e-5, 0.461489672579e-6,
-      -0.177069754948e-6,  0.612464488231e-7,  -0.175689013085e-7};
+  const auto& a = clegg_rard_pitzer_1994_aphi_series;
   const double x = (2.0 * temperature - 607.3) / 139.0;
   double t0 = 1.0, t1 = x, sum = a[0] + a[1] * x;
   for (std::size_t k = 2; k < a.size(); ++k) {
@@ -65,6 +69,25 @@ inline double debye_huckel_osmotic_slope(double temperature) {
     t1 = t2;
   }
   return sum;
+}
+
+/// dA_phi/dT of debye_huckel_osmotic_slope(T) (Clegg, Rard & Pitzer 1994 series), per K:
+/// the series differentiated term by term, T_k'(x) = 2 T_(k-1)(x) + 2 x T_(k-1)'(x) -
+/// T_(k-2)'(x), times dx/dT = 2/139.
+inline double debye_huckel_osmotic_slope_derivative(double temperature) {
+  const auto& a = clegg_rard_pitzer_1994_aphi_series;
+  const double x = (2.0 * temperature - 607.3) / 139.0;
+  double t0 = 1.0, t1 = x, d0 = 0.0, d1 = 1.0, sum = a[1];
+  for (std::size_t k = 2; k < a.size(); ++k) {
+    const double t2 = 2.0 * x * t1 - t0;
+    const double d2 = 2.0 * t1 + 2.0 * x * d1 - d0;
+    sum += a[k] * d2;
+    t0 = t1;
+    t1 = t2;
+    d0 = d1;
+    d1 = d2;
+  }
+  return sum * (2.0 / 139.0);
 }
 
 /// Debye-Hueckel osmotic slope A_phi of Spencer, Moller & Weare (1990), kg^1/2 mol^-1/2:
@@ -77,6 +100,14 @@ inline double debye_huckel_osmotic_slope_spencer_1990(double temperature) {
   const double T = temperature;
   return 86.6836498 + T * (8.48795942e-2 + T * (-8.88785150e-5 + T * 4.88096393e-8)) -
          1327.31477 / T - 17.6460172 * std::log(T);
+}
+
+/// dA_phi/dT of debye_huckel_osmotic_slope_spencer_1990(T), per K (the polynomial
+/// differentiated).
+inline double debye_huckel_osmotic_slope_spencer_1990_derivative(double temperature) {
+  const double T = temperature;
+  return 8.48795942e-2 + T * (2.0 * -8.88785150e-5 + T * 3.0 * 4.88096393e-8) +
+         1327.31477 / (T * T) - 17.6460172 / T;
 }
 
 /// Temperatures over which an A_phi correlation is used, K, and its source key.
@@ -107,45 +138,126 @@ inline double debye_huckel_osmotic_slope(double temperature, data::aphi_correlat
   }
 }
 
-/// J(x) and dJ/dx of the unsymmetrical mixing theory (Harvie 1981 as given by Pitzer
-/// 1991, eqs. B-21 to B-30, Table B-1). J(0) = 0.
-inline void mixing_j(double x, double& J, double& dJ) {
-  static constexpr std::array<double, 21> aI = {
-      1.925154014814667,  -0.060076477753119, -0.029779077456514, -0.007299499690937,
-      0.000388260636404,  0.000636874599598,  0.000036583601823,  -0.000045036975204,
-      -0.000004537895710, 0.000002937706971,  0.000000396566462,  -0.000000202099617,
-      -0.000000025267769, 0.000000013522610,  0.000000001229405,  -0.000000000821969,
-      -0.000000000050847, 0.000000000046333,  0.000000000001943,  -0.000000000002563,
-      -0.000000000010991};
-  static constexpr std::array<double, 21> aII = {
-      0.628023320520852,  0.462762985338493,  0.150044637187895,  -0.028796057604906,
-      -0.036552745910311, -0.001668087945272, 0.006519840398744,  0.001130378079086,
-      -0.000887171310131, -0.000242107641309, 0.000087294451594,  0.000034682122751,
-      -0.000004583768938, -0.000003548684306, -0.000000250453880, 0.000000216991779,
-      0.000000080779570,  0.000000004558555,  -0.000000006944757, -0.000000002849257,
-      0.000000000237816};
-  if (!(x > 0.0)) {
-    J = 0.0;
-    dJ = 0.0;
-    return;
+/// dA_phi/dT (per K) of the correlation a parameter set names.
+inline double debye_huckel_osmotic_slope_derivative(double temperature,
+                                                    data::aphi_correlation correlation) {
+  switch (correlation) {
+    case data::aphi_correlation::spencer_1990:
+      return debye_huckel_osmotic_slope_spencer_1990_derivative(temperature);
+    case data::aphi_correlation::clegg_rard_pitzer_1994:
+    default:
+      return debye_huckel_osmotic_slope_derivative(temperature);
   }
-  const bool low = x < 1.0;
-  const auto& ak = low ? aI : aII;
-  // One power per call: x^-0.8 = x^0.2 / x and x^-1.1 = x^-0.1 / x.
-  const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
-  const double z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
-  const double dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
-  double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0;
-  for (int k = 20; k >= 0; --k) {
+}
+
+/// Chebyshev coefficients of J(x) of Harvie (1981) as given by Pitzer (1991), Table B-1:
+/// for x < 1 (harvie_j_low) and x >= 1 (harvie_j_high).
+inline constexpr std::array<double, 21> harvie_j_low = {
+    1.925154014814667,  -0.060076477753119, -0.029779077456514, -0.007299499690937,
+    0.000388260636404,  0.000636874599598,  0.000036583601823,  -0.000045036975204,
+    -0.000004537895710, 0.000002937706971,  0.000000396566462,  -0.000000202099617,
+    -0.000000025267769, 0.000000013522610,  0.000000001229405,  -0.000000000821969,
+    -0.000000000050847, 0.000000000046333,  0.000000000001943,  -0.000000000002563,
+    -0.000000000010991};
+inline constexpr std::array<double, 21> harvie_j_high = {
+    0.628023320520852,  0.462762985338493,  0.150044637187895,  -0.028796057604906,
+    -0.036552745910311, -0.001668087945272, 0.006519840398744,  0.001130378079086,
+    -0.000887171310131, -0.000242107641309, 0.000087294451594,  0.000034682122751,
+    -0.000004583768938, -0.000003548684306, -0.000000250453880, 0.000000216991779,
+    0.000000080779570,  0.000000004558555,  -0.000000006944757, -0.000000002849257,
+    0.000000000237816};
+
+namespace mixing_j_detail {
+/// One evaluation of the Chebyshev sum of J at x > 0: the variable z(x) of its piece, z'
+/// and the coefficients; b is the Clenshaw recurrence, d its z derivative, e its second.
+struct chain {
+  const double* ak = nullptr;
+  bool low = false;
+  double x = 0, z = 0, dz = 0;
+  double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0, e0 = 0, e1 = 0, e2 = 0;
+  explicit chain(double x_) : x(x_) {
+    low = x < 1.0;
+    ak = low ? harvie_j_low.data() : harvie_j_high.data();
+    // One power per call: x^-0.8 = x^0.2 / x and x^-1.1 = x^-0.1 / x.
+    const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
+    z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
+    dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
+  }
+  template <bool Second>
+  void step(int k) {
     b2 = b1;
     b1 = b0;
     d2 = d1;
     d1 = d0;
     b0 = z * b1 - b2 + ak[k];
     d0 = b1 + z * d1 - d2;
+    if constexpr (Second) {
+      e2 = e1;
+      e1 = e0;
+      e0 = 2.0 * d1 + z * e1 - e2;
+    }
   }
-  J = 0.25 * x - 1.0 + 0.5 * (b0 - b2);
-  dJ = 0.25 + 0.5 * dz * (d0 - d2);
+  template <bool Second>
+  void finish(double& J, double& dJ, double* d2J) const {
+    if constexpr (Second) {
+      // z'' = -0.8 z' / x (low), -1.1 z' / x (high).
+      const double d2z = (low ? -0.8 : -1.1) * dz / x;
+      *d2J = 0.5 * (dz * dz * (e0 - e2) + d2z * (d0 - d2));
+    }
+    J = 0.25 * x - 1.0 + 0.5 * (b0 - b2);
+    dJ = 0.25 + 0.5 * dz * (d0 - d2);
+  }
+};
+template <bool Second>
+inline void j1(double x, double& J, double& dJ, double* d2J) {
+  chain c(x);
+  for (int k = 20; k >= 0; --k) c.step<Second>(k);
+  c.finish<Second>(J, dJ, d2J);
+}
+template <bool Second>
+inline void j3(const double* x, double* J, double* dJ, double* d2J) {
+  chain p(x[0]), q(x[1]), r(x[2]);
+  for (int k = 20; k >= 0; --k) {
+    p.step<Second>(k);
+    q.step<Second>(k);
+    r.step<Second>(k);
+  }
+  p.finish<Second>(J[0], dJ[0], Second ? &d2J[0] : nullptr);
+  q.finish<Second>(J[1], dJ[1], Second ? &d2J[1] : nullptr);
+  r.finish<Second>(J[2], dJ[2], Second ? &d2J[2] : nullptr);
+}
+}  // namespace mixing_j_detail
+
+/// J(x), dJ/dx and, when `d2J` is not null, d2J/dx2 of the unsymmetrical mixing theory
+/// (Harvie 1981 as given by Pitzer 1991, eqs. B-21 to B-30, Table B-1). J(0) = 0. The
+/// second derivative (for the temperature slope of E-theta) differentiates the same
+/// recurrence once more; J and dJ are the same arithmetic with or without it.
+inline void mixing_j(double x, double& J, double& dJ, double* d2J = nullptr) {
+  if (!(x > 0.0)) {
+    J = 0.0;
+    dJ = 0.0;
+    if (d2J) *d2J = 0.0;
+    return;
+  }
+  if (d2J)
+    mixing_j_detail::j1<true>(x, J, dJ, d2J);
+  else
+    mixing_j_detail::j1<false>(x, J, dJ, nullptr);
+}
+
+/// mixing_j at the three arguments x[0..2] at once (the charge products 1, 2 and 4 that
+/// every unsymmetrical pair of ions of charges 1 and 2 needs): the same recurrence per
+/// argument as mixing_j, run as three independent chains in one loop so that they overlap
+/// in the processor instead of waiting on each other.
+inline void mixing_j3(const double* x, double* J, double* dJ, double* d2J = nullptr) {
+  if (!(x[0] > 0.0 && x[1] > 0.0 && x[2] > 0.0)) {
+    for (int c = 0; c < 3; ++c) mixing_j(x[c], J[c], dJ[c], d2J ? &d2J[c] : nullptr);
+    return;
+  }
+  if (d2J)
+    mixing_j_detail::j3<true>(x, J, dJ, d2J);
+  else
+    mixing_j_detail::j3<false>(x, J, dJ, nullptr);
 }
 
 /// E-theta and E-theta' (Pitzer 1975, eqs. 23-24) of two like-signed ions whose charge

@@ -28,7 +28,11 @@
 /// triplets present, as dot products with the basis of the analytic form
 /// (data::t_function), one logarithm in all. Work done once per evaluation: one
 /// exponential per distinct alpha (2, 1.4, 12) and one J(x) per distinct charge product
-/// (1, 2, 4) of the unsymmetrical mixing terms.
+/// (1, 2, 4) of the unsymmetrical mixing terms (the three J at once, on interleaved
+/// recurrences, when ions of charges 1 and 2 are mixed). The temperature slope of ln a_w
+/// (ln_water_activity_with_temperature_slope, for the freezing-point Newton) adds the slopes
+/// of A_phi and of the same parameters, once per temperature, and J''(x) on the same
+/// recurrences.
 ///
 /// The object caches the coefficients of the last temperature, so it is not meant to be
 /// shared between threads: each solve or batch thread owns its own.
@@ -61,6 +65,18 @@ struct t_basis {
   double operator()(const data::t_function& f) const {
     return f.a[0] + f.a[1] * v[1] + f.a[2] * v[2] + f.a[3] * v[3] + f.a[4] * v[4] +
            f.a[5] * v[5];
+  }
+};
+
+/// The derivatives of the basis at T, dv_k/dT: dP/dT = sum_k a_k dv_k(T).
+struct t_basis_slope {
+  std::array<double, 6> dv{};
+  explicit t_basis_slope(double T) {
+    const double inv = 1.0 / T, inv2 = inv * inv;
+    dv = {0.0, -inv2, inv, 1.0, 2.0 * T, -2.0 * inv2 * inv};
+  }
+  double operator()(const data::t_function& f) const {
+    return f.a[1] * dv[1] + f.a[2] * dv[2] + f.a[3] * dv[3] + f.a[4] * dv[4] + f.a[5] * dv[5];
   }
 };
 
@@ -218,6 +234,34 @@ class pitzer_system {
     return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + r.other_particles);
   }
 
+  /// Whether ln_water_activity_with_temperature_slope() is available: every pair row is
+  /// in the analytic form (data::t_function). Rows in the extended form of Archer (1992)
+  /// have no closed-form slope here.
+  bool has_temperature_slope() const noexcept { return !has_extended_; }
+
+  /// ln a_w as ln_water_activity() gives it (bit-identical) and its derivative with
+  /// respect to temperature at fixed amounts, d ln a_w / dT (1/K), in closed form:
+  /// -2 M_w d/dT of the bracket of the osmotic sum (file comment), through A_phi(T), the
+  /// pair, theta and psi parameters P(T) and E-theta (whose T dependence enters through
+  /// x = 6 z z' A_phi sqrt I alone: d(E-theta + I E-theta')/dT = zz / (8 I)
+  /// sum (x J' + x^2 J'') (dA_phi/dT) / A_phi, with the halves of the ii and jj terms).
+  /// Requires has_temperature_slope(); otherwise throws invalid_input.
+  double ln_water_activity_with_temperature_slope(const double* moles, double water_kg, double T,
+                                                  double& slope) {
+    if (has_extended_)
+      throw invalid_input(
+          "pitzer_system: no temperature slope for pair rows in the extended form (Archer 1992)");
+    std::array<double, n_ions> m{};
+    double other = 0.0;
+    molalities(moles, water_kg, m.data(), other);
+    pitzer_osmotic_sums r;
+    double d_osmotic_excess = 0.0;
+    sums<false, true>(m.data(), T, r, nullptr, &d_osmotic_excess);
+    r.other_particles = other;
+    slope = -constants::molar_mass_water * d_osmotic_excess;
+    return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + r.other_particles);
+  }
+
  private:
   struct term {
     std::size_t species;
@@ -247,6 +291,14 @@ class pitzer_system {
     double temperature = std::numeric_limits<double>::quiet_NaN();
     double aphi = 0.0;
     std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{}, c1{};
+    std::array<double, max_like> theta{};
+    std::array<double, max_triplets> psi{};
+  };
+  /// d/dT of the coefficients (pairs in the analytic form only), at `temperature`.
+  struct coefficient_slopes {
+    double temperature = std::numeric_limits<double>::quiet_NaN();
+    double aphi = 0.0;
+    std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{};
     std::array<double, max_like> theta{};
     std::array<double, max_triplets> psi{};
   };
@@ -291,6 +343,7 @@ class pitzer_system {
       pair_row row{c,  a, b.row->beta0, b.row->beta1, b.row->beta2, b.row->cphi,
                    ext == nullptr && two_two ? 1 : 0, ext == nullptr && two_two,
                    2.0 * std::sqrt(std::abs(zc * za)), ext};
+      if (ext != nullptr) has_extended_ = true;
       std::size_t k = 0;
       while (k < n_pairs_ && !(pairs_[k].c == c && pairs_[k].a == a)) ++k;
       if (k == n_pairs_) ++n_pairs_;
@@ -320,6 +373,7 @@ class pitzer_system {
           if (found) triplets_[n_triplets_++] = {k, *found};
         }
         L.psi_end = n_triplets_;
+        if (L.zi != L.zj) has_unsymmetrical_ = true;
         like_[n_like_++] = L;
       }
     }
@@ -353,6 +407,25 @@ class pitzer_system {
     return coef_;
   }
 
+  /// The slopes of the coefficients of at(T), computed once per temperature.
+  const coefficient_slopes& slopes_at(double T) {
+    if (slopes_.temperature == T) return slopes_;
+    const t_basis_slope d(T);
+    slopes_.temperature = T;
+    slopes_.aphi = debye_huckel_osmotic_slope_derivative(T, aphi_);
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      const auto& p = pairs_[k];
+      slopes_.beta0[k] = d(p.beta0);
+      slopes_.beta1[k] = d(p.beta1);
+      slopes_.beta2[k] = p.two_two ? d(p.beta2) : 0.0;
+      slopes_.c[k] = d(p.cphi) / p.c_scale;
+    }
+    for (std::size_t k = 0; k < n_like_; ++k)
+      slopes_.theta[k] = like_[k].has_theta ? d(like_[k].theta) : 0.0;
+    for (std::size_t k = 0; k < n_triplets_; ++k) slopes_.psi[k] = d(triplets_[k].psi);
+    return slopes_;
+  }
+
   void check_slot(const char* where, std::size_t slot) const {
     if (slot >= n_)
       throw invalid_input(colligate::detail::describe(
@@ -363,8 +436,11 @@ class pitzer_system {
   /// The one evaluation of the sums in the file comment on slot molalities `m`: the
   /// osmotic sums into `r` always, ln gamma into `lng` (one per slot) when WithGamma. The
   /// osmotic part does the same arithmetic in both instantiations.
-  template <bool WithGamma>
-  void sums(const double* m, double T, pitzer_osmotic_sums& r, double* lng) {
+  /// With WithSlope, also d(osmotic_excess)/dT at fixed m into `d_osm_out` (the value
+  /// arithmetic is unchanged).
+  template <bool WithGamma, bool WithSlope = false>
+  void sums(const double* m, double T, pitzer_osmotic_sums& r, double* lng,
+            double* d_osm_out = nullptr) {
     double I = 0.0, Z = 0.0, mt = 0.0;
     for (std::size_t k = 0; k < n_; ++k) {
       I += 0.5 * m[k] * z_[k] * z_[k];
@@ -375,11 +451,18 @@ class pitzer_system {
     r.total_molality = mt;
     if constexpr (WithGamma)
       for (std::size_t k = 0; k < n_; ++k) lng[k] = 0.0;
+    if constexpr (WithSlope) *d_osm_out = 0.0;
     if (!(I > 0.0)) return;
     const auto& p = at(T);
     const double sI = std::sqrt(I);
     const double A = p.aphi;
     double osm = -A * I * sI / (1.0 + pitzer_b * sI);
+    const coefficient_slopes* dp = nullptr;
+    double d_osm = 0.0;
+    if constexpr (WithSlope) {
+      dp = &slopes_at(T);
+      d_osm = -dp->aphi * I * sI / (1.0 + pitzer_b * sI);
+    }
     // exp(-alpha sqrt I) for alpha = 2 (1:1, 2:1 pairs), 1.4 and 12 (2:2 pairs).
     const double e2 = need_alpha_2_ ? std::exp(-2.0 * sI) : 0.0;
     const double e14 = need_alpha_14_ ? std::exp(-1.4 * sI) : 0.0;
@@ -420,6 +503,11 @@ class pitzer_system {
       const double ew = extended ? std::exp(-(row.ext->omega * sI)) : 0.0;
       const double CTphi = extended ? p.c[k] + p.c1[k] * ew : p.c[k];
       if (mm != 0.0) osm += mm * (Bphi + Z * CTphi);
+      if constexpr (WithSlope) {
+        double dBphi = dp->beta0[k] + dp->beta1[k] * (row.alpha1 == 0 ? e2 : e14);
+        if (beta2) dBphi += dp->beta2[k] * e12;
+        d_osm += mm * (dBphi + Z * dp->c[k]);
+      }
       if constexpr (WithGamma) {
         double B = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? g2 : g14);
         double Bp = p.beta1[k] * (row.alpha1 == 0 ? gp2 : gp14);
@@ -446,15 +534,33 @@ class pitzer_system {
       }
     }
     // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4.
-    std::array<double, 5> J{}, dJ{}, x{};
+    std::array<double, 5> J{}, dJ{}, x{}, d2J{};
     std::array<bool, 5> have{};
     const double s6 = 6.0 * A * sI;
     const auto j_of = [&](int zz) {
       if (!have[zz]) {
         x[zz] = s6 * zz;
-        mixing_j(x[zz], J[zz], dJ[zz]);
+        mixing_j(x[zz], J[zz], dJ[zz], WithSlope ? &d2J[zz] : nullptr);
         have[zz] = true;
       }
+    };
+    if (has_unsymmetrical_) {
+      // Ions of charges 1 and 2 mixed: J at the charge products 1, 2 and 4, all at once.
+      const double xs[3] = {s6 * 1, s6 * 2, s6 * 4};
+      double Js[3], dJs[3], d2Js[3];
+      mixing_j3(xs, Js, dJs, WithSlope ? d2Js : nullptr);
+      for (int c = 0; c < 3; ++c) {
+        const int zz = 1 << c;
+        x[zz] = xs[c];
+        J[zz] = Js[c];
+        dJ[zz] = dJs[c];
+        if constexpr (WithSlope) d2J[zz] = d2Js[c];
+        have[zz] = true;
+      }
+    }
+    // d(x J'(x))/dT = (x J' + x^2 J'') (dA_phi/dT) / A_phi, x proportional to A_phi.
+    const auto dxdJ_dT = [&](int zz) {
+      return (x[zz] * dJ[zz] + x[zz] * x[zz] * d2J[zz]) * (dp->aphi / A);
     };
     for (std::size_t k = 0; k < n_like_; ++k) {
       const auto& L = like_[k];
@@ -466,6 +572,8 @@ class pitzer_system {
         if (mm == 0.0) continue;
       }
       double phiphi = p.theta[k], et = 0.0, etp = 0.0;
+      double d_phiphi = 0.0;
+      if constexpr (WithSlope) d_phiphi = dp->theta[k];
       if (L.zi != L.zj) {
         // E-theta, E-theta' (Pitzer 1975, eqs. 23-24).
         const int ij = L.zi * L.zj, ii = L.zi * L.zi, jj = L.zj * L.zj;
@@ -475,10 +583,18 @@ class pitzer_system {
         e_theta(static_cast<double>(ij), I, J[ij], J[ii], J[jj], x[ij] * dJ[ij], x[ii] * dJ[ii],
                 x[jj] * dJ[jj], et, etp);
         phiphi = p.theta[k] + et + I * etp;
+        if constexpr (WithSlope)  // E-theta + I E-theta' = zz / (8 I) [x J']_ij - ...
+          d_phiphi += ij / (8.0 * I) * (dxdJ_dT(ij) - 0.5 * dxdJ_dT(ii) - 0.5 * dxdJ_dT(jj));
       }
       double psum = 0.0;
       for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) psum += m[triplets_[t].k] * p.psi[t];
       if (mm != 0.0) osm += mm * (phiphi + psum);
+      if constexpr (WithSlope) {
+        double dpsum = 0.0;
+        for (std::size_t t = L.psi_begin; t < L.psi_end; ++t)
+          dpsum += m[triplets_[t].k] * dp->psi[t];
+        d_osm += mm * (d_phiphi + dpsum);
+      }
       if constexpr (WithGamma) {
         // Phi = theta + E-theta, Phi' = E-theta'.
         if (mm != 0.0) {
@@ -492,6 +608,7 @@ class pitzer_system {
       }
     }
     r.osmotic_excess = 2.0 * osm;
+    if constexpr (WithSlope) *d_osm_out = 2.0 * d_osm;
     if constexpr (WithGamma)
       for (std::size_t k = 0; k < n_; ++k)
         lng[k] += z_[k] * z_[k] * F + std::abs(z_[k]) * sum_mmC;
@@ -509,8 +626,11 @@ class pitzer_system {
   std::array<triplet_row, max_triplets> triplets_{};
   std::size_t n_triplets_ = 0;
   bool need_alpha_2_ = false, need_alpha_14_ = false, need_alpha_12_ = false;
+  bool has_extended_ = false;  ///< a pair row in the extended form (no closed-form T slope)
+  bool has_unsymmetrical_ = false;  ///< like-charged ions of charges 1 and 2 (E-theta)
   data::aphi_correlation aphi_ = data::aphi_correlation::clegg_rard_pitzer_1994;
   coefficients coef_;
+  coefficient_slopes slopes_;
 };
 
 }  // namespace colligate::models::detail

@@ -1,0 +1,135 @@
+// The closed-form temperature slope of the Pitzer ln a_w (pitzer_system::
+// ln_water_activity_with_temperature_slope) and the freezing-point Newton that uses it,
+// against central differences and a plain bisection of the same equations, on invented
+// compositions (seawater of the Reference Composition, single salts, a salt + sugar mix).
+// Identities, no published values: the tolerances say what a central difference and the
+// 1e-9 K solver tolerance allow (common practice).
+#include <catch2/catch.hpp>
+#include <cmath>
+#include <vector>
+
+#include "colligate/core/solution.hpp"
+#include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/models/detail/pitzer_kernel.hpp"
+#include "colligate/models/detail/pitzer_system.hpp"
+#include "colligate/models/pitzer.hpp"
+#include "colligate/models/water_activity.hpp"
+#include "colligate/water/ice.hpp"
+
+using namespace colligate;
+using Catch::Matchers::WithinAbs;
+using Catch::Matchers::WithinRel;
+
+namespace {
+std::vector<solution> brines() {
+  return {solution::seawater(35.0), solution::seawater(5.0), solution::seawater(40.0),
+          solution::from_molalities({{"sodium_chloride", 2.0}}),
+          solution::from_molalities({{"magnesium_sulfate", 1.0}}),
+          solution::from_molalities({{"calcium_chloride", 1.5}, {"potassium_chloride", 0.5}})};
+}
+
+// Freezing point by bisection of ln a_w(T) - ln a_w,ice(T) to 1e-12 K.
+template <class LnAw>
+double bisected_freezing_point(LnAw&& ln_aw) {
+  double lo = 223.15, hi = constants::ice_point;
+  while (hi - lo > 1e-12) {
+    const double mid = 0.5 * (lo + hi);
+    (ln_aw(mid) - water::ln_water_activity_of_ice(mid) > 0.0 ? lo : hi) = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+}  // namespace
+
+TEST_CASE("dA_phi/dT of both correlations against central differences", "[models][pitzer][slope]") {
+  using data::aphi_correlation;
+  const double h = 1e-3;  // K; truncation about h^2 A'''/6, far below the tolerance
+  for (const auto c : {aphi_correlation::clegg_rard_pitzer_1994, aphi_correlation::spencer_1990}) {
+    for (double T = 235.0; T <= 298.0; T += 7.0) {
+      const double fd = (models::detail::debye_huckel_osmotic_slope(T + h, c) -
+                         models::detail::debye_huckel_osmotic_slope(T - h, c)) / (2.0 * h);
+      // rounding of the difference: about 1e-16 * 0.4 / 1e-3 = 4e-14 per K
+      CHECK_THAT(models::detail::debye_huckel_osmotic_slope_derivative(T, c), WithinAbs(fd, 1e-10));
+    }
+  }
+}
+
+TEST_CASE("J'' of the mixing function and the three-argument J", "[models][pitzer][slope]") {
+  for (double x : {0.01, 0.2, 0.7, 0.99, 1.01, 2.5, 9.0, 40.0}) {
+    double J, dJ, d2J, Jp, dJp, Jm, dJm;
+    models::detail::mixing_j(x, J, dJ, &d2J);
+    double J0, dJ0;
+    models::detail::mixing_j(x, J0, dJ0);
+    CHECK(J == J0);  // the same arithmetic with or without J''
+    CHECK(dJ == dJ0);
+    const double h = 1e-5 * x;
+    models::detail::mixing_j(x + h, Jp, dJp);
+    models::detail::mixing_j(x - h, Jm, dJm);
+    // central difference of J': relative truncation about (h/x)^2 = 1e-10
+    CHECK_THAT(d2J, WithinAbs((dJp - dJm) / (2.0 * h), 1e-7 * std::abs(dJ) / x));
+  }
+  for (double s : {0.003, 0.05, 0.3, 1.2, 4.0}) {  // x = s, 2s, 4s straddle the pieces
+    const double x[3] = {s, 2.0 * s, 4.0 * s};
+    double J[3], dJ[3], d2J[3];
+    models::detail::mixing_j3(x, J, dJ, d2J);
+    for (int c = 0; c < 3; ++c) {
+      double J1, dJ1, d2J1;
+      models::detail::mixing_j(x[c], J1, dJ1, &d2J1);
+      CHECK(J[c] == J1);
+      CHECK(dJ[c] == dJ1);
+      CHECK(d2J[c] == d2J1);
+    }
+  }
+}
+
+TEST_CASE("Pitzer d ln a_w / dT: value bit-identical, slope against central differences",
+          "[models][pitzer][slope]") {
+  for (const auto* set : {&data::spencer_1990_icefit_parameters(), &data::spencer_1990_parameters(),
+                          &data::harvie_1984_parameters()}) {
+    for (const auto& s : brines()) {
+      models::detail::pitzer_system sys(s, *set);
+      REQUIRE(sys.has_temperature_slope());
+      for (double T : {240.0, 255.0, 268.0, 273.15, 298.15}) {
+        double slope = 0.0;
+        const double v =
+            sys.ln_water_activity_with_temperature_slope(s.moles().data(), s.water_mass(), T, slope);
+        CHECK(v == sys.ln_water_activity(s.moles().data(), s.water_mass(), T));
+        const double h = 1e-3;
+        const double fd = (sys.ln_water_activity(s.moles().data(), s.water_mass(), T + h) -
+                           sys.ln_water_activity(s.moles().data(), s.water_mass(), T - h)) / (2.0 * h);
+        // truncation about h^2 |L'''| / 6 and rounding about 1e-16 |L| / h: both below
+        // 1e-6 of the slope or 1e-11 per K
+        CHECK_THAT(slope, WithinAbs(fd, 1e-6 * std::abs(fd) + 1e-11));
+      }
+    }
+  }
+}
+
+TEST_CASE("Archer (1992) rows have no closed-form slope; the solver keeps its secant path",
+          "[models][pitzer][slope][archer]") {
+  const auto s = solution::from_molalities({{"sodium_chloride", 1.0}});
+  models::detail::pitzer_system sys(s, data::archer_1992_parameters());
+  CHECK_FALSE(sys.has_temperature_slope());
+  double slope = 0.0;
+  CHECK_THROWS_AS(sys.ln_water_activity_with_temperature_slope(s.moles().data(), 1.0, 260.0, slope),
+                  invalid_input);
+}
+
+TEST_CASE("freezing point with the closed-form slope equals a bisection of the same equations",
+          "[models][pitzer][slope][freezing]") {
+  for (const auto& s : brines()) {
+    const double T = equilibria::freezing_point(s, "pitzer").temperature;
+    const double ref = bisected_freezing_point(
+        [&](double t) { return models::pitzer::ln_water_activity(s, s.water_mass(), t); });
+    CHECK_THAT(T, WithinAbs(ref, 1e-9));  // the solver's tolerance
+  }
+  // Ross: NaCl (Pitzer, T-dependent) + sucrose (Norrish) in the same water.
+  for (double w_salt : {0.005, 0.02, 0.05}) {
+    for (double w_sugar : {0.05, 0.15, 0.30}) {
+      const auto s = solution::from_mass_fractions({{"sodium_chloride", w_salt}, {"sucrose", w_sugar}});
+      const double T = equilibria::freezing_point(s, "ross").temperature;
+      models::ln_water_activity_evaluator ln_aw("ross", s);
+      const double ref = bisected_freezing_point([&](double t) { return ln_aw(s.water_mass(), t); });
+      CHECK_THAT(T, WithinAbs(ref, 1e-9));
+    }
+  }
+}
