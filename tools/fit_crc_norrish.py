@@ -31,8 +31,9 @@ MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
               "ethanol": 0.0460684, "citric_acid": 0.1921235, "lactic_acid": 0.0900779,
               "mannitol": 0.1821718, "acetic_acid": 0.060052,
               # food salts and phosphoric acid (IUPAC 2013 standard atomic weights;
-              # trisodium citrate as the dihydrate, as the CRC table lists it)
-              "sodium_acetate": 0.0820338, "trisodium_citrate": 0.2940983,
+              # trisodium citrate anhydrous: the CRC molality column matches mass % of Na3C6H5O7,
+              # not of the dihydrate its entry names)
+              "sodium_acetate": 0.0820338, "trisodium_citrate": 0.2580683,
               "monosodium_phosphate": 0.1199755, "monopotassium_phosphate": 0.1360841,
               "dipotassium_phosphate": 0.1741744, "sodium_bicarbonate": 0.0840058,
               "potassium_bicarbonate": 0.1001143, "sodium_carbonate": 0.1059875,

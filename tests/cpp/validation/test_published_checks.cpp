@@ -102,7 +102,7 @@ TEST_CASE("fitted Norrish constants against held-out CRC rows", "[validation][he
       {"acetic_acid", 0.049},
       // food salts as effective Norrish solutes (ions as ideal particles) and phosphoric
       // acid; fit-row worst deviations printed by tools/fit_crc_norrish.py
-      {"sodium_acetate", 0.022}, {"trisodium_citrate", 0.127},
+      {"sodium_acetate", 0.022}, {"trisodium_citrate", 0.205},
       {"monosodium_phosphate", 0.030}, {"monopotassium_phosphate", 0.034},
       {"dipotassium_phosphate", 0.057}, {"sodium_bicarbonate", 0.026},
       {"potassium_bicarbonate", 0.060}, {"sodium_carbonate", 0.062},
