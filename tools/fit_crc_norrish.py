@@ -9,7 +9,8 @@ the constants and the worst deviation per solute. Run: python3 tools/fit_crc_nor
 Ethanol (fit_ethanol below) is fitted differently: over the whole CRC table, 0.5-68 wt%,
 in the effective volume fraction z = x / (x + r (1 - x)) of norrish.hpp, by a minimax
 (Chebyshev) fit on every other row with a monotonicity constraint, validated on the rows
-left out. Run `python3 tools/fit_crc_norrish.py --ethanol` for that fit alone.
+left out. Run `python3 tools/fit_crc_norrish.py --ethanol` for that fit alone; name
+solutes (`python3 tools/fit_crc_norrish.py sodium_acetate phosphoric_acid`) to fit those alone.
 """
 from __future__ import annotations
 
@@ -30,7 +31,23 @@ C = [76.02 - 37.77, -0.1571134, -0.01728863, -0.00096686]
 MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
               "lactose": 0.3422965, "maltose": 0.3422965, "glycerol": 0.0920938,
               "ethanol": 0.0460684, "citric_acid": 0.1921235, "lactic_acid": 0.0900779,
-              "mannitol": 0.1821718, "acetic_acid": 0.060052}
+              "mannitol": 0.1821718, "acetic_acid": 0.060052,
+              # food salts and phosphoric acid (IUPAC 2013 standard atomic weights;
+              # trisodium citrate anhydrous: the CRC molality column matches mass % of Na3C6H5O7,
+              # not of the dihydrate its entry names)
+              "sodium_acetate": 0.0820338, "trisodium_citrate": 0.2580683,
+              "monosodium_phosphate": 0.1199755, "monopotassium_phosphate": 0.1360841,
+              "dipotassium_phosphate": 0.1741744, "sodium_bicarbonate": 0.0840058,
+              "potassium_bicarbonate": 0.1001143, "sodium_carbonate": 0.1059875,
+              "phosphoric_acid": 0.0979938}
+
+# Dissolved particles per formula unit (complete dissociation of the salts, common
+# practice); 1 for everything not listed. The salts below have no Pitzer parameters for
+# their anions in the built-in sets, so they are effective Norrish solutes: nu ideal
+# particles plus fitted constants (norrish.hpp counts x_w = n_w / (n_w + sum nu_i n_i)).
+PARTICLES = {"sodium_acetate": 2, "trisodium_citrate": 4, "monosodium_phosphate": 2,
+             "monopotassium_phosphate": 2, "dipotassium_phosphate": 3,
+             "sodium_bicarbonate": 2, "potassium_bicarbonate": 2, "sodium_carbonate": 3}
 
 
 def enthalpy_of_fusion(T):
@@ -76,16 +93,24 @@ PLAN = {
     "maltose": (None, 44, 0), "lactose": (6.47, 100, 0), "glycerol": (None, 40, 1),
     "ethanol": None, "citric_acid": (None, 100, 0), "lactic_acid": (None, 100, 0),
     "mannitol": (0.906, 100, 0), "acetic_acid": (None, 100, 0),
+    # food salts (K plus higher terms; the range is where the held-out rows stay within the
+    # fit rows' worst deviation plus 0.02 K) and phosphoric acid
+    "sodium_acetate": (None, 8, 1), "trisodium_citrate": (None, 100, 1),
+    "monosodium_phosphate": (None, 10, 1), "monopotassium_phosphate": (None, 100, 1),
+    "dipotassium_phosphate": (None, 100, 1), "sodium_bicarbonate": (None, 100, 1),
+    "potassium_bicarbonate": (None, 100, 1), "sodium_carbonate": (None, 100, 1),
+    "phosphoric_acid": (None, 20, 0),
 }
 
 
-def depression(m: float, constants, r: float = 1.0) -> float:
+def depression(m: float, constants, r: float = 1.0, nu: int = 1) -> float:
     """Freezing-point depression (K) of a binary solution of molality m: norrish.hpp with
-    the constants [K, K3, K4] in the mole fraction x (r = 1) or in z = x / (x + r (1 - x))."""
+    the constants [K, K3, K4] in the mole fraction x (r = 1) or in z = x / (x + r (1 - x)),
+    nu particles per formula unit (x = m / (n_w + nu m), x_w = n_w / (n_w + nu m))."""
     nw = 1.0 / MW
-    x = m / (nw + m)
+    x = m / (nw + nu * m)
     z = x if r == 1.0 else x / (x + r * (1.0 - x))
-    ln_aw = np.log(nw / (nw + m)) - sum(k * z ** (j + 2) for j, k in enumerate(constants))
+    ln_aw = np.log(nw / (nw + nu * m)) - sum(k * z ** (j + 2) for j, k in enumerate(constants))
     return T0 - brentq(lambda T: ln_aw - ln_aw_ice(T), 200.0, T0 - 1e-9)
 
 
@@ -247,7 +272,10 @@ if __name__ == "__main__":
         report_ethanol(*fit_ethanol())
         raise SystemExit
     ethanol = None
+    only = [a for a in sys.argv[1:] if a in PLAN]  # e.g. `... sodium_acetate`: those alone
     for solute, plan in PLAN.items():
+        if only and solute not in only:
+            continue
         if plan is None:
             ethanol = fit_ethanol()
             consts, r, percent, _, fit, dev = ethanol
@@ -262,8 +290,10 @@ if __name__ == "__main__":
         dT = np.array([d[1] for d in data])
         fixed = [] if k_pub is None else [k_pub]
 
+        nu = PARTICLES.get(solute, 1)
+
         def resid(p):
-            return np.array([depression(mi, fixed + list(p)) for mi in m]) - dT
+            return np.array([depression(mi, fixed + list(p), nu=nu) for mi in m]) - dT
 
         sol = least_squares(resid, np.zeros(n_fit)) if n_fit else None
         p = sol.x if n_fit else np.array([])
@@ -278,7 +308,7 @@ if __name__ == "__main__":
             print(f"{solute:12s} covariance={[['%.6g' % c for c in row] for row in cov]} dof={dof}")
         wtop = max(float(w) for w, _ in [(100 * mi * MOLAR_MASS[solute] / (1 + mi * MOLAR_MASS[solute]), 0) for mi in m])
         held = list(rows(solute, wmax, "no")) if n_fit else []
-        dev_held = [depression(mh, [float("%.6g" % c) for c in consts]) - dh for mh, dh in held]
+        dev_held = [depression(mh, [float("%.6g" % c) for c in consts], nu=nu) - dh for mh, dh in held]
         print(f"{solute:12s} constants={['%.6g' % c for c in consts]} rows={len(m):2d} "
               f"to {wtop:.0f} wt%  max|dev|={np.max(np.abs(r)):.3f} K"
               + (f"  (+{len(held)} held out: max|dev|={np.max(np.abs(dev_held)):.3f} K)" if held else ""))

@@ -44,11 +44,16 @@ def test_fitted_constants_have_held_out_rows():
     # sucrose's published K (nothing fitted), so all its rows are checks.
     crc = pd.read_csv(REFERENCE / "crc_freezing_points.csv", keep_default_na=False)
     fitted = {"maltose", "glycerol", "citric_acid", "lactic_acid", "ethanol", "acetic_acid"}
+    # food salts and phosphoric acid (issue 12); the CRC table prints fewer rows for
+    # sodium carbonate (7, so 3 held out)
+    food = {"sodium_acetate", "trisodium_citrate", "monosodium_phosphate",
+            "monopotassium_phosphate", "dipotassium_phosphate", "sodium_bicarbonate",
+            "potassium_bicarbonate", "sodium_carbonate", "phosphoric_acid"}
     used = crc[crc.used_in_fit == "yes"]
-    assert set(used.solute) == fitted
-    for solute in fitted:
+    assert set(used.solute) == fitted | food
+    for solute in fitted | food:
         rows = crc[crc.solute == solute]
-        assert (rows.used_in_fit == "no").sum() >= 5, solute
+        assert (rows.used_in_fit == "no").sum() >= (3 if solute == "sodium_carbonate" else 5), solute
     assert (crc[crc.solute == "lactose"].used_in_fit == "no").all()
     for source_key in set(crc.source_key):
         assert cg.citation(source_key)

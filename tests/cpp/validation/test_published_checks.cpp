@@ -119,11 +119,58 @@ TEST_CASE("fitted Norrish constants against held-out CRC rows", "[validation][he
   }
   for (const auto& r : read_reference(c.file))
     if (!held_out(r) && checked.count(r.at("solute"))) ++fit_rows[r.at("solute")];
-  CHECK(checked.size() == 6);
+  CHECK(checked.size() == 15);  // six foods' constants and nine food salts and acids
   for (const auto& [solute, n] : checked) {
     INFO(solute);
-    CHECK(n >= 5);
-    CHECK(fit_rows[solute] >= 5);
+    // the CRC table prints fewer rows for two salts: sodium acetate 9 in the fitted range
+    // (0.5-8 wt%), sodium carbonate 7 (0.5-6 wt%)
+    const int fewer = solute == "sodium_acetate" ? 1 : solute == "sodium_carbonate" ? 2 : 0;
+    CHECK(n >= 5 - fewer);
+    CHECK(fit_rows[solute] >= 5 - (fewer > 0 ? 1 : 0));
+  }
+}
+
+TEST_CASE("sodium and potassium sulfate freezing points with the default Pitzer set",
+          "[validation][independent][pitzer]") {
+  // CRC Handbook 102nd ed. (2021), "Concentrative Properties of Aqueous Solutions", sodium
+  // sulfate 0.5-4 wt% and potassium sulfate 0.5-5 wt%; depressions printed to 0.01 K.
+  // Default set spencer_1990_icefit (sulfate rows of Marion & Farren 1999, unchanged by the
+  // ice-line fit); no row was fitted. Tolerance 0.02 K: two printed digits, as for lactose.
+  // Na2SO4 at 5 and 6 wt% lies beyond the ice-mirabilite eutectic (metastable rows; the
+  // model is 0.025 and 0.066 K off there, cause not found) and is not checked here.
+  // Rows and tolerance: check crc_sulfates_pitzer of tolerances.toml.
+  const auto& c = tolerances::find("crc_sulfates_pitzer");
+  std::map<std::string, int> checked;
+  for (const auto& r : tolerances::rows(c)) {
+    const std::string solute = r.at("solute");
+    const double percent = num(r, "mass_percent");
+    REQUIRE(held_out(r));
+    INFO(solute << " " << percent << " wt% [" << r.at("source_key") << "]");
+    CHECK_THAT(depression(solute, percent / 100.0),
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++checked[solute];
+  }
+  CHECK(checked["sodium_sulfate"] == 5);
+  CHECK(checked["potassium_sulfate"] == 9);
+}
+
+TEST_CASE("the food salts' effective constants keep ln a_w falling as water freezes out",
+          "[validation][norrish]") {
+  // Identity (no literature): an ice curve concentrates the unfrozen phase far beyond the
+  // fitted range, so ln a_w must fall strictly with molality there too (a constant set
+  // that turned ln a_w upward was rejected for monosodium phosphate; builtin_solutes.inc).
+  for (const char* solute :
+       {"sodium_acetate", "trisodium_citrate", "monosodium_phosphate", "monopotassium_phosphate",
+        "dipotassium_phosphate", "sodium_bicarbonate", "potassium_bicarbonate",
+        "sodium_carbonate", "phosphoric_acid"}) {
+    const auto s = solution::from_molalities({{solute, 1.0}});  // 1 mol in 1 kg; water varied
+    double previous = 0.0;
+    for (double m = 0.05; m <= 40.0; m += 0.05) {
+      const double ln_aw = models::ln_water_activity("auto", s, 1.0 / m, 263.15);
+      INFO(solute << " " << m << " mol/kg");
+      REQUIRE(ln_aw < previous);
+      previous = ln_aw;
+    }
   }
 }
 

@@ -70,6 +70,16 @@ inline norrish_constants norrish(double k, const char* k_source, double k3, doub
   return n;
 }
 
+/// An effective solute for a salt whose ions the Pitzer parameter sets do not know: record
+/// `r` (a non-electrolyte with Norrish constants fitted to its freezing points) counted as
+/// `particles` ideal particles per formula unit (complete dissociation, common practice).
+/// Its ions do not enter the ionic strength of a mixture.
+inline solute_record dissociated(solute_record r, int particles) {
+  r.particles = particles;
+  r.particles_source = "common practice";
+  return r;
+}
+
 /// The same, with K, K3 and K4 taken in the effective volume fraction of ratio
 /// `volume_ratio` (norrish_constants::volume_ratio).
 inline norrish_constants norrish(double k, const char* k_source, double k3, double k4,
@@ -90,6 +100,7 @@ inline solute_record with_heat_capacity(solute_record r, dissolved_heat_capacity
 
 /// The built-in table; built once, immutable afterwards (thread-safe initialisation).
 inline const solute_table& builtin_solutes() {
+  using detail::dissociated;
   using detail::electrolyte;
   using detail::non_electrolyte;
   using detail::laliberte;
