@@ -61,38 +61,7 @@ inline bool pitzer_constant_named(const std::string& name, pitzer_constant& out)
 
 namespace detail {
 
-/// dA_phi/dT of the Clegg, Rard & Pitzer (1994) series of pitzer_kernel.hpp, kg^1/2 mol^-1/2
-/// K^-1: term by term, d T_k / dx = k U_(k-1)(x) (Chebyshev polynomials of the second
-/// kind), dx/dT = 2/139 (same coefficients a_1 .. a_18).
-inline double debye_huckel_osmotic_slope_derivative(double temperature) {
-  static constexpr std::array<double, 18> a = {
-      0.573389669896e-1,  0.977632177788e-3,  0.489973732417e-2,  -0.313151784342e-2,
-      0.179145971002e-2,  -0.920584241844e-3, 0.443862726879e-3,  -0.203661129991e-3,
-      0.900924147948e-4,  -0.388189392385e-4, 0.164245088592e-4,  -0.686031972567e-5,
-      0.283455806377e-5,  -0.115641433004e-5, 0.461489672579e-6,  -0.177069754948e-6,
-      0.612464488231e-7,  -0.175689013085e-7};
-  const double x = (2.0 * temperature - 607.3) / 139.0;
-  double u0 = 1.0, u1 = 2.0 * x, sum = a[0] * u0 + 2.0 * a[1] * u1;
-  for (std::size_t k = 3; k <= a.size(); ++k) {
-    const double u2 = 2.0 * x * u1 - u0;
-    sum += static_cast<double>(k) * a[k - 1] * u2;
-    u0 = u1;
-    u1 = u2;
-  }
-  return sum * 2.0 / 139.0;
-}
-
-/// dA_phi/dT of the correlation a parameter set names (Spencer, Moller & Weare 1990: the
-/// derivative of their polynomial in pitzer_kernel.hpp).
-inline double debye_huckel_osmotic_slope_derivative(double temperature,
-                                                    data::aphi_correlation correlation) {
-  if (correlation == data::aphi_correlation::spencer_1990) {
-    const double T = temperature;
-    return 8.48795942e-2 + T * (2.0 * -8.88785150e-5 + T * 3.0 * 4.88096393e-8) +
-           1327.31477 / (T * T) - 17.6460172 / T;
-  }
-  return debye_huckel_osmotic_slope_derivative(temperature);
-}
+// dA_phi/dT: debye_huckel_osmotic_slope_derivative(T, correlation) of pitzer_kernel.hpp.
 
 /// d^2 J / dx^2 of mixing_j (pitzer_kernel.hpp; same Chebyshev series): the second
 /// derivative of the Clenshaw recurrence in z times (dz/dx)^2, plus d^2z/dx^2 times the first.
