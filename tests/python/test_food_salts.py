@@ -3,7 +3,7 @@
 Source of every check value: CRC Handbook of Chemistry and Physics, 102nd ed. (2021),
 "Concentrative Properties of Aqueous Solutions" (after Wolf 1966), depressions printed to
 0.01 K; the rows are in tests/reference/crc_freezing_points.csv (source_key
-crc_concentrative), read from the public transcription named in NOTES_reference_data.md.
+crc_concentrative), read from the public copy named in NOTES_reference_data.md.
 """
 from __future__ import annotations
 
