@@ -2,11 +2,19 @@
 from __future__ import annotations
 
 import pathlib
+import signal
 
 import pandas as pd
 import pytest
 
 REFERENCE = pathlib.Path(__file__).resolve().parents[1] / "reference"
+
+
+# A shell that starts a command in the background without job control starts it with
+# SIGINT ignored, and Python then keeps it ignored: the Ctrl-C tests (here and in the
+# commands they start) would test nothing. Give the run Python's usual Ctrl-C handling.
+if hasattr(signal, "SIGINT") and signal.getsignal(signal.SIGINT) == signal.SIG_IGN:
+    signal.signal(signal.SIGINT, signal.default_int_handler)
 
 
 @pytest.fixture(scope="session")

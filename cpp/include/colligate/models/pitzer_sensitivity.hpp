@@ -63,43 +63,13 @@ namespace detail {
 
 // dA_phi/dT: debye_huckel_osmotic_slope_derivative(T, correlation) of pitzer_kernel.hpp.
 
-/// d^2 J / dx^2 of mixing_j (pitzer_kernel.hpp; same Chebyshev series): the second
-/// derivative of the Clenshaw recurrence in z times (dz/dx)^2, plus d^2z/dx^2 times the first.
+/// d^2 J / dx^2 of mixing_j (pitzer_kernel.hpp, which differentiates its Chebyshev
+/// recurrence twice); 0 at x <= 0.
 inline double mixing_j_second_derivative(double x) {
-  static constexpr std::array<double, 21> aI = {
-      1.925154014814667,  -0.060076477753119, -0.029779077456514, -0.007299499690937,
-      0.000388260636404,  0.000636874599598,  0.000036583601823,  -0.000045036975204,
-      -0.000004537895710, 0.000002937706971,  0.000000396566462,  -0.000000202099617,
-      -0.000000025267769, 0.000000013522610,  0.000000001229405,  -0.000000000821969,
-      -0.000000000050847, 0.000000000046333,  0.000000000001943,  -0.000000000002563,
-      -0.000000000010991};
-  static constexpr std::array<double, 21> aII = {
-      0.628023320520852,  0.462762985338493,  0.150044637187895,  -0.028796057604906,
-      -0.036552745910311, -0.001668087945272, 0.006519840398744,  0.001130378079086,
-      -0.000887171310131, -0.000242107641309, 0.000087294451594,  0.000034682122751,
-      -0.000004583768938, -0.000003548684306, -0.000000250453880, 0.000000216991779,
-      0.000000080779570,  0.000000004558555,  -0.000000006944757, -0.000000002849257,
-      0.000000000237816};
   if (!(x > 0.0)) return 0.0;
-  const bool low = x < 1.0;
-  const auto& ak = low ? aI : aII;
-  const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
-  const double z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
-  const double dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
-  const double d2z = low ? -0.64 * px / (x * x) : 4.4 / 9.0 * px / (x * x);
-  double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0, e0 = 0, e1 = 0, e2 = 0;
-  for (int k = 20; k >= 0; --k) {
-    b2 = b1;
-    b1 = b0;
-    d2 = d1;
-    d1 = d0;
-    e2 = e1;
-    e1 = e0;
-    b0 = z * b1 - b2 + ak[k];
-    d0 = b1 + z * d1 - d2;
-    e0 = 2.0 * d1 + z * e1 - e2;
-  }
-  return 0.5 * d2z * (d0 - d2) + 0.5 * dz * dz * (e0 - e2);
+  double J = 0.0, dJ = 0.0, d2J = 0.0;
+  mixing_j(x, J, dJ, &d2J);
+  return d2J;
 }
 
 /// dP/dT of the analytic temperature form (data::t_function, T_r = 298.15 K).
