@@ -224,23 +224,46 @@ class _Staged:
         self.target, self.real, self.tmp, self.what = target, real, tmp, what
 
 
-def _write_temporary(target: str, real: str, writer: Callable[[IO[bytes]], None], what: str) -> str:
-    """Fill a new hidden file beside ``real`` with ``writer``; returns its path."""
+def _write_temporary(target: str, real: str, writer: Callable[[IO[bytes]], None], what: str,
+                     on_created: Callable[[str], None]) -> str:
+    """Fill a new hidden file beside ``real`` with ``writer``; returns its path.
+
+    ``on_created(tmp)`` records the new file with its owner (the :class:`OutputSet`) in the
+    same step that creates it: Ctrl-C is held back from the ``os.open`` until the file is
+    recorded, so an interrupt can never leave a temporary file that nobody will remove."""
     folder = os.path.dirname(os.path.abspath(real))
     base = os.path.basename(real)
-    while True:
-        tmp = os.path.join(folder, f".{base}.{secrets.token_hex(6)}.tmp")
-        try:
-            # O_EXCL: never reuse or follow anything already there; mode 0o666 minus the umask.
-            fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0), 0o666)
-            break
-        except FileExistsError:
-            continue
-        except OSError as exc:
-            raise OutputPathError(
-                f"{what} '{target}': cannot create a file in directory '{folder}' ({exc.strerror or exc})") from None
+    fh = None
+    old = _block_interrupts()
     try:
-        with os.fdopen(fd, "wb") as fh:
+        while True:
+            tmp = os.path.join(folder, f".{base}.{secrets.token_hex(6)}.tmp")
+            try:
+                # O_EXCL: never reuse or follow anything already there; mode 0o666 minus the umask.
+                fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0), 0o666)
+                break
+            except FileExistsError:
+                continue
+            except OSError as exc:
+                raise OutputPathError(
+                    f"{what} '{target}': cannot create a file in directory '{folder}' ({exc.strerror or exc})") from None
+        try:
+            fh = os.fdopen(fd, "wb")
+        except BaseException:
+            os.close(fd)
+            _remove(tmp)
+            raise
+        on_created(tmp)
+    finally:
+        try:
+            _restore_interrupts(old)  # a Ctrl-C held back arrives here, after the file is recorded
+        except BaseException:
+            if fh is not None:
+                fh.close()
+                _remove(tmp)
+            raise
+    try:
+        with fh:
             try:
                 writer(fh)
                 fh.flush()
@@ -342,8 +365,18 @@ class OutputSet:
             raise OutputPathError(f"{what} '{target}': written twice by one command")
         target = check_output_path(target, self._inputs, what)
         real = _real_target(what, target)
-        tmp = _write_temporary(target, real, writer, what)
-        self._staged.append(_Staged(target, real, tmp, what))
+        item = _Staged(target, real, "", what)
+
+        def record(tmp: str) -> None:  # called with Ctrl-C held back (see _write_temporary)
+            item.tmp = tmp
+            self._staged.append(item)
+
+        try:
+            _write_temporary(target, real, writer, what, record)
+        except BaseException:
+            if item in self._staged:  # its file is already removed
+                self._staged.remove(item)
+            raise
         return target
 
     def write_text(self, path: str | os.PathLike[str], text: str, what: Optional[str] = None) -> str:

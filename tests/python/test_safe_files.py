@@ -174,6 +174,40 @@ def test_output_set_leaves_nothing_on_ctrl_c(tmp_path):
     assert listing(tmp_path) == []
 
 
+def test_ctrl_c_held_back_while_the_temporary_file_is_created_leaves_nothing(tmp_path, monkeypatch):
+    # A Ctrl-C that arrives while the temporary file is being created is held back and
+    # delivered when interrupts are released again; by then the file must be recorded in
+    # the set, so leaving the block removes it. Simulated: the release raises
+    # KeyboardInterrupt as a pending SIGINT would (common practice, no published value).
+    real_restore = _files._restore_interrupts
+    fired = []
+
+    def release_with_a_pending_ctrl_c(old):
+        real_restore(old)
+        if not fired and any(name.endswith(".tmp") for name in os.listdir(tmp_path)):
+            fired.append(True)
+            raise KeyboardInterrupt
+
+    monkeypatch.setattr(_files, "_restore_interrupts", release_with_a_pending_ctrl_c)
+    with pytest.raises(KeyboardInterrupt):
+        with OutputSet() as out:
+            out.write_text(tmp_path / "a.txt", "A", "--first")
+    assert fired and listing(tmp_path) == []
+
+
+def test_a_failed_write_is_forgotten_by_the_set(tmp_path):
+    def broken_writer(fh):
+        raise OSError(28, "No space left on device")
+
+    with OutputSet() as out:
+        with pytest.raises(OutputPathError, match=r"--plot '.*a\.png': writing failed \(No space left on device\)"):
+            out.write(tmp_path / "a.png", broken_writer, "--plot")
+        assert listing(tmp_path) == []
+        out.write_text(tmp_path / "b.txt", "B", "--save")
+        assert out.commit() == [str(tmp_path / "b.txt")]
+    assert listing(tmp_path) == ["b.txt"]
+
+
 def test_two_outputs_on_one_path_are_refused_when_planned(tmp_path):
     with OutputSet() as out:
         out.plan(tmp_path / "x.png", "--plot")
