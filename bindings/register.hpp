@@ -11,10 +11,18 @@
 
 #include "colligate/core/solution.hpp"
 #include "colligate/core/validity.hpp"
+#include "colligate/models/builtin_models.hpp"
 
 namespace colligate_bindings {
 
 namespace py = pybind11;
+
+/// The model a caller names with the Pitzer parameter set it names ("": the model's
+/// default set; checked by model_choice).
+inline colligate::models::model_choice model_with_set(const std::string& model,
+                                                      const std::string& parameter_set) {
+  return colligate::models::model_choice(model, colligate::models::model_options{parameter_set});
+}
 
 /// One solute record as a dict (SI units, source keys).
 py::dict solute_row(const colligate::data::solute_record& r);

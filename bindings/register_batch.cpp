@@ -100,9 +100,10 @@ void register_batch(py::module_& m) {
   m.def(
       "batch_freezing_points",
       [](const solution_batch& b, const std::string& model, int threads, const std::string& policy,
-         double bound) {
-        const auto id = colligate::models::model_choice(model);
+         double bound, const std::string& parameter_set, bool metastable) {
+        const auto id = model_with_set(model, parameter_set);
         auto opt = make_options(threads, policy, bound);
+        opt.salts_crystallise = !metastable;
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
         py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(b.rows()));
         double* o = out.mutable_data();
@@ -111,13 +112,14 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("parameter_set") = "", py::arg("metastable") = false);
 
   m.def(
       "batch_water_activities",
       [](const solution_batch& b, double T, const std::string& model, int threads,
-         const std::string& policy, const std::string& saturation) {
-        const auto id = colligate::models::model_choice(model);
+         const std::string& policy, const std::string& saturation, const std::string& parameter_set) {
+        const auto id = model_with_set(model, parameter_set);
         auto opt = make_options(threads, policy, 0.0);
         opt.salts_crystallise = colligate::equilibria::salts_crystallise_from_string(saturation);
         py::array_t<double> out(static_cast<py::ssize_t>(b.rows()));
@@ -128,13 +130,13 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperature"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate", py::arg("saturation") = "equilibrium");
+      py::arg("range_policy") = "extrapolate", py::arg("saturation") = "equilibrium", py::arg("parameter_set") = "");
 
   m.def(
       "batch_ice_fractions",
       [](const solution_batch& b, const array_in& temperatures, const std::string& model,
-         int threads, const std::string& policy, double bound) {
-        const auto id = colligate::models::model_choice(model);
+         int threads, const std::string& policy, double bound, const std::string& parameter_set) {
+        const auto id = model_with_set(model, parameter_set);
         auto opt = make_options(threads, policy, bound);
         if (temperatures.ndim() != 1)
           throw colligate::invalid_input("temperatures must be a 1-D array (K)");
@@ -148,7 +150,8 @@ void register_batch(py::module_& m) {
         return py::make_tuple(out, status);
       },
       py::arg("batch"), py::arg("temperatures"), py::arg("model") = "auto", py::arg("threads") = 0,
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("parameter_set") = "");
 
   m.def(
       "batch_predictions_with_uncertainty",

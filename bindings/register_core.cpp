@@ -243,10 +243,10 @@ Solution from solute mole fractions (formula units, undissociated); rest is wate
      "basis, source key, per_solute: where each solute's own limit is kept).");
   m.def(
       "describe_model",
-      [](const solution& s, const std::string& model) {
-        return colligate::models::describe_model(s, colligate::models::model_choice(model));
+      [](const solution& s, const std::string& model, const std::string& parameter_set) {
+        return colligate::models::describe_model(s, model_with_set(model, parameter_set));
       },
-      py::arg("solution"), py::arg("model") = "auto",
+      py::arg("solution"), py::arg("model") = "auto", py::arg("parameter_set") = "",
       "Which model and constants a calculation on this solution uses.");
   m.attr("CRYOSCOPIC_CONSTANT") = colligate::constants::cryoscopic_constant;
   m.attr("ICE_POINT") = colligate::constants::ice_point;

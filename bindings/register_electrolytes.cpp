@@ -43,6 +43,7 @@ void register_electrolytes(py::module_& m) {
           throw colligate::invalid_input("mean_activity_coefficient: solute '" + solute +
                                          "' is not in the solution");
         colligate::models::check_temperature_argument("mean_activity_coefficient", T);
+        colligate::models::pitzer::require_binaries(s, set);
         const double v = std::exp(colligate::models::pitzer::ln_mean_activity_coefficient(
             s, i, s.water_mass(), T, set));
         return std::make_tuple(v, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason());
@@ -54,6 +55,7 @@ void register_electrolytes(py::module_& m) {
       [](const solution& s, double T, const std::string& set_id) {
         const auto& set = colligate::data::find_pitzer_parameter_set(set_id);
         colligate::models::check_temperature_argument("pitzer_osmotic_coefficient", T);
+        colligate::models::pitzer::require_binaries(s, set);
         const double mp = colligate::models::ideal::particle_molality(s, s.water_mass());
         const double lnaw = colligate::models::pitzer::ln_water_activity(s, s.water_mass(), T, set);
         const double phi = mp > 0.0 ? -lnaw / (colligate::constants::molar_mass_water * mp) : 1.0;
@@ -62,24 +64,28 @@ void register_electrolytes(py::module_& m) {
       py::arg("solution"), py::arg("temperature"), py::arg("parameter_set") = "spencer_1990_icefit");
   m.def(
       "eutectic",
-      [](const solution& s, const std::string& model, double bound_fraction) {
+      [](const solution& s, const std::string& model, double bound_fraction,
+         const std::string& parameter_set) {
+        const auto choice = model_with_set(model, parameter_set);
         eq::eutectic_result r;
         {
           py::gil_scoped_release release;
-          r = eq::eutectic(s, colligate::models::model_choice(model),
+          r = eq::eutectic(s, choice,
                            colligate::bound_water_kg(s, bound_fraction, "eutectic"));
         }
         return std::make_tuple(r.temperature, r.found, r.phase, r.formula, r.source, r.reason);
       },
       py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("parameter_set") = "",
       "(temperature K, found, phase, formula, source key, reason) of the eutectic.");
   m.def(
       "salt_equilibrium",
-      [](const solution& s, double T, const std::string& model) {
+      [](const solution& s, double T, const std::string& model, const std::string& parameter_set) {
+        const auto choice = model_with_set(model, parameter_set);
         eq::salt_equilibrium_state r;
         {
           py::gil_scoped_release release;
-          r = eq::salt_equilibrium(s, T, colligate::models::model_choice(model));
+          r = eq::salt_equilibrium(s, T, choice);
         }
         py::dict d;
         d["temperature_K"] = r.temperature;
@@ -97,16 +103,17 @@ void register_electrolytes(py::module_& m) {
         d["reason"] = r.check.reason();
         return d;
       },
-      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
+      py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto", py::arg("parameter_set") = "",
       "The state of ``solution`` at ``temperature`` (K) with salts allowed to crystallise "
       "(no ice), as a dict (equilibria/salt_equilibrium.hpp).");
   m.def(
       "salt_crystallisation_temperature",
-      [](const solution& s, const std::string& model) {
+      [](const solution& s, const std::string& model, const std::string& parameter_set) {
+        const auto choice = model_with_set(model, parameter_set);
         eq::salt_crystallisation r;
         {
           py::gil_scoped_release release;
-          r = eq::salt_crystallisation_temperature(s, colligate::models::model_choice(model));
+          r = eq::salt_crystallisation_temperature(s, choice);
         }
         py::dict d;
         d["temperature_K"] = r.temperature;
@@ -117,7 +124,7 @@ void register_electrolytes(py::module_& m) {
         d["reason"] = r.reason;
         return d;
       },
-      py::arg("solution"), py::arg("model") = "auto",
+      py::arg("solution"), py::arg("model") = "auto", py::arg("parameter_set") = "",
       "Temperature (K) at which ``solution`` first crystallises a salt on cooling, without "
       "ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).");
 }

@@ -51,8 +51,8 @@ void register_equilibria(py::module_& m) {
   m.def(
       "water_activity",
       [](const solution& s, double T, const std::string& model, const std::string& policy,
-         const std::string& saturation) {
-        const auto choice = colligate::models::model_choice(model);
+         const std::string& saturation, const std::string& parameter_set) {
+        const auto choice = model_with_set(model, parameter_set);
         const auto p = colligate::range_policy_from_string(policy);
         if (!eq::salts_crystallise_from_string(saturation)) {
           const auto v = colligate::models::water_activity(s, T, choice, p);
@@ -66,17 +66,19 @@ void register_equilibria(py::module_& m) {
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate", py::arg("saturation") = "equilibrium",
+      py::arg("parameter_set") = "",
       "(a_w, reason, supersaturation notice). saturation='equilibrium' (default): a solution "
       "above a salt's solubility gives the a_w of its equilibrium state, salt crystallised; "
       "'metastable': the solution as one liquid.");
   m.def(
       "osmotic_coefficient",
-      [](const solution& s, double T, const std::string& model, const std::string& policy) {
+      [](const solution& s, double T, const std::string& model, const std::string& policy,
+         const std::string& parameter_set) {
         return as_tuple(colligate::models::osmotic_coefficient(
-            s, T, colligate::models::model_choice(model), colligate::range_policy_from_string(policy)));
+            s, T, model_with_set(model, parameter_set), colligate::range_policy_from_string(policy)));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate");
+      py::arg("range_policy") = "extrapolate", py::arg("parameter_set") = "");
   // The dairy method of Leighton (1927) / Goff & Hartel (2013) (equilibria/leighton_method.hpp).
   bound_class<eq::leighton::mix_terms>(m, "LeightonTerms")
       .def_readonly("sucrose_equivalent", &eq::leighton::mix_terms::sucrose_equivalent)
@@ -105,50 +107,67 @@ void register_equilibria(py::module_& m) {
   m.def(
       "freezing_point",
       [](const solution& s, const std::string& model, const std::string& policy,
-         double bound_fraction) {
-        return as_tuple(eq::freezing_point_checked(s, colligate::models::model_choice(model),
-                                                   colligate::range_policy_from_string(policy),
-                                                   colligate::bound_water_kg(s, bound_fraction, "freezing_point")));
+         double bound_fraction, const std::string& parameter_set, bool metastable) {
+        const auto choice = model_with_set(model, parameter_set);
+        const auto pol = colligate::range_policy_from_string(policy);
+        const double bound = colligate::bound_water_kg(s, bound_fraction, "freezing_point");
+        if (metastable || !s.has_electrolytes()) {
+          const auto v = eq::freezing_point_checked(s, choice, pol, bound);
+          return std::make_tuple(v.value, v.check.reason(), std::string());
+        }
+        eq::ice_curve curve(s, choice, bound);
+        eq::salt_first_solid first;
+        const auto v = eq::first_solid_temperature_checked(curve, pol, &first);
+        return std::make_tuple(v.value, v.check.reason(), eq::salt_first_notice(first));
       },
       py::arg("solution"), py::arg("model") = "auto", py::arg("range_policy") = "extrapolate",
-      py::arg("bound_water_fraction_of_water") = 0.0);
+      py::arg("bound_water_fraction_of_water") = 0.0, py::arg("parameter_set") = "",
+      py::arg("metastable") = false,
+      "(temperature K, reason, notice): the freezing point in the sense of the first solid to "
+      "form. A brine richer than its eutectic composition crystallises a salt first: the value "
+      "is that salt's crystallisation temperature and the notice names it; metastable=True "
+      "gives the ice freezing point of the unprecipitated liquid.");
   m.def(
       "ice_fraction",
       [](const solution& s,
          const array_in& temperature,
-         const std::string& model, const std::string& policy, double bound_fraction) {
-        const auto id = colligate::models::model_choice(model);
+         const std::string& model, const std::string& policy, double bound_fraction,
+         const std::string& parameter_set) {
+        const auto id = model_with_set(model, parameter_set);
         const auto pol = colligate::range_policy_from_string(policy);
         eq::ice_curve curve(s, id, colligate::bound_water_kg(s, bound_fraction, "ice_fraction"));  // one curve for every temperature
         return checked_over_array(temperature,
                                   [&](double T) { return eq::ice_fraction_of(curve.at(T), pol); });
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0);
+      py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("parameter_set") = "");
 
   m.def(
       "temperature_for_ice_fraction",
       [](const solution& s, const array_in& fraction, const std::string& model,
-         const std::string& policy, double bound_fraction) {
+         const std::string& policy, double bound_fraction, const std::string& parameter_set) {
         const auto pol = colligate::range_policy_from_string(policy);
-        eq::ice_curve curve(s, colligate::models::model_choice(model),
+        eq::ice_curve curve(s, model_with_set(model, parameter_set),
                             colligate::bound_water_kg(s, bound_fraction, "temperature_for_ice_fraction"));
         return checked_over_array(
             fraction, [&](double f) { return eq::temperature_for_ice_fraction(curve, f, pol); });
       },
       py::arg("solution"), py::arg("ice_fraction"), py::arg("model") = "auto",
       py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("parameter_set") = "",
       "(temperatures K, first reason, count out of range) at which the solution has each ice "
       "fraction (ice mass over all the water), on one prepared ice curve.");
 
   m.def(
       "unfrozen_phase",
-      [](const solution& s, double T, const std::string& model, double bound_fraction) {
-        return eq::unfrozen_phase_at(s, T, colligate::models::model_choice(model),
+      [](const solution& s, double T, const std::string& model, double bound_fraction,
+         const std::string& parameter_set) {
+        return eq::unfrozen_phase_at(s, T, model_with_set(model, parameter_set),
                                      colligate::bound_water_kg(s, bound_fraction, "unfrozen_phase"));
       },
       py::arg("solution"), py::arg("temperature"), py::arg("model") = "auto",
-      py::arg("bound_water_fraction_of_water") = 0.0,
+      py::arg("bound_water_fraction_of_water") = 0.0, py::arg("parameter_set") = "",
       "The ice curve's state (IceCurveState) at ``temperature`` (K).");
   // The former name of the state class, kept for callers that name it.
   m.attr("UnfrozenPhaseState") = m.attr("IceCurveState");

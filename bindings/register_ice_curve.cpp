@@ -43,13 +43,13 @@ void register_ice_curve(py::module_& m) {
 
   bound_class<eq::ice_curve>(m, "IceCurve")
       .def(py::init([](const solution& s, const std::string& model, double bound_fraction,
-                       const std::string& path) {
-             return std::make_unique<eq::ice_curve>(s, colligate::models::model_choice(model),
+                       const std::string& path, const std::string& parameter_set) {
+             return std::make_unique<eq::ice_curve>(s, model_with_set(model, parameter_set),
                                                     colligate::bound_water_kg(s, bound_fraction, "IceCurve"),
                                                     eq::crystallisation_path_from_string(path));
            }),
            py::arg("solution"), py::arg("model") = "auto", py::arg("bound_water_fraction_of_water") = 0.0,
-           py::arg("path") = "equilibrium")
+           py::arg("path") = "equilibrium", py::arg("parameter_set") = "")
       .def_property_readonly("model", [](const eq::ice_curve& c) { return c.model().id; },
                              "Id of the model used ('auto' resolved).")
       .def_property_readonly("path", [](const eq::ice_curve& c) { return eq::to_string(c.path()); })

@@ -179,7 +179,8 @@ if __name__ == "__main__":
 # K is shifted by the change of ln IAP along the published model's saturation curve:
 #     ln K_new(T) = ln K(T) + [ln IAP_new - ln IAP_spencer](m_sat,spencer(T), T)
 # which leaves the saturation molality at every T where it was. The shift is fitted as
-# all six terms of PHREEQC's log10 K form (A1..A6).
+# all six terms of PHREEQC's log10 K form (A1..A6); the rows go into the set's
+# `solubility_shifts` (data/pitzer_parameters.hpp), so another set keeps the published K.
 
 HYDRATES = {
     # salt, phase, waters, log10 K coefficients A1..A6 (salt_solubility.hpp), T range (K)

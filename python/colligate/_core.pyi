@@ -442,7 +442,7 @@ class IceCurve:
         'equilibrium' (crystallised salts stay in contact with the brine and may
         redissolve) or 'fractional' (each salt is removed as it forms).
     """
-    def __init__(self, solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium') -> None:
+    def __init__(self, solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, path: str = 'equilibrium', parameter_set: str = '') -> None:
         ...
     def at(self, temperature: typing.SupportsFloat | typing.SupportsIndex) -> IceCurveState:
         """
@@ -573,15 +573,15 @@ def alcohol_by_volume_20c(ethanol_kg: typing.SupportsFloat | typing.SupportsInde
     """
     Alcohol by volume at 20 C (volume fraction 0..1) of ``ethanol_kg`` ethanol in ``water_kg`` water, from the OIML R 22 (1975) density formula (``oiml_r22_1975``).
     """
-def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '', metastable: bool = False) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def batch_predictions_with_uncertainty(batch: SolutionBatchCore, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.int32], numpy.typing.NDArray[numpy.uint8]]:
     """
     Value, standard uncertainty, effective degrees of freedom and row status of `quantity` for every row (linear propagation per row in C++; temperature in K, unused for the freezing point).
     """
-def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
+def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium', parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
 def boiling_point(solution: Solution, pressure: typing.SupportsFloat | typing.SupportsIndex = 101325.0, model: str = 'auto', range_policy: str = 'extrapolate') -> dict:
     """
@@ -628,7 +628,7 @@ def curve_fit(model: collections.abc.Callable[[typing.Annotated[numpy.typing.NDA
     Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) to y.
     ``jacobian(x, p)`` returns the (n, k) derivatives; without it, central differences.
     """
-def describe_model(solution: Solution, model: str = 'auto') -> str:
+def describe_model(solution: Solution, model: str = 'auto', parameter_set: str = '') -> str:
     """
     Which model and constants a calculation on this solution uses.
     """
@@ -644,7 +644,7 @@ def ethanol_water_density_20c(ethanol_mass_fraction: typing.SupportsFloat | typi
     """
     Density of an ethanol-water mixture at 20 C, kg/m3, for the ethanol mass fraction (kg per kg of ethanol + water); OIML R 22 (1975), source key ``oiml_r22_1975``.
     """
-def eutectic(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, bool, str, str, str, str]:
+def eutectic(solution: Solution, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> tuple[float, bool, str, str, str, str]:
     """
     (temperature K, found, phase, formula, source key, reason) of the eutectic.
     """
@@ -708,8 +708,10 @@ def food_thermal_uncertainty(composition: typing.Any, solution: Solution, quanti
     """
     Enthalpy at from_temperature (J/kg, H = 0 at 233.15 K) or the heat load H(from) - H(to) (J/kg), with its standard uncertainty by linear propagation.
     """
-def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[float, str]:
-    ...
+def freezing_point(solution: Solution, model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '', metastable: bool = False) -> tuple[float, str, str]:
+    """
+    (temperature K, reason, notice): the freezing point in the sense of the first solid to form. A brine richer than its eutectic composition crystallises a salt first: the value is that salt's crystallisation temperature and the notice names it; metastable=True gives the ice freezing point of the unprecipitated liquid.
+    """
 def glass_curve(solution: Solution, solute_mass_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], rule: str = 'gordon_taylor') -> numpy.typing.NDArray[numpy.float64]:
     """
     Tg (K) of the solution's solutes, in their proportions, at each total solute mass fraction in (0, 1].
@@ -722,7 +724,7 @@ def glass_transition_table() -> list:
     """
     The built-in glass-transition constants: Tg of the anhydrous solute (K), Gordon-Taylor k with water, Delta Cp at Tg (J/(kg K), 0 if not known), source keys and notes.
     """
-def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def ice_fraction(solution: Solution, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     ...
 def ice_vapour_pressure(temperature: typing.SupportsFloat | typing.SupportsIndex) -> float:
     """
@@ -820,7 +822,7 @@ def norrish_solute_record(result: FitResult, id: str, name: str, molar_mass: typ
     """
     A solute record carrying fitted Norrish constants.
     """
-def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate') -> tuple[float, str]:
+def osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate', parameter_set: str = '') -> tuple[float, str]:
     ...
 def pham_estimate(size: typing.SupportsFloat | typing.SupportsIndex, shape_factor: typing.SupportsFloat | typing.SupportsIndex, T_initial: typing.SupportsFloat | typing.SupportsIndex, T_medium: typing.SupportsFloat | typing.SupportsIndex, T_centre: typing.SupportsFloat | typing.SupportsIndex, density_unfrozen: typing.SupportsFloat | typing.SupportsIndex, density_frozen: typing.SupportsFloat | typing.SupportsIndex, c_unfrozen: typing.SupportsFloat | typing.SupportsIndex, c_frozen: typing.SupportsFloat | typing.SupportsIndex, latent_heat: typing.SupportsFloat | typing.SupportsIndex, k_frozen: typing.SupportsFloat | typing.SupportsIndex, h: typing.SupportsFloat | typing.SupportsIndex) -> dict:
     """
@@ -864,11 +866,11 @@ def row_status_reasons() -> list[str]:
     """
     Readable reason for each row status code (index = code).
     """
-def salt_crystallisation_temperature(solution: Solution, model: str = 'auto') -> dict:
+def salt_crystallisation_temperature(solution: Solution, model: str = 'auto', parameter_set: str = '') -> dict:
     """
     Temperature (K) at which ``solution`` first crystallises a salt on cooling, without ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).
     """
-def salt_equilibrium(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto') -> dict:
+def salt_equilibrium(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', parameter_set: str = '') -> dict:
     """
     The state of ``solution`` at ``temperature`` (K) with salts allowed to crystallise (no ice), as a dict (equilibria/salt_equilibrium.hpp).
     """
@@ -908,7 +910,7 @@ def sweetness_table() -> list:
     """
     Relative sweetness (sucrose = 1, mass basis) as a list of dicts with ``solute``, ``relative_sweetness``, ``source`` (citation key) and ``note``.
     """
-def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
+def temperature_for_ice_fraction(solution: Solution, ice_fraction: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
     """
     (temperatures K, first reason, count out of range) at which the solution has each ice fraction (ice mass over all the water), on one prepared ice curve.
     """
@@ -916,7 +918,7 @@ def uncertainty_statements() -> dict:
     """
     The standard uncertainties of each built-in solute's constants with their source, or 'not stated' (data/builtin_uncertainty.hpp).
     """
-def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> IceCurveState:
+def unfrozen_phase(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> IceCurveState:
     """
     The ice curve's state (IceCurveState) at ``temperature`` (K).
     """
@@ -924,7 +926,7 @@ def unfrozen_specific_heat(composition: typing.Any, temperature: typing.Supports
     """
     Specific heat of the unfrozen food (all water liquid) at ``temperature`` (K), J/(kg K).
     """
-def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate', saturation: str = 'equilibrium') -> tuple[float, str, str]:
+def water_activity(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', range_policy: str = 'extrapolate', saturation: str = 'equilibrium', parameter_set: str = '') -> tuple[float, str, str]:
     """
     (a_w, reason, supersaturation notice). saturation='equilibrium' (default): a solution above a salt's solubility gives the a_w of its equilibrium state, salt crystallised; 'metastable': the solution as one liquid.
     """

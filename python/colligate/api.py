@@ -83,6 +83,15 @@ def _uncertain_input(solution: Any) -> Any:
     return solution if isinstance(solution, SolutionBatch) else _as_solution(solution)
 
 
+def _default_set_only(parameter_set: Union[str, None]) -> None:
+    """Propagated uncertainties carry the default Pitzer set's sensitivities only."""
+    if parameter_set:
+        raise InvalidInputError(
+            f"parameter_set = {parameter_set!r} with with_uncertainty: the propagation uses the "
+            "default Pitzer set only; leave parameter_set out (None) or with_uncertainty False"
+        )
+
+
 def _as_solution(solution: Any) -> Solution:
     if isinstance(solution, Solution):
         return solution
@@ -99,8 +108,17 @@ def freezing_point(
     bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
     with_uncertainty: Union[bool, str] = False,
+    parameter_set: Union[str, None] = None,
+    metastable: bool = False,
 ) -> Union[float, UncertainValue]:
-    """Initial freezing point of a solution.
+    """Initial freezing point of a solution: the temperature where the first solid forms.
+
+    For most solutions that solid is ice. A brine richer in salt than its eutectic
+    composition (25 wt% NaCl, say) crystallises a salt first: by default the value is the
+    temperature where that salt begins to crystallise, and a :class:`SupersaturatedWarning`
+    names the phase (hydrohalite NaCl.2H2O, halite, ...) and its solubility source; ice then
+    forms only at the eutectic. ``metastable=True`` gives the ice freezing point of the
+    unprecipitated liquid instead. Brine temperatures are estimates: see :data:`CAUTIONS`.
 
     Parameters
     ----------
@@ -120,22 +138,40 @@ def freezing_point(
         :class:`~colligate.uncertainty.UncertainValue` (``.value``, ``.std``, ``.ci(level)``)
         carrying the covariance of fitted constants (linear propagation); "monte_carlo":
         the same by 10^5 seeded draws (:func:`colligate.uncertainty.propagate` sets both).
+    parameter_set : str, optional
+        Pitzer parameter set for the ions (one of :func:`pitzer_parameter_sets`, e.g.
+        "harvie_1984" for work at 25 C); None: the default set. Used by the models with
+        ion activities ("pitzer", "ross", and "auto" when ions are present), salt
+        saturation included; an electrolyte without parameters in the set is an
+        :class:`InvalidInputError` naming the sets that have it.
+    metastable : bool
+        False (default): a salt that saturates before ice gives its crystallisation
+        temperature. True: the ice freezing point of the liquid as given, salt kept
+        dissolved (supersaturated).
 
     Returns
     -------
     float
-        Temperature, K, at which ice starts to form. NaN if the solution does not freeze
-        above 223.15 K.
+        Temperature, K, at which ice (or, above the eutectic composition, a salt) starts
+        to form. NaN if the solution does not freeze above 223.15 K, or if it is already
+        supersaturated in a salt at 298.15 K (the top of the solubility data).
     """
     if with_uncertainty is not False:
+        _default_set_only(parameter_set)
+        if metastable:
+            raise InvalidInputError("metastable = True with with_uncertainty: the propagation "
+                                    "covers the default freezing point only")
         return propagate(_uncertain_input(solution), "freezing_point", 0.0, model, range_policy=range_policy,
                          bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_freezing_point(solution, model, range_policy=range_policy,
-                                    bound_water_fraction_of_water=bound_water_fraction_of_water)
-    value, reason = _core.freezing_point(_as_solution(solution), model, range_policy,
-                                         bound_water_fraction_of_water)
+                                    bound_water_fraction_of_water=bound_water_fraction_of_water,
+                                    parameter_set=parameter_set, metastable=metastable)
+    value, reason, notice = _core.freezing_point(_as_solution(solution), model, range_policy,
+                                                 bound_water_fraction_of_water, parameter_set or "",
+                                                 bool(metastable))
+    _warn_supersaturated(notice)
     _warn(reason)
     return value
 
@@ -148,6 +184,7 @@ def water_activity(
     range_policy: str = "extrapolate",
     saturation: str = "equilibrium",
     with_uncertainty: Union[bool, str] = False,
+    parameter_set: Union[str, None] = None,
 ) -> Union[float, UncertainValue]:
     """Water activity of a solution (no ice) at temperature ``T``.
 
@@ -169,6 +206,8 @@ def water_activity(
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`).
     with_uncertainty : bool or str
         See :func:`freezing_point`.
+    parameter_set : str, optional
+        Pitzer parameter set for the ions and their saturation (see :func:`freezing_point`).
 
     Returns
     -------
@@ -176,18 +215,21 @@ def water_activity(
         Water activity, dimensionless, in (0, 1].
     """
     if with_uncertainty is not False:
+        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "water_activity", T, model, range_policy=range_policy,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
-        return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation)
+        return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation,
+                                    parameter_set=parameter_set)
     value, reason, notice = _core.water_activity(_as_solution(solution), float(T), model, range_policy,
-                                                 saturation)
+                                                 saturation, parameter_set or "")
     _warn_supersaturated(notice)
     _warn(reason)
     return value
 
 
-def salt_equilibrium(solution: Solution, T: float = 298.15, model: str = "auto") -> dict:
+def salt_equilibrium(solution: Solution, T: float = 298.15, model: str = "auto", *,
+                     parameter_set: Union[str, None] = None) -> dict:
     """The state of a solution at ``T`` (K) with salts allowed to crystallise (no ice).
 
     Returns a dict: ``supersaturated`` (bool), ``phase``, ``formula`` and ``phase_source``
@@ -196,14 +238,16 @@ def salt_equilibrium(solution: Solution, T: float = 298.15, model: str = "auto")
     ``liquid_water_kg``, ``water_activity`` (of the equilibrium state),
     ``metastable_water_activity``, ``also_supersaturated`` (a second salt not solved, or
     None) and ``reason``. Solubility products hold from 219.15 to 298.15 K. Estimates:
-    verify brine strength by measurement (see :data:`CAUTIONS`).
+    verify brine strength by measurement (see :data:`CAUTIONS`). ``parameter_set``: the
+    Pitzer parameter set for the ions (see :func:`freezing_point`).
     """
-    out = dict(_core.salt_equilibrium(_as_solution(solution), float(T), model))
+    out = dict(_core.salt_equilibrium(_as_solution(solution), float(T), model, parameter_set or ""))
     _warn(out["reason"])
     return out
 
 
-def salt_crystallisation_temperature(solution: Solution, model: str = "auto") -> dict:
+def salt_crystallisation_temperature(solution: Solution, model: str = "auto", *,
+                                     parameter_set: Union[str, None] = None) -> dict:
     """Temperature at which a brine first crystallises salt on cooling (no ice yet).
 
     For a brine richer than its eutectic composition (25 wt% NaCl, say) this, not the
@@ -211,8 +255,9 @@ def salt_crystallisation_temperature(solution: Solution, model: str = "auto") ->
     ``temperature_K`` (NaN when none between 219.15 and 298.15 K), ``phase``, ``formula``,
     ``phase_source``, ``above_data`` (already supersaturated at 298.15 K) and ``reason``.
     Estimates: verify by measurement before relying on a brine (see :data:`CAUTIONS`).
+    ``parameter_set``: the Pitzer parameter set for the ions (see :func:`freezing_point`).
     """
-    return dict(_core.salt_crystallisation_temperature(_as_solution(solution), model))
+    return dict(_core.salt_crystallisation_temperature(_as_solution(solution), model, parameter_set or ""))
 
 
 def osmotic_coefficient(
@@ -222,13 +267,17 @@ def osmotic_coefficient(
     *,
     range_policy: str = "extrapolate",
     with_uncertainty: Union[bool, str] = False,
+    parameter_set: Union[str, None] = None,
 ) -> Union[float, UncertainValue]:
     """Osmotic coefficient phi = -ln a_w / (M_w sum nu_i m_i) at temperature ``T`` (K).
-    ``with_uncertainty``: see :func:`freezing_point`."""
+    ``with_uncertainty`` and ``parameter_set`` (the Pitzer set for the ions): see
+    :func:`freezing_point`."""
     if with_uncertainty is not False:
+        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "osmotic_coefficient", T, model, range_policy=range_policy,
                          method=_method(with_uncertainty))
-    value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy)
+    value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy,
+                                              parameter_set or "")
     _warn(reason)
     return value
 
@@ -241,6 +290,7 @@ def ice_fraction(
     bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
     with_uncertainty: Union[bool, str] = False,
+    parameter_set: Union[str, None] = None,
 ) -> Union[float, np.ndarray, UncertainValue]:
     """Ice mass over total water mass at temperature(s) ``T``.
 
@@ -260,6 +310,9 @@ def ice_fraction(
 
     with_uncertainty : bool or str
         See :func:`freezing_point`; value and std then have the shape of ``T``.
+    parameter_set : str, optional
+        Pitzer parameter set for the ions, also on the salt steps of the path (see
+        :func:`freezing_point`).
 
     Returns
     -------
@@ -267,16 +320,18 @@ def ice_fraction(
         Ice fraction in [0, 1), same shape as ``T``.
     """
     if with_uncertainty is not False:
+        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "ice_fraction", T, model, range_policy=range_policy,
                          bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_ice_fraction(solution, T, model, range_policy=range_policy,
-                                  bound_water_fraction_of_water=bound_water_fraction_of_water)
+                                  bound_water_fraction_of_water=bound_water_fraction_of_water,
+                                  parameter_set=parameter_set)
     scalar = np.ndim(T) == 0
     temps = np.asarray(T, dtype=float)
     values, reason, count = _core.ice_fraction(
-        _as_solution(solution), temps, model, range_policy, bound_water_fraction_of_water
+        _as_solution(solution), temps, model, range_policy, bound_water_fraction_of_water, parameter_set or ""
     )
     _warn(reason, count)
     return float(values) if scalar else values
@@ -289,6 +344,7 @@ def temperature_for_ice_fraction(
     *,
     bound_water_fraction_of_water: float = 0.0,
     range_policy: str = "extrapolate",
+    parameter_set: Union[str, None] = None,
 ) -> Union[float, np.ndarray]:
     """Temperature at which a solution has a given ice fraction (the inverse of
     :func:`ice_fraction`), e.g. the serving temperature with 70 % of the water frozen.
@@ -307,6 +363,8 @@ def temperature_for_ice_fraction(
     range_policy : str
         "extrapolate", "nan" or "raise" (see :func:`freezing_point`), applied to the
         model's validity at the temperature found.
+    parameter_set : str, optional
+        Pitzer parameter set for the ions (see :func:`freezing_point`).
 
     Returns
     -------
@@ -323,7 +381,8 @@ def temperature_for_ice_fraction(
     scalar = np.ndim(ice_fraction) == 0
     fractions = np.asarray(ice_fraction, dtype=float)
     values, reason, count = _core.temperature_for_ice_fraction(
-        _as_solution(solution), fractions, model, range_policy, float(bound_water_fraction_of_water)
+        _as_solution(solution), fractions, model, range_policy, float(bound_water_fraction_of_water),
+        parameter_set or ""
     )
     _warn(reason, count)
     return float(values) if scalar else values
@@ -367,6 +426,7 @@ def unfrozen_phase(
     model: str = "auto",
     *,
     bound_water_fraction_of_water: float = 0.0,
+    parameter_set: Union[str, None] = None,
 ) -> UnfrozenPhase:
     """Ice, unfrozen water and the unfrozen solution at temperature ``T`` (K).
 
@@ -374,9 +434,10 @@ def unfrozen_phase(
     ``unfrozen_water``, ``bound_water``, ``total_water`` (kg, on the scale of the solution),
     ``ice_fraction``,
     ``water_activity`` and ``solution`` (the unfrozen liquid as a :class:`Solution`).
+    ``parameter_set``: the Pitzer parameter set for the ions (see :func:`freezing_point`).
     """
     s = _as_solution(solution)
-    state = _core.unfrozen_phase(s, float(T), model, bound_water_fraction_of_water)
+    state = _core.unfrozen_phase(s, float(T), model, bound_water_fraction_of_water, parameter_set or "")
     _warn(state.reason)
     return UnfrozenPhase(state, unfrozen_liquid(s, state))
 
@@ -555,9 +616,10 @@ def models() -> list[str]:
     return list(_core.models())
 
 
-def describe_model(solution: Solution, model: str = "auto") -> str:
-    """Which model, constants and sources a calculation on ``solution`` uses."""
-    return _core.describe_model(_as_solution(solution), model)
+def describe_model(solution: Solution, model: str = "auto", *, parameter_set: Union[str, None] = None) -> str:
+    """Which model, constants and sources a calculation on ``solution`` uses
+    (``parameter_set``: the Pitzer parameter set for the ions; None: the default)."""
+    return _core.describe_model(_as_solution(solution), model, parameter_set or "")
 
 
 def solutes():
@@ -588,7 +650,7 @@ def citation(key: str) -> Mapping[str, Any]:
 
 
 def eutectic(solution: Solution, model: str = "auto", *, bound_water_fraction_of_water: float = 0.0,
-             path: str = "equilibrium") -> dict:
+             path: str = "equilibrium", parameter_set: Union[str, None] = None) -> dict:
     """Where the ice curve of a salt solution ends: its final eutectic.
 
     Below it no liquid remains (for a binary brine, the ice + salt hydrate eutectic; for a
@@ -599,7 +661,8 @@ def eutectic(solution: Solution, model: str = "auto", *, bound_water_fraction_of
     the path with its onset). Brine and ice-salt-bath temperatures are model estimates:
     see :data:`CAUTIONS`.
     """
-    return eutectic_of(IceCurve(_as_solution(solution), model, bound_water_fraction_of_water, path))
+    return eutectic_of(IceCurve(_as_solution(solution), model, bound_water_fraction_of_water, path,
+                                parameter_set or ""))
 
 
 def eutectic_of(curve: IceCurve) -> dict:

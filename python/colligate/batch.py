@@ -168,42 +168,51 @@ def _result(values, status, batch, name, return_status, temps=None):
 
 def batch_freezing_point(batch: SolutionBatch, model: str = "auto", *, threads: int = 0,
                          range_policy: str = "extrapolate", bound_water_fraction_of_water: float = 0.0,
-                         return_status: bool = False):
+                         return_status: bool = False, parameter_set: Optional[str] = None,
+                         metastable: bool = False):
     """Initial freezing point of every row, K (NaN for failed rows).
 
     ``bound_water_fraction_of_water``: water that cannot freeze, kg per kg of each row's
     water, in [0, 1) (as in :func:`colligate.freezing_point`). With ``return_status`` the
-    row status codes (see :data:`ROW_STATUS`) come back too, with the caller's index."""
+    row status codes (see :data:`ROW_STATUS`) come back too, with the caller's index.
+    ``parameter_set`` and ``metastable`` as in :func:`colligate.freezing_point`: a row richer
+    in salt than its eutectic composition gives the salt's crystallisation temperature
+    unless ``metastable`` (no warning per row here; :func:`colligate.freezing_point` names
+    the salt)."""
     values, status = _core.batch_freezing_points(batch._core, model, threads, range_policy,
-                                                 bound_water_fraction_of_water)
+                                                 bound_water_fraction_of_water, parameter_set or "",
+                                                 bool(metastable))
     _report(status, "freezing_point", batch)
     return _result(values, status, batch, "freezing_point_K", return_status)
 
 
 def batch_water_activity(batch: SolutionBatch, T: float = 298.15, model: str = "auto", *,
                          threads: int = 0, range_policy: str = "extrapolate", return_status: bool = False,
-                         saturation: str = "equilibrium"):
+                         saturation: str = "equilibrium", parameter_set: Optional[str] = None):
     """Water activity of every row at temperature ``T`` (K).
 
     ``saturation`` as in :func:`colligate.water_activity`: a row above a salt's solubility
     gives the a_w of its equilibrium state (salt crystallised) unless "metastable" is asked
     (no warning per row here; :func:`colligate.salt_equilibrium` says which salt).
+    ``parameter_set``: the Pitzer parameter set for the ions.
     """
     values, status = _core.batch_water_activities(batch._core, float(T), model, threads, range_policy,
-                                                  saturation)
+                                                  saturation, parameter_set or "")
     _report(status, "water_activity", batch)
     return _result(values, status, batch, "water_activity", return_status)
 
 
 def batch_ice_fraction(batch: SolutionBatch, T: Union[float, Sequence[float]], model: str = "auto", *,
                        threads: int = 0, range_policy: str = "extrapolate",
-                       bound_water_fraction_of_water: float = 0.0, return_status: bool = False):
+                       bound_water_fraction_of_water: float = 0.0, return_status: bool = False,
+                       parameter_set: Optional[str] = None):
     """Ice fraction of every row at each temperature in ``T`` (K): shape (rows,) for a
-    scalar ``T``, (rows, len(T)) otherwise."""
+    scalar ``T``, (rows, len(T)) otherwise. ``parameter_set``: the Pitzer parameter set for
+    the ions."""
     scalar = np.ndim(T) == 0
     temps = np.atleast_1d(np.asarray(T, dtype=float))
     values, status = _core.batch_ice_fractions(batch._core, temps, model, threads, range_policy,
-                                               bound_water_fraction_of_water)
+                                               bound_water_fraction_of_water, parameter_set or "")
     _report(status, "ice_fraction", batch)
     if scalar:
         return _result(values[:, 0], status[:, 0], batch, "ice_fraction", return_status)

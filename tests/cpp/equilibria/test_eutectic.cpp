@@ -176,11 +176,9 @@ TEST_CASE("frezchem.dat solubility products agree with Spencer et al. (1990)", "
     if (ph.name == "hydrohalite") copy = &hydrohalite;
     if (ph.name == "antarcticite") copy = &antarcticite;
     if (copy == nullptr) continue;
-    auto published = ph;
-    published.log10_k_shift = {};
     for (double T : {225.0, 240.0, 253.15, 263.15, 273.15}) {
       INFO(ph.name << " T = " << T);
-      CHECK_THAT(published.ln_k(T), WithinAbs(smw(*copy, T), 0.01));
+      CHECK_THAT(ph.ln_k(T), WithinAbs(smw(*copy, T), 0.01));
     }
   }
 }

@@ -199,7 +199,8 @@ TEST_CASE("a new model is one descriptor added to a registry", "[models][registr
   toy.id = "twice_ideal";
   toy.summary = "test model: ideal with every particle counted twice";
   toy.traits = {false, false};
-  toy.prepare = [](const solution& s) -> std::unique_ptr<models::activity_evaluator> {
+  toy.prepare = [](const solution& s,
+                   const models::model_options&) -> std::unique_ptr<models::activity_evaluator> {
     return std::make_unique<models::detail::static_model_evaluator<twice_ideal>>(s);
   };
   const auto registry = models::builtin_models().with(toy);

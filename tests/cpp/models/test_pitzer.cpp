@@ -10,6 +10,7 @@
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/models/pitzer.hpp"
 #include "colligate/models/water_activity.hpp"
+#include "colligate/equilibria/freezing_point.hpp"
 #include "colligate/water/ice.hpp"
 #include "../reference_csv.hpp"
 
@@ -654,4 +655,61 @@ TEST_CASE("bad input: salts without parameters at T, missing mixing parameters l
                              Catch::Matchers::Contains("treated as zero"));
   // One salt alone needs no mixing parameters.
   CHECK(pitzer::check(solution::from_molalities({{"NaCl", 1.0}}), 1.0, 298.15, partial).in_range());
+}
+
+TEST_CASE("a parameter set chosen through the registry reaches every entry point",
+          "[models][pitzer][parameter_set]") {
+  // The default (no set named, or the default set named) is bit-identical to the model as
+  // it was; a named set changes the result by what the set's own functions give.
+  const auto brine = solution::from_molalities({{"NaCl", 2.0}, {"KCl", 0.5}});
+  const models::model_choice plain("pitzer");
+  const models::model_choice named_default("pitzer", models::model_options{"spencer_1990_icefit"});
+  const models::model_choice harvie("pitzer", models::model_options{"harvie_1984"});
+  CHECK(models::water_activity(brine, 298.15, plain).value ==
+        models::water_activity(brine, 298.15, named_default).value);
+  CHECK(equilibria::freezing_point(brine, plain).temperature ==
+        equilibria::freezing_point(brine, named_default).temperature);
+  // Identity: the registry path with harvie_1984 equals the set's own function, bit for bit.
+  const double lnaw = pitzer::ln_water_activity(brine, brine.water_mass(), 298.15,
+                                                data::harvie_1984_parameters());
+  CHECK(models::water_activity(brine, 298.15, harvie).value == std::exp(lnaw));
+  CHECK(models::water_activity(brine, 298.15, harvie).value !=
+        models::water_activity(brine, 298.15, plain).value);
+  // Osmotic coefficient through the registry vs Hamer & Wu (1972), NaCl 1 mol/kg 0.9355 at
+  // 25 C (tests/reference/nacl_osmotic_coefficients_25c.csv, from memory); tolerance 0.005
+  // as the test of the set's own function above.
+  const auto nacl = solution::from_molalities({{"NaCl", 1.0}});
+  CHECK_THAT(models::osmotic_coefficient(nacl, 298.15, harvie).value, WithinAbs(0.9355, 0.005));
+  CHECK(models::osmotic_coefficient(nacl, 298.15, harvie).value == phi(nacl, 298.15, data::harvie_1984_parameters()));
+  // 'auto' and 'ross' take the set too (salt + sugar: Ross with the set's Pitzer part).
+  const auto mix = solution::from_molalities({{"NaCl", 1.0}, {"sucrose", 0.5}});
+  const models::model_choice auto_harvie("auto", models::model_options{"harvie_1984"});
+  const double ross_harvie = models::water_activity(mix, 298.15, auto_harvie).value;
+  const double expected = std::exp(
+      pitzer::ln_water_activity(mix.only(data::solute_class::electrolyte), 1.0, 298.15,
+                                data::harvie_1984_parameters()) +
+      models::norrish::ln_water_activity(mix.only(data::solute_class::non_electrolyte), 1.0, 298.15));
+  CHECK_THAT(ross_harvie, WithinRel(expected, 1e-14));
+  CHECK(models::describe_model(mix, auto_harvie).find("harvie_1984") != std::string::npos);
+}
+
+TEST_CASE("bad input: a salt without a binary row in the chosen set, a set for a model without sets",
+          "[models][pitzer][parameter_set]") {
+  const auto brine = solution::from_molalities({{"KCl", 1.0}});
+  const models::model_choice archer("pitzer", models::model_options{"archer_1992"});
+  try {
+    models::water_activity(brine, 298.15, archer);
+    FAIL("a salt without parameters in the set must throw");
+  } catch (const invalid_input& e) {
+    const std::string what = e.what();
+    CHECK_THAT(what, Contains("potassium_chloride") && Contains("archer_1992") &&
+                         Contains("'spencer_1990_icefit', 'spencer_1990', 'harvie_1984'"));
+  }
+  CHECK_THROWS_AS(equilibria::freezing_point(brine, archer), invalid_input);
+  // NaCl alone is in Archer's set.
+  CHECK(models::water_activity(solution::from_molalities({{"NaCl", 1.0}}), 298.15, archer).check.in_range());
+  CHECK_THROWS_WITH(models::model_choice("norrish", models::model_options{"harvie_1984"}),
+                    Contains("model 'norrish' has no Pitzer parameter sets") && Contains("'pitzer'"));
+  CHECK_THROWS_WITH(models::model_choice("pitzer", models::model_options{"harvie_1985"}),
+                    Contains("harvie_1985") && Contains("spencer_1990_icefit"));
 }

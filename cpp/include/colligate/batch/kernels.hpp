@@ -254,7 +254,9 @@ inline double policy_value(double value, bool in_range, range_policy policy, row
 
 }  // namespace detail
 
-/// Initial freezing points, K. `out` and `status` hold rows() entries.
+/// Initial freezing points, K (the first solid: for a row richer in salt than its eutectic
+/// composition, the salt's crystallisation temperature unless opt.salts_crystallise is
+/// false). `out` and `status` hold rows() entries.
 inline void freezing_points(const solution_batch& b, const models::model_choice& m, const options& opt,
                             double* out, std::uint8_t* status) {
   if (opt.policy == range_policy::raise)
@@ -266,8 +268,24 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
     double v = detail::nan;
     if (st == row_status::ok) {
       const solution& s = ws.load(b, i);
-      const auto r = equilibria::freezing_point(s, m, bound_water_kg(s, opt.bound_water_fraction_of_water),
-                                                ws.evaluator(m));
+      const double bound = bound_water_kg(s, opt.bound_water_fraction_of_water);
+      equilibria::freezing_point_result r;
+      if (opt.salts_crystallise && s.has_electrolytes()) {
+        // As the scalar default: a salt that forms before ice gives its crystallisation
+        // temperature (equilibria::ice_curve::salt_first, on the same curve and evaluator).
+        auto& curve = ws.curve(m, bound);
+        const auto first = curve.salt_first();
+        if (first.phase != nullptr) {
+          if (std::isnan(first.temperature)) st = row_status::out_of_range;
+          else v = detail::policy_value(first.temperature, first.check.in_range(), opt.policy, st);
+          out[i] = v;
+          status[i] = static_cast<std::uint8_t>(st);
+          return;
+        }
+        r = curve.initial_freezing_point();  // ice first: the curve's freezing point
+      } else {
+        r = equilibria::freezing_point(s, m, bound, ws.evaluator(m));
+      }
       if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
       else if (r.check.code == validity_code::outside_physical_bounds) st = row_status::no_physical_value;
       else if (!r.success()) st = row_status::not_converged;

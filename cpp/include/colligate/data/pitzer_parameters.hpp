@@ -173,6 +173,15 @@ struct pitzer_psi {
   std::string source;
 };
 
+/// A change of a salt phase's solubility product that goes with a parameter set: added to
+/// log10 K of the phase (equilibria/salt_solubility.hpp, same analytic form A1..A6), so
+/// that the published solubility curve holds with the set's activities.
+struct solubility_shift {
+  std::string formula;  ///< the phase, by formula ("NaCl.2H2O")
+  std::array<double, 6> log10_k{};
+  std::string source;
+};
+
 struct pitzer_parameter_set {
   std::string id;
   std::string description;
@@ -184,10 +193,19 @@ struct pitzer_parameter_set {
   std::vector<pitzer_psi> psis;
   /// The A_phi(T) the parameters were fitted with.
   aphi_correlation aphi = aphi_correlation::clegg_rard_pitzer_1994;
+  /// Solubility-product shifts of the salt phases whose published K the set changes
+  /// (none: the published K of every phase).
+  std::vector<solubility_shift> solubility_shifts = {};
 
   const pitzer_binary* find_binary(const std::string& cation, const std::string& anion) const {
     for (const auto& b : binaries)
       if (b.cation == cation && b.anion == anion) return &b;
+    return nullptr;
+  }
+  /// The shift of the phase with this formula, or nullptr (the published K).
+  const std::array<double, 6>* find_solubility_shift(const std::string& formula) const {
+    for (const auto& s : solubility_shifts)
+      if (s.formula == formula) return &s.log10_k;
     return nullptr;
   }
 };
@@ -328,6 +346,20 @@ inline const pitzer_parameter_set& spencer_1990_icefit_parameters() {
         b.note = "CaCl2 (spencer_1990 with fitted beta0, beta1, C-phi curvature)";
       }
     }
+    // The set changes the NaCl and CaCl2 activities below 25 C, so the K of hydrohalite and
+    // antarcticite carries the shift of ln IAP along the published model's saturation curve
+    // (tools/fit_brine_ice_line.py, step 2): the solubility curves are those of Spencer et
+    // al. (1990), to 8e-4 in log10 K.
+    s.solubility_shifts = {
+        {"NaCl.2H2O",
+         {11.22818953, 0.02836595682, 0.8344312496, -6.861781652, 0.01178950779,
+          -3.045445889e-05},
+         "colligate_icefit"},
+        {"CaCl2.6H2O",
+         {2325.341293, 1.225079358, -48287.78698, -1003.347165, -1573.995439,
+          -0.0005165958993},
+         "colligate_icefit"},
+    };
     return s;
   }();
   return set;
@@ -431,6 +463,15 @@ inline const pitzer_parameter_set& find_pitzer_parameter_set(const std::string& 
   throw invalid_input("parameter_set = '" + id +
                       "': valid Pitzer parameter sets are 'spencer_1990_icefit', "
                       "'spencer_1990', 'harvie_1984' and 'archer_1992'");
+}
+
+/// Ids of the built-in sets that have a binary row for this cation-anion pair.
+inline std::vector<std::string> pitzer_parameter_sets_with_binary(const std::string& cation,
+                                                                  const std::string& anion) {
+  std::vector<std::string> out;
+  for (const auto& id : pitzer_parameter_set_ids())
+    if (find_pitzer_parameter_set(id).find_binary(cation, anion) != nullptr) out.push_back(id);
+  return out;
 }
 
 }  // namespace colligate::data

@@ -229,11 +229,8 @@ inline freezing_point_result freezing_point(const solution& s,
 
 /// Convenience: the freezing point with the caller's range policy; throws
 /// convergence_error if the solve fails.
-inline checked_value freezing_point_checked(const solution& s,
-                                            const models::model_choice& m = "auto",
-                                            range_policy policy = range_policy::extrapolate,
-                                            double bound_water_kg = 0.0) {
-  const auto r = freezing_point(s, m, bound_water_kg);
+inline checked_value freezing_point_checked(const freezing_point_result& r,
+                                            range_policy policy = range_policy::extrapolate) {
   if (r.status == solve_status::below_search_limit) {
     if (policy == range_policy::raise) throw out_of_validity_range(r.check.reason());
     return {std::numeric_limits<double>::quiet_NaN(), r.check};
@@ -245,6 +242,14 @@ inline checked_value freezing_point_checked(const solution& s,
                             to_string(r.status) + ") without reaching 1e-9 K" +
                             (r.check.in_range() ? "" : ": " + r.check.reason()));
   return apply_policy(r.temperature, r.check, policy);
+}
+
+/// The same for a solution under model `m` (the ice freezing point of the liquid as given).
+inline checked_value freezing_point_checked(const solution& s,
+                                            const models::model_choice& m = "auto",
+                                            range_policy policy = range_policy::extrapolate,
+                                            double bound_water_kg = 0.0) {
+  return freezing_point_checked(freezing_point(s, m, bound_water_kg), policy);
 }
 
 }  // namespace colligate::equilibria

@@ -60,6 +60,7 @@
 #include "colligate/core/validity.hpp"
 #include "colligate/equilibria/detail/unfrozen_water_newton.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/models/water_activity.hpp"
@@ -119,6 +120,23 @@ inline const char* to_string(curve_end e) {
   }
   return "unknown";
 }
+
+/// The first solid that forms on cooling when it is a salt: a brine richer than its
+/// eutectic composition (25 wt% NaCl) saturates in a salt phase before ice can form, so its
+/// "freezing point" in the sense of the first solid is where the salt begins to crystallise
+/// (ice_curve::salt_first()).
+struct salt_first_solid {
+  /// The salt that forms first; nullptr when ice forms first (the usual case).
+  const salt_phase* phase = nullptr;
+  /// K where it begins to crystallise; NaN when not found in the solubility data (above
+  /// 298.15 K: the solution is already supersaturated at 25 C; see check).
+  double temperature = std::numeric_limits<double>::quiet_NaN();
+  /// The ice freezing point of the liquid as given (metastable: the salt would have
+  /// crystallised first), K.
+  double metastable_ice_temperature = std::numeric_limits<double>::quiet_NaN();
+  /// The model's validity at that temperature, or why no temperature was found.
+  validity check;
+};
 
 /// A solid salt phase on the path.
 struct salt_onset {
@@ -237,6 +255,30 @@ class ice_curve {
   /// The phase supersaturated at the freezing point (end_reason() saturated_before_ice).
   const salt_phase* saturated_phase() const noexcept { return saturated_phase_; }
 
+  /// Whether a salt forms before ice (salt_first_solid): solves the freezing point of the
+  /// liquid as given and tests the salt phases there; if one is supersaturated, finds the
+  /// temperature where it begins to crystallise on cooling (equilibria/salt_equilibrium.hpp,
+  /// salt_crystallisation_temperature) on this curve's model and freezable water.
+  salt_first_solid salt_first() {
+    salt_first_solid out;
+    if (ions_ == nullptr) return out;
+    start_salts();
+    if (end_ != curve_end::saturated_before_ice) return out;
+    out.metastable_ice_temperature = initial_freezing_point().temperature;
+    const auto onset = salt_crystallisation_temperature(*ions_, W_);
+    out.phase = onset.phase != nullptr ? onset.phase : saturated_phase_;
+    out.temperature = onset.above_data ? std::numeric_limits<double>::quiet_NaN() : onset.temperature;
+    if (std::isnan(out.temperature)) {
+      out.check = flagged(validity_code::concentration_out_of_range, "freezing_point",
+                          "salt crystallisation temperature",
+                          onset.reason.empty() ? std::string("not found") : onset.reason,
+                          out.phase->source);
+    } else {
+      out.check = ln_aw_->check(W_, out.temperature);
+    }
+    return out;
+  }
+
   /// The first salt onset (the eutectic of a binary brine), exploring only as far as it.
   const salt_onset* first_salt() {
     if (start_salts() && onsets_.empty()) explore_first_onset(lowest_salt_temperature);
@@ -332,6 +374,8 @@ class ice_curve {
   struct candidate {
     const salt_phase* phase;
     std::vector<std::pair<std::size_t, int>> slots;  ///< ion slot, count
+    /// The shift of K that goes with the model's parameter set (nullptr: published K).
+    const std::array<double, 6>* shift = nullptr;
   };
 
   // --- preparation -----------------------------------------------------------------
@@ -366,7 +410,7 @@ class ice_curve {
     n_slots_ = ions_->ion_slots();
     n0_.assign(n_slots_, 0.0);
     for (const auto& ph : salt_phases()) {
-      candidate c{&ph, {}};
+      candidate c{&ph, {}, ions_->parameter_set().find_solubility_shift(ph.formula)};
       bool present = true;
       for (const auto& [ion, count] : ph.ions) {
         const auto g = data::pitzer_ion_index(ion);
@@ -403,7 +447,7 @@ class ice_curve {
   const candidate& candidate_of(std::size_t onset) const { return candidates_[onset_candidate_[onset]]; }
 
   double saturation_index(const candidate& c, double T, double ln_aw) const {
-    double si = c.phase->water * ln_aw - c.phase->ln_k(T);
+    double si = c.phase->water * ln_aw - c.phase->ln_k(T, c.shift);
     for (const auto& [k, count] : c.slots) si += count * ln_act_[k];
     return si;
   }
@@ -905,5 +949,41 @@ class ice_curve {
   bool solver_stopped_ = false;
   const salt_phase* saturated_phase_ = nullptr;
 };
+
+/// One line saying that a salt, not ice, forms first and what was computed, or "" when ice
+/// forms first (the edge turns it into a warning).
+inline std::string salt_first_notice(const salt_first_solid& f) {
+  if (f.phase == nullptr) return {};
+  const std::string label = detail::salt_phase_label(*f.phase);
+  const std::string where =
+      std::isnan(f.temperature)
+          ? "above 298.15 K, the top of the solubility data (the solution is already "
+            "supersaturated there: no temperature is given)"
+          : "at " + validity::fmt(f.temperature) + " K (" +
+                validity::fmt(f.temperature - constants::celsius_offset) + " C)";
+  return "the solution is richer in salt than its eutectic composition: on cooling " + label +
+         " begins to crystallise " + where + ", before any ice (the liquid is saturated in it "
+         "there; solubility product '" + f.phase->source + "'); ice forms only at the eutectic. "
+         "The freezing point given is that salt crystallisation temperature; the metastable "
+         "(unprecipitated) ice freezing point would be " +
+         validity::fmt(f.metastable_ice_temperature) + " K (ask for metastable=True)";
+}
+
+/// The freezing point in the sense of the first solid to form, with the caller's range
+/// policy: the initial (ice) freezing point as freezing_point_checked() gives it, or, for a
+/// brine that saturates in a salt before ice (salt_first()), the temperature where the salt
+/// begins to crystallise (NaN when the solution is supersaturated already at 298.15 K).
+/// `first`, if not null, receives the salt (phase nullptr: ice first).
+inline checked_value first_solid_temperature_checked(ice_curve& curve, range_policy policy,
+                                                     salt_first_solid* first = nullptr) {
+  auto f = curve.salt_first();
+  if (f.phase == nullptr) {
+    if (first) *first = f;
+    return freezing_point_checked(curve.initial_freezing_point(), policy);
+  }
+  auto out = apply_policy(f.temperature, f.check, policy);
+  if (first) *first = std::move(f);
+  return out;
+}
 
 }  // namespace colligate::equilibria

@@ -88,11 +88,12 @@ inline salt_equilibrium_state salt_equilibrium(models::ln_water_activity_evaluat
   struct candidate {
     const salt_phase* phase;
     std::vector<std::pair<std::size_t, int>> slots;
+    const std::array<double, 6>* shift;  ///< the parameter set's shift of K (or nullptr)
   };
   const std::size_t n = ions->ion_slots();
   std::vector<candidate> candidates;
   for (const auto& ph : salt_phases()) {
-    candidate c{&ph, {}};
+    candidate c{&ph, {}, ions->parameter_set().find_solubility_shift(ph.formula)};
     bool present = true;
     for (const auto& [ion, count] : ph.ions) {
       const auto g = data::pitzer_ion_index(ion);
@@ -110,7 +111,7 @@ inline salt_equilibrium_state salt_equilibrium(models::ln_water_activity_evaluat
   std::vector<double> n0(n), nl(n), ln_act(n);
   ions->ion_moles(n0.data());
   auto si_of = [&](const candidate& c, double ln_aw_liq) {
-    double si = c.phase->water * ln_aw_liq - c.phase->ln_k(T);
+    double si = c.phase->water * ln_aw_liq - c.phase->ln_k(T, c.shift);
     for (const auto& [k, count] : c.slots) si += count * ln_act[k];
     return si;
   };
@@ -265,17 +266,13 @@ struct salt_crystallisation {
 /// eutectic composition this is its freezing point in the sense of the first solid to
 /// form (hydrohalite from 25 wt% NaCl), above the metastable ice temperature.
 /// Scanned downwards in 0.5 K steps, each bracket refined by TOMS 748 to 1e-10 K.
-inline salt_crystallisation salt_crystallisation_temperature(const solution& s,
-                                                             const models::model_choice& m = "auto") {
+/// The same on the ion activities of a prepared model (the amounts of the solution it was
+/// prepared for) in `water_kg` of liquid water (the ice curve passes its freezable water).
+inline salt_crystallisation salt_crystallisation_temperature(models::ion_activity_model& ion_model,
+                                                             double water_kg) {
   salt_crystallisation out;
-  models::ln_water_activity_evaluator ln_aw(m, s);
-  auto* ions = s.has_electrolytes() && ln_aw.model().traits.ion_activities ? ln_aw.ions() : nullptr;
-  if (ions == nullptr) {
-    out.reason = "salt_crystallisation_temperature: needs electrolytes and a model with ion "
-                 "activities ('auto', 'pitzer' or 'ross')";
-    return out;
-  }
-  const double W = s.water_mass();
+  auto* ions = &ion_model;
+  const double W = water_kg;
   const std::size_t n = ions->ion_slots();
   std::vector<double> n0(n), ln_act(n);
   ions->ion_moles(n0.data());
@@ -284,7 +281,7 @@ inline salt_crystallisation salt_crystallisation_temperature(const solution& s,
     const double lnw = ions->ln_water_activity_of_ions(n0.data(), W, T, ln_act.data());
     double best = -std::numeric_limits<double>::infinity();
     for (const auto& ph : salt_phases()) {
-      double si = ph.water * lnw - ph.ln_k(T);
+      double si = ph.water * lnw - ph.ln_k(T, ions->parameter_set());
       bool present = true;
       for (const auto& [ion, count] : ph.ions) {
         const auto g = data::pitzer_ion_index(ion);
@@ -334,6 +331,19 @@ inline salt_crystallisation salt_crystallisation_temperature(const solution& s,
                validity::fmt(salt_phase_min_temperature) + " and " +
                validity::fmt(salt_phase_max_temperature) + " K";
   return out;
+}
+
+inline salt_crystallisation salt_crystallisation_temperature(const solution& s,
+                                                             const models::model_choice& m = "auto") {
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  auto* ions = s.has_electrolytes() && ln_aw.model().traits.ion_activities ? ln_aw.ions() : nullptr;
+  if (ions == nullptr) {
+    salt_crystallisation out;
+    out.reason = "salt_crystallisation_temperature: needs electrolytes and a model with ion "
+                 "activities ('auto', 'pitzer' or 'ross')";
+    return out;
+  }
+  return salt_crystallisation_temperature(*ions, s.water_mass());
 }
 
 }  // namespace colligate::equilibria

@@ -3,7 +3,9 @@
 /// Solubility of the salt phases that coexist with ice in Na-K-Ca-Mg-Cl-SO4 brines, as
 /// solubility products K(T) of the same low-temperature model as the Pitzer set
 /// "spencer_1990" (Spencer, Moller & Weare 1990; sulfates from Marion & Farren 1999),
-/// with hydrohalite and antarcticite shifted to the default set "spencer_1990_icefit".
+/// as published; a parameter set that changes a salt's activities carries the matching
+/// shift of that phase's K (data::pitzer_parameter_set::solubility_shifts: hydrohalite and
+/// antarcticite in the default set "spencer_1990_icefit"), applied by ln_k(T, set).
 ///
 /// For a phase  M_p X_q . n H2O = p M + q X + n H2O:
 ///
@@ -35,15 +37,23 @@ struct salt_phase {
   int water = 0;                                  ///< waters of hydration
   std::array<double, 6> log10_k{};                ///< A1..A6 of the analytic form
   std::string source;
-  /// Added to A1..A6 so that the published solubility curve holds with the default
-  /// Pitzer set's activities (see salt_phases()); zero where the set is unchanged.
-  std::array<double, 6> log10_k_shift{};
 
-  double ln_k(double T) const {
+  /// ln K(T) as published (no set's shift).
+  double ln_k(double T) const { return ln_k(T, nullptr); }
+  /// ln K(T) with a parameter set's shift of this phase added to A1..A6 (nullptr: none;
+  /// data::pitzer_parameter_set::find_solubility_shift(formula) gives it).
+  double ln_k(double T, const std::array<double, 6>* shift) const {
     double sum = 0.0;
-    for (const auto& a : {log10_k, log10_k_shift})
+    const auto add = [&](const std::array<double, 6>& a) {
       sum += a[0] + a[1] * T + a[2] / T + a[3] * std::log10(T) + a[4] / (T * T) + a[5] * T * T;
+    };
+    add(log10_k);
+    if (shift != nullptr) add(*shift);
     return std::log(10.0) * sum;
+  }
+  /// ln K(T) that goes with the activities of parameter set `set`.
+  double ln_k(double T, const data::pitzer_parameter_set& set) const {
+    return ln_k(T, set.find_solubility_shift(formula));
   }
 };
 
@@ -53,15 +63,12 @@ inline constexpr double salt_phase_max_temperature = 298.15;
 /// The salt phases known to colligate (frezchem.dat PHASES rows).
 inline const std::vector<salt_phase>& salt_phases() {
   static const std::vector<salt_phase> phases = {
-      // hydrohalite and antarcticite: the default set "spencer_1990_icefit" changes the
-      // NaCl and CaCl2 activities below 25 C, so their K carries the shift of ln IAP along
-      // the published model's saturation curve (tools/fit_brine_ice_line.py, step 2):
-      // the solubility curves are those of Spencer et al. (1990), to 8e-4 in log10 K.
+      // hydrohalite and antarcticite: the default set "spencer_1990_icefit" carries the
+      // shift of their K that goes with its NaCl and CaCl2 activities below 25 C
+      // (data/pitzer_parameters.hpp, solubility_shifts).
       {"hydrohalite", "NaCl.2H2O", {{"Na+", 1}, {"Cl-", 1}}, 2,
        {-2366.884053, -1.81627952, 24690.3183, 1098.482092, 1523945.4, 0.001033303},
-       "spencer_1990",
-       {11.22818953, 0.02836595682, 0.8344312496, -6.861781652, 0.01178950779,
-        -3.045445889e-05}},
+       "spencer_1990"},
       {"halite", "NaCl", {{"Na+", 1}, {"Cl-", 1}}, 0,
        {596.809454, 0.73058662, 9360.9197, -315.516708, -1749318.4, -0.000495535},
        "spencer_1990"},
@@ -69,9 +76,7 @@ inline const std::vector<salt_phase>& salt_phases() {
        {-114.93339, -0.1612449, -3569.5943, 66.15685, 307041.4, 9.81432E-05}, "spencer_1990"},
       {"antarcticite", "CaCl2.6H2O", {{"Ca+2", 1}, {"Cl-", 2}}, 6,
        {-38613.99886, -14.14140164, 1381731.005, 15479.47256, -52024247.5, 0.005422163},
-       "spencer_1990",
-       {2325.341293, 1.225079358, -48287.78698, -1003.347165, -1573.995439,
-        -0.0005165958993}},
+       "spencer_1990"},
       {"magnesium chloride dodecahydrate", "MgCl2.12H2O", {{"Mg+2", 1}, {"Cl-", 2}}, 12,
        {6251.417981, 18.27412717, 610125.588, -4799.728491, -54142200.5, -0.014127812},
        "spencer_1990"},
@@ -98,16 +103,17 @@ struct saturation {
 
 /// Largest saturation index over the salt phases whose ions are present, for the
 /// solutes of `s` in `water_kg` of water at T, with the water activity `ln_aw` of the
-/// whole solution (so non-electrolytes lower a_w for hydrates). Uses the default
-/// Pitzer set for the ion activity coefficients.
-inline saturation most_saturated_phase(const solution& s, double water_kg, double T,
-                                       double ln_aw) {
+/// whole solution (so non-electrolytes lower a_w for hydrates), with the ion activity
+/// coefficients and solubility shifts of Pitzer set `set` (the default set unless named).
+inline saturation most_saturated_phase(
+    const solution& s, double water_kg, double T, double ln_aw,
+    const data::pitzer_parameter_set& set = models::pitzer::default_parameters()) {
   saturation out;
   if (!s.has_electrolytes()) return out;
   double other = 0.0;
   const auto ions = s.only(data::solute_class::electrolyte);
   // The prepared system applies the parameters a fitted salt record carries.
-  models::detail::pitzer_system system(ions, models::pitzer::default_parameters());
+  models::detail::pitzer_system system(ions, set);
   std::array<double, models::detail::n_ions> m{}, ln_gamma{};
   system.molalities(ions.moles().data(), water_kg, m.data(), other);
   system.ln_gamma_on_molalities(m.data(), T, ln_gamma.data());
@@ -123,7 +129,7 @@ inline saturation most_saturated_phase(const solution& s, double water_kg, doubl
       ln_iap += count * (std::log(m[k]) + ln_gamma[k]);
     }
     if (!present) continue;
-    const double si = ln_iap - ph.ln_k(T);
+    const double si = ln_iap - ph.ln_k(T, set);
     if (si > out.index) {
       out.index = si;
       out.phase = &ph;

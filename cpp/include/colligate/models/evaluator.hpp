@@ -13,6 +13,10 @@
 
 #include "colligate/core/validity.hpp"
 
+namespace colligate::data {
+struct pitzer_parameter_set;
+}  // namespace colligate::data
+
 namespace colligate::models {
 
 /// Ion activities of a prepared model: the ions present ("slots", in the order of
@@ -35,6 +39,9 @@ class ion_activity_model {
   /// (-inf for an ion with zero amount).
   virtual double ln_water_activity_of_ions(const double* ion_moles, double water_kg,
                                            double temperature, double* ln_activity) = 0;
+  /// The Pitzer parameter set the activities come from (its solubility-product shifts go
+  /// with it: data::pitzer_parameter_set::solubility_shifts).
+  virtual const data::pitzer_parameter_set& parameter_set() const = 0;
 };
 
 /// A model prepared for one species list.

@@ -212,8 +212,9 @@ struct ross {
   /// the Ross and ZSR rules at this state (one ZSR solve, a 1-D root on the water split: a solver
   /// calls it once, at its final state). `sys` must be prepared for the species of `s`.
   static validity check(const solution& s, double water_kg, double temperature,
-                        detail::ross_system& sys, pitzer::check_memo* memo = nullptr) {
-    validity v = check_classes(s, water_kg, temperature, memo);
+                        detail::ross_system& sys, pitzer::check_memo* memo = nullptr,
+                        const data::pitzer_parameter_set& set = pitzer::default_parameters()) {
+    validity v = check_classes(s, water_kg, temperature, memo, set);
     if (v.in_range() && s.has_electrolytes() && s.has_non_electrolytes())
       compare_rules(v, s, water_kg, temperature, sys);
     return v;
@@ -232,10 +233,11 @@ struct ross {
   /// Each class checked by its model, as on a solution holding that class only
   /// (solution::only), without copying the solution (one check per batch row).
   static validity check_classes(const solution& s, double water_kg, double temperature,
-                                pitzer::check_memo* memo = nullptr) {
+                                pitzer::check_memo* memo = nullptr,
+                                const data::pitzer_parameter_set& set = pitzer::default_parameters()) {
     validity v;
     if (s.has_electrolytes())
-      v.merge(pitzer::check(s, water_kg, temperature, pitzer::default_parameters(),
+      v.merge(pitzer::check(s, water_kg, temperature, set,
                             pitzer::species_checked::electrolytes_only, memo));
     if (s.has_non_electrolytes())
       v.merge(norrish::check(s, water_kg, temperature, norrish::species_checked::non_electrolytes_only));
@@ -267,7 +269,8 @@ namespace detail {
 /// Pitzer system of its electrolytes.
 class ross_evaluator final : public activity_evaluator, public ion_activity_model {
  public:
-  explicit ross_evaluator(const solution& s) : s_(&s), system_(s, pitzer::default_parameters()) {
+  ross_evaluator(const solution& s, const data::pitzer_parameter_set& set)
+      : s_(&s), set_(&set), system_(s, set) {
     if (system_.has_electrolytes()) ions_.emplace(system_.electrolytes(), s);
   }
   double ln_water_activity(double water_kg, double temperature) override {
@@ -281,7 +284,7 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
     return true;
   }
   validity check(double water_kg, double temperature) override {
-    return ross::check(*s_, water_kg, temperature, system_, &memo_);
+    return ross::check(*s_, water_kg, temperature, system_, &memo_, *set_);
   }
   ion_activity_model* ions() noexcept override { return ions_ ? this : nullptr; }
 
@@ -296,9 +299,11 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
     return -constants::molar_mass_water * ions_->particle_sum(n, water_kg, temperature, ln_activity) +
            system_.ln_non_electrolytes(s_->moles().data(), water_kg);
   }
+  const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
 
  private:
   const solution* s_;
+  const data::pitzer_parameter_set* set_;
   ross_system system_;
   std::optional<pitzer_system_ions> ions_;
   pitzer::check_memo memo_;
@@ -314,17 +319,21 @@ inline model_descriptor ross::descriptor() {
               pitzer::default_parameters().id +
               "') * a_w(non-electrolytes, Norrish 1966 / Chirife et al. 1980), each evaluated "
               "in the same water";
-  d.traits = {true, true};
+  d.traits = {true, true, true};
   d.auto_rank = [](const solution& s) {
     return s.has_electrolytes() && s.has_non_electrolytes() ? 10 : 0;
   };
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
-    return std::make_unique<detail::ross_evaluator>(s);
+  d.prepare = [](const solution& s, const model_options& o) -> std::unique_ptr<activity_evaluator> {
+    const auto& set = pitzer::parameters_for(o);
+    pitzer::require_binaries(s, set);
+    return std::make_unique<detail::ross_evaluator>(s, set);
   };
-  d.describe = [](const solution& s) {
-    return detail::describe_each(s, [](const data::solute_record& r) {
+  d.describe = [](const solution& s, const model_options& o) {
+    const auto& set = pitzer::parameters_for(o);
+    std::string out = o.parameter_set.empty() ? "" : "; parameter set '" + set.id + "' chosen";
+    return out + detail::describe_each(s, [&set](const data::solute_record& r) {
       return r.kind == data::solute_class::electrolyte
-                 ? detail::describe_pitzer_pair(r, pitzer::default_parameters())
+                 ? detail::describe_pitzer_pair(r, set)
                  : detail::describe_norrish_constants(r);
     });
   };

@@ -304,7 +304,7 @@ inline model_descriptor norrish::descriptor() {
   auto d = detail::static_model_descriptor<norrish>(
       "Norrish (1966) with the multi-solute extension of Chirife et al. (1980)", {false, false},
       [](const solution& s) { return s.has_electrolytes() ? 0 : 10; }, &detail::describe_norrish_constants);
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+  d.prepare = [](const solution& s, const model_options&) -> std::unique_ptr<activity_evaluator> {
     return std::make_unique<detail::norrish_evaluator>(s);
   };
   d.validated_range = {temperature_limit(), mass_fraction_limit(), ionic_strength_limit()};

@@ -92,6 +92,36 @@ struct pitzer {
     return data::spencer_1990_icefit_parameters();
   }
 
+  /// The parameter set a caller's options name (model_options::parameter_set), or the
+  /// default set when they name none.
+  static const data::pitzer_parameter_set& parameters_for(const model_options& options) {
+    return options.parameter_set.empty() ? default_parameters()
+                                         : data::find_pitzer_parameter_set(options.parameter_set);
+  }
+
+  /// Throws invalid_input when an electrolyte of `s` (one cation, one anion, both known to
+  /// the parameter tables, no parameters of its own) has no binary row in `set`: the
+  /// message names the salt, the set and the sets that do have it. A missing binary row
+  /// is never treated as zero.
+  static void require_binaries(const solution& s, const data::pitzer_parameter_set& set) {
+    for (const auto& rec : s.species()) {
+      if (rec.kind != data::solute_class::electrolyte || rec.ions.size() != 2) continue;
+      std::string cation, anion;
+      for (const auto& ion : rec.ions) (ion.charge > 0 ? cation : anion) = ion.ion;
+      if (cation.empty() || anion.empty() || data::pitzer_ion_index(cation) >= data::pitzer_ion_count ||
+          data::pitzer_ion_index(anion) >= data::pitzer_ion_count)
+        continue;
+      if (detail::binary_for(rec, set, cation, anion) != nullptr) continue;
+      std::string others;
+      for (const auto& id : data::pitzer_parameter_sets_with_binary(cation, anion))
+        others += (others.empty() ? "'" : ", '") + id + "'";
+      throw invalid_input("parameter_set = '" + set.id + "': salt '" + rec.id + "' (" + cation +
+                          " " + anion + ") has no binary Pitzer parameters in this set; " +
+                          (others.empty() ? std::string("no built-in set has them")
+                                          : "the sets that have them: " + others));
+    }
+  }
+
   /// Ion molalities (mol/kg) of the electrolytes with `water_kg` of water. Ions the
   /// parameter tables do not know are added to `other_particles` (mol/kg), as are
   /// non-electrolytes.
@@ -419,6 +449,7 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
                                    double* ln_activity) override {
     return -constants::molar_mass_water * ions_.particle_sum(n, water_kg, temperature, ln_activity);
   }
+  const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
 
  private:
   const solution* s_;
@@ -440,16 +471,20 @@ inline model_descriptor pitzer::descriptor() {
                                                                : "Clegg, Rard & Pitzer 1994") +
               ", unsymmetrical E-theta of Pitzer 1975), parameter set '" + set.id + "' [" +
               set.description + "]; non-electrolytes counted as ideal particles";
-  d.traits = {true, true};
+  d.traits = {true, true, true};
   d.auto_rank = [](const solution& s) {
     return s.has_electrolytes() && !s.has_non_electrolytes() ? 10 : 0;
   };
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
-    return std::make_unique<detail::pitzer_evaluator>(s, default_parameters());
+  d.prepare = [](const solution& s, const model_options& o) -> std::unique_ptr<activity_evaluator> {
+    const auto& set = parameters_for(o);
+    require_binaries(s, set);
+    return std::make_unique<detail::pitzer_evaluator>(s, set);
   };
-  d.describe = [](const solution& s) {
-    return detail::describe_each(s, [](const data::solute_record& r) {
-      return detail::describe_pitzer_pair(r, default_parameters());
+  d.describe = [](const solution& s, const model_options& o) {
+    const auto& set = parameters_for(o);
+    std::string out = o.parameter_set.empty() ? "" : "; parameter set '" + set.id + "' chosen";
+    return out + detail::describe_each(s, [&set](const data::solute_record& r) {
+      return detail::describe_pitzer_pair(r, set);
     });
   };
   d.validated_range = validated_range(set);

@@ -32,6 +32,17 @@ struct model_traits {
   /// The prepared model offers ion activities (activity_evaluator::ions()), so salt
   /// saturation and the salt phases of the ice curve can be evaluated.
   bool ion_activities = false;
+  /// prepare() reads model_options::parameter_set (a Pitzer parameter set for the ions).
+  bool parameter_sets = false;
+};
+
+/// What a caller asks of a model beyond its id, handed to prepare() and describe(). A model
+/// reads the options its traits name and ignores the others.
+struct model_options {
+  /// Id of the Pitzer parameter set for the electrolytes (data/pitzer_parameters.hpp,
+  /// data::pitzer_parameter_set_ids()); empty: the model's default set.
+  std::string parameter_set;
+  bool operator==(const model_options& o) const noexcept { return parameter_set == o.parameter_set; }
 };
 
 /// One activity model.
@@ -42,10 +53,11 @@ struct model_descriptor {
   /// How well the model suits a solution when the caller asks for 'auto': 0 never, the
   /// highest rank wins (ties: the first registered).
   std::function<int(const solution&)> auto_rank;
-  /// Prepares the model for the species of a solution (which must outlive the result).
-  std::function<std::unique_ptr<activity_evaluator>(const solution&)> prepare;
+  /// Prepares the model for the species of a solution (which must outlive the result) with
+  /// the caller's options (a model with traits.parameter_sets reads the parameter set).
+  std::function<std::unique_ptr<activity_evaluator>(const solution&, const model_options&)> prepare;
   /// Which constants and sources the model uses for each solute of a solution.
-  std::function<std::string(const solution&)> describe;
+  std::function<std::string(const solution&, const model_options&)> describe;
   /// The validated range: every limit the model's check() applies, with its basis and
   /// source (the check builds its out-of-range records from these same objects).
   std::vector<range_limit> validated_range;

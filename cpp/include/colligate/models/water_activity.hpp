@@ -30,7 +30,7 @@ namespace colligate::models {
 class ln_water_activity_evaluator {
  public:
   ln_water_activity_evaluator(const model_choice& m, const solution& s)
-      : model_(&m.resolve(s)), impl_(model_->prepare(s)) {}
+      : model_(&m.resolve(s)), impl_(model_->prepare(s, m.options())) {}
   /// The concrete model (after resolving 'auto').
   const model_descriptor& model() const noexcept { return *model_; }
   double operator()(double water_kg, double temperature) {
@@ -116,7 +116,7 @@ inline std::string describe_model(const solution& s, const model_choice& m = "au
   std::string out = "model '" + d.id + "'";
   if (m.is_auto()) out += " (chosen by 'auto')";
   out += ": " + d.summary;
-  if (d.describe) out += d.describe(s);
+  if (d.describe) out += d.describe(s, m.options());
   return out;
 }
 

@@ -63,10 +63,12 @@ model_descriptor static_model_descriptor(std::string summary, model_traits trait
   d.summary = std::move(summary);
   d.traits = traits;
   d.auto_rank = std::move(auto_rank);
-  d.prepare = [](const solution& s) -> std::unique_ptr<activity_evaluator> {
+  d.prepare = [](const solution& s, const model_options&) -> std::unique_ptr<activity_evaluator> {
     return std::make_unique<static_model_evaluator<Model>>(s);
   };
-  d.describe = [describe_solute](const solution& s) { return describe_each(s, describe_solute); };
+  d.describe = [describe_solute](const solution& s, const model_options&) {
+    return describe_each(s, describe_solute);
+  };
   return d;
 }
 
