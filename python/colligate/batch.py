@@ -233,8 +233,9 @@ def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.1
     ``_std`` (standard uncertainty, same unit), ``degrees_of_freedom`` (0: normal law) and
     ``status`` (row status codes, :data:`ROW_STATUS`).
 
-    Linear propagation (closed-form sensitivities, models 'norrish' and 'pitzer') per row in
-    the C++ core, the rows shared among ``threads``; each row equals the scalar
+    Linear propagation (closed-form sensitivities, models 'norrish', 'pitzer' and 'ross') per
+    row in the C++ core, prepared once per batch and thread, the rows shared among
+    ``threads``; each row equals the scalar
     ``with_uncertainty=True`` result. ``T`` in K (unused for the freezing point). Solutes
     without a stated uncertainty contribute none (std 0). A row whose state has no closed
     form (a salt crystallised) keeps its value with std NaN and a warning."""

@@ -117,8 +117,9 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     method : str
         "linear" (analytic sensitivities: model 'norrish' with constants norrish_k and
         norrish_k3; model 'pitzer' with a fitted salt's beta0, beta1, beta2, cphi and their
-        d/dT; 'auto' where it resolves to one of those) or "monte_carlo" (any model and
-        constant the record carries, e.g. a salt + sugar mixture under 'ross'): ``draws``
+        d/dT; model 'ross' with both, for a salt + sugar mixture; 'auto' where it resolves
+        to one of those) or "monte_carlo" (any model and constant the record carries, e.g.
+        an effective solute's molar mass or a state with a salt crystallised): ``draws``
         samples from a generator seeded with ``seed`` (the same seed gives the same draws).
     range_policy : str
         Outside the model's validated range: "extrapolate" (warn), "nan" (NaN value and

@@ -230,10 +230,51 @@ def test_fitted_salt_propagates_linearly_and_by_monte_carlo():
     with pytest.warns(cg.OutOfValidityRangeWarning):
         tf = cg.freezing_point(s, model="pitzer", with_uncertainty=True)
     assert tf.std > 0.0
-    # a salt + sugar mixture under the Ross rule has no closed form: the error says what to use
+    # a salt + sugar mixture under the Ross rule takes the linear path too (the salt's
+    # Pitzer sensitivities; built-in sucrose states no uncertainty and enters as exact)
     s2 = cg.Solution.from_molalities({"my salt": 1.0, "sucrose": 0.5}, table=fit.SoluteLibrary([salt]))
+    aw2 = cg.water_activity(s2, model="ross", with_uncertainty=True)
+    assert aw2.value == cg.water_activity(s2, model="ross")
+    assert set(aw2.sensitivities) == {"my_salt.beta0", "my_salt.beta1", "my_salt.cphi"}
+    assert aw2.std > 0.0
+    # 'raoult' has no closed form: the error says what to use
     with pytest.raises(cg.InvalidInputError, match="Monte Carlo"):
-        cg.water_activity(s2, model="ross", with_uncertainty=True)
+        cg.water_activity(s2, model="raoult", with_uncertainty=True)
+
+
+def test_ross_mixture_linear_against_monte_carlo_and_batch(sucrose_fit):
+    # Salt + sugar under the Ross rule: the salt fitted to the Hamer & Wu (1972) NaCl
+    # osmotic coefficients (nacl_osmotic) and the sucrose-like solute fitted to the CRC
+    # sucrose freezing points to 42 wt% (crc_rows; crc_concentrative), both covariances
+    # carried. Linear against Monte Carlo (2*10^4 draws, seed 5: the sample standard
+    # deviation's own relative spread is 1/sqrt(2 N) = 0.5 %) within 5 %, as asked of the
+    # C++ check with 10^5 draws; and the batch columns equal the scalar results (identity).
+    m, phi = nacl_osmotic()
+    salt = fit.fit_pitzer("NaCl", m, osmotic_coefficient=phi).as_solute("my salt")
+    sugar = sucrose_fit.as_solute("my sucrose", molar_mass=SUCROSE_M)
+    lib = fit.SoluteLibrary([salt, sugar])
+    s = cg.Solution.from_molalities({"my salt": 0.5, "my sucrose": 0.6}, table=lib)
+    for quantity, T in (("freezing_point", 298.15), ("ice_fraction", 263.15), ("water_activity", 298.15)):
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", cg.OutOfValidityRangeWarning)  # salt fit: 25 C data
+            lin = cg.uncertainty.propagate(s, quantity, T)
+            mc = cg.uncertainty.propagate(s, quantity, T, method="monte_carlo", draws=20_000, seed=5)
+        assert set(lin.sensitivities) == {"my_salt.beta0", "my_salt.beta1", "my_salt.cphi", "my_sucrose.norrish_k"}
+        assert lin.std > 0.0
+        assert mc.std == pytest.approx(lin.std, rel=0.05), quantity
+        lo, hi = mc.ci(0.95)
+        assert hi - lo == pytest.approx(2 * 1.959964 * lin.std, rel=0.05), quantity  # normal 97.5 % (common practice)
+    rows = pd.DataFrame({"my salt": [0.2, 0.5, 1.0], "my sucrose": [0.3, 0.6, 0.2]})
+    batch = cg.SolutionBatch.from_molalities(rows, library=lib)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", cg.OutOfValidityRangeWarning)
+        for threads in (1, 2):
+            out = cg.batch.batch_with_uncertainty(batch, "freezing_point", threads=threads)
+            for i in range(len(rows)):
+                r = cg.freezing_point(cg.Solution.from_molalities(rows.iloc[i].to_dict(), table=lib),
+                                      with_uncertainty=True)
+                assert out["freezing_point_K"].iloc[i] == r.value
+                assert out["freezing_point_K_std"].iloc[i] == r.std
 
 
 def test_enthalpy_and_heat_load_carry_the_fitted_constant(sucrose_fit, my_sucrose):

@@ -420,14 +420,14 @@ TEST_CASE("Batch rows carry value and standard uncertainty equal to the scalar p
     }
   }
   CHECK(no_closed_form > 0);  // the crystallised rows were exercised
-  // Model 'ross' has no closed form: refused once, before any row runs
+  // Model 'raoult' has no closed form: refused once, before any row runs
   batch::options o;
   std::vector<double> v(6), u(6);
   std::vector<std::int32_t> dof(6);
   std::vector<std::uint8_t> st(6);
-  CHECK_THROWS_WITH(batch::predictions_with_uncertainty(b, predicted_quantity::freezing_point, 0.0, "ross", o,
+  CHECK_THROWS_WITH(batch::predictions_with_uncertainty(b, predicted_quantity::freezing_point, 0.0, "raoult", o,
                                                         v.data(), u.data(), dof.data(), st.data()),
-                    Catch::Contains("Monte Carlo"));
+                    Catch::Contains("model 'raoult'") && Catch::Contains("Monte Carlo"));
 }
 
 TEST_CASE("Built-in constants fitted by colligate state their fit's uncertainty", "[uncertainty][data]") {
@@ -466,4 +466,138 @@ TEST_CASE("Built-in constants fitted by colligate state their fit's uncertainty"
   CHECK(p.constants == std::vector<std::string>{"maltose.norrish_k"});
   CHECK(p.result.standard_uncertainty > 0.0);
   CHECK(p.result.degrees_of_freedom == 16);
+}
+
+namespace {
+
+/// The salt + sugar table of the Ross checks: the salt fitted to the CRC NaCl freezing
+/// points to 4.1 mol/kg (crc_salt_fit: beta0, beta1, C-phi) and the sucrose-like solute
+/// fitted to the CRC sucrose freezing points to 42 wt% (crc_sucrose_fit: K and K3), both
+/// from tests/reference/crc_freezing_points.csv (source key crc_concentrative, printed to
+/// 0.01 K), with the built-in table for the rest.
+data::solute_table ross_table() {
+  const auto salt = crc_salt_fit();
+  const auto sugar = crc_sucrose_fit(true);
+  REQUIRE(salt.success());
+  REQUIRE(sugar.success());
+  auto records = data::builtin_solutes().records();
+  records.push_back(crc_salt_record(salt));
+  records.push_back(fit::norrish_solute_record(sugar, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test"));
+  return data::solute_table(std::move(records));
+}
+
+double ross_central_difference(predicted_quantity q, const solution& s, double T, std::size_t k, double h) {
+  const auto c = equilibria::uncertain_constants(s);
+  Eigen::VectorXd p = c.values;
+  p[static_cast<Eigen::Index>(k)] += h;
+  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "ross", 0.0);
+  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
+  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "ross", 0.0);
+  return (up - down) / (2.0 * h);
+}
+
+}  // namespace
+
+TEST_CASE("Ross sensitivities of a salt + sugar mixture equal central differences", "[uncertainty][ross]") {
+  // Identity check (no literature): under the Ross rule ln a_w is the Pitzer ln a_w of the
+  // electrolytes alone plus the Norrish ln a_w of the non-electrolytes alone, each in the same
+  // water, so the salt's constants take the Pitzer derivative, the sugar's the Norrish one
+  // with the sugar alone, the T slope is the Pitzer factor's and the W slope the sum of both.
+  const auto table = ross_table();
+  const auto s = solution::from_molalities({{"my_salt", 0.5}, {"my_sucrose", 0.6}}, 1.0, table);
+  struct probe { predicted_quantity q; double T; };
+  for (const auto& p : {probe{predicted_quantity::freezing_point, 0.0},
+                        probe{predicted_quantity::water_activity, 298.15},
+                        probe{predicted_quantity::osmotic_coefficient, 298.15},
+                        probe{predicted_quantity::ice_fraction, 263.15},
+                        probe{predicted_quantity::unfrozen_water, 263.15}}) {
+    const auto u = equilibria::propagate_linear(p.q, s, p.T, "ross");
+    REQUIRE(u.constants == std::vector<std::string>{"my_salt.beta0", "my_salt.beta1", "my_salt.cphi",
+                                                    "my_sucrose.norrish_k", "my_sucrose.norrish_k3"});
+    // 'auto' picks 'ross' for salt + sugar: the same numbers
+    const auto a = equilibria::propagate_linear(p.q, s, p.T, "auto");
+    CHECK(a.result.value == u.result.value);
+    CHECK(a.result.standard_uncertainty == u.result.standard_uncertainty);
+    INFO(equilibria::to_string(p.q));
+    for (std::size_t k = 0; k < 5; ++k) {
+      // steps: 1e-4 for the Pitzer constants (C-phi is about 1e-3), 1e-3 |p| for K and K3
+      const double h = k < 3 ? 1e-4 : 1e-3 * std::abs(equilibria::uncertain_constants(s).values[k]);
+      const double fd = ross_central_difference(p.q, s, p.T, k, h);
+      INFO("constant " << u.constants[k] << ": analytic " << u.sensitivities[k] << ", difference " << fd);
+      // ln a_w is affine in the Pitzer constants and in K, K3 (single sugar); O(h^2) of the
+      // solvers' paths and their 1e-9 K / 1e-12 kg tolerances
+      CHECK_THAT(u.sensitivities[k], WithinRel(fd, 1e-5) || WithinAbs(fd, 1e-9));
+    }
+    CHECK(u.result.standard_uncertainty > 0.0);
+  }
+}
+
+TEST_CASE("Delta method and Monte Carlo agree on a salt + sugar mixture under Ross", "[uncertainty][monte_carlo][ross]") {
+  // The issue's acceptance check for the Ross path: within 5 % on the standard uncertainty
+  // and on the width of the 95 % interval, 10^5 draws (seed 20261202), for 0.5 mol/kg of the
+  // salt fitted to the CRC NaCl freezing points and 0.6 mol/kg of the sucrose-like solute
+  // fitted to the CRC sucrose freezing points (ross_table; both covariances drawn together).
+  const auto table = ross_table();
+  const auto s = solution::from_molalities({{"my_salt", 0.5}, {"my_sucrose", 0.6}}, 1.0, table);
+  struct probe { predicted_quantity q; double T; };
+  for (const auto& p : {probe{predicted_quantity::freezing_point, 0.0},
+                        probe{predicted_quantity::ice_fraction, 263.15},
+                        probe{predicted_quantity::water_activity, 298.15}}) {
+    const auto lin = equilibria::propagate_linear(p.q, s, p.T, "ross");
+    const auto mc = equilibria::propagate_monte_carlo(p.q, s, p.T, "ross", 0.0, 100000, 20261202u);
+    INFO(equilibria::to_string(p.q) << ": delta " << lin.result.standard_uncertainty << ", Monte Carlo "
+                                    << mc.standard_deviation);
+    REQUIRE(mc.finite_draws == 100000);
+    CHECK_THAT(mc.standard_deviation, WithinRel(lin.result.standard_uncertainty, 0.05));
+    CHECK_THAT(mc.mean, WithinAbs(lin.result.value, 0.05 * lin.result.standard_uncertainty + 1e-12));
+    fit::uncertain_value normal = lin.result;
+    normal.degrees_of_freedom = 0;
+    const auto a = normal.coverage_interval(0.95);
+    const auto b = mc.interval(0.95);
+    CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
+    // two fits with their own degrees of freedom: Welch-Satterthwaite gives at least the
+    // smaller of the two
+    CHECK(lin.result.degrees_of_freedom > 0);
+  }
+}
+
+TEST_CASE("Batch rows under Ross equal the scalar path at any thread count", "[uncertainty][batch][ross]") {
+  // Identity check (no literature): salt + sugar rows (and a bad row) through the batch
+  // kernel at 1 and 3 threads against the scalar propagation, bit for bit.
+  const auto table = ross_table();
+  const std::vector<std::string> species{"my_salt", "my_sucrose"};
+  const std::vector<double> m{0.2, 0.3, 0.5, 0.6, 1.0, 0.2, -1.0, 0.5, 0.0, 1.0, 0.8, 0.0, 2.0, 1.0};
+  const std::size_t rows = m.size() / 2;
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), rows, table);
+  struct probe { predicted_quantity q; double T; };
+  for (const auto& p : {probe{predicted_quantity::freezing_point, 0.0},
+                        probe{predicted_quantity::water_activity, 298.15},
+                        probe{predicted_quantity::osmotic_coefficient, 298.15},
+                        probe{predicted_quantity::ice_fraction, 258.15},
+                        probe{predicted_quantity::unfrozen_water, 258.15}}) {
+    for (unsigned threads : {1u, 3u}) {
+      batch::options o;
+      o.threads = threads;
+      std::vector<double> v(rows), u(rows);
+      std::vector<std::int32_t> dof(rows);
+      std::vector<std::uint8_t> st(rows);
+      batch::predictions_with_uncertainty(b, p.q, p.T, "ross", o, v.data(), u.data(), dof.data(), st.data());
+      INFO(equilibria::to_string(p.q) << ", threads " << threads);
+      for (std::size_t i = 0; i < rows; ++i) {
+        INFO("row " << i);
+        if (m[2 * i] < 0.0) {
+          CHECK(st[i] == static_cast<std::uint8_t>(batch::row_status::invalid_input));
+          CHECK(std::isnan(u[i]));
+          continue;
+        }
+        const auto s = solution::from_molalities({{"my_salt", m[2 * i]}, {"my_sucrose", m[2 * i + 1]}}, 1.0, table);
+        const auto ref = equilibria::propagate_linear(p.q, s, p.T, "ross");
+        REQUIRE(std::isfinite(ref.result.value));
+        CHECK(v[i] == ref.result.value);
+        CHECK(u[i] == ref.result.standard_uncertainty);
+        CHECK(dof[i] == ref.result.degrees_of_freedom);
+        CHECK(u[i] > 0.0);  // every row is frozen at 258.15 K and carries a fit's covariance
+      }
+    }
+  }
 }

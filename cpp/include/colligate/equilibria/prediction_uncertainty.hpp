@@ -18,10 +18,20 @@
 /// models/norrish_sensitivity.hpp (model 'norrish', constants norrish_k, norrish_k3) and
 /// models/pitzer_sensitivity.hpp (model 'pitzer', the constants of a salt's own Pitzer row:
 /// beta0, beta1, beta2, cphi and their d/dT; its slopes by T and by W include A_phi(T) and
-/// E-theta). 'auto' takes the linear path where it resolves to one of those two. Other
-/// models and constants (a salt + sugar mixture under 'ross', the molar mass of an
-/// effective solute, a state with a salt crystallised) go through Monte Carlo, which
-/// evaluates the plain prediction with constants drawn from N(p, Sigma) (JCGM 101:2008).
+/// E-theta). A salt + sugar mixture under model 'ross' (Ross 1975, models/mixing.hpp) has
+/// ln a_w = ln a_w,Pitzer(electrolytes in W) + ln a_w,Norrish(non-electrolytes in W), so its
+/// gradient is the Pitzer derivative for a salt's constants and the Norrish derivative with
+/// the non-electrolytes alone for a sugar's, its T slope the Pitzer factor's and its W slope
+/// the sum of both factors'. 'auto' takes the linear path where it resolves to one of those
+/// three. Other models and constants (the molar mass of an effective solute, a state with a
+/// salt crystallised) go through Monte Carlo, which evaluates the plain prediction with
+/// constants drawn from N(p, Sigma) (JCGM 101:2008).
+///
+/// Scalar and batch share one implementation (detail::propagate_linear_prepared): what
+/// depends on the species list alone (covariance blocks, which closed form each constant
+/// takes, the Pitzer rows) is prepared once in a detail::linear_plan, and the evaluator and
+/// ice curve are the caller's (one per scalar call, one per batch thread), so a batch row
+/// equals the scalar result bit for bit and costs no allocation.
 ///
 /// Solutes whose constants carry no covariance (a fitted record's own, or a built-in one's
 /// from data/builtin_uncertainty.hpp) are "not stated": they enter as exact and are
@@ -30,9 +40,12 @@
 /// solutes' contributions, 0 (normal law) when none comes from a fit.
 
 #include <Eigen/Dense>
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
 #include <limits>
+#include <memory>
+#include <optional>
 #include <random>
 #include <string>
 #include <vector>
@@ -44,9 +57,14 @@
 #include "colligate/data/builtin_uncertainty.hpp"
 #include "colligate/data/solute_table.hpp"
 #include "colligate/equilibria/freezing_point.hpp"
+#include "colligate/equilibria/ice_curve.hpp"
 #include "colligate/equilibria/ice_fraction.hpp"
 #include "colligate/fit/propagation.hpp"
+#include "colligate/models/detail/pitzer_record_parameters.hpp"
+#include "colligate/models/ideal.hpp"
+#include "colligate/models/norrish.hpp"
 #include "colligate/models/norrish_sensitivity.hpp"
+#include "colligate/models/pitzer.hpp"
 #include "colligate/models/pitzer_sensitivity.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/water/ice.hpp"
@@ -218,53 +236,39 @@ struct prediction_uncertainty {
 
 namespace detail {
 
+/// How the linear propagation differentiates ln a_w: the models with closed-form
+/// sensitivities.
+enum class linear_path {
+  none,     ///< no closed form: Monte Carlo
+  norrish,  ///< models/norrish_sensitivity.hpp; ln a_w does not depend on T
+  pitzer,   ///< models/pitzer_sensitivity.hpp; non-electrolytes as ideal particles
+  ross      ///< Ross (1975) product: Pitzer for the electrolytes + Norrish for the rest
+};
+
+inline linear_path linear_path_of(const std::string& model_id) {
+  if (model_id == "norrish") return linear_path::norrish;
+  if (model_id == "pitzer") return linear_path::pitzer;
+  if (model_id == "ross") return linear_path::ross;
+  return linear_path::none;
+}
+
 /// True for the models with closed-form sensitivities.
 inline bool has_linear_path(const std::string& model_id) {
-  return model_id == "norrish" || model_id == "pitzer";
+  return linear_path_of(model_id) != linear_path::none;
 }
 
-/// d ln a_w / dp at `water_kg` and temperature T for every constant of `c` (models
-/// 'norrish' and 'pitzer'; a constant the model does not use has derivative 0).
-inline Eigen::VectorXd ln_aw_gradient(const solution& s, const constant_set& c, double water_kg,
-                                      double T, const std::string& model_id) {
-  Eigen::VectorXd g(static_cast<Eigen::Index>(c.constants.size()));
-  for (std::size_t k = 0; k < c.constants.size(); ++k) {
-    const auto& uc = c.constants[k];
-    const bool norrish_k = uc.name == "norrish_k" || uc.name == "norrish_k3";
-    models::pitzer_constant pc;
-    const bool pitzer_k = models::pitzer_constant_named(uc.name, pc);
-    double d = 0.0;
-    if (model_id == "norrish" && norrish_k) {
-      d = models::norrish_ln_water_activity_derivative(
-          s, water_kg, uc.species,
-          uc.name == "norrish_k" ? models::norrish_constant::k : models::norrish_constant::k3);
-    } else if (model_id == "pitzer" && pitzer_k) {
-      d = models::pitzer_ln_water_activity_derivative(s, water_kg, T, uc.species, pc);
-    } else if (model_id == "pitzer" && norrish_k) {
-      d = 0.0;  // model 'pitzer' counts non-electrolytes as ideal particles: K unused
-    } else {
-      throw invalid_input("linear propagation: no closed-form sensitivity of ln a_w to '" +
-                          c.label(k, s) + "' under model '" + model_id +
-                          "'; use the Monte Carlo propagation for it");
-    }
-    g[static_cast<Eigen::Index>(k)] = d;
-  }
-  return g;
+/// nu_eff = u^4 / sum_b (u_b^4 / nu_b) (Welch-Satterthwaite, GUM G.4.1) from u^2 and the sum
+/// `denom` over the blocks with degrees of freedom; 0 (normal law) when there is none.
+/// Rounded down (GUM G.4.1 note 1); the relative 1e-9 keeps a single block's own degrees of
+/// freedom from rounding to one less (u^2 and its block sum are summed in other orders).
+inline int welch_satterthwaite(double u2, double denom, bool any_block_with_dof) {
+  if (!any_block_with_dof || !(u2 > 0.0) || !(denom > 0.0)) return 0;
+  return static_cast<int>(std::floor(u2 * u2 / denom * (1.0 + 1e-9)));
 }
 
-/// d ln a_w / dT of the solution at fixed amounts (0 for 'norrish', whose a_w does not
-/// depend on T).
-inline double ln_aw_temperature_slope(const solution& s, double water_kg, double T,
-                                      const std::string& model_id) {
-  if (model_id != "pitzer") return 0.0;
-  const double d = models::pitzer_slopes(s, water_kg, T).by_temperature;
-  if (!std::isfinite(d))
-    throw invalid_input("linear propagation: no closed-form temperature slope of ln a_w for this "
-                        "Pitzer row (extended form); use the Monte Carlo propagation");
-  return d;
-}
-
-/// Welch-Satterthwaite effective degrees of freedom (GUM G.4.1) over independent blocks.
+/// Welch-Satterthwaite effective degrees of freedom (GUM G.4.1) over independent blocks,
+/// for a gradient `y_gradient` over all of `c`'s constants with u^2 = `u2` (the thermal
+/// propagation's form; linear_plan::combine does the same on its block ranges).
 inline int effective_dof(const constant_set& c, const Eigen::VectorXd& y_gradient, double u2) {
   if (c.block_dof.empty() || !(u2 > 0.0)) return 0;
   double denom = 0.0;
@@ -281,74 +285,274 @@ inline int effective_dof(const constant_set& c, const Eigen::VectorXd& y_gradien
     denom += ub2 * ub2 / c.block_dof[b];
     any = true;
   }
-  if (!any || !(denom > 0.0)) return 0;
-  // Rounded down (GUM G.4.1 note 1); the relative 1e-9 keeps a single block's own degrees
-  // of freedom from rounding to one less (u^2 and its block sum are summed in other orders).
-  return static_cast<int>(std::floor(u2 * u2 / denom * (1.0 + 1e-9)));
+  return welch_satterthwaite(u2, denom, any);
 }
 
-}  // namespace detail
+/// Everything the linear propagation needs that depends on the species list and the model
+/// alone, prepared once: the constants' covariance and blocks (uncertain_constants), the
+/// resolved model, which closed form each constant takes, the Pitzer rows with the records'
+/// own rows in place (models 'pitzer' and 'ross') and the Norrish terms of the
+/// non-electrolytes (model 'ross'). Read-only once built: a batch builds one and every
+/// thread reads it; the scalar propagate_linear builds one per call. Refuses (invalid_input)
+/// a model without closed forms when some constant is uncertain; a constant without a
+/// closed form under the model (an effective solute's molar mass) throws only when a
+/// gradient is asked for, so a state that needs none (no ice at T) still has its u = 0.
+class linear_plan {
+ public:
+  linear_plan(const solution& s, const models::model_choice& m)
+      : constants_(uncertain_constants(s)), model_(&m.resolve(s)), path_(linear_path_of(model_->id)) {
+    if (!constants_.constants.empty() && path_ == linear_path::none)
+      throw invalid_input("linear propagation: model '" + model_->id +
+                          "' has no closed-form sensitivities to its constants (only 'norrish', "
+                          "'pitzer' and 'ross' have); use the Monte Carlo propagation");
+    const std::size_t n = constants_.constants.size();
+    kind_.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+      const auto& uc = constants_.constants[k];
+      auto& d = kind_[k];
+      if (uc.name == "norrish_k" || uc.name == "norrish_k3") {
+        d.kind = constant_kind::norrish;
+        d.norrish = uc.name == "norrish_k" ? models::norrish_constant::k : models::norrish_constant::k3;
+      } else if (models::pitzer_constant_named(uc.name, d.pitzer)) {
+        d.kind = constant_kind::pitzer;
+      }
+      const bool closed = (d.kind == constant_kind::norrish && path_ != linear_path::none) ||
+                          (d.kind == constant_kind::pitzer &&
+                           (path_ == linear_path::pitzer || path_ == linear_path::ross));
+      if (!closed) {
+        d.kind = constant_kind::none;
+        d.label = constants_.label(k, s);
+      }
+    }
+    // Block ranges: the constants of one solute are consecutive (uncertain_constants).
+    for (std::size_t k = 0; k < n; ++k) {
+      const auto b = static_cast<std::size_t>(constants_.block_of[k]);
+      if (b >= block_begin_.size()) {
+        block_begin_.push_back(k);
+        block_end_.push_back(k);
+      }
+      block_end_[b] = k + 1;
+    }
+    if ((path_ == linear_path::pitzer || path_ == linear_path::ross) && !constants_.constants.empty()) {
+      const auto& set = models::pitzer::default_parameters();
+      if (models::detail::has_record_binaries(s)) {
+        own_rows_ = std::make_unique<data::pitzer_parameter_set>(models::detail::with_record_binaries(s, set));
+        rows_ = own_rows_.get();
+      } else {
+        rows_ = &set;
+      }
+      has_electrolytes_ = s.has_electrolytes();
+    }
+    if (path_ == linear_path::ross)
+      for (std::size_t i = 0; i < s.size(); ++i)
+        if (s.species()[i].kind != data::solute_class::electrolyte)
+          non_electrolytes_.push_back(models::norrish::term_of(s, i));
+  }
 
-/// Value, standard uncertainty and sensitivities of quantity `q` of `s` at `temperature`
-/// (K; unused for the freezing point) under model `m`, by linear propagation.
-inline prediction_uncertainty propagate_linear(predicted_quantity q, const solution& s,
-                                               double temperature, const models::model_choice& m = "auto",
-                                               double bound_water_kg = 0.0) {
-  if (q != predicted_quantity::freezing_point)
-    models::check_temperature_argument(to_string(q), temperature);
-  detail::check_bound_water(to_string(q), s, bound_water_kg);
-  const constant_set c = uncertain_constants(s);
-  prediction_uncertainty out;
-  out.not_stated = c.not_stated;
-  for (std::size_t k = 0; k < c.constants.size(); ++k) out.constants.push_back(c.label(k, s));
-  const auto nan = std::numeric_limits<double>::quiet_NaN();
-  Eigen::VectorXd dy = Eigen::VectorXd::Zero(static_cast<Eigen::Index>(c.constants.size()));
-  const auto& model = m.resolve(s);
-  if (!c.constants.empty() && !detail::has_linear_path(model.id))
-    throw invalid_input("linear propagation: model '" + model.id +
-                        "' has no closed-form sensitivities to its constants (only 'norrish' "
-                        "and 'pitzer' have); use the Monte Carlo propagation");
-  double value = nan;
+  const constant_set& constants() const noexcept { return constants_; }
+  std::size_t size() const noexcept { return constants_.constants.size(); }
+  const models::model_descriptor& model() const noexcept { return *model_; }
+
+  /// d ln a_w / dp_k of `s` (the species the plan was built for, any amounts) with
+  /// `water_kg` of water at T, for every constant, into `g` (size() values).
+  void ln_aw_gradient(const solution& s, double water_kg, double T, double* g) const {
+    for (std::size_t k = 0; k < kind_.size(); ++k) {
+      const auto& d = kind_[k];
+      const std::size_t j = constants_.constants[k].species;
+      switch (d.kind) {
+        case constant_kind::norrish:
+          g[k] = path_ == linear_path::pitzer
+                     ? 0.0  // model 'pitzer' counts non-electrolytes as ideal particles: K unused
+                     : models::norrish_ln_water_activity_derivative(
+                           s, water_kg, j, d.norrish,
+                           path_ == linear_path::ross ? models::norrish_species::non_electrolytes_only
+                                                      : models::norrish_species::all);
+          break;
+        case constant_kind::pitzer:  // the same for the electrolytes alone (Ross): I, Z, m_c m_a
+          g[k] = models::pitzer_ln_water_activity_derivative(s, water_kg, T, j, d.pitzer);
+          break;
+        case constant_kind::none:
+          throw invalid_input("linear propagation: no closed-form sensitivity of ln a_w to '" +
+                              d.label + "' under model '" + model_->id +
+                              "'; use the Monte Carlo propagation for it");
+      }
+    }
+  }
+
+  /// d ln a_w / dT of `s` with `water_kg` at fixed amounts (1/K): 0 for 'norrish' (a_w
+  /// does not depend on T), the Pitzer slope for 'pitzer', and the Pitzer factor's for
+  /// 'ross' (its Norrish factor does not depend on T).
+  double temperature_slope(const solution& s, double water_kg, double T) const {
+    if (path_ == linear_path::norrish || (path_ == linear_path::ross && !has_electrolytes_)) return 0.0;
+    double by_T = 0.0, by_W = 0.0;
+    models::pitzer_slopes_on_rows(s, water_kg, T, *rows_, path_ == linear_path::ross, by_T, by_W);
+    if (!std::isfinite(by_T))
+      throw invalid_input("linear propagation: no closed-form temperature slope of ln a_w for this "
+                          "Pitzer row (extended form); use the Monte Carlo propagation");
+    return by_T;
+  }
+
+  /// d ln a_w / dW of `s` with `water_kg` at T (1/kg): the prepared evaluator's closed form
+  /// for 'norrish'; the Pitzer slope for 'pitzer'; for 'ross' the sum of the two factors'
+  /// slopes, each class alone in the same water. NaN when there is none.
+  double water_slope(const solution& s, double water_kg, double T,
+                     models::ln_water_activity_evaluator& ln_aw) const {
+    double by_T = 0.0, by_W = 0.0;
+    switch (path_) {
+      case linear_path::norrish: {
+        double lnaw = 0.0;
+        return ln_aw.with_slope(water_kg, T, lnaw, by_W) ? by_W : std::numeric_limits<double>::quiet_NaN();
+      }
+      case linear_path::pitzer:
+        models::pitzer_slopes_on_rows(s, water_kg, T, *rows_, false, by_T, by_W);
+        return by_W;
+      case linear_path::ross: {
+        if (has_electrolytes_) models::pitzer_slopes_on_rows(s, water_kg, T, *rows_, true, by_T, by_W);
+        double lnaw_ne = 0.0, slope_ne = 0.0;
+        if (!non_electrolytes_.empty())
+          models::norrish::ln_water_activity_with_slope(non_electrolytes_.data(), non_electrolytes_.size(),
+                                                        s.moles().data(), water_kg, lnaw_ne, slope_ne);
+        return by_W + slope_ne;
+      }
+      case linear_path::none: break;
+    }
+    return std::numeric_limits<double>::quiet_NaN();
+  }
+
+  /// u^2 = g^T Sigma g (GUM eq. 13) over the solutes' blocks (Sigma is block diagonal) and
+  /// the Welch-Satterthwaite effective degrees of freedom (GUM G.4.1): fills u and dof.
+  void combine(const double* dy, double& u, int& dof) const {
+    double u2 = 0.0, denom = 0.0;
+    bool any = false;
+    for (std::size_t b = 0; b < block_begin_.size(); ++b) {
+      double ub2 = 0.0;
+      for (std::size_t i = block_begin_[b]; i < block_end_[b]; ++i)
+        for (std::size_t j = block_begin_[b]; j < block_end_[b]; ++j)
+          ub2 += dy[i] * constants_.covariance(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) * dy[j];
+      u2 += ub2;
+      if (constants_.block_dof[b] > 0) {
+        denom += ub2 * ub2 / constants_.block_dof[b];
+        any = true;
+      }
+    }
+    u2 = std::max(u2, 0.0);
+    u = std::sqrt(u2);
+    dof = welch_satterthwaite(u2, denom, any);
+  }
+
+ private:
+  enum class constant_kind { none, norrish, pitzer };
+  struct derivative {
+    constant_kind kind = constant_kind::none;
+    models::norrish_constant norrish = models::norrish_constant::k;
+    models::pitzer_constant pitzer = models::pitzer_constant::beta0;
+    std::string label;  ///< "solute.constant" of a constant without a closed form
+  };
+  constant_set constants_;
+  const models::model_descriptor* model_;
+  linear_path path_;
+  std::vector<derivative> kind_;
+  std::vector<std::size_t> block_begin_, block_end_;
+  std::unique_ptr<data::pitzer_parameter_set> own_rows_;
+  const data::pitzer_parameter_set* rows_ = nullptr;
+  bool has_electrolytes_ = false;
+  std::vector<models::norrish::term> non_electrolytes_;
+};
+
+/// A linear propagation's value, standard uncertainty, degrees of freedom and validity.
+struct linear_outcome {
+  double value = std::numeric_limits<double>::quiet_NaN();
+  double standard_uncertainty = std::numeric_limits<double>::quiet_NaN();
+  int degrees_of_freedom = 0;
+  validity check;
+};
+
+/// models::water_activity(s, T, m) (policy 'extrapolate'), the same steps on `ln_aw`, an
+/// evaluator already prepared for the species of `s`.
+inline checked_value water_activity_on(models::ln_water_activity_evaluator& ln_aw, const solution& s,
+                                       double temperature) {
+  const double lnaw = ln_aw(s.water_mass(), temperature);
+  return apply_policy_within(std::exp(lnaw), ln_aw.check(s.water_mass(), temperature),
+                             range_policy::extrapolate, "water_activity", "water activity", 0.0, 1.0,
+                             true, models::physical_bounds_note);
+}
+
+/// models::osmotic_coefficient(s, T, m) (policy 'extrapolate'), the same steps on `ln_aw`.
+inline checked_value osmotic_coefficient_on(models::ln_water_activity_evaluator& ln_aw, const solution& s,
+                                            double temperature) {
+  const double mp = models::ideal::particle_molality(s, s.water_mass());
+  const double lnaw = ln_aw(s.water_mass(), temperature);
+  const double phi = mp > 0.0 ? -lnaw / (constants::molar_mass_water * mp) : 1.0;
+  validity v = ln_aw.check(s.water_mass(), temperature);
+  const double aw = std::exp(lnaw);
+  if (!(aw > 0.0 && aw <= 1.0) || !std::isfinite(phi))
+    v = outside_physical_bounds("osmotic_coefficient", "water activity", aw, 0.0, 1.0,
+                                std::string("the osmotic coefficient would be ") + validity::fmt(phi) +
+                                    "; " + models::physical_bounds_note);
+  return apply_policy(phi, v, range_policy::extrapolate);
+}
+
+/// The one implementation of the linear propagation, on prepared objects: `plan` for the
+/// species list, `ln_aw` an evaluator of model `m` prepared for `s` (reading its amounts),
+/// and `state_at(T)` the ice-curve state of `s` at T (ice fraction and unfrozen water only).
+/// The scalar propagate_linear gives it objects prepared for one solution; a batch thread
+/// gives it its own, reused row after row, so a row equals the scalar result bit for bit.
+/// Writes the sensitivities dy/dp into `dy` (plan.size() values; zeros where the state has
+/// none). Allocates nothing for the models with closed forms inside their validated range.
+///
+/// On the ice line F(T, p) = ln a_w(W, p) - ln a_w,ice(T) = 0 the implicit function theorem
+/// gives dT_f/dp = (d ln a_w/dp) / (dH_fus(T)/(R T^2) - d ln a_w/dT); below the freezing
+/// point dW_u/dp = -(d ln a_w/dp) / (d ln a_w/dW) (file comment).
+template <class StateAt>
+linear_outcome propagate_linear_prepared(const linear_plan& plan, predicted_quantity q, const solution& s,
+                                         double temperature, const models::model_choice& m,
+                                         double bound_water_kg, models::ln_water_activity_evaluator& ln_aw,
+                                         StateAt&& state_at, double* dy) {
+  linear_outcome out;
+  const std::size_t n = plan.size();
+  for (std::size_t k = 0; k < n; ++k) dy[k] = 0.0;
   switch (q) {
     case predicted_quantity::freezing_point: {
-      const auto r = freezing_point(s, m, bound_water_kg);
+      const auto r = freezing_point(s, m, bound_water_kg, ln_aw);
       out.check = r.check;
-      value = r.success() ? r.temperature : nan;
-      if (std::isfinite(value) && dy.size()) {
-        const double T = value;
-        const double W = s.water_mass() - bound_water_kg;
-        const double ice_slope = water::enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
-        dy = detail::ln_aw_gradient(s, c, W, T, model.id) /
-             (ice_slope - detail::ln_aw_temperature_slope(s, W, T, model.id));
-      }
+      if (!r.success()) break;
+      out.value = r.temperature;
+      if (!std::isfinite(out.value) || n == 0) break;
+      const double T = out.value;
+      const double W = s.water_mass() - bound_water_kg;
+      const double ice_slope = water::enthalpy_of_fusion(T) / (constants::gas_constant * T * T);
+      const double denom = ice_slope - plan.temperature_slope(s, W, T);
+      plan.ln_aw_gradient(s, W, T, dy);
+      for (std::size_t k = 0; k < n; ++k) dy[k] /= denom;
       break;
     }
     case predicted_quantity::water_activity: {
-      const auto r = models::water_activity(s, temperature, m);
+      const auto r = water_activity_on(ln_aw, s, temperature);
       out.check = r.check;
-      value = r.value;
-      if (std::isfinite(value) && dy.size())
-        dy = detail::ln_aw_gradient(s, c, s.water_mass(), temperature, model.id) * value;
+      out.value = r.value;
+      if (!std::isfinite(out.value) || n == 0) break;
+      plan.ln_aw_gradient(s, s.water_mass(), temperature, dy);
+      for (std::size_t k = 0; k < n; ++k) dy[k] *= out.value;
       break;
     }
     case predicted_quantity::osmotic_coefficient: {
-      const auto r = models::osmotic_coefficient(s, temperature, m);
+      const auto r = osmotic_coefficient_on(ln_aw, s, temperature);
       out.check = r.check;
-      value = r.value;
+      out.value = r.value;
       const double mp = models::ideal::particle_molality(s, s.water_mass());
-      if (std::isfinite(value) && dy.size() && mp > 0.0)
-        dy = -detail::ln_aw_gradient(s, c, s.water_mass(), temperature, model.id) /
-             (constants::molar_mass_water * mp);
+      if (!std::isfinite(out.value) || n == 0 || !(mp > 0.0)) break;
+      plan.ln_aw_gradient(s, s.water_mass(), temperature, dy);
+      const double scale = -1.0 / (constants::molar_mass_water * mp);
+      for (std::size_t k = 0; k < n; ++k) dy[k] *= scale;
       break;
     }
     case predicted_quantity::ice_fraction:
     case predicted_quantity::unfrozen_water: {
-      ice_curve curve(s, m, bound_water_kg);
-      const auto st = curve.at(temperature);
+      const auto st = state_at(temperature);
       out.check = st.check;
       if (!st.success()) break;
-      value = q == predicted_quantity::ice_fraction ? st.ice_fraction() : st.unfrozen_water;
-      if (!(st.ice > 0.0) || !dy.size()) break;  // not frozen: no ice to vary
+      out.value = q == predicted_quantity::ice_fraction ? st.ice_fraction() : st.unfrozen_water;
+      if (!(st.ice > 0.0) || n == 0) break;  // not frozen: no ice to vary
       for (double x : st.precipitated)
         if (x > 0.0)
           throw invalid_input("linear propagation: a salt has crystallised at T = " +
@@ -356,29 +560,54 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
                               " K, where the closed-form sensitivities do not hold; use the "
                               "Monte Carlo propagation");
       if (!(st.unfrozen_water > 0.0)) break;  // pure water: all ice, nothing to vary
-      const Eigen::VectorXd g = detail::ln_aw_gradient(s, c, st.unfrozen_water, temperature, model.id);
-      if (g.isZero(0.0)) break;  // no solute whose constants enter
-      double slope = 0.0;
-      if (model.id == "pitzer") {
-        slope = models::pitzer_slopes(s, st.unfrozen_water, temperature).by_water;
-      } else {
-        models::ln_water_activity_evaluator ln_aw(m, s);
-        double lnaw = 0.0;
-        if (!ln_aw.with_slope(st.unfrozen_water, temperature, lnaw, slope)) slope = 0.0;
-      }
+      plan.ln_aw_gradient(s, st.unfrozen_water, temperature, dy);
+      bool any = false;
+      for (std::size_t k = 0; k < n; ++k) any = any || dy[k] != 0.0;
+      if (!any) break;  // no solute whose constants enter
+      const double slope = plan.water_slope(s, st.unfrozen_water, temperature, ln_aw);
       if (!(slope > 0.0))
         throw convergence_error("linear propagation: no slope d ln a_w / d W at the unfrozen state");
-      const Eigen::VectorXd dW = -g / slope;
-      dy = q == predicted_quantity::ice_fraction ? Eigen::VectorXd(-dW / st.total_water) : dW;
+      // dW_u/dp = -g / slope; d(ice fraction)/dp = -dW_u/dp / W_total
+      for (std::size_t k = 0; k < n; ++k) {
+        const double dW = -dy[k] / slope;
+        dy[k] = q == predicted_quantity::ice_fraction ? -dW / st.total_water : dW;
+      }
       break;
     }
   }
-  out.sensitivities = dy;
-  out.result.value = value;
-  if (!std::isfinite(value)) return out;
-  const double u2 = dy.size() ? fit::delta_method_variance(dy, c.covariance) : 0.0;
-  out.result.standard_uncertainty = std::sqrt(u2);
-  out.result.degrees_of_freedom = detail::effective_dof(c, dy, u2);
+  if (!std::isfinite(out.value)) return out;
+  plan.combine(dy, out.standard_uncertainty, out.degrees_of_freedom);
+  return out;
+}
+
+}  // namespace detail
+
+/// Value, standard uncertainty and sensitivities of quantity `q` of `s` at `temperature`
+/// (K; unused for the freezing point) under model `m`, by linear propagation
+/// (detail::propagate_linear_prepared on objects prepared for `s` alone).
+inline prediction_uncertainty propagate_linear(predicted_quantity q, const solution& s,
+                                               double temperature, const models::model_choice& m = "auto",
+                                               double bound_water_kg = 0.0) {
+  if (q != predicted_quantity::freezing_point)
+    models::check_temperature_argument(to_string(q), temperature);
+  detail::check_bound_water(to_string(q), s, bound_water_kg);
+  const detail::linear_plan plan(s, m);
+  prediction_uncertainty out;
+  out.not_stated = plan.constants().not_stated;
+  for (std::size_t k = 0; k < plan.size(); ++k) out.constants.push_back(plan.constants().label(k, s));
+  models::ln_water_activity_evaluator ln_aw(m, s);
+  std::optional<ice_curve> curve;
+  const auto state_at = [&](double T) {
+    curve.emplace(s, m, bound_water_kg);
+    return curve->at(T);
+  };
+  out.sensitivities = Eigen::VectorXd::Zero(static_cast<Eigen::Index>(plan.size()));
+  const auto r = detail::propagate_linear_prepared(plan, q, s, temperature, m, bound_water_kg, ln_aw,
+                                                   state_at, out.sensitivities.data());
+  out.check = r.check;
+  out.result.value = r.value;
+  out.result.standard_uncertainty = r.standard_uncertainty;
+  out.result.degrees_of_freedom = r.degrees_of_freedom;
   return out;
 }
 

@@ -29,19 +29,31 @@ namespace colligate::models {
 
 enum class norrish_constant { k, k3 };
 
-/// d ln a_w / d (K or K3 of species `j`) of `s` with `water_kg` of water (model 'norrish').
+/// Which solutes the Norrish sum counts: all of them (model 'norrish', electrolytes as
+/// ideal particles), or the non-electrolytes alone (their class in the Ross product rule,
+/// models/mixing.hpp, evaluated by itself in the same water).
+enum class norrish_species { all, non_electrolytes_only };
+
+/// d ln a_w / d (K or K3 of species `j`) of `s` with `water_kg` of water (model 'norrish',
+/// or the non-electrolyte factor of model 'ross' with norrish_species::non_electrolytes_only).
 inline double norrish_ln_water_activity_derivative(const solution& s, double water_kg,
-                                                   std::size_t j, norrish_constant which) {
+                                                   std::size_t j, norrish_constant which,
+                                                   norrish_species counted = norrish_species::all) {
   if (j >= s.size())
     throw invalid_input("norrish sensitivity: species index " + std::to_string(j) +
                         " is beyond the solution's " + std::to_string(s.size()) + " solutes");
   const auto& species = s.species();
   const auto& moles = s.moles();
+  const bool all = counted == norrish_species::all;
+  const auto counts = [&](std::size_t i) {
+    return all || species[i].kind != data::solute_class::electrolyte;
+  };
   const double nw = water_kg / constants::molar_mass_water;
   double n_total = nw;
-  for (std::size_t i = 0; i < s.size(); ++i) n_total += species[i].particles * moles[i];
+  for (std::size_t i = 0; i < s.size(); ++i)
+    if (counts(i)) n_total += species[i].particles * moles[i];
   const auto& rj = species[j];
-  if (!rj.norrish.available) return 0.0;  // counted as an ideal particle: no constant to vary
+  if (!rj.norrish.available || !counts(j)) return 0.0;  // an ideal particle, or not in the sum
   const double xj = moles[j] / n_total;
   if (rj.norrish.volume_ratio != 1.0) {
     const double r = rj.norrish.volume_ratio;
@@ -53,7 +65,7 @@ inline double norrish_ln_water_activity_derivative(const solution& s, double wat
   double S = 0.0;
   for (std::size_t i = 0; i < s.size(); ++i) {
     const auto& n = species[i].norrish;
-    if (n.available && n.volume_ratio == 1.0 && n.k > 0.0) S += std::sqrt(n.k) * moles[i] / n_total;
+    if (counts(i) && n.available && n.volume_ratio == 1.0 && n.k > 0.0) S += std::sqrt(n.k) * moles[i] / n_total;
   }
   return -S * xj / std::sqrt(rj.norrish.k);
 }

@@ -199,23 +199,50 @@ struct pitzer_ln_water_activity_slopes {
   double by_water = 0.0;
 };
 
-inline pitzer_ln_water_activity_slopes pitzer_slopes(
-    const solution& s, double water_kg, double temperature,
-    const data::pitzer_parameter_set& set = pitzer::default_parameters()) {
+/// The slopes of ln a_w by temperature (1/K, fixed amounts) and by the water mass (1/kg,
+/// fixed temperature) alone, on `rows`: the parameter set with the records' own rows already
+/// in place of the set's (detail::with_record_binaries; prepared once per species list by
+/// a caller that evaluates many rows). With `electrolytes_only` the non-electrolytes are
+/// left out: the Pitzer factor of the Ross product rule (models/mixing.hpp), the
+/// electrolytes alone in the same water. No allocation.
+inline void pitzer_slopes_on_rows(const solution& s, double water_kg, double temperature,
+                                  const data::pitzer_parameter_set& rows, bool electrolytes_only,
+                                  double& by_temperature, double& by_water) {
   double other = 0.0;
   const auto m = pitzer::ion_molalities(s, water_kg, other);
+  if (electrolytes_only) {  // ideal particles of the electrolytes alone (ions the tables lack)
+    other = 0.0;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      if (rec.kind != data::solute_class::electrolyte) continue;
+      const double mi = s.moles()[i] / water_kg;
+      if (rec.ions.empty()) {
+        other += rec.particles * mi;
+        continue;
+      }
+      for (const auto& ion : rec.ions)
+        if (data::pitzer_ion_index(ion.ion) >= detail::n_ions) other += ion.count * mi;
+    }
+  }
   double total = 0.0;
   for (double mi : m) total += mi;
   double by_T = 0.0, by_scale = 0.0;
-  if (detail::has_record_binaries(s))
-    detail::osmotic_excess_slopes(m, temperature, detail::with_record_binaries(s, set), by_T, by_scale);
-  else
-    detail::osmotic_excess_slopes(m, temperature, set, by_T, by_scale);
+  detail::osmotic_excess_slopes(m, temperature, rows, by_T, by_scale);
   const double Mw = constants::molar_mass_water;
+  by_temperature = -Mw * by_T;
+  by_water = Mw / water_kg * (total + other + by_scale);
+}
+
+inline pitzer_ln_water_activity_slopes pitzer_slopes(
+    const solution& s, double water_kg, double temperature,
+    const data::pitzer_parameter_set& set = pitzer::default_parameters()) {
   pitzer_ln_water_activity_slopes r;
+  if (detail::has_record_binaries(s))
+    pitzer_slopes_on_rows(s, water_kg, temperature, detail::with_record_binaries(s, set), false,
+                          r.by_temperature, r.by_water);
+  else
+    pitzer_slopes_on_rows(s, water_kg, temperature, set, false, r.by_temperature, r.by_water);
   r.ln_water_activity = pitzer::ln_water_activity(s, water_kg, temperature, set);
-  r.by_temperature = -Mw * by_T;
-  r.by_water = Mw / water_kg * (total + other + by_scale);
   return r;
 }
 
