@@ -18,9 +18,11 @@
 /// models/norrish_sensitivity.hpp (model 'norrish', constants norrish_k, norrish_k3) and
 /// models/pitzer_sensitivity.hpp (model 'pitzer', the constants of a salt's own Pitzer row:
 /// beta0, beta1, beta2, cphi and their d/dT; its slopes by T and by W include A_phi(T) and
-/// E-theta). 'auto' takes the linear path where it resolves to one of those two. Other
-/// models and constants (a salt + sugar mixture under 'ross', the molar mass of an
-/// effective solute, a state with a salt crystallised) go through Monte Carlo, which
+/// E-theta), and under 'norrish' the molar mass of a solute without Norrish constants of its
+/// own (an effective solute: models/norrish_sensitivity.hpp). 'auto' takes the linear path
+/// where it resolves to one of those two. Other models and constants (a salt + sugar mixture
+/// under 'ross', the molar mass of a solute with its own K, a state with a salt crystallised)
+/// go through Monte Carlo, which
 /// evaluates the plain prediction with constants drawn from N(p, Sigma) (JCGM 101:2008).
 ///
 /// Solutes whose constants carry no covariance (a fitted record's own, or a built-in one's
@@ -231,10 +233,12 @@ inline Eigen::VectorXd ln_aw_gradient(const solution& s, const constant_set& c, 
   for (std::size_t k = 0; k < c.constants.size(); ++k) {
     const auto& uc = c.constants[k];
     const bool norrish_k = uc.name == "norrish_k" || uc.name == "norrish_k3";
-    models::pitzer_constant pc;
+    models::pitzer_constant pc = models::pitzer_constant::beta0;
     const bool pitzer_k = models::pitzer_constant_named(uc.name, pc);
     double d = 0.0;
-    if (model_id == "norrish" && norrish_k) {
+    if (model_id == "norrish" && uc.name == "molar_mass") {
+      d = models::norrish_ln_water_activity_molar_mass_derivative(s, water_kg, uc.species);
+    } else if (model_id == "norrish" && norrish_k) {
       d = models::norrish_ln_water_activity_derivative(
           s, water_kg, uc.species,
           uc.name == "norrish_k" ? models::norrish_constant::k : models::norrish_constant::k3);
@@ -336,9 +340,19 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
       out.check = r.check;
       value = r.value;
       const double mp = models::ideal::particle_molality(s, s.water_mass());
-      if (std::isfinite(value) && dy.size() && mp > 0.0)
+      if (std::isfinite(value) && dy.size() && mp > 0.0) {
         dy = -detail::ln_aw_gradient(s, c, s.water_mass(), temperature, model.id) /
              (constants::molar_mass_water * mp);
+        // phi = -ln a_w / (M_w m_p): a molar mass also moves the particle molality m_p,
+        // dm_p/dM_j = -nu_j m_j / M_j, so dphi/dM_j gains -phi (dm_p/dM_j) / m_p.
+        for (std::size_t k = 0; k < c.constants.size(); ++k) {
+          if (c.constants[k].name != "molar_mass") continue;
+          const auto j = c.constants[k].species;
+          const auto& rj = s.species()[j];
+          const double dmp = -rj.particles * (s.moles()[j] / s.water_mass()) / rj.molar_mass;
+          dy[static_cast<Eigen::Index>(k)] -= value * dmp / mp;
+        }
+      }
       break;
     }
     case predicted_quantity::ice_fraction:
