@@ -13,6 +13,7 @@ controls, measured product temperatures and local codes.
 from __future__ import annotations
 
 import math
+import warnings
 from dataclasses import dataclass, field
 from typing import Any, Mapping, Sequence
 
@@ -26,6 +27,7 @@ __all__ = [
     "FREEZING_TIME_CAUTION",
     "plank_time",
     "pham_time",
+    "food_freezing_time",
     "pham_estimate",
     "pham_times",
     "brick_shape_factor",
@@ -58,8 +60,31 @@ saturation_pressure = _core.saturation_pressure
 saturation_temperature = _core.saturation_temperature
 
 
+def _uncertain(r: dict, quantity: str, constants: Sequence[str] = (), not_stated: Sequence[str] = (),
+               sensitivities: dict | None = None, method: str = "linear"):
+    """An :class:`colligate.uncertainty.UncertainValue` from a core result dict."""
+    from .uncertainty import UncertainValue
+
+    samples = np.asarray(r["samples"]) if "samples" in r else None
+    return UncertainValue(float(r["value"]), float(r["std"]), int(r["degrees_of_freedom"]), method=method,
+                          constants=list(constants), not_stated=list(not_stated), sensitivities=sensitivities,
+                          samples=samples, quantity=quantity)
+
+
+def _linear_only(with_uncertainty: Any, where: str) -> None:
+    if with_uncertainty is True or with_uncertainty == "linear":
+        return
+    raise _core.InvalidInputError(
+        f"{where}: with_uncertainty = {with_uncertainty!r}: must be False or True (linear propagation "
+        "with the closed-form partial derivatives); for a food's time by Monte Carlo use "
+        "colligate.food_freezing_time(recipe, ..., with_uncertainty='monte_carlo')")
+
+
 def plank_time(shape: str, size: float, density: float, latent_heat: float, T_freeze: float,
-               T_medium: float, h: float, k_frozen: float) -> float:
+               T_medium: float, h: float, k_frozen: float, *, with_uncertainty: Any = False,
+               u_size: float = 0.0, u_density: float = 0.0, u_latent_heat: float = 0.0,
+               u_T_freeze: float = 0.0, u_T_medium: float = 0.0, u_h: float = 0.0,
+               u_k_frozen: float = 0.0) -> Any:
     """Plank's freezing time, s.
 
     Parameters
@@ -77,8 +102,22 @@ def plank_time(shape: str, size: float, density: float, latent_heat: float, T_fr
         Surface heat-transfer coefficient, W/(m^2 K).
     k_frozen : float
         Conductivity of the frozen food, W/(m K).
+    with_uncertainty : bool
+        True: return an :class:`colligate.uncertainty.UncertainValue` (``.value``, ``.std``,
+        ``.ci(level)``) from the stated standard uncertainties ``u_size`` (m), ``u_density``,
+        ``u_latent_heat``, ``u_T_freeze`` (K), ``u_T_medium`` (K), ``u_h``, ``u_k_frozen`` (same units
+        as the inputs), taken as uncorrelated, by the closed-form partial derivatives of the
+        formula (normal law). For the uncertainty carried from a recipe's fitted constants use
+        :func:`food_freezing_time`.
     """
-    return float(_core.plank_time(shape, size, density, latent_heat, T_freeze, T_medium, h, k_frozen))
+    if with_uncertainty is False:
+        return float(_core.plank_time(shape, size, density, latent_heat, T_freeze, T_medium, h, k_frozen))
+    _linear_only(with_uncertainty, "plank_time")
+    u = {"size": u_size, "density": u_density, "latent_heat": u_latent_heat, "T_freeze": u_T_freeze,
+         "T_medium": u_T_medium, "h": u_h, "k_frozen": u_k_frozen}
+    r = _core.plank_time_uncertainty(shape, size, density, latent_heat, T_freeze, T_medium, h, k_frozen,
+                                     **{f"u_{k}": float(v) for k, v in u.items()})
+    return _uncertain(r, "plank_time", [k for k, v in u.items() if v])
 
 
 def _shape_factor(shape: str, shape_factor: float | None) -> float:
@@ -107,12 +146,34 @@ def pham_estimate(shape: str, size: float, T_initial: float, T_medium: float, T_
 
 def pham_time(shape: str, size: float, T_initial: float, T_medium: float, T_centre: float, *,
               density_unfrozen: float, density_frozen: float, c_unfrozen: float, c_frozen: float,
-              latent_heat: float, k_frozen: float, h: float, shape_factor: float | None = None) -> float:
-    """Pham's (1986) freezing time, s (arguments as :func:`pham_estimate`)."""
-    return float(pham_estimate(shape, size, T_initial, T_medium, T_centre, density_unfrozen=density_unfrozen,
-                               density_frozen=density_frozen, c_unfrozen=c_unfrozen, c_frozen=c_frozen,
-                               latent_heat=latent_heat, k_frozen=k_frozen, h=h,
-                               shape_factor=shape_factor)["time"])
+              latent_heat: float, k_frozen: float, h: float, shape_factor: float | None = None,
+              with_uncertainty: Any = False, **uncertainties: float) -> Any:
+    """Pham's (1986) freezing time, s (arguments as :func:`pham_estimate`).
+
+    With ``with_uncertainty=True`` the result is an :class:`colligate.uncertainty.UncertainValue`
+    from stated standard uncertainties of any input, given as ``u_<input>`` keywords
+    (``u_size``, ``u_T_initial``, ``u_T_medium``, ``u_T_centre``, ``u_density_unfrozen``,
+    ``u_density_frozen``, ``u_c_unfrozen``, ``u_c_frozen``, ``u_latent_heat``, ``u_k_frozen``,
+    ``u_h``; units of the inputs), uncorrelated, by the closed-form partial derivatives of
+    Pham's formula (normal law)."""
+    if with_uncertainty is False:
+        if uncertainties:
+            raise _core.InvalidInputError(
+                f"pham_time: {sorted(uncertainties)[0]} is given but with_uncertainty is False")
+        return float(pham_estimate(shape, size, T_initial, T_medium, T_centre, density_unfrozen=density_unfrozen,
+                                   density_frozen=density_frozen, c_unfrozen=c_unfrozen, c_frozen=c_frozen,
+                                   latent_heat=latent_heat, k_frozen=k_frozen, h=h,
+                                   shape_factor=shape_factor)["time"])
+    _linear_only(with_uncertainty, "pham_time")
+    u = {}
+    for key, v in uncertainties.items():
+        if not key.startswith("u_"):
+            raise _core.InvalidInputError(f"pham_time: unexpected keyword {key!r}")
+        u[key[2:]] = float(v)
+    r = _core.pham_time_uncertainty(size, _shape_factor(shape, shape_factor), T_initial, T_medium, T_centre,
+                                    density_unfrozen, density_frozen, c_unfrozen, c_frozen, latent_heat,
+                                    k_frozen, h, u)
+    return _uncertain(r, "pham_time", [k for k, v in u.items() if v])
 
 
 def pham_times(shape: str, size, T_initial: float, T_medium: float, T_centre: float, *, h,
@@ -160,6 +221,64 @@ def freezing_inputs(food: Any = None, *, T_initial: float, T_target: float,
     return dict(_core.food_freezing_inputs(comp, sol, bw, mdl, T_initial, T_target, conductivity_rule))
 
 
+def food_freezing_time(food: Any = None, *, method: str = "pham", shape: str, size: float, T_initial: float,
+                  T_medium: float, h: float, T_target: float, with_uncertainty: Any = False,
+                  u_h: float = 0.0, u_size: float = 0.0, u_T_medium: float = 0.0, draws: int = 10_000,
+                  seed: int = 0, shape_factor: float | None = None,
+                  composition: Mapping[str, float] | None = None, solution: Any = None,
+                  model: str | None = None, bound_water_fraction_of_water: float | None = None,
+                  conductivity_rule: str = "parallel") -> Any:
+    """A recipe's freezing time by Plank (``method="plank"``: phase change only, frozen
+    density and conductivity at ``T_target``) or Pham (1986), s, with the inputs of
+    :func:`freezing_inputs`.
+
+    Parameters
+    ----------
+    food : Recipe, optional
+        A :class:`colligate.Recipe`; or pass ``composition`` and ``solution``.
+    shape, size, T_initial, T_medium, h, T_target
+        As :func:`simulate_freezing` (K, m, W/(m^2 K)); ``shape_factor`` is Pham's E of a
+        finite body (taken as exact).
+    with_uncertainty : bool or str
+        False: a float. True or "linear": an :class:`colligate.uncertainty.UncertainValue` from
+        the covariance of the recipe's fitted constants (through its initial freezing point
+        and its ice fraction at ``T_target``, which sets the frozen density and conductivity)
+        and the stated standard uncertainties ``u_h`` (W/(m^2 K)), ``u_size`` (m) and
+        ``u_T_medium`` (K), uncorrelated, by closed-form derivatives; Student t with the
+        effective degrees of freedom. "monte_carlo": ``draws`` samples (seeded with ``seed``);
+        prefer it when u(h)/h exceeds a few per cent, where the time's distribution is skewed
+        towards long times.
+
+    Freezing times are estimates; for food safety defer to validated process controls,
+    measured product temperatures and local codes.
+    """
+    if method not in ("plank", "pham"):
+        raise _core.InvalidInputError(f"food_freezing_time: method = {method!r}: must be 'plank' or 'pham'")
+    comp, sol, bw, mdl = _food_args(food, composition, solution, model, bound_water_fraction_of_water)
+    E = 0.0 if shape_factor is None else float(shape_factor)
+    if with_uncertainty is False:
+        if u_h or u_size or u_T_medium:
+            raise _core.InvalidInputError("food_freezing_time: u_h, u_size or u_T_medium given but with_uncertainty is False")
+        inp = _core.food_freezing_inputs(comp, sol, bw, mdl, T_initial, T_target, conductivity_rule)
+        if method == "plank":
+            return plank_time(shape, size, inp["density_frozen"], inp["latent_heat"], inp["T_freeze"], T_medium, h,
+                              inp["k_frozen"])
+        return pham_time(shape, size, T_initial, T_medium, T_target, density_unfrozen=inp["density_unfrozen"],
+                         density_frozen=inp["density_frozen"], c_unfrozen=inp["c_unfrozen"],
+                         c_frozen=inp["c_frozen"], latent_heat=inp["latent_heat"], k_frozen=inp["k_frozen"], h=h,
+                         shape_factor=shape_factor)
+    from .uncertainty import _method
+
+    how = _method(with_uncertainty)
+    r = _core.food_freezing_time_uncertainty(comp, sol, bw, mdl, method, shape, size, E, T_initial, T_medium, h,
+                                             T_target, float(u_h), float(u_size), float(u_T_medium),
+                                             conductivity_rule, how, int(draws), int(seed))
+    sens = None
+    if how == "linear":
+        sens = dict(zip(r["constants"], (float(v) for v in r["sensitivities"])))
+    return _uncertain(r, f"{method}_time", r["constants"], r["not_stated"], sens, method=how)
+
+
 def thermal_properties(food: Any = None, T: Any = 273.15, *, composition: Mapping[str, float] | None = None,
                        solution: Any = None, model: str | None = None, bound_water_fraction_of_water: float | None = None,
                        conductivity_rule: str = "parallel"):
@@ -194,6 +313,8 @@ class FreezingSimulation:
     final_temperature: np.ndarray
     steps: int
     raw: dict = field(repr=False, default_factory=dict)
+    #: The time to the target with its uncertainty (Monte Carlo), when asked for.
+    time_uncertainty: Any = None
 
     @property
     def success(self) -> bool:
@@ -242,7 +363,9 @@ def simulate_freezing(food: Any = None, *, shape: str, size: float, T_initial: f
                       h: float, T_target: float | None = None, composition: Mapping[str, float] | None = None,
                       solution: Any = None, model: str | None = None, bound_water_fraction_of_water: float | None = None,
                       max_time: float = 1.0e7, intervals: int = 40, time_step: float = 0.0,
-                      record_every: int = 1, conductivity_rule: str = "parallel") -> FreezingSimulation:
+                      record_every: int = 1, conductivity_rule: str = "parallel", with_uncertainty: Any = False,
+                      u_h: float = 0.0, u_size: float = 0.0, u_T_medium: float = 0.0, draws: int = 200,
+                      seed: int = 0) -> FreezingSimulation:
     """Simulate freezing (medium colder than the food) or thawing (warmer) by the implicit
     enthalpy method with the food's H(T) and k(T).
 
@@ -266,6 +389,15 @@ def simulate_freezing(food: Any = None, *, shape: str, size: float, T_initial: f
         Longest time simulated, s.
     intervals, time_step : int, float
         Mesh intervals from centre to surface; time step in s (0: automatic).
+    with_uncertainty : bool or str
+        True or "monte_carlo": also run ``draws`` simulations (generator seeded with ``seed``)
+        with the recipe's fitted constants drawn from their covariance and h, size and the
+        medium temperature drawn with the stated standard uncertainties ``u_h``
+        (W/(m^2 K)), ``u_size`` (m), ``u_T_medium`` (K; a schedule shifts as a whole), and
+        put the time to ``T_target`` with its uncertainty in ``time_uncertainty``
+        (:class:`colligate.uncertainty.UncertainValue`; ``.ci`` from the sample quantiles).
+        Draws that do not reach the target are left out and counted (``draws``,
+        ``finite_draws`` in ``time_uncertainty.samples``' length).
     """
     import pandas as pd
 
@@ -286,11 +418,28 @@ def simulate_freezing(food: Any = None, *, shape: str, size: float, T_initial: f
         "heat_flow_W_kg": flux / (density * r["volume_per_area"]),
         "mean_enthalpy_J_m3": r["mean_enthalpy"],
     })
+    unc = None
+    if with_uncertainty is not False:
+        if not (with_uncertainty is True or with_uncertainty == "monte_carlo"):
+            raise _core.InvalidInputError(
+                f"simulate_freezing: with_uncertainty = {with_uncertainty!r}: must be False, True or "
+                "'monte_carlo' (the simulation's uncertainty is found by Monte Carlo)")
+        if T_target is None:
+            raise _core.InvalidInputError("simulate_freezing: T_target is required with with_uncertainty")
+        ru = _core.simulate_food_time_uncertainty(comp, sol, bw, mdl, shape, size, T_initial, times, temps, h, target,
+                                                  max_time, intervals, time_step, float(u_h), float(u_size),
+                                                  float(u_T_medium), int(draws), int(seed), conductivity_rule)
+        unc = _uncertain(ru, "simulation_time", ru["constants"], ru["not_stated"], method="monte_carlo")
+        if ru["finite_draws"] < ru["draws"]:
+            warnings.warn(f"simulate_freezing: {ru['draws'] - ru['finite_draws']} of {ru['draws']} Monte Carlo runs did "
+                  "not reach the target and are left out of the time's uncertainty", UserWarning, stacklevel=2)
+    elif u_h or u_size or u_T_medium:
+        raise _core.InvalidInputError("simulate_freezing: u_h, u_size or u_T_medium given but with_uncertainty is False")
     return FreezingSimulation(shape=shape, size=float(size), status=r["status"],
                               time_to_target=float(r["time_to_target"]), history=history,
                               positions=np.asarray(r["positions"]),
                               final_temperature=np.asarray(r["final_temperature"]), steps=int(r["steps"]),
-                              raw=dict(r))
+                              raw=dict(r), time_uncertainty=unc)
 
 
 # --------------------------------------------------------------------------- boiling

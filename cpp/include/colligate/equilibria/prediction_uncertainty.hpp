@@ -23,8 +23,10 @@
 /// gradient is the Pitzer derivative for a salt's constants and the Norrish derivative with
 /// the non-electrolytes alone for a sugar's, its T slope the Pitzer factor's and its W slope
 /// the sum of both factors'. 'auto' takes the linear path where it resolves to one of those
-/// three. Other models and constants (the molar mass of an effective solute, a state with a
-/// salt crystallised) go through Monte Carlo, which evaluates the plain prediction with
+/// three. Under 'norrish' the molar mass of a solute without Norrish constants of its own
+/// (an effective solute) has a closed form too (models/norrish_sensitivity.hpp). Other models
+/// and constants (the molar mass of a solute with its own K or under 'pitzer'/'ross', a state
+/// with a salt crystallised) go through Monte Carlo, which evaluates the plain prediction with
 /// constants drawn from N(p, Sigma) (JCGM 101:2008).
 ///
 /// Scalar and batch share one implementation (detail::propagate_linear_prepared): what
@@ -315,8 +317,11 @@ class linear_plan {
         d.norrish = uc.name == "norrish_k" ? models::norrish_constant::k : models::norrish_constant::k3;
       } else if (models::pitzer_constant_named(uc.name, d.pitzer)) {
         d.kind = constant_kind::pitzer;
+      } else if (uc.name == "molar_mass") {
+        d.kind = constant_kind::molar_mass;
       }
       const bool closed = (d.kind == constant_kind::norrish && path_ != linear_path::none) ||
+                          (d.kind == constant_kind::molar_mass && path_ == linear_path::norrish) ||
                           (d.kind == constant_kind::pitzer &&
                            (path_ == linear_path::pitzer || path_ == linear_path::ross));
       if (!closed) {
@@ -370,6 +375,9 @@ class linear_plan {
           break;
         case constant_kind::pitzer:  // the same for the electrolytes alone (Ross): I, Z, m_c m_a
           g[k] = models::pitzer_ln_water_activity_derivative(s, water_kg, T, j, d.pitzer);
+          break;
+        case constant_kind::molar_mass:  // 'norrish' only (an effective solute; closed above)
+          g[k] = models::norrish_ln_water_activity_molar_mass_derivative(s, water_kg, j);
           break;
         case constant_kind::none:
           throw invalid_input("linear propagation: no closed-form sensitivity of ln a_w to '" +
@@ -441,7 +449,7 @@ class linear_plan {
   }
 
  private:
-  enum class constant_kind { none, norrish, pitzer };
+  enum class constant_kind { none, norrish, pitzer, molar_mass };
   struct derivative {
     constant_kind kind = constant_kind::none;
     models::norrish_constant norrish = models::norrish_constant::k;
@@ -544,6 +552,15 @@ linear_outcome propagate_linear_prepared(const linear_plan& plan, predicted_quan
       plan.ln_aw_gradient(s, s.water_mass(), temperature, dy);
       const double scale = -1.0 / (constants::molar_mass_water * mp);
       for (std::size_t k = 0; k < n; ++k) dy[k] *= scale;
+      // phi = -ln a_w / (M_w m_p): a molar mass also moves the particle molality m_p,
+      // dm_p/dM_j = -nu_j m_j / M_j, so dphi/dM_j gains -phi (dm_p/dM_j) / m_p.
+      for (std::size_t k = 0; k < n; ++k) {
+        const auto& uc = plan.constants().constants[k];
+        if (uc.name != "molar_mass") continue;
+        const auto& rj = s.species()[uc.species];
+        const double dmp = -rj.particles * (s.moles()[uc.species] / s.water_mass()) / rj.molar_mass;
+        dy[k] -= out.value * dmp / mp;
+      }
       break;
     }
     case predicted_quantity::ice_fraction:

@@ -374,7 +374,8 @@ inline fit_result fit_effective_solute_ice_curve(const Eigen::VectorXd& water_fr
   return r;
 }
 
-/// A solute record for a fitted effective solute: molar mass from the fit, Norrish K = 0.
+/// A solute record for a fitted effective solute: molar mass from the fit (with its
+/// variance and degrees of freedom as the record's uncertainty), Norrish K = 0.
 /// The bound water is a property of the food, not of the solute: pass
 /// bound_water = b * (solids mass) to freezing_point / ice_fraction.
 inline data::solute_record effective_solute_record(const fit_result& r, const std::string& id,
@@ -389,6 +390,17 @@ inline data::solute_record effective_solute_record(const fit_result& r, const st
   rec.norrish.k3_source.clear();
   rec.norrish.max_mass_fraction = 0.9;  // the food's own solids: checked by the fit data only
   rec.norrish.note = note;
+  // The fit's uncertainty of M travels with the record (its variance and the data's degrees
+  // of freedom). The bound water b is a property of the food, not of the record: its
+  // uncertainty and its covariance with M stay with the fit result and are not propagated;
+  // a prediction with the record takes b as exact.
+  const auto u = uncertainty_of(r);
+  if (u.stated()) {
+    rec.uncertainty.names = {"molar_mass"};
+    rec.uncertainty.covariance = {u.at(0, 0)};
+    rec.uncertainty.degrees_of_freedom = u.degrees_of_freedom;
+    rec.uncertainty.source = u.source;
+  }
   return rec;
 }
 

@@ -70,4 +70,49 @@ inline double norrish_ln_water_activity_derivative(const solution& s, double wat
   return -S * xj / std::sqrt(rj.norrish.k);
 }
 
+/// d ln a_w / d M_j: the molar mass of species `j` at fixed solute mass (n_j = m_j / M_j),
+/// for a solute with no Norrish term of its own (an effective solute, K_j = K3_j = K4_j = 0,
+/// or a record without Norrish constants), at `water_kg` of water (model 'norrish'). Such a
+/// solute acts only through the particle total n = n_w + P, like the water does in the slope
+/// of models/norrish.hpp: with D = 2 S^2 + sum_i g_i'(x_i) x_i (the same sum as that slope),
+///
+///     d ln a_w / d n_j = nu_j (D - 1) / n,     dn_j / dM_j = -n_j / M_j,
+///     d ln a_w / d M_j = nu_j x_j (1 - D) / M_j.
+///
+/// A solute with constants of its own throws: its molar mass also enters its own term, which
+/// this closed form does not cover (use Monte Carlo).
+inline double norrish_ln_water_activity_molar_mass_derivative(const solution& s, double water_kg,
+                                                              std::size_t j) {
+  if (j >= s.size())
+    throw invalid_input("norrish sensitivity: species index " + std::to_string(j) +
+                        " is beyond the solution's " + std::to_string(s.size()) + " solutes");
+  const auto& species = s.species();
+  const auto& moles = s.moles();
+  const auto& rj = species[j];
+  if (rj.norrish.available && (rj.norrish.k != 0.0 || rj.norrish.k3 != 0.0 || rj.norrish.k4 != 0.0))
+    throw invalid_input("linear propagation: no closed-form sensitivity of ln a_w to the molar mass of '" +
+                        rj.id + "', which has Norrish constants of its own; use the Monte Carlo propagation");
+  const double nw = water_kg / constants::molar_mass_water;
+  double n_total = nw;
+  for (std::size_t i = 0; i < s.size(); ++i) n_total += species[i].particles * moles[i];
+  double sqrt_sum = 0.0, d_extra = 0.0;
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    const auto& v = species[i].norrish;
+    if (!v.available) continue;
+    const double x = moles[i] / n_total;
+    if (v.volume_ratio != 1.0) {
+      const double r = v.volume_ratio, q = x + r * (1.0 - x), z = x / q;
+      d_extra += z * (2.0 * v.k + z * (3.0 * v.k3 + 4.0 * v.k4 * z)) * (r / (q * q)) * x;
+      continue;
+    }
+    if (v.k > 0.0)
+      sqrt_sum += std::sqrt(v.k) * x;
+    else
+      d_extra += 2.0 * v.k * x * x;
+    d_extra += x * x * x * (3.0 * v.k3 + 4.0 * v.k4 * x);
+  }
+  const double D = 2.0 * sqrt_sum * sqrt_sum + d_extra;
+  return rj.particles * (moles[j] / n_total) * (1.0 - D) / rj.molar_mass;
+}
+
 }  // namespace colligate::models
