@@ -79,6 +79,27 @@ TEST_CASE("J'' of the mixing function and the three-argument J", "[models][pitze
       CHECK(d2J[c] == d2J1);
     }
   }
+  // mixing_j124: x, 2x and 4x from one power x^0.2 scaled by 2^0.2 and 4^0.2 (its constants
+  // against std::pow to 1 ulp). The Chebyshev variable z then differs from mixing_j's by a
+  // few ulp of its size (|z| <= 2, abs ~1e-15), and J, J', J'' by that times their z
+  // derivative: abs 1e-13 on J and J x (sums of size 1), 1e-12 on J'' x^2, well above that
+  // rounding and far below any physical effect (J enters E-theta multiplied by m^2 theta
+  // sizes of 1e-2).
+  CHECK_THAT(1.148698354997035, WithinRel(std::pow(2.0, 0.2), 2.3e-16));
+  CHECK_THAT(1.3195079107728942, WithinRel(std::pow(4.0, 0.2), 2.3e-16));
+  for (double s = 1e-4; s < 20.0; s *= 1.07) {  // the three arguments straddle x = 1
+    double J[3], dJ[3], d2J[3];
+    models::detail::mixing_j124(s, J, dJ, d2J);
+    for (int c = 0; c < 3; ++c) {
+      const double xc = s * (1 << c);
+      double J1, dJ1, d2J1;
+      models::detail::mixing_j(xc, J1, dJ1, &d2J1);
+      INFO("x = " << xc);
+      CHECK_THAT(J[c], WithinAbs(J1, 1e-13));
+      CHECK_THAT(dJ[c] * xc, WithinAbs(dJ1 * xc, 1e-13));
+      CHECK_THAT(d2J[c] * xc * xc, WithinAbs(d2J1 * xc * xc, 1e-12));
+    }
+  }
 }
 
 TEST_CASE("Pitzer d ln a_w / dT: value bit-identical, slope against central differences",

@@ -59,3 +59,25 @@ TEST_CASE("temperatures below -40 C are flagged", "[water][ice][validity]") {
   CHECK(water::ice_temperature_validity(253.15).in_range());
   CHECK_FALSE(water::ice_temperature_validity(230.0).in_range());
 }
+
+TEST_CASE("the ice series cut short near the ice point leaves out less than 2^-60", "[water][ice]") {
+  // Identity (no literature value): ln_water_activity_of_ice sums the first 16 terms of its
+  // series for |w| <= ice_series_w16 and 24 for |w| <= ice_series_w24 (w = (T - T0) / T).
+  // The terms left out, bounded term by term at the tier's edge, must stay below 2^-60 of the
+  // value (far below its rounding, 2^-53); the shortened and the 48-term sums must then agree
+  // to a few ulp (rel 1e-15: the two sums round differently, 4 ulp).
+  const double limit = std::ldexp(1.0, -60);
+  CHECK(water::detail::ice_series_tail_bound(16, water::detail::ice_series_w16) < limit);
+  CHECK(water::detail::ice_series_tail_bound(24, water::detail::ice_series_w24) < limit);
+  // The bound is not vacuous: 12 terms at the first edge, 16 at the second, do not meet it.
+  CHECK(water::detail::ice_series_tail_bound(12, water::detail::ice_series_w16) > limit);
+  CHECK(water::detail::ice_series_tail_bound(16, water::detail::ice_series_w24) > limit);
+  const auto e = water::detail::ice_series_coefficients();
+  for (double T = 273.10; T >= 215.0; T -= 0.173) {
+    const double w = (T - constants::ice_point) / T;
+    if (std::abs(w) > 0.3) break;
+    const double full = water::detail::ice_series_sum<water::detail::ice_series_terms>(e, w);
+    INFO("T = " << T);
+    CHECK_THAT(water::ln_water_activity_of_ice(T), WithinRel(full, 1e-15));
+  }
+}

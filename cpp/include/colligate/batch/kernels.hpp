@@ -127,10 +127,33 @@ inline unsigned thread_count(unsigned requested, std::size_t rows) {
   return static_cast<unsigned>(std::min<std::size_t>(n, std::max<std::size_t>(rows, 1)));
 }
 
+/// Rows whose one-byte status entries fill a 64-byte cache line: the row ranges given to
+/// threads start at multiples of it, so two threads never write the same line of a status
+/// column (nor, beyond its first and last line, of an 8-byte value column); writes to a
+/// line shared between two cores' caches were a cause of poor 2-thread scaling.
+inline constexpr std::size_t rows_per_line = 64;
+
+/// A thread's contiguous share of the rows, rounded up to whole lines when that moves
+/// little work between threads (a share of 256 rows or more).
+inline std::size_t round_up_to_lines(std::size_t rows) {
+  if (rows < 4 * rows_per_line) return rows;
+  return (rows + rows_per_line - 1) / rows_per_line * rows_per_line;
+}
+
+/// Rows per piece handed out from the shared counter (interruptible path): about 32 pieces
+/// per thread for load balance, in whole multiples of rows_per_line once there are enough
+/// rows (fewer, cheaper pieces also touch the shared counter less often); small batches keep
+/// pieces of at least one row so that every thread gets work.
+inline std::size_t piece_rows(std::size_t rows, unsigned threads) {
+  const std::size_t target = rows / (32 * static_cast<std::size_t>(std::max(1u, threads)));
+  if (target >= rows_per_line) return target / rows_per_line * rows_per_line;
+  return std::max<std::size_t>(1, std::min<std::size_t>(target, 16));
+}
+
 /// Runs body(workspace&, row) over all rows. Without an interruption hook: contiguous
-/// chunks, one per thread (the calling thread alone when one thread is asked). With one:
-/// the rows go out in pieces of `piece` rows to worker threads while the calling thread
-/// waits and calls the hook about every 50 ms. Rows are independent, so the results do
+/// chunks, one per thread, of round_up_to_lines() rows (the calling thread alone when one
+/// thread is asked). With one: the rows go out in pieces of piece_rows() rows to worker
+/// threads while the calling thread waits and calls the hook about every 50 ms. Rows are independent, so the results do
 /// not depend on how they are split. An exception in a worker (a caller mistake found
 /// while preparing the model, say) reaches the caller as the same exception the serial
 /// path throws: each worker keeps its first one (std::exception_ptr), every started
@@ -153,7 +176,7 @@ void parallel_rows(const solution_batch& b, unsigned threads,
     std::vector<std::exception_ptr> errors(T);
     std::vector<std::thread> pool;
     pool.reserve(T);
-    const std::size_t chunk = (N + T - 1) / T;
+    const std::size_t chunk = round_up_to_lines((N + T - 1) / T);
     std::exception_ptr start_error;
     for (unsigned t = 0; t < T; ++t) {
       const std::size_t lo = t * chunk, hi = std::min(N, lo + chunk);
@@ -178,7 +201,7 @@ void parallel_rows(const solution_batch& b, unsigned threads,
     return;
   }
   // With the hook: workers take pieces of rows from a shared counter.
-  constexpr std::size_t piece = 16;
+  const std::size_t piece = piece_rows(N, T);
   std::atomic<std::size_t> next{0};
   std::mutex mutex;
   std::condition_variable done_cv;

@@ -237,12 +237,14 @@ struct norrish {
       P += v.particles * v.moles;
     }
     const double n_total = nw + P;
+    // x_i = n_i / n_total as a product with one reciprocal (one division, not one per solute)
+    const double inv_total = 1.0 / n_total;
     double sqrt_sum = 0.0, extra = 0.0;
     double d_extra = 0.0;  // sum of g'(x_i) x_i (slope only)
     for (std::size_t i = 0; i < n; ++i) {
       const solute_view v = view(i);
       if (!v.available) continue;
-      const double x = v.moles / n_total;
+      const double x = v.moles * inv_total;
       if (v.volume_ratio != 1.0) {  // per-solute term in the effective volume fraction
         extra -= volume_fraction_terms(v, x);
         if (slope) {
@@ -260,7 +262,7 @@ struct norrish {
         d_extra += (v.k > 0.0 ? 0.0 : 2.0 * v.k * x * x) + x * x * x * (3.0 * v.k3 + 4.0 * v.k4 * x);
     }
     if (slope) {
-      *slope = (P / (nw * n_total) + (2.0 * sqrt_sum * sqrt_sum + d_extra) / n_total) /
+      *slope = (P / nw + 2.0 * sqrt_sum * sqrt_sum + d_extra) * inv_total /
                constants::molar_mass_water;
     }
     return -std::log1p(P / nw) - sqrt_sum * sqrt_sum + extra;

@@ -127,6 +127,41 @@ inline std::array<double, ice_series_terms> ice_series_coefficients() {
   return e;
 }
 
+/// The first N terms of the series, Horner in w^4 on four interleaved chains (terms
+/// j = 4i + k, k = 0..3), joined at the end: a quarter of the dependent steps of one chain,
+/// with rounding of the same order.
+template <std::size_t N>
+inline double ice_series_sum(const std::array<double, ice_series_terms>& e, double w) {
+  static_assert(N % 4 == 0 && N >= 8 && N <= ice_series_terms, "four chains of whole terms");
+  const double w2 = w * w, w4 = w2 * w2;
+  double s0 = e[N - 4], s1 = e[N - 3], s2 = e[N - 2], s3 = e[N - 1];
+  for (std::size_t j = N - 4; j >= 4; j -= 4) {
+    s0 = e[j - 4] + w4 * s0;
+    s1 = e[j - 3] + w4 * s1;
+    s2 = e[j - 2] + w4 * s2;
+    s3 = e[j - 1] + w4 * s3;
+  }
+  return w * ((s0 + w * s1) + w2 * (s2 + w * s3));
+}
+
+/// |w| up to which the first 16 (24) terms are summed (ln_water_activity_of_ice).
+inline constexpr double ice_series_w16 = 0.04;
+inline constexpr double ice_series_w24 = 0.1;
+
+/// Upper bound of the terms j >= n of the series at |w|, relative to the first term's size
+/// e_0 |w| (the value is within a few per cent of it up to |w| = 0.3): sum |e_j| |w|^j / e_0
+/// over n <= j < ice_series_terms.
+inline double ice_series_tail_bound(std::size_t n, double w) {
+  const auto e = ice_series_coefficients();
+  const double aw = std::abs(w);
+  double tail = 0.0, p = 1.0;
+  for (std::size_t j = 1; j < ice_series_terms; ++j) {
+    p *= aw;
+    if (j >= n) tail += std::abs(e[j]) * p;
+  }
+  return tail / e[0];
+}
+
 }  // namespace detail
 
 /// ln of the water activity of a solution in equilibrium with ice at T, one atmosphere.
@@ -139,22 +174,17 @@ inline double ln_water_activity_of_ice(double temperature) {
   if (!(temperature >= ice_model_lowest_temperature) || !std::isfinite(temperature))
     return std::numeric_limits<double>::quiet_NaN();
   const double w = (temperature - constants::ice_point) / temperature;
-  if (std::abs(w) <= 0.3) {
-    // Horner in w^4 on four interleaved chains (terms j = 4i + k, k = 0..3), joined at the
-    // end: the same sum with a quarter of the dependent steps (rounding of the same order
-    // as one chain; the freezing-point and ice-fraction kernels call this once per row).
+  const double aw = std::abs(w);
+  if (aw <= 0.3) {
+    // Near the ice point the series is cut short: its first 16 terms for |w| <= 0.04
+    // (T >= 262.6 K, every kernel's usual range) and 24 for |w| <= 0.1, where the terms left
+    // out add up to less than 2^-60 of the value (detail::ice_series_tail_bound; checked in
+    // tests/cpp/water/test_ice.cpp), far below its rounding: the tiers join within a few
+    // ulp, so the function stays smooth to rounding.
     static const auto e = detail::ice_series_coefficients();
-    constexpr std::size_t n = detail::ice_series_terms;
-    static_assert(n % 4 == 0, "the series is summed on four chains");
-    const double w2 = w * w, w4 = w2 * w2;
-    double s0 = e[n - 4], s1 = e[n - 3], s2 = e[n - 2], s3 = e[n - 1];
-    for (std::size_t j = n - 4; j >= 4; j -= 4) {
-      s0 = e[j - 4] + w4 * s0;
-      s1 = e[j - 3] + w4 * s1;
-      s2 = e[j - 2] + w4 * s2;
-      s3 = e[j - 1] + w4 * s3;
-    }
-    return w * ((s0 + w * s1) + w2 * (s2 + w * s3));
+    if (aw <= detail::ice_series_w16) return detail::ice_series_sum<16>(e, w);
+    if (aw <= detail::ice_series_w24) return detail::ice_series_sum<24>(e, w);
+    return detail::ice_series_sum<detail::ice_series_terms>(e, w);
   }
   static const std::array<double, 5> a = detail::enthalpy_power_coefficients();
   return (detail::enthalpy_over_t2_antiderivative(a, temperature) -

@@ -177,9 +177,16 @@ struct chain {
   double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0, e0 = 0, e1 = 0, e2 = 0;
   explicit chain(double x_) : x(x_) {
     low = x < 1.0;
-    ak = low ? harvie_j_low.data() : harvie_j_high.data();
     // One power per call: x^-0.8 = x^0.2 / x and x^-1.1 = x^-0.1 / x.
-    const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
+    set(low ? std::pow(x, 0.2) : std::pow(x, -0.1));
+  }
+  /// With x^0.2 given (`p02`, > 0): x^-0.1 = 1 / sqrt(x^0.2) on the upper piece.
+  chain(double x_, double p02) : x(x_) {
+    low = x < 1.0;
+    set(low ? p02 : 1.0 / std::sqrt(p02));
+  }
+  void set(double px) {
+    ak = low ? harvie_j_low.data() : harvie_j_high.data();
     z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
     dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
   }
@@ -226,6 +233,22 @@ inline void j3(const double* x, double* J, double* dJ, double* d2J) {
   q.finish<Second>(J[1], dJ[1], Second ? &d2J[1] : nullptr);
   r.finish<Second>(J[2], dJ[2], Second ? &d2J[2] : nullptr);
 }
+/// j3 at x, 2x and 4x from one power: (2x)^0.2 = 2^0.2 x^0.2, (4x)^0.2 = 4^0.2 x^0.2.
+template <bool Second>
+inline void j124(double x, double* J, double* dJ, double* d2J) {
+  constexpr double two_02 = 1.148698354997035;   // 2^0.2 (tests/cpp/models/test_pitzer_temperature_slope.cpp)
+  constexpr double four_02 = 1.3195079107728942;  // 4^0.2
+  const double p = std::pow(x, 0.2);
+  chain a(x, p), b(2.0 * x, two_02 * p), c(4.0 * x, four_02 * p);
+  for (int k = 20; k >= 0; --k) {
+    a.step<Second>(k);
+    b.step<Second>(k);
+    c.step<Second>(k);
+  }
+  a.finish<Second>(J[0], dJ[0], Second ? &d2J[0] : nullptr);
+  b.finish<Second>(J[1], dJ[1], Second ? &d2J[1] : nullptr);
+  c.finish<Second>(J[2], dJ[2], Second ? &d2J[2] : nullptr);
+}
 }  // namespace mixing_j_detail
 
 /// J(x), dJ/dx and, when `d2J` is not null, d2J/dx2 of the unsymmetrical mixing theory
@@ -258,6 +281,23 @@ inline void mixing_j3(const double* x, double* J, double* dJ, double* d2J = null
     mixing_j_detail::j3<true>(x, J, dJ, d2J);
   else
     mixing_j_detail::j3<false>(x, J, dJ, nullptr);
+}
+
+/// mixing_j at x, 2x and 4x (the charge products 1, 2 and 4 of the unsymmetrical pairs of
+/// ions of charges 1 and 2, x = 6 A_phi sqrt I) as mixing_j3 computes them, but with one
+/// power x^0.2 for the three arguments (scaled by 2^0.2 and 4^0.2) instead of three: the
+/// values differ from mixing_j's by the rounding of that scaling (a few ulp of the Chebyshev
+/// variable; tests/cpp/models/test_pitzer_temperature_slope.cpp bounds the difference).
+inline void mixing_j124(double x, double* J, double* dJ, double* d2J = nullptr) {
+  if (!(x > 0.0)) {
+    const double xs[3] = {x, 2.0 * x, 4.0 * x};
+    mixing_j3(xs, J, dJ, d2J);
+    return;
+  }
+  if (d2J)
+    mixing_j_detail::j124<true>(x, J, dJ, d2J);
+  else
+    mixing_j_detail::j124<false>(x, J, dJ, nullptr);
 }
 
 /// E-theta and E-theta' (Pitzer 1975, eqs. 23-24) of two like-signed ions whose charge

@@ -29,13 +29,16 @@
 /// (data::t_function), one logarithm in all. Work done once per evaluation: one
 /// exponential per distinct alpha (2, 1.4, 12) and one J(x) per distinct charge product
 /// (1, 2, 4) of the unsymmetrical mixing terms (the three J at once, on interleaved
-/// recurrences, when ions of charges 1 and 2 are mixed). The temperature slope of ln a_w
-/// (ln_water_activity_with_temperature_slope, for the freezing-point Newton) adds the slopes
+/// recurrences and from one power, when ions of charges 1 and 2 are mixed). The temperature
+/// slope of ln a_w (ln_water_activity_with_temperature_slope, for the freezing-point
+/// Newton) adds the slopes
 /// of A_phi and of the same parameters, once per temperature, and J''(x) on the same
 /// recurrences.
 ///
-/// The object caches the coefficients of the last temperature, so it is not meant to be
-/// shared between threads: each solve or batch thread owns its own.
+/// The object caches the coefficients (and their slopes) of the last two temperatures
+/// evaluated: a freezing-point solve evaluates the ice point and then the iterates, so the
+/// next row of a batch finds the ice point's coefficients still there. It is therefore not
+/// meant to be shared between threads: each solve or batch thread owns its own.
 
 #include <array>
 #include <cmath>
@@ -380,50 +383,69 @@ class pitzer_system {
     aphi_ = set.aphi;
   }
 
+  /// The coefficients at T from the two-slot cache (the slot not used last is refilled).
   const coefficients& at(double T) {
-    if (coef_.temperature == T) return coef_;
+    if (coef_[0].temperature == T) {
+      coef_last_ = 0;
+      return coef_[0];
+    }
+    if (coef_[1].temperature == T) {
+      coef_last_ = 1;
+      return coef_[1];
+    }
+    coef_last_ ^= 1;
+    coefficients& c = coef_[coef_last_];
     const t_basis basis(T);
-    coef_.temperature = T;
-    coef_.aphi = debye_huckel_osmotic_slope(T, aphi_);
+    c.temperature = T;
+    c.aphi = debye_huckel_osmotic_slope(T, aphi_);
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& p = pairs_[k];
       if (p.ext != nullptr) {
         // Extended form (data::extended_binary): C0 is C already; beta2 unused.
-        coef_.beta0[k] = p.ext->beta0(T);
-        coef_.beta1[k] = p.ext->beta1(T);
-        coef_.beta2[k] = 0.0;
-        coef_.c[k] = p.ext->c0(T);
-        coef_.c1[k] = p.ext->c1(T);
+        c.beta0[k] = p.ext->beta0(T);
+        c.beta1[k] = p.ext->beta1(T);
+        c.beta2[k] = 0.0;
+        c.c[k] = p.ext->c0(T);
+        c.c1[k] = p.ext->c1(T);
         continue;
       }
-      coef_.beta0[k] = basis(p.beta0);
-      coef_.beta1[k] = basis(p.beta1);
-      coef_.beta2[k] = p.two_two ? basis(p.beta2) : 0.0;
-      coef_.c[k] = basis(p.cphi) / p.c_scale;
+      c.beta0[k] = basis(p.beta0);
+      c.beta1[k] = basis(p.beta1);
+      c.beta2[k] = p.two_two ? basis(p.beta2) : 0.0;
+      c.c[k] = basis(p.cphi) / p.c_scale;
     }
     for (std::size_t k = 0; k < n_like_; ++k)
-      coef_.theta[k] = like_[k].has_theta ? basis(like_[k].theta) : 0.0;
-    for (std::size_t k = 0; k < n_triplets_; ++k) coef_.psi[k] = basis(triplets_[k].psi);
-    return coef_;
+      c.theta[k] = like_[k].has_theta ? basis(like_[k].theta) : 0.0;
+    for (std::size_t k = 0; k < n_triplets_; ++k) c.psi[k] = basis(triplets_[k].psi);
+    return c;
   }
 
-  /// The slopes of the coefficients of at(T), computed once per temperature.
+  /// The slopes of the coefficients of at(T), from a two-slot cache like at()'s.
   const coefficient_slopes& slopes_at(double T) {
-    if (slopes_.temperature == T) return slopes_;
+    if (slopes_[0].temperature == T) {
+      slopes_last_ = 0;
+      return slopes_[0];
+    }
+    if (slopes_[1].temperature == T) {
+      slopes_last_ = 1;
+      return slopes_[1];
+    }
+    slopes_last_ ^= 1;
+    coefficient_slopes& sl = slopes_[slopes_last_];
     const t_basis_slope d(T);
-    slopes_.temperature = T;
-    slopes_.aphi = debye_huckel_osmotic_slope_derivative(T, aphi_);
+    sl.temperature = T;
+    sl.aphi = debye_huckel_osmotic_slope_derivative(T, aphi_);
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& p = pairs_[k];
-      slopes_.beta0[k] = d(p.beta0);
-      slopes_.beta1[k] = d(p.beta1);
-      slopes_.beta2[k] = p.two_two ? d(p.beta2) : 0.0;
-      slopes_.c[k] = d(p.cphi) / p.c_scale;
+      sl.beta0[k] = d(p.beta0);
+      sl.beta1[k] = d(p.beta1);
+      sl.beta2[k] = p.two_two ? d(p.beta2) : 0.0;
+      sl.c[k] = d(p.cphi) / p.c_scale;
     }
     for (std::size_t k = 0; k < n_like_; ++k)
-      slopes_.theta[k] = like_[k].has_theta ? d(like_[k].theta) : 0.0;
-    for (std::size_t k = 0; k < n_triplets_; ++k) slopes_.psi[k] = d(triplets_[k].psi);
-    return slopes_;
+      sl.theta[k] = like_[k].has_theta ? d(like_[k].theta) : 0.0;
+    for (std::size_t k = 0; k < n_triplets_; ++k) sl.psi[k] = d(triplets_[k].psi);
+    return sl;
   }
 
   void check_slot(const char* where, std::size_t slot) const {
@@ -545,13 +567,13 @@ class pitzer_system {
       }
     };
     if (has_unsymmetrical_) {
-      // Ions of charges 1 and 2 mixed: J at the charge products 1, 2 and 4, all at once.
-      const double xs[3] = {s6 * 1, s6 * 2, s6 * 4};
+      // Ions of charges 1 and 2 mixed: J at the charge products 1, 2 and 4, all at once
+      // (one power for the three arguments, mixing_j124).
       double Js[3], dJs[3], d2Js[3];
-      mixing_j3(xs, Js, dJs, WithSlope ? d2Js : nullptr);
+      mixing_j124(s6, Js, dJs, WithSlope ? d2Js : nullptr);
       for (int c = 0; c < 3; ++c) {
         const int zz = 1 << c;
-        x[zz] = xs[c];
+        x[zz] = s6 * zz;
         J[zz] = Js[c];
         dJ[zz] = dJs[c];
         if constexpr (WithSlope) d2J[zz] = d2Js[c];
@@ -629,8 +651,9 @@ class pitzer_system {
   bool has_extended_ = false;  ///< a pair row in the extended form (no closed-form T slope)
   bool has_unsymmetrical_ = false;  ///< like-charged ions of charges 1 and 2 (E-theta)
   data::aphi_correlation aphi_ = data::aphi_correlation::clegg_rard_pitzer_1994;
-  coefficients coef_;
-  coefficient_slopes slopes_;
+  std::array<coefficients, 2> coef_;  ///< the last two temperatures (NaN: empty)
+  std::array<coefficient_slopes, 2> slopes_;
+  unsigned coef_last_ = 0, slopes_last_ = 0;  ///< slot used last
 };
 
 }  // namespace colligate::models::detail
