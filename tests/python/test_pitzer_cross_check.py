@@ -42,6 +42,14 @@ def test_mean_activity_coefficient_matches_an_independent_implementation(row):
     assert gamma == pytest.approx(row.mean_activity_coefficient, rel=REL_TOL)
 
 
+@pytest.mark.parametrize("row", list(ROWS.itertuples(index=False)),
+                         ids=[f"{r.salt}-{r.molality_mol_per_kg}" for r in ROWS.itertuples()])
+def test_osmotic_coefficient_matches_an_independent_implementation(row):
+    s = cg.Solution.from_molalities({row.salt: row.molality_mol_per_kg})
+    phi = cg.osmotic_coefficient(s, row.temperature_K, "pitzer", parameter_set="harvie_1984")
+    assert phi == pytest.approx(row.osmotic_coefficient, rel=REL_TOL)
+
+
 def test_every_salt_of_the_harvie_set_with_a_solute_record_is_cross_checked():
     assert set(ROWS.salt) == {"NaCl", "KCl", "CaCl2", "MgCl2", "Na2SO4", "K2SO4", "MgSO4"}
     assert (ROWS.groupby("salt").size() >= 3).all()
