@@ -73,6 +73,7 @@ def main() -> None:
             rows.append({"salt": salt, "molality_mol_per_kg": m, "temperature_K": T,
                          "mean_activity_coefficient": f"{np.exp(ln_gamma):.10g}",
                          "osmotic_coefficient": f"{phi:.10g}",
+                         "used_in_fit": "no",
                          "source": f"pytzer {pytzer.__version__} (float64) with bC_{c}_{a}_HMW84 "
                                    "(Harvie, Moller & Weare 1984, Table 1)"
                                    + (" but beta1 = 0.2664 (Pitzer & Mayorga 1973)" if salt == "NaCl" else "")
