@@ -249,6 +249,8 @@ def food_freezing_time(food: Any = None, *, method: str = "pham", shape: str, si
         prefer it when u(h)/h exceeds a few per cent, where the time's distribution is skewed
         towards long times.
 
+    Notes
+    -----
     Freezing times are estimates; for food safety defer to validated process controls,
     measured product temperatures and local codes.
     """
