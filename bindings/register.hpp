@@ -13,6 +13,11 @@
 #include "colligate/core/validity.hpp"
 #include "colligate/models/builtin_models.hpp"
 
+namespace colligate::fit {
+struct uncertain_value;      // fit/propagation.hpp
+struct monte_carlo_result;   // fit/propagation.hpp
+}  // namespace colligate::fit
+
 namespace colligate_bindings {
 
 namespace py = pybind11;
@@ -26,6 +31,15 @@ inline colligate::models::model_choice model_with_set(const std::string& model,
 
 /// One solute record as a dict (SI units, source keys).
 py::dict solute_row(const colligate::data::solute_record& r);
+
+/// A standard uncertainty (value, std, degrees_of_freedom) as a dict.
+py::dict uncertain_dict(const colligate::fit::uncertain_value& v);
+
+/// A Monte Carlo propagation as a dict: the value, the draws' std and mean, the draws
+/// themselves ("samples"), the constants drawn and those without a stated uncertainty.
+py::dict monte_carlo_dict(double value, const colligate::fit::monte_carlo_result& r,
+                          const std::vector<std::string>& constants,
+                          const std::vector<std::string>& not_stated);
 
 /// Declares every bound class (name, docstring) before any definition (declare_types.cpp).
 void declare_types(py::module_& m);

@@ -92,6 +92,14 @@ py::dict result_dict(const th::simulation_result& r) {
   return d;
 }
 
+th::freezing_time_method time_method_from_string(const std::string& s) {
+  if (s == "plank") return th::freezing_time_method::plank;
+  if (s == "pham") return th::freezing_time_method::pham;
+  throw colligate::invalid_input("method = '" + s + "': valid methods are plank, pham");
+}
+
+}  // namespace
+
 py::dict uncertain_dict(const colligate::fit::uncertain_value& v) {
   py::dict d;
   d["value"] = v.value;
@@ -114,14 +122,6 @@ py::dict monte_carlo_dict(double value, const colligate::fit::monte_carlo_result
   d["not_stated"] = not_stated;
   return d;
 }
-
-th::freezing_time_method time_method_from_string(const std::string& s) {
-  if (s == "plank") return th::freezing_time_method::plank;
-  if (s == "pham") return th::freezing_time_method::pham;
-  throw colligate::invalid_input("method = '" + s + "': valid methods are plank, pham");
-}
-
-}  // namespace
 
 void register_freezing_time(py::module_& m) {
   m.def(

@@ -54,10 +54,7 @@ py::object record_uncertainty(const data::solute_record& r) {
 }
 
 py::dict linear_dict(const eq::prediction_uncertainty& r) {
-  py::dict d;
-  d["value"] = r.result.value;
-  d["std"] = r.result.standard_uncertainty;
-  d["degrees_of_freedom"] = r.result.degrees_of_freedom;
+  py::dict d = uncertain_dict(r.result);
   d["sensitivities"] = r.sensitivities;
   d["constants"] = r.constants;
   d["not_stated"] = r.not_stated;
@@ -146,7 +143,6 @@ void register_uncertainty(py::module_& m) {
         if (method != "monte_carlo")
           throw colligate::invalid_input("propagate_uncertainty: method = '" + method +
                                          "': must be 'linear' or 'monte_carlo'");
-        py::dict d;
         colligate::fit::monte_carlo_result r;
         double value = 0.0;
         std::vector<std::string> constants, not_stated;
@@ -158,15 +154,7 @@ void register_uncertainty(py::module_& m) {
           for (std::size_t k = 0; k < c.constants.size(); ++k) constants.push_back(c.label(k, s));
           not_stated = c.not_stated;
         }
-        d["value"] = value;
-        d["std"] = r.standard_deviation;
-        d["mean"] = r.mean;
-        d["degrees_of_freedom"] = 0;
-        d["draws"] = r.draws;
-        d["finite_draws"] = r.finite_draws;
-        d["samples"] = py::array_t<double>(static_cast<py::ssize_t>(r.values.size()), r.values.data());
-        d["constants"] = constants;
-        d["not_stated"] = not_stated;
+        py::dict d = monte_carlo_dict(value, r, constants, not_stated);
         d["reason"] = std::string();
         return d;
       },

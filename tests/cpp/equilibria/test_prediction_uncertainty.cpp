@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "../crc_reference.hpp"
+#include "../uncertainty_checks.hpp"
 #include "colligate/colligate.hpp"
 #include "colligate/batch/uncertainty_kernels.hpp"
 #include "colligate/equilibria/prediction_uncertainty.hpp"
@@ -19,6 +20,9 @@ using namespace colligate;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
 using equilibria::predicted_quantity;
+using colligate_test::central_difference;
+using colligate_test::check_delta_matches_monte_carlo;
+using colligate_test::crc_sucrose_fit;
 
 namespace {
 
@@ -26,37 +30,9 @@ Eigen::VectorXd vec(const std::vector<double>& v) {
   return Eigen::Map<const Eigen::VectorXd>(v.data(), static_cast<Eigen::Index>(v.size()));
 }
 
-/// A Norrish fit (K, optionally K3) to the CRC Handbook sucrose freezing points to 42 wt%
-/// (source key crc_concentrative, printed to 0.01 K): a fitted sucrose-like solute.
-fit::fit_result crc_sucrose_fit(bool k3) {
-  std::vector<double> m, tf;
-  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
-    if (row.at("solute") != "sucrose" || std::stod(row.at("mass_percent")) > 42.0) continue;
-    if (colligate_test::doubtful_crc_row(row)) continue;
-    m.push_back(std::stod(row.at("molality_mol_per_kg")));
-    tf.push_back(constants::ice_point - std::stod(row.at("depression_K")));
-  }
-  fit::norrish_fit_options o;
-  o.fit_k3 = k3;
-  return fit::fit_norrish_freezing_point(vec(m), vec(tf), Eigen::VectorXd(), o);
-}
-
 data::solute_table table_with(const std::vector<data::solute_record>& extra) {
   std::vector<data::solute_record> recs = extra;
   return data::solute_table(std::move(recs));
-}
-
-/// Central difference of the plain prediction in one constant (test only: the library
-/// itself never differentiates numerically).
-double central_difference(predicted_quantity q, const solution& s, double T, std::size_t k,
-                          double h, double bound = 0.0) {
-  const auto c = equilibria::uncertain_constants(s);
-  Eigen::VectorXd p = c.values;
-  p[static_cast<Eigen::Index>(k)] += h;
-  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", bound);
-  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
-  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", bound);
-  return (up - down) / (2.0 * h);
 }
 
 }  // namespace
@@ -109,7 +85,7 @@ TEST_CASE("Analytic sensitivities equal central differences of the plain predict
     INFO(equilibria::to_string(p.q));
     for (std::size_t k = 0; k < 3; ++k) {
       const double h = 1e-3 * std::max(1.0, std::abs(equilibria::uncertain_constants(s).values[k]));
-      const double fd = central_difference(p.q, s, p.T, k, h);
+      const double fd = central_difference(p.q, s, p.T, k, h, "norrish");
       INFO("constant " << u.constants[k] << ": analytic " << u.sensitivities[k] << ", difference " << fd);
       // central difference error O(h^2) plus the solvers' 1e-9 K / 1e-12 kg tolerances
       CHECK_THAT(u.sensitivities[k], WithinRel(fd, 1e-5) || WithinAbs(fd, 1e-9));
@@ -118,7 +94,7 @@ TEST_CASE("Analytic sensitivities equal central differences of the plain predict
   }
   // Bound water: the freezing point of the solvent left over
   const auto ub = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "norrish", 0.1);
-  CHECK_THAT(ub.sensitivities[0], WithinRel(central_difference(predicted_quantity::freezing_point, s, 0.0, 0, 1e-4, 0.1), 1e-5));
+  CHECK_THAT(ub.sensitivities[0], WithinRel(central_difference(predicted_quantity::freezing_point, s, 0.0, 0, 1e-4, "norrish", 0.1), 1e-5));
 }
 
 TEST_CASE("Delta method and Monte Carlo agree on a fitted sucrose-like solute", "[uncertainty][monte_carlo]") {
@@ -136,15 +112,7 @@ TEST_CASE("Delta method and Monte Carlo agree on a fitted sucrose-like solute", 
     const auto mc = equilibria::propagate_monte_carlo(q, s, T, "norrish", 0.0, 100000, 20261202u);
     INFO(equilibria::to_string(q) << ": delta " << lin.result.standard_uncertainty << ", Monte Carlo "
                                   << mc.standard_deviation);
-    REQUIRE(mc.finite_draws == 100000);
-    CHECK_THAT(mc.standard_deviation, WithinRel(lin.result.standard_uncertainty, 0.05));
-    CHECK_THAT(mc.mean, WithinAbs(lin.result.value, 0.05 * lin.result.standard_uncertainty + 1e-12));
-    // The normal-law interval against the sample one (the draws are normal in p).
-    fit::uncertain_value normal = lin.result;
-    normal.degrees_of_freedom = 0;
-    const auto a = normal.coverage_interval(0.95);
-    const auto b = mc.interval(0.95);
-    CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
+    check_delta_matches_monte_carlo(lin, mc, 100000);
     CHECK(lin.result.degrees_of_freedom == r.degrees_of_freedom);
   }
 }
@@ -240,17 +208,6 @@ data::solute_record crc_salt_record(const fit::fit_result& r) {
                                    238.15, 278.15, "test");
 }
 
-double pitzer_central_difference(predicted_quantity q, const solution& s, double T, std::size_t k,
-                                 double h) {
-  const auto c = equilibria::uncertain_constants(s);
-  Eigen::VectorXd p = c.values;
-  p[static_cast<Eigen::Index>(k)] += h;
-  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "pitzer", 0.0);
-  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
-  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "pitzer", 0.0);
-  return (up - down) / (2.0 * h);
-}
-
 }  // namespace
 
 TEST_CASE("Pitzer slopes of ln a_w by T and by water equal central differences", "[uncertainty][pitzer]") {
@@ -317,7 +274,7 @@ TEST_CASE("Pitzer sensitivities of a fitted salt equal central differences", "[u
     INFO(equilibria::to_string(p.q));
     for (std::size_t k = 0; k < 3; ++k) {
       // h = 1e-4: C-phi is about 1e-3, so a larger step meets the curvature of the ice fraction
-      const double fd = pitzer_central_difference(p.q, s, p.T, k, 1e-4);
+      const double fd = central_difference(p.q, s, p.T, k, 1e-4, "pitzer");
       INFO("constant " << u.constants[k] << ": analytic " << u.sensitivities[k] << ", difference " << fd);
       // ln a_w is affine in the constants; O(h^2) of the solvers' paths and their 1e-9 K tolerance
       CHECK_THAT(u.sensitivities[k], WithinRel(fd, 1e-5) || WithinAbs(fd, 1e-9));
@@ -353,14 +310,7 @@ TEST_CASE("Delta method and Monte Carlo agree on a fitted Pitzer salt", "[uncert
     const auto mc = equilibria::propagate_monte_carlo(p.q, s, p.T, "pitzer", 0.0, 100000, 20261202u);
     INFO(equilibria::to_string(p.q) << ": delta " << lin.result.standard_uncertainty << ", Monte Carlo "
                                     << mc.standard_deviation);
-    REQUIRE(mc.finite_draws == 100000);
-    CHECK_THAT(mc.standard_deviation, WithinRel(lin.result.standard_uncertainty, 0.05));
-    CHECK_THAT(mc.mean, WithinAbs(lin.result.value, 0.05 * lin.result.standard_uncertainty + 1e-12));
-    fit::uncertain_value normal = lin.result;
-    normal.degrees_of_freedom = 0;
-    const auto a = normal.coverage_interval(0.95);
-    const auto b = mc.interval(0.95);
-    CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
+    check_delta_matches_monte_carlo(lin, mc, 100000);
   }
 }
 
@@ -486,16 +436,6 @@ data::solute_table ross_table() {
   return data::solute_table(std::move(records));
 }
 
-double ross_central_difference(predicted_quantity q, const solution& s, double T, std::size_t k, double h) {
-  const auto c = equilibria::uncertain_constants(s);
-  Eigen::VectorXd p = c.values;
-  p[static_cast<Eigen::Index>(k)] += h;
-  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "ross", 0.0);
-  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
-  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "ross", 0.0);
-  return (up - down) / (2.0 * h);
-}
-
 }  // namespace
 
 TEST_CASE("Ross sensitivities of a salt + sugar mixture equal central differences", "[uncertainty][ross]") {
@@ -522,7 +462,7 @@ TEST_CASE("Ross sensitivities of a salt + sugar mixture equal central difference
     for (std::size_t k = 0; k < 5; ++k) {
       // steps: 1e-4 for the Pitzer constants (C-phi is about 1e-3), 1e-3 |p| for K and K3
       const double h = k < 3 ? 1e-4 : 1e-3 * std::abs(equilibria::uncertain_constants(s).values[k]);
-      const double fd = ross_central_difference(p.q, s, p.T, k, h);
+      const double fd = central_difference(p.q, s, p.T, k, h, "ross");
       INFO("constant " << u.constants[k] << ": analytic " << u.sensitivities[k] << ", difference " << fd);
       // ln a_w is affine in the Pitzer constants and in K, K3 (single sugar); O(h^2) of the
       // solvers' paths and their 1e-9 K / 1e-12 kg tolerances
@@ -547,14 +487,7 @@ TEST_CASE("Delta method and Monte Carlo agree on a salt + sugar mixture under Ro
     const auto mc = equilibria::propagate_monte_carlo(p.q, s, p.T, "ross", 0.0, 100000, 20261202u);
     INFO(equilibria::to_string(p.q) << ": delta " << lin.result.standard_uncertainty << ", Monte Carlo "
                                     << mc.standard_deviation);
-    REQUIRE(mc.finite_draws == 100000);
-    CHECK_THAT(mc.standard_deviation, WithinRel(lin.result.standard_uncertainty, 0.05));
-    CHECK_THAT(mc.mean, WithinAbs(lin.result.value, 0.05 * lin.result.standard_uncertainty + 1e-12));
-    fit::uncertain_value normal = lin.result;
-    normal.degrees_of_freedom = 0;
-    const auto a = normal.coverage_interval(0.95);
-    const auto b = mc.interval(0.95);
-    CHECK_THAT(a.second - a.first, WithinRel(b.second - b.first, 0.05));
+    check_delta_matches_monte_carlo(lin, mc, 100000);
     // two fits with their own degrees of freedom: Welch-Satterthwaite gives at least the
     // smaller of the two
     CHECK(lin.result.degrees_of_freedom > 0);

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "../crc_reference.hpp"
+#include "../uncertainty_checks.hpp"
 #include "colligate/data/builtin_solutes.hpp"
 #include "colligate/equilibria/prediction_uncertainty.hpp"
 #include "colligate/fit/fitters.hpp"
@@ -15,6 +16,7 @@ using namespace colligate;
 using Catch::Matchers::WithinAbs;
 using Catch::Matchers::WithinRel;
 using equilibria::predicted_quantity;
+using colligate_test::central_difference;
 
 namespace {
 
@@ -35,16 +37,6 @@ fit::fit_result crc_glucose_effective_fit(bool fit_b) {
   return fit::fit_effective_solute_freezing(
       Eigen::Map<const Eigen::VectorXd>(w.data(), static_cast<Eigen::Index>(w.size())),
       Eigen::Map<const Eigen::VectorXd>(tf.data(), static_cast<Eigen::Index>(tf.size())), Eigen::VectorXd(), o);
-}
-
-double central_difference(predicted_quantity q, const solution& s, double T, std::size_t k, double h) {
-  const auto c = equilibria::uncertain_constants(s);
-  Eigen::VectorXd p = c.values;
-  p[static_cast<Eigen::Index>(k)] += h;
-  const double up = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", 0.0);
-  p[static_cast<Eigen::Index>(k)] -= 2.0 * h;
-  const double down = equilibria::predict(q, equilibria::with_constants(s, c, p), T, "norrish", 0.0);
-  return (up - down) / (2.0 * h);
 }
 
 }  // namespace
@@ -92,7 +84,7 @@ TEST_CASE("Molar-mass sensitivities under Norrish equal central differences", "[
     for (; k < u.constants.size(); ++k)
       if (u.constants[k] == "my_solids.molar_mass") break;
     REQUIRE(k < u.constants.size());
-    const double fd = central_difference(p.q, s, p.T, k, 1e-4 * r.params[0]);
+    const double fd = central_difference(p.q, s, p.T, k, 1e-4 * r.params[0], "norrish");
     INFO("analytic " << u.sensitivities[static_cast<Eigen::Index>(k)] << ", difference " << fd);
     // central difference error O(h^2) plus the solvers' 1e-9 K / 1e-12 kg tolerances
     CHECK_THAT(u.sensitivities[static_cast<Eigen::Index>(k)], WithinRel(fd, 1e-5));

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "../crc_reference.hpp"
+#include "../uncertainty_checks.hpp"
 #include "colligate/equilibria/prediction_uncertainty.hpp"
 #include "colligate/fit/fitters.hpp"
 #include "colligate/thermal/freezing_time_uncertainty.hpp"
@@ -30,18 +31,7 @@ double richardson(const std::function<double(double)>& f, double x, double h) {
 /// rows of tests/reference/crc_freezing_points.csv, printed to 0.01 K; doubtful rows left
 /// out): the fitted solute of the product below.
 data::solute_record crc_fitted_sucrose() {
-  std::vector<double> m, tf;
-  for (const auto& row : colligate_test::read_reference("crc_freezing_points.csv")) {
-    if (row.at("solute") != "sucrose" || std::stod(row.at("mass_percent")) > 42.0) continue;
-    if (colligate_test::doubtful_crc_row(row)) continue;
-    m.push_back(std::stod(row.at("molality_mol_per_kg")));
-    tf.push_back(constants::ice_point - std::stod(row.at("depression_K")));
-  }
-  fit::norrish_fit_options o;
-  o.fit_k3 = true;
-  const auto r = fit::fit_norrish_freezing_point(
-      Eigen::Map<const Eigen::VectorXd>(m.data(), static_cast<Eigen::Index>(m.size())),
-      Eigen::Map<const Eigen::VectorXd>(tf.data(), static_cast<Eigen::Index>(tf.size())), Eigen::VectorXd(), o);
+  const auto r = colligate_test::crc_sucrose_fit(true);
   REQUIRE(r.success());
   // molar mass of sucrose 0.3422965 kg/mol (common practice, IUPAC atomic weights)
   return fit::norrish_solute_record(r, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test");
