@@ -421,24 +421,47 @@ def main(argv: Sequence[str] | None = None) -> int:
         return int(exc.code or 0) if not isinstance(exc.code, str) else EXIT_ERROR
     except BrokenPipeError:
         return _stdout_gone()
-    except (ValueError, OSError, RuntimeError, ArithmeticError) as exc:
-        # RecipeError, colligate.InvalidInputError, OutputPathError, InputFileError and
-        # OutOfValidityRangeError are ValueErrors; their messages already name the field
-        # and range. A solver failure (RuntimeError) is reported the same way. Every problem
-        # of a recipe is listed, so errors get more room than warnings.
-        try:
-            print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
-        except KeyboardInterrupt:
+    except Exception as exc:
+        if _caused_by_interrupt(exc):
+            # A Ctrl-C that landed inside an extension module's initialisation (ImportError
+            # "initialization failed") or inside a clean-up (an error raised while the
+            # interrupt unwound) is still a Ctrl-C.
             return _interrupted()
-        return EXIT_ERROR
-    except Exception as exc:  # a bug in colligate: one line, details on request
+        return _failed(exc)
+
+
+def _caused_by_interrupt(exc: BaseException) -> bool:
+    """True when a KeyboardInterrupt is in the exception's chain (cause or context)."""
+    seen: set[int] = set()
+    e: BaseException | None = exc
+    while e is not None and id(e) not in seen:
+        if isinstance(e, KeyboardInterrupt):
+            return True
+        seen.add(id(e))
+        e = e.__cause__ or e.__context__
+    return False
+
+
+def _failed(exc: Exception) -> int:
+    """The one-line message and exit status of a failure that is not a Ctrl-C: status 2 for
+    a problem of the input or the machine, 3 for a bug in colligate."""
+    try:
         if os.environ.get("COLLIGATE_TRACEBACK"):
             import traceback
 
-            traceback.print_exc()
+            traceback.print_exception(type(exc), exc, exc.__traceback__)
+        if isinstance(exc, (ValueError, OSError, RuntimeError, ArithmeticError)):
+            # RecipeError, colligate.InvalidInputError, OutputPathError, InputFileError and
+            # OutOfValidityRangeError are ValueErrors; their messages already name the field
+            # and range. A solver failure (RuntimeError) is reported the same way. Every
+            # problem of a recipe is listed, so errors get more room than warnings.
+            print(f"{PROG}: error: {_short(exc, 2000)}", file=sys.stderr)
+            return EXIT_ERROR
         print(f"{PROG}: internal error: {type(exc).__name__}: {_short(exc)} (please report it; set "
               "COLLIGATE_TRACEBACK=1 to see where)", file=sys.stderr)
         return EXIT_INTERNAL
+    except KeyboardInterrupt:
+        return _interrupted()
 
 
 if __name__ == "__main__":  # pragma: no cover

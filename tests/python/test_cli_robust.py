@@ -204,6 +204,41 @@ def test_an_internal_error_is_one_line_with_its_own_status(tmp_path, capsys, mon
     assert sorted(os.listdir(tmp_path)) == ["r.toml"]
 
 
+@pytest.mark.parametrize("wrapped", [
+    # a Ctrl-C during an extension module's initialisation reaches Python as this ImportError
+    # (seen with matplotlib._image when the signal came while the demo imported it)
+    lambda: ImportError("initialization failed"),
+    # an error raised by a clean-up while the interrupt unwound
+    lambda: OSError(9, "Bad file descriptor"),
+])
+def test_an_error_caused_by_ctrl_c_is_reported_as_the_interrupt(tmp_path, capsys, monkeypatch, wrapped):
+    import colligate.report as report
+
+    def interrupted_import(*args, **kwargs):
+        try:
+            raise KeyboardInterrupt
+        except KeyboardInterrupt as exc:
+            raise wrapped() from exc
+
+    monkeypatch.setattr(report, "build_report", interrupted_import)
+    code, out, err = run(capsys, "report", str(write_recipe(tmp_path)), "--plot", str(tmp_path / "p.png"))
+    assert code == cli.EXIT_INTERRUPTED
+    assert err == "colligate: interrupted\n"
+    assert out == ""
+    assert sorted(os.listdir(tmp_path)) == ["r.toml"]
+
+
+def test_an_import_error_without_ctrl_c_stays_an_internal_error(tmp_path, capsys, monkeypatch):
+    import colligate.report as report
+
+    def broken(*args, **kwargs):
+        raise ImportError("initialization failed (simulated)")
+
+    monkeypatch.setattr(report, "build_report", broken)
+    code, out, err = run(capsys, "report", str(write_recipe(tmp_path)))
+    one_line_error(code, err, "internal error: ImportError", "simulated", status=cli.EXIT_INTERNAL)
+
+
 def test_fit_refuses_plot_and_solute_on_one_path_before_reading_anything(tmp_path, capsys):
     same = tmp_path / "x.out"
     code, out, err = run(capsys, "fit", str(tmp_path / "not_there.csv"), "--model", "norrish",
