@@ -230,11 +230,16 @@ def _write_temporary(target: str, real: str, writer: Callable[[IO[bytes]], None]
 
     ``on_created(tmp)`` records the new file with its owner (the :class:`OutputSet`) in the
     same step that creates it: Ctrl-C is held back from the ``os.open`` until the file is
-    recorded, so an interrupt can never leave a temporary file that nobody will remove."""
+    recorded, so an interrupt can never leave a temporary file that nobody will remove.
+    From the moment the file exists every failure removes it, including a Ctrl-C that was
+    held back and surfaces only after the mask is lifted (Python raises it at the next
+    bytecode, which may lie past the call that lifted the mask)."""
     folder = os.path.dirname(os.path.abspath(real))
     base = os.path.basename(real)
+    created: Optional[str] = None
     fh = None
     old = _block_interrupts()
+    blocked = True
     try:
         while True:
             tmp = os.path.join(folder, f".{base}.{secrets.token_hex(6)}.tmp")
@@ -247,22 +252,15 @@ def _write_temporary(target: str, real: str, writer: Callable[[IO[bytes]], None]
             except OSError as exc:
                 raise OutputPathError(
                     f"{what} '{target}': cannot create a file in directory '{folder}' ({exc.strerror or exc})") from None
+        created = tmp
         try:
             fh = os.fdopen(fd, "wb")
         except BaseException:
             os.close(fd)
-            _remove(tmp)
             raise
         on_created(tmp)
-    finally:
-        try:
-            _restore_interrupts(old)  # a Ctrl-C held back arrives here, after the file is recorded
-        except BaseException:
-            if fh is not None:
-                fh.close()
-                _remove(tmp)
-            raise
-    try:
+        blocked = False
+        _restore_interrupts(old)  # a Ctrl-C held back arrives here or just after: cleaned below
         with fh:
             try:
                 writer(fh)
@@ -282,8 +280,17 @@ def _write_temporary(target: str, real: str, writer: Callable[[IO[bytes]], None]
                 except OSError:
                     pass
     except BaseException:
-        _remove(tmp)
+        if fh is not None and not fh.closed:
+            try:
+                fh.close()
+            except OSError:
+                pass
+        if created is not None:
+            _remove(created)
         raise
+    finally:
+        if blocked:
+            _restore_interrupts(old)
     return tmp
 
 
@@ -374,8 +381,9 @@ class OutputSet:
         try:
             _write_temporary(target, real, writer, what, record)
         except BaseException:
-            if item in self._staged:  # its file is already removed
+            if item in self._staged:  # _write_temporary removed its file; removing again is harmless
                 self._staged.remove(item)
+                _remove(item.tmp)
             raise
         return target
 

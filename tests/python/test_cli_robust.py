@@ -231,6 +231,8 @@ def test_an_error_caused_by_ctrl_c_is_reported_as_the_interrupt(tmp_path, capsys
 def test_an_import_error_without_ctrl_c_stays_an_internal_error(tmp_path, capsys, monkeypatch):
     import colligate.report as report
 
+    monkeypatch.delenv("COLLIGATE_TRACEBACK", raising=False)
+
     def broken(*args, **kwargs):
         raise ImportError("initialization failed (simulated)")
 
