@@ -534,3 +534,86 @@ TEST_CASE("Batch rows under Ross equal the scalar path at any thread count", "[u
     }
   }
 }
+
+TEST_CASE("A brine that crystallises a salt: uncertain predictions follow the plain calls", "[uncertainty][pitzer][saturation]") {
+  // 25 wt% NaCl (5.703 mol/kg) is richer in salt than the NaCl eutectic composition
+  // (23.3 wt%, common practice): hydrohalite forms before ice, so the plain freezing point
+  // is its crystallisation temperature; 30 wt% NaCl (7.333 mol/kg) is above the solubility
+  // at 25 C (6.15 mol/kg, CRC Handbook aqueous solubility table, from memory), so the plain
+  // a_w is that of the saturated liquid. Predictions with uncertainty give the same values
+  // by default, and the metastable ones when salts may not crystallise.
+  const auto brine25 = solution::from_molalities({{"NaCl", 0.25 / 0.75 / 0.0584428}});
+  const auto brine30 = solution::from_molalities({{"NaCl", 0.30 / 0.70 / 0.0584428}});
+  equilibria::ice_curve curve(brine25, "pitzer", 0.0);
+  const double first_solid = equilibria::first_solid_temperature_checked(curve, range_policy::extrapolate).value;
+  const double ice_metastable = equilibria::freezing_point(brine25, "pitzer").temperature;
+  REQUIRE(first_solid - ice_metastable > 10.0);
+  models::ln_water_activity_evaluator ln_aw(models::model_choice("pitzer"), brine30);
+  const double aw_saturated =
+      equilibria::water_activity_at_equilibrium(ln_aw, brine30, 298.15, range_policy::extrapolate).value;
+  const double aw_metastable = models::water_activity(brine30, 298.15, "pitzer").value;
+  REQUIRE(aw_saturated - aw_metastable > 0.02);
+
+  SECTION("no uncertain constant: the plain value with u = 0") {
+    const auto fp = equilibria::propagate_linear(predicted_quantity::freezing_point, brine25, 0.0, "pitzer");
+    CHECK(fp.result.value == first_solid);
+    CHECK(fp.result.standard_uncertainty == 0.0);
+    const auto aw = equilibria::propagate_linear(predicted_quantity::water_activity, brine30, 298.15, "pitzer");
+    CHECK(aw.result.value == aw_saturated);
+    CHECK(aw.result.standard_uncertainty == 0.0);
+    CHECK(equilibria::predict(predicted_quantity::freezing_point, brine25, 0.0, "pitzer", 0.0) == first_solid);
+    CHECK(equilibria::predict(predicted_quantity::water_activity, brine30, 298.15, "pitzer", 0.0) == aw_saturated);
+    // metastable on request
+    CHECK(equilibria::propagate_linear(predicted_quantity::freezing_point, brine25, 0.0, "pitzer", 0.0, false)
+              .result.value == ice_metastable);
+    CHECK(equilibria::propagate_linear(predicted_quantity::water_activity, brine30, 298.15, "pitzer", 0.0, false)
+              .result.value == aw_metastable);
+  }
+
+  SECTION("a fitted salt: no closed form, Monte Carlo on the equilibrium state") {
+    // the salt fitted to the CRC NaCl freezing points (crc_salt_record), same ions as NaCl
+    const auto r = crc_salt_fit();
+    REQUIRE(r.success());
+    const auto table = table_with({crc_salt_record(r)});
+    const auto s = solution::from_molalities({{"my_salt", 0.25 / 0.75 / 0.0584428}}, 1.0, table);
+    CHECK_THROWS_WITH(equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "pitzer"),
+                      Catch::Contains("crystallises before ice") && Catch::Contains("Monte Carlo"));
+    const double plain = equilibria::predict(predicted_quantity::freezing_point, s, 0.0, "pitzer", 0.0);
+    const double metastable = equilibria::predict(predicted_quantity::freezing_point, s, 0.0, "pitzer", 0.0, false);
+    REQUIRE(plain - metastable > 10.0);
+    const auto mc = equilibria::propagate_monte_carlo(predicted_quantity::freezing_point, s, 0.0, "pitzer", 0.0,
+                                                      400, 20261203u);
+    REQUIRE(mc.finite_draws == 400);
+    // the draws scatter about the salt's crystallisation temperature, far from the ice value
+    CHECK(std::abs(mc.mean - plain) < 0.1 * (plain - metastable));
+    // the metastable value keeps its closed form
+    const auto lin = equilibria::propagate_linear(predicted_quantity::freezing_point, s, 0.0, "pitzer", 0.0, false);
+    CHECK(lin.result.value == metastable);
+    CHECK(lin.result.standard_uncertainty > 0.0);
+  }
+
+  SECTION("batch: the value of the plain batch call, u = NaN where a salt crystallises") {
+    const auto r = crc_salt_fit();
+    REQUIRE(r.success());
+    auto records = data::builtin_solutes().records();
+    records.push_back(crc_salt_record(r));
+    const data::solute_table table(std::move(records));
+    const std::vector<std::string> species{"my_salt"};
+    const std::vector<double> m{1.0, 0.25 / 0.75 / 0.0584428, 0.30 / 0.70 / 0.0584428};
+    const auto b = batch::solution_batch::from_molalities(species, m.data(), 3, table);
+    batch::options o;
+    std::vector<double> plain(3), v(3), u(3);
+    std::vector<std::int32_t> dof(3);
+    std::vector<std::uint8_t> st(3), st_plain(3);
+    batch::predictions_with_uncertainty(b, predicted_quantity::water_activity, 298.15, "pitzer", o, v.data(),
+                                        u.data(), dof.data(), st.data());
+    batch::water_activities(b, 298.15, "pitzer", o, plain.data(), st_plain.data());
+    for (std::size_t i = 0; i < 3; ++i) {
+      INFO("row " << i);
+      CHECK(v[i] == plain[i]);
+    }
+    CHECK(std::isfinite(u[0]));
+    CHECK(std::isfinite(u[1]));  // 25 wt% is below the solubility at 25 C
+    CHECK(std::isnan(u[2]));     // 30 wt%: NaCl crystallises
+  }
+}

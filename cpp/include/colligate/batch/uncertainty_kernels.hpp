@@ -17,8 +17,10 @@
 /// A batch whose species carry no stated uncertainty gets u = 0 ("nothing propagated").
 /// A model without closed-form sensitivities to the batch's uncertain constants is a caller
 /// mistake and throws before any row runs (use the scalar Monte Carlo propagation). A row
-/// whose state has no closed form (an ice fraction below a salt's saturation, where a salt
-/// has crystallised) keeps its value and gets u = NaN; its status is unchanged, so the
+/// whose state has no closed form (a salt crystallises: an ice fraction below a salt's
+/// saturation, a brine that forms a salt before ice, an a_w above a salt's solubility;
+/// opt.salts_crystallise false asks for the metastable values, which keep their closed
+/// forms) keeps the plain batch call's value and gets u = NaN; its status is unchanged, so the
 /// caller tells it from a failed row by the finite value.
 
 #include <cmath>
@@ -76,6 +78,7 @@ inline void predictions_with_uncertainty(const solution_batch& b, equilibria::pr
           const solution& s = ws.load(b, i);
           const double bound = bound_water_kg(s, opt.bound_water_fraction_of_water);
           const auto state_at = [&](double T) { return ws.curve(m, bound).at(T); };
+          const auto salt_first = [&]() { return ws.curve(m, bound).salt_first(); };
           double on_stack[max_stack_constants];
           std::vector<double> on_heap;
           double* dy = on_stack;
@@ -85,7 +88,8 @@ inline void predictions_with_uncertainty(const solution_batch& b, equilibria::pr
           }
           try {
             const auto r = eq::detail::propagate_linear_prepared(*plan, quantity, s, temperature, m, bound,
-                                                                 ws.evaluator(m), state_at, dy);
+                                                                 ws.evaluator(m), state_at, salt_first,
+                                                                 opt.salts_crystallise, dy);
             v = r.value;
             u = r.standard_uncertainty;
             dof = r.degrees_of_freedom;
@@ -110,7 +114,7 @@ inline void predictions_with_uncertainty(const solution_batch& b, equilibria::pr
             }
           } catch (const invalid_input&) {
             // No closed form for this row's state (a salt crystallised): the value without u.
-            v = eq::predict(quantity, s, temperature, m, bound);
+            v = eq::predict(quantity, s, temperature, m, bound, opt.salts_crystallise);
             if (!std::isfinite(v)) st = row_status::not_converged;
           } catch (const convergence_error&) {
             st = row_status::not_converged;

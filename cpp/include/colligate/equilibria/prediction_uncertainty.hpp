@@ -205,15 +205,29 @@ inline solution with_constants(const solution& s, const constant_set& c, const E
   return solution::from_masses(s.water_mass(), masses, data::solute_table(std::move(records)));
 }
 
-/// The plain prediction (NaN where the model gives none).
+/// The plain prediction (NaN where the model gives none). With `salts_crystallise` (the
+/// plain calls' default) a salt above its solubility crystallises as it does there: the
+/// freezing point is that of the first solid (the salt's crystallisation temperature for a
+/// brine richer than its eutectic composition, ice_curve::salt_first) and the water
+/// activity that of the equilibrium state (water_activity_at_equilibrium); false gives the
+/// metastable values of the solution as one liquid.
 inline double predict(predicted_quantity q, const solution& s, double temperature,
-                      const models::model_choice& m, double bound_water_kg) {
+                      const models::model_choice& m, double bound_water_kg,
+                      bool salts_crystallise = true) {
   switch (q) {
     case predicted_quantity::freezing_point: {
+      if (salts_crystallise && s.has_electrolytes()) {
+        ice_curve curve(s, m, bound_water_kg);
+        return first_solid_temperature_checked(curve, range_policy::extrapolate).value;
+      }
       const auto r = freezing_point(s, m, bound_water_kg);
       return r.success() ? r.temperature : std::numeric_limits<double>::quiet_NaN();
     }
     case predicted_quantity::water_activity:
+      if (salts_crystallise && s.has_electrolytes()) {
+        models::ln_water_activity_evaluator ln_aw(m, s);
+        return water_activity_at_equilibrium(ln_aw, s, temperature, range_policy::extrapolate).value;
+      }
       return models::water_activity(s, temperature, m).value;
     case predicted_quantity::osmotic_coefficient:
       return models::osmotic_coefficient(s, temperature, m).value;
@@ -511,14 +525,54 @@ inline checked_value osmotic_coefficient_on(models::ln_water_activity_evaluator&
 /// On the ice line F(T, p) = ln a_w(W, p) - ln a_w,ice(T) = 0 the implicit function theorem
 /// gives dT_f/dp = (d ln a_w/dp) / (dH_fus(T)/(R T^2) - d ln a_w/dT); below the freezing
 /// point dW_u/dp = -(d ln a_w/dp) / (d ln a_w/dW) (file comment).
-template <class StateAt>
+///
+/// With `salts_crystallise` (as predict()) a state where a salt crystallises has no closed
+/// form here: `salt_first()` (the ice_curve::salt_first of `s`) names a salt that forms
+/// before ice, and a water activity above a salt's solubility is tested on `ln_aw`; both
+/// throw invalid_input pointing to Monte Carlo, which evaluates predict() per draw.
+template <class StateAt, class SaltFirst>
 linear_outcome propagate_linear_prepared(const linear_plan& plan, predicted_quantity q, const solution& s,
                                          double temperature, const models::model_choice& m,
                                          double bound_water_kg, models::ln_water_activity_evaluator& ln_aw,
-                                         StateAt&& state_at, double* dy) {
+                                         StateAt&& state_at, SaltFirst&& salt_first, bool salts_crystallise,
+                                         double* dy) {
   linear_outcome out;
   const std::size_t n = plan.size();
   for (std::size_t k = 0; k < n; ++k) dy[k] = 0.0;
+  if (salts_crystallise && s.has_electrolytes()) {
+    // A salt crystallises: the plain value (predict()) with u = 0 when no constant is
+    // uncertain, else no closed form.
+    if (q == predicted_quantity::freezing_point) {
+      salt_first_solid first = salt_first();
+      if (first.phase != nullptr) {
+        if (n > 0)
+          throw invalid_input(std::string("linear propagation: ") + first.phase->name +
+                              " crystallises before ice (the freezing point is that salt's "
+                              "crystallisation temperature), where the closed-form sensitivities "
+                              "do not hold; use the Monte Carlo propagation");
+        const auto v = apply_policy(first.temperature, first.check, range_policy::extrapolate);
+        out.value = v.value;
+        out.check = v.check;
+        if (std::isfinite(out.value)) plan.combine(dy, out.standard_uncertainty, out.degrees_of_freedom);
+        return out;
+      }
+    } else if (q == predicted_quantity::water_activity) {
+      salt_equilibrium_state st;
+      const auto v = water_activity_at_equilibrium(ln_aw, s, temperature, range_policy::extrapolate, &st);
+      if (st.supersaturated) {
+        if (n > 0)
+          throw invalid_input(std::string("linear propagation: the solution is supersaturated in ") +
+                              (st.phase != nullptr ? st.phase->name : std::string("a salt")) +
+                              " at T = " + std::to_string(temperature) +
+                              " K and the salt crystallises, where the closed-form sensitivities "
+                              "do not hold; use the Monte Carlo propagation");
+        out.value = v.value;
+        out.check = v.check;
+        if (std::isfinite(out.value)) plan.combine(dy, out.standard_uncertainty, out.degrees_of_freedom);
+        return out;
+      }
+    }
+  }
   switch (q) {
     case predicted_quantity::freezing_point: {
       const auto r = freezing_point(s, m, bound_water_kg, ln_aw);
@@ -604,7 +658,7 @@ linear_outcome propagate_linear_prepared(const linear_plan& plan, predicted_quan
 /// (detail::propagate_linear_prepared on objects prepared for `s` alone).
 inline prediction_uncertainty propagate_linear(predicted_quantity q, const solution& s,
                                                double temperature, const models::model_choice& m = "auto",
-                                               double bound_water_kg = 0.0) {
+                                               double bound_water_kg = 0.0, bool salts_crystallise = true) {
   if (q != predicted_quantity::freezing_point)
     models::check_temperature_argument(to_string(q), temperature);
   detail::check_bound_water(to_string(q), s, bound_water_kg);
@@ -618,9 +672,14 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
     curve.emplace(s, m, bound_water_kg);
     return curve->at(T);
   };
+  const auto salt_first = [&]() {
+    curve.emplace(s, m, bound_water_kg);
+    return curve->salt_first();
+  };
   out.sensitivities = Eigen::VectorXd::Zero(static_cast<Eigen::Index>(plan.size()));
   const auto r = detail::propagate_linear_prepared(plan, q, s, temperature, m, bound_water_kg, ln_aw,
-                                                   state_at, out.sensitivities.data());
+                                                   state_at, salt_first, salts_crystallise,
+                                                   out.sensitivities.data());
   out.check = r.check;
   out.result.value = r.value;
   out.result.standard_uncertainty = r.standard_uncertainty;
@@ -634,7 +693,7 @@ inline prediction_uncertainty propagate_linear(predicted_quantity q, const solut
 inline fit::monte_carlo_result propagate_monte_carlo(predicted_quantity q, const solution& s,
                                                      double temperature, const models::model_choice& m,
                                                      double bound_water_kg, int draws,
-                                                     std::uint64_t seed) {
+                                                     std::uint64_t seed, bool salts_crystallise = true) {
   if (q != predicted_quantity::freezing_point)
     models::check_temperature_argument(to_string(q), temperature);
   detail::check_bound_water(to_string(q), s, bound_water_kg);
@@ -642,7 +701,7 @@ inline fit::monte_carlo_result propagate_monte_carlo(predicted_quantity q, const
   std::mt19937_64 engine(seed);
   return fit::monte_carlo(c.values, c.covariance, draws, engine, [&](const Eigen::VectorXd& p) {
     try {
-      return predict(q, with_constants(s, c, p), temperature, m, bound_water_kg);
+      return predict(q, with_constants(s, c, p), temperature, m, bound_water_kg, salts_crystallise);
     } catch (const invalid_input&) {  // a draw outside a constant's domain (molar mass <= 0)
       return std::numeric_limits<double>::quiet_NaN();
     } catch (const convergence_error&) {  // no ice-curve state for this draw: left out, counted
