@@ -167,6 +167,7 @@ void register_electrolytes(py::module_& m) {
             d["source"] = st.source;
             d["norrish_k_undissociated"] = a.norrish_k_undissociated;
             d["norrish_k_source"] = a.norrish_k_source;
+            d["norrish_k_fit_worst_deviation_K"] = a.norrish_k_fit_worst_deviation;
             d["note"] = a.note;
             out.append(d);
           }
@@ -216,6 +217,7 @@ void register_electrolytes(py::module_& m) {
         d["temperature_K"] = r.temperature;
         d["converged"] = r.status == colligate::root_status::converged;
         d["norrish_k_undissociated"] = k;
+        d["reason"] = r.check.reason();
         d["speciation"] = r.status == colligate::root_status::no_sign_change
                               ? py::object(py::none())
                               : py::object(speciation_dict(r.speciation));

@@ -697,7 +697,8 @@ def weak_acids():
     function where there is one), ``temperature_function``, ``min_temperature_K`` and
     ``max_temperature_K`` (range of the measurements behind the function), ``source``
     (citation key, see :func:`citation`), ``norrish_k_undissociated`` and
-    ``norrish_k_source`` (the constant used by :func:`acid_freezing_point`) and ``note``.
+    ``norrish_k_source`` (the constant used by :func:`acid_freezing_point`),
+    ``norrish_k_fit_worst_deviation_K`` (worst deviation of its fit rows) and ``note``.
     """
     import pandas as pd
 
@@ -751,14 +752,16 @@ def acid_freezing_point(acid: str, molality: float) -> dict[str, Any]:
     The undissociated acid is counted with its Norrish constant fitted on that basis
     (:func:`weak_acids`, ``norrish_k_undissociated``), the ions as particles with their
     Debye-Hueckel term. Returns a dict with ``temperature_K``, ``converged``,
-    ``norrish_k_undissociated`` and ``speciation`` (as :func:`acid_dissociation` at the
-    freezing point). Solutions given to :func:`freezing_point` still count the acid with
+    ``norrish_k_undissociated``, ``reason`` (above the highest CRC row that checks it; also
+    issued as an :class:`OutOfValidityRangeWarning`) and ``speciation`` (as
+    :func:`acid_dissociation` at the freezing point; its ``reason`` may name the pKa function
+    extrapolated below 0 C, which the CRC rows check). Solutions given to :func:`freezing_point` still count the acid with
     its folded constant (dissociation included in K).
     """
     out = dict(_core.weak_acid_freezing_point(acid, float(molality)))
     if out["speciation"] is not None:
         out["speciation"] = dict(out["speciation"])
-        _warn(out["speciation"]["reason"])
+    _warn(out["reason"])
     return out
 
 

@@ -210,6 +210,7 @@ TEST_CASE("freezing points with dissociation against the CRC rows not used in th
       const auto r = equilibria::weak_acid_freezing_point(a, molality_of(w, molar_mass(id)),
                                                           a.norrish_k_undissociated);
       REQUIRE(r.status == root_status::converged);
+      CHECK(r.check.in_range());
       INFO(id << " " << w * 100 << " wt%: alpha at the freezing point "
               << r.speciation.degree_of_dissociation);
       CHECK_THAT(constants::ice_point - r.temperature,
@@ -218,4 +219,14 @@ TEST_CASE("freezing points with dissociation against the CRC rows not used in th
     }
     CHECK(rows >= 8);
   }
+}
+
+TEST_CASE("freezing point with dissociation beyond the checked rows is flagged",
+          "[equilibria][weak_acid]") {
+  // 40 wt% acetic acid (11.1 mol/kg) lies above the 36 wt% CRC row (9.367 mol/kg).
+  const auto& a = acid("acetic_acid");
+  const auto r = equilibria::weak_acid_freezing_point(a, 11.1, a.norrish_k_undissociated);
+  CHECK(r.check.code == validity_code::concentration_out_of_range);
+  CHECK(r.check.source() == "crc_concentrative");
+  CHECK_THROWS_AS(equilibria::weak_acid_freezing_point(a, 1.0, std::nan("")), invalid_input);
 }

@@ -63,6 +63,11 @@ struct weak_acid {
   std::string norrish_k_note;    ///< the rows it was fitted to and how it was checked
   /// Worst |deviation| (K) of the fit rows, the basis of the held-out check's tolerance.
   double norrish_k_fit_worst_deviation = std::numeric_limits<double>::quiet_NaN();
+  /// Highest molality (mol/kg) of the CRC rows that check the freezing point with
+  /// dissociation (the validated range of weak_acid_freezing_point), from the top row's
+  /// mass percent and the molar mass, rounded up in the last digit (lactic acid 20 wt%:
+  /// 2.7754, where the table prints 2.775); NaN when none.
+  double max_molality_checked = std::numeric_limits<double>::quiet_NaN();
 };
 
 namespace detail {
@@ -113,7 +118,7 @@ inline const std::vector<weak_acid>& weak_acids() {
        "K of the undissociated acid fitted (least squares, tools/fit_weak_acid_norrish.py) to the "
        "15 CRC Handbook acetic acid rows 0.5-36 wt% marked used_in_fit (worst 0.051 K); the 14 "
        "held-out rows 0.040 K",
-       0.0511},
+       0.0511, 9.367},
       {"lactic_acid",
        "lactic acid",
        // CRC Handbook, dissociation constants of organic acids in aqueous solution: 3.86
@@ -126,7 +131,7 @@ inline const std::vector<weak_acid>& weak_acids() {
        "held-out rows 0.131 K. The CRC rows lie below the ideal depression at 1 wt% (0.19 K "
        "against 0.21 K for undissociated monomer), which no K can follow: commercial lactic acid "
        "holds lactoyllactic acid (from memory), so the molality column may overstate the monomer",
-       0.1357},
+       0.1357, 2.776},
       {"citric_acid",
        "citric acid",
        // Bates & Pinching (1949), measured 0-50 C; the temperature functions as refitted to
@@ -150,7 +155,7 @@ inline const std::vector<weak_acid>& weak_acids() {
        "K of the undissociated acid fitted (least squares, tools/fit_weak_acid_norrish.py) to the "
        "11 CRC Handbook citric acid rows 0.5-30 wt% marked used_in_fit (worst 0.060 K); the 10 "
        "held-out rows 0.064 K (the constant with dissociation folded in: 0.085 K)",
-       0.0601},
+       0.0601, 2.231},
       {"malic_acid",
        "malic acid",
        // CRC Handbook, dissociation constants of organic acids: 3.40 and 5.20 at 25 C (from
@@ -159,7 +164,7 @@ inline const std::vector<weak_acid>& weak_acids() {
        "pKa at 25 C used at every temperature; no freezing-point or water-activity table of "
        "malic acid read, so no Norrish constant and no solute record",
        std::numeric_limits<double>::quiet_NaN(), "", "",
-       std::numeric_limits<double>::quiet_NaN()},
+       std::numeric_limits<double>::quiet_NaN(), std::numeric_limits<double>::quiet_NaN()},
   };
   return table;
 }

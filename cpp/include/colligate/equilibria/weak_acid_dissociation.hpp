@@ -237,6 +237,11 @@ struct weak_acid_freezing_result {
   double temperature = std::numeric_limits<double>::quiet_NaN();  ///< K
   weak_acid_speciation speciation;  ///< at the freezing point
   root_status status = root_status::no_sign_change;
+  /// Above the acid's highest CRC-checked molality (data::weak_acid::max_molality_checked).
+  /// The pKa functions are extrapolated a few K below 0 C on the ice line (their data start
+  /// at 0 C); that is part of what the CRC rows check, so speciation.check may name it while
+  /// this record stays in range.
+  validity check;
 };
 
 inline weak_acid_freezing_result weak_acid_freezing_point(const data::weak_acid& acid,
@@ -245,6 +250,10 @@ inline weak_acid_freezing_result weak_acid_freezing_point(const data::weak_acid&
     throw invalid_input(colligate::detail::describe("weak_acid_freezing_point", "norrish_k",
                                                     norrish_k, "must be finite"));
   weak_acid_freezing_result out;
+  if (!(molality <= acid.max_molality_checked))
+    out.check = beyond_limit("weak_acid_freezing_point ('" + acid.id + "')", "molality", molality,
+                             acid.max_molality_checked, " mol/kg",
+                             "the highest CRC Handbook row that checks it", "crc_concentrative");
   const auto g = [&](double T) {
     return weak_acid_ln_water_activity(acid, molality, T, norrish_k) -
            water::ln_water_activity_of_ice(T);
