@@ -127,6 +127,105 @@ void register_electrolytes(py::module_& m) {
       py::arg("solution"), py::arg("model") = "auto", py::arg("parameter_set") = "",
       "Temperature (K) at which ``solution`` first crystallises a salt on cooling, without "
       "ice, with the phase, as a dict (equilibria/salt_equilibrium.hpp).");
+
+  // Weak acids (data/weak_acids.hpp, equilibria/weak_acid_dissociation.hpp).
+  const auto speciation_dict = [](const eq::weak_acid_speciation& r) {
+    py::dict d;
+    d["acid"] = r.acid;
+    d["temperature_K"] = r.temperature;
+    d["acid_molality_mol_per_kg"] = r.acid_molality;
+    d["pka"] = r.pka;
+    d["fractions"] = r.fractions;
+    d["degree_of_dissociation"] = r.degree_of_dissociation;
+    d["hydrogen_ion_molality_mol_per_kg"] = r.hydrogen_ion_molality;
+    d["hydroxide_molality_mol_per_kg"] = r.hydroxide_molality;
+    d["ionic_strength_mol_per_kg"] = r.ionic_strength;
+    d["ln_gamma_univalent"] = r.ln_gamma_univalent;
+    d["ph"] = r.ph;
+    d["particle_molality_mol_per_kg"] = r.particle_molality;
+    d["temperature_function"] = r.temperature_function;
+    d["converged"] = r.status == colligate::root_status::converged;
+    d["reason"] = r.check.reason();
+    return d;
+  };
+  m.def(
+      "weak_acids",
+      [] {
+        py::list out;
+        for (const auto& a : colligate::data::weak_acids()) {
+          for (std::size_t j = 0; j < a.steps.size(); ++j) {
+            const auto& st = a.steps[j];
+            py::dict d;
+            d["acid"] = a.id;
+            d["name"] = a.name;
+            d["step"] = static_cast<int>(j + 1);
+            d["pka_25c"] = st.pka_25c;
+            d["pka_at_298_15_K"] = st.pka(298.15);
+            d["temperature_function"] = st.temperature_function;
+            d["min_temperature_K"] = st.min_temperature;
+            d["max_temperature_K"] = st.max_temperature;
+            d["source"] = st.source;
+            d["norrish_k_undissociated"] = a.norrish_k_undissociated;
+            d["norrish_k_source"] = a.norrish_k_source;
+            d["norrish_k_fit_worst_deviation_K"] = a.norrish_k_fit_worst_deviation;
+            d["note"] = a.note;
+            out.append(d);
+          }
+        }
+        return out;
+      },
+      "The dissociation steps of the built-in weak acids, one dict per step, with sources.");
+  m.def(
+      "acid_dissociation",
+      [speciation_dict](const std::string& acid, double molality, double T,
+                        double background_ionic_strength, const std::string& activity) {
+        if (activity != "debye_huckel" && activity != "ideal")
+          throw colligate::invalid_input("activity = '" + activity +
+                                         "': valid values are 'debye_huckel' and 'ideal'");
+        const auto& a = colligate::data::weak_acid_by_id(acid);
+        colligate::models::check_temperature_argument("acid_dissociation", T);
+        eq::weak_acid_speciation r;
+        {
+          py::gil_scoped_release release;
+          r = eq::speciate_weak_acid(a, molality, T, background_ionic_strength,
+                                     activity == "ideal" ? eq::ion_activity::ideal
+                                                         : eq::ion_activity::debye_huckel);
+        }
+        return speciation_dict(r);
+      },
+      py::arg("acid"), py::arg("molality"), py::arg("temperature") = 298.15,
+      py::arg("background_ionic_strength") = 0.0, py::arg("activity") = "debye_huckel",
+      "Speciation of a weak acid (dict; equilibria/weak_acid_dissociation.hpp).");
+  m.def(
+      "weak_acid_freezing_point",
+      [speciation_dict](const std::string& acid, double molality, py::object norrish_k) {
+        const auto& a = colligate::data::weak_acid_by_id(acid);
+        const double k = norrish_k.is_none() ? a.norrish_k_undissociated : norrish_k.cast<double>();
+        if (!std::isfinite(k))
+          throw colligate::invalid_input("acid = '" + acid +
+                                         "': no Norrish constant of the undissociated acid has "
+                                         "been fitted (give norrish_k)");
+        if (!(std::isfinite(molality) && molality > 0.0))
+          throw colligate::invalid_input(colligate::detail::describe(
+              "weak_acid_freezing_point", "molality", molality, "must be finite and > 0 mol/kg"));
+        eq::weak_acid_freezing_result r;
+        {
+          py::gil_scoped_release release;
+          r = eq::weak_acid_freezing_point(a, molality, k);
+        }
+        py::dict d;
+        d["temperature_K"] = r.temperature;
+        d["converged"] = r.status == colligate::root_status::converged;
+        d["norrish_k_undissociated"] = k;
+        d["reason"] = r.check.reason();
+        d["speciation"] = r.status == colligate::root_status::no_sign_change
+                              ? py::object(py::none())
+                              : py::object(speciation_dict(r.speciation));
+        return d;
+      },
+      py::arg("acid"), py::arg("molality"), py::arg("norrish_k") = py::none(),
+      "Freezing point (K) of a binary solution of a weak acid with the acid split into its "
+      "forms, as a dict (equilibria/weak_acid_dissociation.hpp).");
 }
 
 }  // namespace colligate_bindings

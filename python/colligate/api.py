@@ -60,6 +60,9 @@ __all__ = [
     "salt_crystallisation_temperature",
     "SupersaturatedWarning",
     "pitzer_parameter_sets",
+    "weak_acids",
+    "acid_dissociation",
+    "acid_freezing_point",
     "sweetness_table",
     "lactose_solubility",
     "lactose_solubility_table",
@@ -684,6 +687,82 @@ def mean_activity_coefficient(
 def pitzer_parameter_sets() -> list[str]:
     """Ids of the Pitzer parameter sets (the first is the default)."""
     return list(_core.pitzer_parameter_sets())
+
+
+def weak_acids():
+    """Dissociation constants of the built-in weak acids, one row per step.
+
+    Returns a pandas DataFrame with columns ``acid``, ``name``, ``step`` (1 for K1, ...),
+    ``pka_25c`` (as the source prints it), ``pka_at_298_15_K`` (from the temperature
+    function where there is one), ``temperature_function``, ``min_temperature_K`` and
+    ``max_temperature_K`` (range of the measurements behind the function), ``source``
+    (citation key, see :func:`citation`), ``norrish_k_undissociated`` and
+    ``norrish_k_source`` (the constant used by :func:`acid_freezing_point`),
+    ``norrish_k_fit_worst_deviation_K`` (worst deviation of its fit rows) and ``note``.
+    """
+    import pandas as pd
+
+    return pd.DataFrame(_core.weak_acids())
+
+
+def acid_dissociation(acid: str, molality: float, T: float = 298.15, *,
+                      background_ionic_strength: float = 0.0,
+                      activity: str = "debye_huckel") -> dict[str, Any]:
+    """How far a weak acid dissociates in water (an estimate from published pKa values).
+
+    Parameters
+    ----------
+    acid : str
+        Id of a weak acid of :func:`weak_acids` (``"acetic_acid"``, ``"lactic_acid"``,
+        ``"citric_acid"``, ``"malic_acid"``).
+    molality : float
+        Total acid, all forms, mol per kg of water (> 0).
+    T : float
+        Temperature, K.
+    background_ionic_strength : float
+        Ionic strength of the other salts of the solution, mol/kg (it raises the ions'
+        activity coefficients but not the proton balance).
+    activity : {"debye_huckel", "ideal"}
+        Activity coefficients of the ions: the Debye-Hueckel term of Pitzer's equations
+        (flagged above an ionic strength of 0.1 mol/kg) or 1.
+
+    Returns
+    -------
+    dict
+        ``fractions`` (undissociated form first), ``degree_of_dissociation``, ``pka`` at T,
+        ``hydrogen_ion_molality_mol_per_kg``, ``ph`` (molal scale), ``ionic_strength_mol_per_kg``,
+        ``particle_molality_mol_per_kg``, ``temperature_function`` (False: a 25 C pKa was
+        used at T) and ``reason`` (empty when in range; otherwise also issued as an
+        :class:`OutOfValidityRangeWarning`).
+
+    Notes
+    -----
+    An estimate: pH and the acid split of a food depend on its buffers, proteins and salts;
+    measure them for food-safety decisions and follow local codes.
+    """
+    out = dict(_core.acid_dissociation(acid, float(molality), float(T),
+                                       float(background_ionic_strength), activity))
+    _warn(out["reason"])
+    return out
+
+
+def acid_freezing_point(acid: str, molality: float) -> dict[str, Any]:
+    """Freezing point (K) of a binary solution of a weak acid with the acid split into its forms.
+
+    The undissociated acid is counted with its Norrish constant fitted on that basis
+    (:func:`weak_acids`, ``norrish_k_undissociated``), the ions as particles with their
+    Debye-Hueckel term. Returns a dict with ``temperature_K``, ``converged``,
+    ``norrish_k_undissociated``, ``reason`` (above the highest CRC row that checks it; also
+    issued as an :class:`OutOfValidityRangeWarning`) and ``speciation`` (as
+    :func:`acid_dissociation` at the freezing point; its ``reason`` may name the pKa function
+    extrapolated below 0 C, which the CRC rows check). Solutions given to :func:`freezing_point` still count the acid with
+    its folded constant (dissociation included in K).
+    """
+    out = dict(_core.weak_acid_freezing_point(acid, float(molality)))
+    if out["speciation"] is not None:
+        out["speciation"] = dict(out["speciation"])
+    _warn(out["reason"])
+    return out
 
 
 def sweetness_table():

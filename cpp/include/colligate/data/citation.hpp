@@ -124,6 +124,26 @@ inline const std::vector<citation>& citations() {
        "osmotic and activity coefficient equations; Appendix B, eqs. B-21 to B-30 and Table B-1 "
        "(Harvie's Chebyshev approximation of J, read in a public copy, pytzer); "
        "A_phi = 0.3915 at 25 C"},
+      // Weak acids of food (data/weak_acids.hpp).
+      {"harned_ehlers_1933", "Harned, H. S.; Ehlers, R. W.", 1933,
+       "The dissociation constant of acetic acid from 0 to 60 degrees centigrade",
+       "J. Am. Chem. Soc. 55, 652-656", "doi:10.1021/ja01329a027 (from memory)",
+       "log10 K = -1170.48/T + 3.1649 - 0.013399 T (function from memory; pKa 4.756 at 25 C)"},
+      {"bates_pinching_1949", "Bates, R. G.; Pinching, G. D.", 1949,
+       "Resolution of the dissociation constants of citric acid at 0 to 50 degrees, and "
+       "determination of certain related thermodynamic functions",
+       "J. Am. Chem. Soc. 71, 1274-1283", "doi:10.1021/ja01172a039 (from memory)",
+       "pK1, pK2, pK3 from 0 to 50 C (3.128, 4.761, 6.396 at 25 C); used through the ln K(T) "
+       "functions fitted to their constants as printed in the public abstract of a University "
+       "of Miami study of citric acid in NaCl and KCl solutions at 25 C (J. Solution Chem.)"},
+      {"crc_organic_acid_pka", "Rumble, J. R. (ed.)", 2021,
+       "Dissociation constants of organic acids and bases",
+       "CRC Handbook of Chemistry and Physics, 102nd ed., CRC Press", "ISBN 9780367712600",
+       "pKa at 25 C of lactic acid (3.86) and malic acid (3.40, 5.20); values from memory"},
+      {"harned_robinson_1940", "Harned, H. S.; Robinson, R. A.", 1940,
+       "A note on the temperature variation of the ionization constants of weak electrolytes",
+       "Trans. Faraday Soc. 36, 973-978", "doi:10.1039/TF9403600973 (from memory)",
+       "pKw = 4470.99/T - 6.0875 + 0.01706 T (from memory; 13.995 at 25 C)"},
       {"harvie_1984", "Harvie, C. E.; Moller, N.; Weare, J. H.", 1984,
        "The prediction of mineral solubilities in natural waters: the "
        "Na-K-Mg-Ca-H-Cl-SO4-OH-HCO3-CO3-CO2-H2O system to high ionic strengths at 25 C",
