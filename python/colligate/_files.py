@@ -203,18 +203,58 @@ def check_output_path(path: str | os.PathLike[str], inputs: Iterable[Optional[st
     return target
 
 
-def _block_interrupts():
-    """Hold back SIGINT (delivered when released) while files are renamed into place, so a
-    Ctrl-C cannot stop a command between two renames. Main thread on POSIX only; a no-op
-    elsewhere. Returns the mask to restore, or None."""
-    if not hasattr(signal, "pthread_sigmask") or threading.current_thread() is not threading.main_thread():
+_HELD_SIGNALS = tuple(getattr(signal, name) for name in ("SIGINT", "SIGTERM") if hasattr(signal, name))
+
+
+class _HeldSignals:
+    """The handlers replaced by :func:`_block_interrupts` and the signals that arrived."""
+
+    __slots__ = ("handlers", "pending")
+
+    def __init__(self) -> None:
+        self.handlers: dict[int, object] = {}
+        self.pending: list[tuple[int, object]] = []
+
+    def defer(self, signum, frame) -> None:
+        self.pending.append((signum, frame))
+
+
+def _block_interrupts() -> Optional[_HeldSignals]:
+    """Hold back Ctrl-C (SIGINT) and SIGTERM while files are created or renamed, so an
+    interrupt cannot stop a command between two steps that must go together. Their Python
+    handlers are replaced by one that only records the signal; :func:`_restore_interrupts`
+    puts the handlers back and then runs the one of the first signal that came. (Blocking the
+    signal in this thread would not do: the kernel then hands a process-wide signal to
+    another thread, such as a BLAS worker, and Python raises it here all the same.) Main
+    thread only (where Python runs signal handlers); a no-op elsewhere. Returns the state to
+    restore, or None."""
+    if threading.current_thread() is not threading.main_thread():
         return None
-    return signal.pthread_sigmask(signal.SIG_BLOCK, {signal.SIGINT})
+    held = _HeldSignals()
+    for signum in _HELD_SIGNALS:
+        old = signal.getsignal(signum)
+        if old is None:  # installed outside Python: cannot be put back, leave it
+            continue
+        held.handlers[signum] = old
+        signal.signal(signum, held.defer)
+    return held
 
 
-def _restore_interrupts(old) -> None:
-    if old is not None:
-        signal.pthread_sigmask(signal.SIG_SETMASK, old)
+def _restore_interrupts(held: Optional[_HeldSignals]) -> None:
+    """Put back the handlers :func:`_block_interrupts` replaced, then deliver the first
+    signal held back (a Ctrl-C raises KeyboardInterrupt here, after the protected step)."""
+    if held is None:
+        return
+    for signum, old in held.handlers.items():
+        signal.signal(signum, old)
+    if not held.pending:
+        return
+    signum, frame = held.pending[0]
+    old = held.handlers.get(signum)
+    if callable(old):
+        old(signum, frame)
+    elif old == signal.SIG_DFL:
+        signal.raise_signal(signum)
 
 
 class _Staged:

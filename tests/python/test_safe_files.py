@@ -5,6 +5,7 @@ check value here comes from a publication."""
 from __future__ import annotations
 
 import os
+import signal
 import stat
 
 import pytest
@@ -213,6 +214,28 @@ def test_ctrl_c_surfacing_outside_the_writers_own_clean_up_leaves_nothing(tmp_pa
         with OutputSet() as out:
             out.write_text(tmp_path / "a.txt", "A", "--first")
     assert listing(tmp_path) == []
+
+
+def test_ctrl_c_sent_while_held_back_waits_whatever_thread_receives_it():
+    # The kernel may hand a process-wide SIGINT to any thread (a BLAS worker, this helper
+    # thread); it must still wait until the protected step is over, then arrive as
+    # KeyboardInterrupt (common practice, no published value).
+    import threading
+    import time
+
+    held = _files._block_interrupts()
+    try:
+        sender = threading.Thread(target=lambda: os.kill(os.getpid(), signal.SIGINT))
+        sender.start()
+        sender.join()
+        for _ in range(200):  # bytecodes and sleeps: Python would raise it here if not held
+            time.sleep(0.001)
+    except KeyboardInterrupt:
+        _files._restore_interrupts(held)
+        pytest.fail("the Ctrl-C arrived inside the protected step")
+    with pytest.raises(KeyboardInterrupt):
+        _files._restore_interrupts(held)
+    assert signal.getsignal(signal.SIGINT) is signal.default_int_handler
 
 
 def test_a_failed_write_is_forgotten_by_the_set(tmp_path):
