@@ -713,3 +713,36 @@ TEST_CASE("bad input: a salt without a binary row in the chosen set, a set for a
   CHECK_THROWS_WITH(models::model_choice("pitzer", models::model_options{"harvie_1985"}),
                     Contains("harvie_1985") && Contains("spencer_1990_icefit"));
 }
+
+TEST_CASE("pitzer_system: the temperature cache gives the values of a fresh system in any order",
+          "[models][pitzer]") {
+  // Identity (common practice): the coefficients cached for the last temperatures (three
+  // slots, least recently used refilled) never change a value. A freezing-point row
+  // evaluates the ice point, an iterate and the salt saturation at the result; here the
+  // temperatures come back in orders that hit and miss each slot.
+  using models::detail::pitzer_system;
+  const auto& set = pitzer::default_parameters();
+  const auto sea = solution::seawater(35.16504);
+  const double* moles = sea.moles().data();
+  const double W = sea.water_mass();
+  const std::vector<double> temps = {273.15, 271.2, 271.19, 273.15, 265.0, 271.2,
+                                     273.15, 250.0, 265.0,  271.19, 273.15, 250.0};
+  pitzer_system cached(sea, set);
+  std::array<double, data::pitzer_ion_count> g_cached{}, g_fresh{};
+  for (double T : temps) {
+    pitzer_system fresh(sea, set);
+    double slope_c = 0.0, slope_f = 0.0;
+    CHECK(cached.ln_water_activity(moles, W, T) == fresh.ln_water_activity(moles, W, T));
+    pitzer_system fresh2(sea, set);
+    CHECK(cached.ln_water_activity_with_temperature_slope(moles, W, T, slope_c) ==
+          fresh2.ln_water_activity_with_temperature_slope(moles, W, T, slope_f));
+    CHECK(slope_c == slope_f);
+    std::array<double, data::pitzer_ion_count> m{};
+    double other = 0.0;
+    cached.molalities(moles, W, m.data(), other);
+    pitzer_system fresh3(sea, set);
+    cached.ln_gamma_on_molalities(m.data(), T, g_cached.data());
+    fresh3.ln_gamma_on_molalities(m.data(), T, g_fresh.data());
+    for (std::size_t k = 0; k < cached.ion_slots(); ++k) CHECK(g_cached[k] == g_fresh[k]);
+  }
+}

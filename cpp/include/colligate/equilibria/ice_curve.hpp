@@ -306,7 +306,8 @@ class ice_curve {
       at_W_temperature_ = std::numeric_limits<double>::quiet_NaN();
     }
     const double ln_aw_ice = T < constants::ice_point ? ice_line(T) : 0.0;
-    if (!(std::exp(ln_aw_solution) > 0.0 && ln_aw_solution <= 0.0))
+    // exp(l) > 0 for any l above -700 (the exponential is taken only below that)
+    if (!((ln_aw_solution > -700.0 || std::exp(ln_aw_solution) > 0.0) && ln_aw_solution <= 0.0))
       return no_physical_value(r, "water activity of the solution", std::exp(ln_aw_solution), T);
     if (T >= constants::ice_point || !(ln_aw_solution > ln_aw_ice)) {
       r.state = phase_state::liquid;
@@ -360,6 +361,9 @@ class ice_curve {
     double u = 0.0;
     std::vector<double> xi;  ///< per onset (active or fixed)
     int iterations = 0;
+    /// W_u itself (kg) when a model's closed-form solve gave it (u is then NaN on a curve
+    /// without salts, where nothing else reads it: fill() takes W_u from here).
+    double water = std::numeric_limits<double>::quiet_NaN();
   };
   /// A stretch of the path with one set of active salts.
   struct segment {
@@ -520,10 +524,22 @@ class ice_curve {
     return root.status == root_status::converged;
   }
 
-  /// Ice alone for a model with d ln a_w / d W in closed form (ideal, Raoult, Norrish):
-  /// Newton on the water mass (detail/unfrozen_water_newton.hpp). False when that path does
+  /// Ice alone for a model that solves for the water mass itself
+  /// (activity_evaluator::water_for_ln_activity) or has d ln a_w / d W in closed form
+  /// (ideal, Raoult, Norrish): Newton on the water mass (detail/unfrozen_water_newton.hpp). False when that path does
   /// not apply or does not converge; the caller then takes the general root finder.
   bool solve_ice_only_by_slope(double ln_aw_ice, double T, liquid_state& st) {
+    // A model that solves for the water mass in closed form (Norrish: Halley on the total
+    // solute mole fraction, models/norrish.hpp) goes first.
+    double Wu = 0.0;
+    int iterations = 0;
+    if (ln_aw_->water_for_ln_activity(W_, T, ln_aw_ice, Wu, iterations)) {
+      st.water = Wu;
+      st.u = ions_ ? std::log(Wu) : std::numeric_limits<double>::quiet_NaN();
+      st.xi.assign(onsets_.size(), 0.0);
+      st.iterations = iterations;
+      return true;
+    }
     const auto root = detail::unfrozen_water_by_slope(*ln_aw_, W_, T, ln_aw_ice,
                                                       at_W_temperature_ == T ? at_W_ : nullptr);
     if (root.status != root_status::converged) return false;
@@ -836,7 +852,7 @@ class ice_curve {
 
   ice_curve_state& fill(ice_curve_state& r, const liquid_state& st, const segment& seg,
                         double ln_aw_ice) {
-    const double Wu = std::exp(st.u);
+    const double Wu = std::isnan(st.u) ? st.water : std::exp(st.u);
     r.iterations = st.iterations;
     r.unfrozen_water = Wu;
     r.water_activity = ice_line_activity(ln_aw_ice);

@@ -68,6 +68,16 @@ class activity_evaluator {
                                                         double& /*ln_aw*/, double& /*slope*/) {
     return false;
   }
+  /// The water mass W_u (kg) at which ln a_w of the prepared solution equals `target`
+  /// (< 0) at T, solved by the model in closed form (no general root finder), searched
+  /// below `water_kg`, where ln a_w must lie above `target`: the unfrozen water of the ice
+  /// curve. False (and nothing written) for a model without such a solver, or when it does
+  /// not find the root; the ice curve then takes the Newton on d ln a_w / dW.
+  virtual bool water_for_ln_activity(double /*water_kg*/, double /*temperature*/,
+                                     double /*target*/, double& /*water_out*/,
+                                     int& /*iterations*/) {
+    return false;
+  }
   /// The ion activities, or nullptr for models without them.
   virtual ion_activity_model* ions() noexcept { return nullptr; }
 };

@@ -157,6 +157,83 @@ struct norrish {
         &slope);
   }
 
+  /// The water mass W_u (kg) at which ln a_w of the solutes `terms[0..n)` (amounts `moles`)
+  /// equals `target` (< 0), below `water_kg`: the unfrozen water of the ice curve. With
+  /// mole-fraction terms only (volume_ratio 1), every x_i is c_i t, where t = P / (n_w + P)
+  /// is the total solute mole fraction and c_i = n_i / P is fixed by the amounts, so the
+  /// sum of the file comment is a function of t alone:
+  ///
+  ///     ln a_w = ln(1 - t) - A2 t^2 - A3 t^3 - A4 t^4,
+  ///     A2 = (sum_{K_i > 0} sqrt(K_i) c_i)^2 + sum_{K_i <= 0} K_i c_i^2,
+  ///     A3 = sum K3_i c_i^3,  A4 = sum K4_i c_i^4,
+  ///
+  /// with closed-form first and second derivatives. Halley's iteration on
+  /// g(t) = ln a_w(t) - target, inside the bracket (t(water_kg), 1) (g > 0 at its lower end
+  /// when the solution is below its freezing point, g -> -inf at 1; a step leaving it is
+  /// replaced by bisection), from the root of the series to second order,
+  /// -t - (1/2 + A2) t^2 = target (one square root): about 1e-4 relative from the root,
+  /// so one Halley step brings it within about 1e-12 and the next, whose size is below
+  /// 1e-7 t, is taken without a further evaluation (what it leaves is of the order of the
+  /// cube of it, below rounding). One logarithm per evaluation, two evaluations for the
+  /// built-in sugars. Then W_u = M_w P (1 - t) / t. False (the caller takes the general
+  /// Newton) for effective-volume-fraction terms (volume_ratio != 1), no solute, a target
+  /// not below 0, a root not above t(water_kg), or no convergence in 60 steps.
+  static bool water_for_ln_activity(const term* terms, std::size_t n, const double* moles,
+                                    double water_kg, double target, double& water_out,
+                                    int& iterations) {
+    if (!(target < 0.0) || !(water_kg > 0.0)) return false;
+    double P = 0.0;
+    for (std::size_t i = 0; i < n; ++i) P += terms[i].particles * moles[terms[i].species];
+    if (!(P > 0.0) || !std::isfinite(P)) return false;
+    const double inv_P = 1.0 / P;
+    double S = 0.0, A2 = 0.0, A3 = 0.0, A4 = 0.0;
+    for (std::size_t i = 0; i < n; ++i) {
+      const auto& t = terms[i];
+      if (!t.available) continue;
+      if (t.volume_ratio != 1.0) return false;
+      const double c = moles[t.species] * inv_P, c2 = c * c;
+      if (t.k > 0.0)
+        S += t.sqrt_k * c;
+      else
+        A2 += t.k * c2;
+      A3 += t.k3 * c2 * c;
+      A4 += t.k4 * c2 * c2;
+    }
+    A2 += S * S;
+    const double nw = water_kg / constants::molar_mass_water;
+    double lo = P / (nw + P), hi = 1.0;  // g(lo) > 0 > g(hi)
+    // Start: -t - (1/2 + A2) t^2 = target, the positive root written without cancellation.
+    const double q = 0.5 + A2;
+    double t = -2.0 * target / (1.0 + std::sqrt(1.0 - 4.0 * q * target));
+    if (!(t > lo && t < hi)) t = 0.5 * (lo + hi);
+    for (int it = 0; it < 60; ++it) {
+      iterations = it + 1;
+      const double u = 1.0 - t, inv_u = 1.0 / u;
+      const double g = std::log1p(-t) - t * t * (A2 + t * (A3 + A4 * t)) - target;
+      if (g > 0.0)
+        lo = t;
+      else if (g < 0.0)
+        hi = t;
+      else
+        break;
+      const double g1 = -inv_u - t * (2.0 * A2 + t * (3.0 * A3 + 4.0 * A4 * t));
+      const double g2 = -inv_u * inv_u - (2.0 * A2 + t * (6.0 * A3 + 12.0 * A4 * t));
+      const double step = 2.0 * g * g1 / (2.0 * g1 * g1 - g * g2);  // Halley
+      double next = t - step;
+      if (!std::isfinite(next)) return false;
+      if (std::abs(step) <= 1e-7 * t && next >= lo && next <= hi) {
+        t = next;
+        break;
+      }
+      if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+      if (it == 59) return false;
+      t = next;
+    }
+    if (!(t > P / (nw + P)) || !(t < 1.0)) return false;
+    water_out = constants::molar_mass_water * P * ((1.0 - t) / t);
+    return water_out > 0.0 && water_out <= water_kg;
+  }
+
   /// Which species check() reads: all of them, or the non-electrolytes alone (the check of
   /// a solution holding only the non-electrolytes of `s`, as the Ross rule needs, without a
   /// copy: no ionic-strength limit then).
@@ -289,6 +366,11 @@ class norrish_evaluator final : public activity_evaluator {
     norrish::ln_water_activity_with_slope(terms_.data(), terms_.size(), s_->moles().data(),
                                           water_kg, ln_aw, slope);
     return true;
+  }
+  bool water_for_ln_activity(double water_kg, double /*temperature*/, double target,
+                             double& water_out, int& iterations) override {
+    return norrish::water_for_ln_activity(terms_.data(), terms_.size(), s_->moles().data(),
+                                          water_kg, target, water_out, iterations);
   }
   validity check(double water_kg, double temperature) override {
     return norrish::check(*s_, water_kg, temperature);

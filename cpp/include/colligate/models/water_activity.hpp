@@ -46,6 +46,12 @@ class ln_water_activity_evaluator {
   bool with_temperature_slope(double water_kg, double temperature, double& ln_aw, double& slope) {
     return impl_->ln_water_activity_with_temperature_slope(water_kg, temperature, ln_aw, slope);
   }
+  /// The water mass at which ln a_w equals `target`, below `water_kg`, in closed form;
+  /// false for a model without it (activity_evaluator::water_for_ln_activity).
+  bool water_for_ln_activity(double water_kg, double temperature, double target,
+                             double& water_out, int& iterations) {
+    return impl_->water_for_ln_activity(water_kg, temperature, target, water_out, iterations);
+  }
   /// Validity of the prepared solution with `water_kg` at T.
   validity check(double water_kg, double temperature) { return impl_->check(water_kg, temperature); }
   /// Ion activities, or nullptr for a model without them.

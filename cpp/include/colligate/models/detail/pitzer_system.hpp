@@ -35,14 +35,16 @@
 /// of A_phi and of the same parameters, once per temperature, and J''(x) on the same
 /// recurrences.
 ///
-/// The object caches the coefficients (and their slopes) of the last two temperatures
-/// evaluated: a freezing-point solve evaluates the ice point and then the iterates, so the
-/// next row of a batch finds the ice point's coefficients still there. It is therefore not
+/// The object caches the coefficients of the last three temperatures evaluated (and their
+/// slopes of the last two): a freezing-point solve evaluates the ice point and then the
+/// iterates, and a brine's salt-saturation test one more temperature, so the next row of a
+/// batch finds the ice point's coefficients still there. It is therefore not
 /// meant to be shared between threads: each solve or batch thread owns its own.
 
 #include <array>
 #include <cmath>
 #include <cstddef>
+#include <cstdint>
 #include <limits>
 #include <string>
 #include <vector>
@@ -383,18 +385,20 @@ class pitzer_system {
     aphi_ = set.aphi;
   }
 
-  /// The coefficients at T from the two-slot cache (the slot not used last is refilled).
+  /// The coefficients at T from the cache of the last temperatures used (on a miss the
+  /// least recently used slot is refilled).
   const coefficients& at(double T) {
-    if (coef_[0].temperature == T) {
-      coef_last_ = 0;
-      return coef_[0];
+    for (std::size_t k = 0; k < coef_.size(); ++k) {
+      if (coef_[k].temperature == T) {
+        coef_used_[k] = ++coef_clock_;
+        return coef_[k];
+      }
     }
-    if (coef_[1].temperature == T) {
-      coef_last_ = 1;
-      return coef_[1];
-    }
-    coef_last_ ^= 1;
-    coefficients& c = coef_[coef_last_];
+    std::size_t oldest = 0;
+    for (std::size_t k = 1; k < coef_.size(); ++k)
+      if (coef_used_[k] < coef_used_[oldest]) oldest = k;
+    coef_used_[oldest] = ++coef_clock_;
+    coefficients& c = coef_[oldest];
     const t_basis basis(T);
     c.temperature = T;
     c.aphi = debye_huckel_osmotic_slope(T, aphi_);
@@ -420,7 +424,8 @@ class pitzer_system {
     return c;
   }
 
-  /// The slopes of the coefficients of at(T), from a two-slot cache like at()'s.
+  /// The slopes of the coefficients of at(T), from a two-slot cache (the slot not used
+  /// last is refilled).
   const coefficient_slopes& slopes_at(double T) {
     if (slopes_[0].temperature == T) {
       slopes_last_ = 0;
@@ -651,9 +656,15 @@ class pitzer_system {
   bool has_extended_ = false;  ///< a pair row in the extended form (no closed-form T slope)
   bool has_unsymmetrical_ = false;  ///< like-charged ions of charges 1 and 2 (E-theta)
   data::aphi_correlation aphi_ = data::aphi_correlation::clegg_rard_pitzer_1994;
-  std::array<coefficients, 2> coef_;  ///< the last two temperatures (NaN: empty)
-  std::array<coefficient_slopes, 2> slopes_;
-  unsigned coef_last_ = 0, slopes_last_ = 0;  ///< slot used last
+  /// The last three temperatures (NaN: empty). Three, not two: a brine's freezing point
+  /// evaluates the ice point (the same for every row), an iterate and then the salt
+  /// saturation at the result (equilibria/ice_curve.hpp); with two slots the last two
+  /// pushed the ice point out and every row recomputed it.
+  std::array<coefficients, 3> coef_;
+  std::array<std::uint64_t, 3> coef_used_{};  ///< when each slot was last used (coef_clock_)
+  std::uint64_t coef_clock_ = 0;
+  std::array<coefficient_slopes, 2> slopes_;  ///< the last two temperatures (NaN: empty)
+  unsigned slopes_last_ = 0;  ///< slot used last
 };
 
 }  // namespace colligate::models::detail
