@@ -19,14 +19,34 @@ def _terminated(signum, frame):
     raise SystemExit(128 + signum)
 
 
+def _import_held_back():
+    """Import the command with Ctrl-C held back, then deliver it. A KeyboardInterrupt raised
+    inside the import machinery or an extension module's initialisation (numpy, the compiled
+    core) can leave a half-made module behind: CPython then prints "Exception ignored"
+    tracebacks or aborts while shutting down. Held back, a Ctrl-C typed during the import
+    (about a second) ends the command right after it, with the usual one line."""
+    pending = []
+    old = signal.getsignal(signal.SIGINT)
+    holding = callable(old)
+    if holding:
+        signal.signal(signal.SIGINT, lambda signum, frame: pending.append((signum, frame)))
+    try:
+        from colligate.cli import main as run
+    finally:
+        if holding:
+            signal.signal(signal.SIGINT, old)
+    if pending:
+        old(*pending[0])  # the default handler raises KeyboardInterrupt here
+    return run
+
+
 def main() -> int:
     """Run ``colligate`` (see :mod:`colligate.cli`); returns the exit status."""
     if hasattr(signal, "SIGTERM"):
         signal.signal(signal.SIGTERM, _terminated)
     try:
         try:
-            from colligate.cli import main as run
-
+            run = _import_held_back()
             status = run()
         finally:
             # Done (or stopped): from here on a Ctrl-C could only interrupt the

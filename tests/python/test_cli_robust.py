@@ -75,7 +75,8 @@ def console_script() -> str:
 @posix_signals
 def test_ctrl_c_while_colligate_imports_gives_the_one_line_message():
     # A real SIGINT, sent by the process to itself the moment the import of the compiled
-    # core starts: the import is interrupted half-way, as by a Ctrl-C typed at once.
+    # core starts, as by a Ctrl-C typed at once: held back until the import is done (an
+    # import broken half-way can abort the interpreter at exit), then the one line.
     script = textwrap.dedent("""
         import os, signal, sys
         class Interrupt:
