@@ -49,7 +49,7 @@ void register_electrolytes(py::module_& m) {
         return std::make_tuple(v, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason());
       },
       py::arg("solution"), py::arg("solute"), py::arg("temperature"),
-      py::arg("parameter_set") = "spencer_1990_icefit");
+      py::arg("parameter_set") = "harvie_spencer_icefit");
   m.def(
       "pitzer_osmotic_coefficient",
       [](const solution& s, double T, const std::string& set_id) {
@@ -61,7 +61,7 @@ void register_electrolytes(py::module_& m) {
         const double phi = mp > 0.0 ? -lnaw / (colligate::constants::molar_mass_water * mp) : 1.0;
         return std::make_tuple(phi, colligate::models::pitzer::check(s, s.water_mass(), T, set).reason());
       },
-      py::arg("solution"), py::arg("temperature"), py::arg("parameter_set") = "spencer_1990_icefit");
+      py::arg("solution"), py::arg("temperature"), py::arg("parameter_set") = "harvie_spencer_icefit");
   m.def(
       "eutectic",
       [](const solution& s, const std::string& model, double bound_fraction,

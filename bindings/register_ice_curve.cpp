@@ -5,6 +5,7 @@
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
 
+#include <cmath>
 #include <string>
 #include <tuple>
 #include <vector>
@@ -58,10 +59,53 @@ void register_ice_curve(py::module_& m) {
       .def_property_readonly(
           "freezing_point",
           [](eq::ice_curve& c) {
-            const auto& fp = c.initial_freezing_point();
-            return std::make_tuple(fp.temperature, eq::to_string(fp.status), fp.check.reason());
+            const auto f = c.salt_first();
+            if (f.phase == nullptr) {
+              const auto& fp = c.initial_freezing_point();
+              return std::make_tuple(fp.temperature, std::string(eq::to_string(fp.status)),
+                                     fp.check.reason());
+            }
+            return std::make_tuple(f.temperature,
+                                   std::string(std::isnan(f.temperature) ? "salt_saturated_above_data"
+                                                                         : "converged"),
+                                   f.check.reason());
           },
-          "(temperature K, status, reason) of the initial freezing point.")
+          "(temperature K, status, reason) of the first solid to form, as colligate.freezing_point "
+          "gives it: the ice freezing point, or for a brine richer than its eutectic composition "
+          "the temperature where a salt begins to crystallise (status "
+          "'salt_saturated_above_data' and NaN when it is supersaturated already at 298.15 K). "
+          "first_solid() names the phase; first_solid(metastable=True) gives the ice value.")
+      .def(
+          "first_solid",
+          [](eq::ice_curve& c, bool metastable) {
+            py::dict d;
+            const auto& fp = c.initial_freezing_point();
+            const auto f = metastable ? eq::salt_first_solid{} : c.salt_first();
+            if (f.phase == nullptr) {
+              d["temperature_K"] = fp.temperature;
+              d["phase"] = "ice";
+              d["formula"] = "H2O";
+              d["source"] = "";
+              d["status"] = std::string(eq::to_string(fp.status));
+              d["reason"] = fp.check.reason();
+            } else {
+              d["temperature_K"] = f.temperature;
+              d["phase"] = f.phase->name;
+              d["formula"] = f.phase->formula;
+              d["source"] = f.phase->source;
+              d["status"] = std::string(std::isnan(f.temperature) ? "salt_saturated_above_data" : "converged");
+              d["reason"] = f.check.reason();
+            }
+            d["metastable"] = metastable;
+            d["metastable_ice_temperature_K"] = fp.temperature;
+            d["notice"] = eq::salt_first_notice(f);
+            return d;
+          },
+          py::arg("metastable") = false,
+          "The first solid to form on cooling as a dict: temperature_K, phase ('ice' or the salt "
+          "phase, e.g. 'hydrohalite'), formula, source (of the salt's solubility product), status, "
+          "reason, notice (why a salt forms first; '' for ice), metastable_ice_temperature_K. "
+          "metastable=True: the ice freezing point of the liquid as given (salt kept dissolved).")
       .def_property_readonly(
           "salts",
           [](eq::ice_curve& c) {

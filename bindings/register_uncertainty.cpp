@@ -128,9 +128,9 @@ void register_uncertainty(py::module_& m) {
       "propagate_uncertainty",
       [](const colligate::solution& s, const std::string& quantity, double temperature,
          const std::string& model, double bound_fraction, const std::string& method, int draws,
-         std::uint64_t seed) {
+         std::uint64_t seed, const std::string& parameter_set) {
         const auto q = quantity_from_string(quantity);
-        const colligate::models::model_choice choice(model);
+        const auto choice = model_with_set(model, parameter_set);
         const double bound = colligate::bound_water_kg(s, bound_fraction, eq::to_string(q));
         if (method == "linear") {
           eq::prediction_uncertainty r;
@@ -160,7 +160,7 @@ void register_uncertainty(py::module_& m) {
       },
       py::arg("solution"), py::arg("quantity"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("bound_water_fraction_of_water") = 0.0, py::arg("method") = "linear",
-      py::arg("draws") = 100000, py::arg("seed") = 0,
+      py::arg("draws") = 100000, py::arg("seed") = 0, py::arg("parameter_set") = "",
       "A prediction with its standard uncertainty from the covariance of the solution's "
       "constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' "
       "(`draws` samples, generator seeded with `seed`). Temperature in K (unused for the "

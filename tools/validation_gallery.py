@@ -119,6 +119,12 @@ def _gamma_harvie(row) -> float:
     return cg.mean_activity_coefficient(s, row.salt, row.temperature_K, parameter_set="harvie_1984")
 
 
+def _gamma_default(row) -> float:
+    cg = _cg()
+    s = cg.Solution.from_molalities({row.salt: row.molality_mol_per_kg})
+    return cg.mean_activity_coefficient(s, row.salt, row.temperature_K)
+
+
 def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
     # gamma(m) / gamma(0.1 mol/kg) of the model, scaled by the table's gamma(0.1 mol/kg): the
     # residual against the table's gamma(m) is then the residual of the ratio times the
@@ -164,6 +170,16 @@ def _saturated_water_activity(row) -> float:
     if state["phase"] != row.phase:
         raise SystemExit(f"{row.salt}: the model crystallises {state['phase']}, the table {row.phase}")
     return state["water_activity"]
+
+
+def _nacl_solubility(row) -> float:
+    # Saturation molality of halite: the liquid left when an 8 mol/kg NaCl solution reaches
+    # equilibrium with the salt at the row's temperature (default parameter set).
+    cg = _cg()
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", cg.SupersaturatedWarning)
+        state = cg.salt_equilibrium(cg.Solution.from_molalities({"NaCl": 8.0}), row.temperature_C + CELSIUS)
+    return (8.0 - state["precipitated_mol"]) / state["liquid_water_kg"]
 
 
 def _sugar_solubility_g_per_100g(row) -> float:
@@ -272,11 +288,15 @@ QUANTITIES: dict[str, Quantity] = {
                                       "published onset, C", "phase", curve=False),
     "mean_activity_coefficient_harvie_1984": Quantity(_gamma_harvie, "molality_mol_per_kg", "molality, mol/kg",
                                                       "salt", log_y=True, relative=True),
+    "mean_activity_coefficient_default_set": Quantity(_gamma_default, "molality_mol_per_kg",
+                                                      "molality, mol/kg", "salt", log_y=True,
+                                                      relative=True),
     "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",
                                                             "molality, mol/kg", "salt", with_rows=True,
                                                             relative=True),
     "saturated_salt_water_activity": Quantity(_saturated_water_activity, "water_activity",
                                               "published a_w of the saturated solution", "salt", curve=False),
+    "nacl_solubility_mol_per_kg": Quantity(_nacl_solubility, "temperature_C", "temperature, C"),
     "sugar_solubility_g_per_100g_water": Quantity(_sugar_solubility_g_per_100g, "temperature_c",
                                                   "temperature, C", "solute"),
     "propylene_glycol_freezing_point_F_from_volume_percent": Quantity(

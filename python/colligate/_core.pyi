@@ -452,6 +452,10 @@ class IceCurve:
         """
         Where the curve ends as a dict: temperature (K), found (a final eutectic), phase, formula and source of the salt whose saturation ends it, and reason.
         """
+    def first_solid(self, metastable: bool = False) -> dict:
+        """
+        The first solid to form on cooling as a dict: temperature_K, phase ('ice' or the salt phase, e.g. 'hydrohalite'), formula, source (of the salt's solubility product), status, reason, notice (why a salt forms first; '' for ice), metastable_ice_temperature_K. metastable=True: the ice freezing point of the liquid as given (salt kept dissolved).
+        """
     def ice_fractions(self, temperature: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], range_policy: str = 'extrapolate') -> tuple[numpy.typing.NDArray[numpy.float64], str, int]:
         """
         (ice fractions, first reason, count out of range) at each temperature (K).
@@ -486,7 +490,7 @@ class IceCurve:
     @property
     def freezing_point(self) -> tuple[float, str, str]:
         """
-        (temperature K, status, reason) of the initial freezing point.
+        (temperature K, status, reason) of the first solid to form, as colligate.freezing_point gives it: the ice freezing point, or for a brine richer than its eutectic composition the temperature where a salt begins to crystallise (status 'salt_saturated_above_data' and NaN when it is supersaturated already at 298.15 K). first_solid() names the phase; first_solid(metastable=True) gives the ice value.
         """
     @property
     def model(self) -> str:
@@ -812,7 +816,7 @@ def maximal_freeze_concentration(solution: Solution, model: str = 'auto', bound_
     """
     Tg' (K) and Cg' (solute mass fraction) where the unfrozen phase on the ice curve meets its glass curve, with Wg' (kg unfrozen water per kg solutes), the ice fraction there, the solve status and the ice curve's validity reason ('' when in range).
     """
-def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
+def mean_activity_coefficient(solution: Solution, solute: str, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'harvie_spencer_icefit') -> tuple[float, str]:
     ...
 def model_summaries() -> list:
     """
@@ -844,7 +848,7 @@ def pham_times(size: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], sh
     """
     Pham's (1986) freezing times, s, over arrays of size (m) and h (W/(m^2 K)).
     """
-def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'spencer_1990_icefit') -> tuple[float, str]:
+def pitzer_osmotic_coefficient(solution: Solution, temperature: typing.SupportsFloat | typing.SupportsIndex, parameter_set: str = 'harvie_spencer_icefit') -> tuple[float, str]:
     ...
 def pitzer_parameter_set_range(parameter_set: str) -> tuple[float, float, str, str]:
     """
@@ -866,7 +870,7 @@ def plank_time_uncertainty(shape: str, size: typing.SupportsFloat | typing.Suppo
     """
     Plank's freezing time (s) with its standard uncertainty from stated, uncorrelated standard uncertainties of its inputs (closed-form partial derivatives; normal law).
     """
-def propagate_uncertainty(solution: Solution, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, method: str = 'linear', draws: typing.SupportsInt | typing.SupportsIndex = 100000, seed: typing.SupportsInt | typing.SupportsIndex = 0) -> dict:
+def propagate_uncertainty(solution: Solution, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, method: str = 'linear', draws: typing.SupportsInt | typing.SupportsIndex = 100000, seed: typing.SupportsInt | typing.SupportsIndex = 0, parameter_set: str = '') -> dict:
     """
     A prediction with its standard uncertainty from the covariance of the solution's constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' (`draws` samples, generator seeded with `seed`). Temperature in K (unused for the freezing point).
     """

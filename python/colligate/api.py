@@ -86,15 +86,6 @@ def _uncertain_input(solution: Any) -> Any:
     return solution if isinstance(solution, SolutionBatch) else _as_solution(solution)
 
 
-def _default_set_only(parameter_set: Union[str, None]) -> None:
-    """Propagated uncertainties carry the default Pitzer set's sensitivities only."""
-    if parameter_set:
-        raise InvalidInputError(
-            f"parameter_set = {parameter_set!r} with with_uncertainty: the propagation uses the "
-            "default Pitzer set only; leave parameter_set out (None) or with_uncertainty False"
-        )
-
-
 def _as_solution(solution: Any) -> Solution:
     if isinstance(solution, Solution):
         return solution
@@ -160,12 +151,11 @@ def freezing_point(
         supersaturated in a salt at 298.15 K (the top of the solubility data).
     """
     if with_uncertainty is not False:
-        _default_set_only(parameter_set)
         if metastable:
             raise InvalidInputError("metastable = True with with_uncertainty: the propagation "
                                     "covers the default freezing point only")
         return propagate(_uncertain_input(solution), "freezing_point", 0.0, model, range_policy=range_policy,
-                         bound_water_fraction_of_water=bound_water_fraction_of_water,
+                         parameter_set=parameter_set, bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_freezing_point(solution, model, range_policy=range_policy,
@@ -218,9 +208,8 @@ def water_activity(
         Water activity, dimensionless, in (0, 1].
     """
     if with_uncertainty is not False:
-        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "water_activity", T, model, range_policy=range_policy,
-                         method=_method(with_uncertainty))
+                         parameter_set=parameter_set, method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation,
                                     parameter_set=parameter_set)
@@ -276,9 +265,8 @@ def osmotic_coefficient(
     ``with_uncertainty`` and ``parameter_set`` (the Pitzer set for the ions): see
     :func:`freezing_point`."""
     if with_uncertainty is not False:
-        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "osmotic_coefficient", T, model, range_policy=range_policy,
-                         method=_method(with_uncertainty))
+                         parameter_set=parameter_set, method=_method(with_uncertainty))
     value, reason = _core.osmotic_coefficient(_as_solution(solution), float(T), model, range_policy,
                                               parameter_set or "")
     _warn(reason)
@@ -323,9 +311,8 @@ def ice_fraction(
         Ice fraction in [0, 1), same shape as ``T``.
     """
     if with_uncertainty is not False:
-        _default_set_only(parameter_set)
         return propagate(_uncertain_input(solution), "ice_fraction", T, model, range_policy=range_policy,
-                         bound_water_fraction_of_water=bound_water_fraction_of_water,
+                         parameter_set=parameter_set, bound_water_fraction_of_water=bound_water_fraction_of_water,
                          method=_method(with_uncertainty))
     if isinstance(solution, SolutionBatch):
         return batch_ice_fraction(solution, T, model, range_policy=range_policy,
@@ -676,7 +663,7 @@ def eutectic_of(curve: IceCurve) -> dict:
 
 
 def mean_activity_coefficient(
-    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "spencer_1990_icefit"
+    solution: Solution, solute: str, T: float = 298.15, *, parameter_set: str = "harvie_spencer_icefit"
 ) -> float:
     """Mean molal activity coefficient of electrolyte ``solute`` at ``T`` (K), Pitzer model."""
     value, reason = _core.mean_activity_coefficient(_as_solution(solution), solute, float(T), parameter_set)

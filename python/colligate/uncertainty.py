@@ -104,7 +104,8 @@ class UncertainValue:
 
 def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto", *,
               bound_water_fraction_of_water: float = 0.0, method: str = "linear",
-              draws: int = 100_000, seed: int = 0, range_policy: str = "extrapolate") -> Any:
+              draws: int = 100_000, seed: int = 0, range_policy: str = "extrapolate",
+              parameter_set: Any = None) -> Any:
     """``quantity`` of ``solution`` at temperature(s) ``T`` (K) with its standard uncertainty.
 
     For a :class:`colligate.SolutionBatch` the result is a pandas DataFrame of value and
@@ -124,10 +125,18 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     range_policy : str
         Outside the model's validated range: "extrapolate" (warn), "nan" (NaN value and
         uncertainty, warn) or "raise" (:class:`colligate.OutOfValidityRangeError`).
+    parameter_set : str, optional
+        Pitzer parameter set for the ions (one of :func:`colligate.pitzer_parameter_sets`);
+        None: the default set. Both methods evaluate the model and its sensitivities with it.
+        A :class:`colligate.SolutionBatch` takes the default set only.
     """
     if quantity not in QUANTITIES:
         raise _core.InvalidInputError(f"propagate: quantity = {quantity!r}: must be one of {', '.join(QUANTITIES)}")
     if isinstance(solution, SolutionBatch):
+        if parameter_set:
+            raise _core.InvalidInputError(
+                f"propagate: parameter_set = {parameter_set!r} with a SolutionBatch: the batch "
+                "columns use the default Pitzer set only; leave parameter_set out (None)")
         if method != "linear" or range_policy == "raise" or np.ndim(T) != 0:
             raise _core.InvalidInputError(
                 f"propagate: a SolutionBatch takes the linear method, one temperature and range_policy "
@@ -142,7 +151,7 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
             f"range_policy = {range_policy!r}: must be 'extrapolate', 'nan' or 'raise'")
     if isinstance(T, (int, float)) and method == "linear":  # one temperature: no array shaping
         r = _core.propagate_uncertainty(solution, quantity, float(T), model, float(bound_water_fraction_of_water),
-                                        method, int(draws), int(seed))
+                                        method, int(draws), int(seed), parameter_set or "")
         if r["reason"]:
             if range_policy == "raise":
                 raise _core.OutOfValidityRangeError(r["reason"])
@@ -156,7 +165,7 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     scalar = np.ndim(T) == 0
     temps = np.atleast_1d(np.asarray(T, dtype=float))
     rows = [_core.propagate_uncertainty(solution, quantity, float(t), model, float(bound_water_fraction_of_water),
-                                        method, int(draws), int(seed)) for t in temps.ravel()]
+                                        method, int(draws), int(seed), parameter_set or "") for t in temps.ravel()]
     reasons = [r["reason"] for r in rows if r["reason"]]
     if reasons and range_policy == "raise":
         raise _core.OutOfValidityRangeError(reasons[0])

@@ -50,7 +50,7 @@ def test_pitzer_bad_input_warns_and_raises():
         cg.mean_activity_coefficient(brine, "NaCl", 263.15, parameter_set="harvie_1984")
     assert "Ross (1975)" in cg.describe_model(
         cg.Solution.from_molalities({"NaCl": 0.1, "sucrose": 0.1}))
-    assert cg.pitzer_parameter_sets()[0] == "spencer_1990_icefit"
+    assert cg.pitzer_parameter_sets()[0] == "harvie_spencer_icefit"
 
 
 def test_nacl_mean_activity_coefficient_25c():
@@ -158,3 +158,29 @@ def test_brine_above_eutectic_composition_names_its_salt_crystallisation_tempera
     assert x["phase"] == "hydrohalite" and x["formula"] == "NaCl.2H2O"
     assert 273.15 - 21.2 + 2.0 < x["temperature_K"] < 273.15
     assert not x["above_data"] and x["reason"] == ""
+
+
+def test_ice_curve_freezing_point_agrees_with_freezing_point_and_names_the_phase():
+    # 25 wt% NaCl (richer than the eutectic, 23.3 wt%, Archer 1992): IceCurve.freezing_point
+    # gives the first-solid temperature that colligate.freezing_point gives (hydrohalite
+    # begins to crystallise there), first_solid() names the phase, and metastable=True on
+    # either gives the same ice temperature of the unprecipitated liquid, below the eutectic
+    # (-21.2 C, Archer 1992).
+    s = cg.Solution.from_mass_fractions({"NaCl": 0.25})
+    curve = cg.IceCurve(s)
+    with pytest.warns(cg.SupersaturatedWarning, match="hydrohalite"):
+        tf = cg.freezing_point(s)
+    t, status, reason = curve.freezing_point
+    assert (t, status, reason) == (tf, "converged", "")
+    first = curve.first_solid()
+    assert first["phase"] == "hydrohalite" and first["formula"] == "NaCl.2H2O"
+    assert first["temperature_K"] == tf and "hydrohalite" in first["notice"]
+    ice = curve.first_solid(metastable=True)
+    assert ice["phase"] == "ice" and ice["notice"] == "" and ice["metastable"]
+    assert ice["temperature_K"] == cg.freezing_point(s, metastable=True) == first["metastable_ice_temperature_K"]
+    assert ice["temperature_K"] < 273.15 - 21.2 < tf
+    # a brine below the eutectic composition: ice first, the same value everywhere
+    s10 = cg.Solution.from_mass_fractions({"NaCl": 0.10})
+    c10 = cg.IceCurve(s10)
+    assert c10.freezing_point[0] == cg.freezing_point(s10) == c10.first_solid()["temperature_K"]
+    assert c10.first_solid()["phase"] == "ice" and c10.first_solid()["notice"] == ""

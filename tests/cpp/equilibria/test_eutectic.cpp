@@ -28,8 +28,9 @@ double worst_crc(const std::string& solute, double max_percent, int& rows) {
 TEST_CASE("salt freezing points vs CRC Handbook with the Pitzer model", "[equilibria][pitzer][crc]") {
   // CRC Handbook of Chemistry and Physics, 102nd ed. (2021), "Concentrative properties of
   // aqueous solutions" (tests/reference/crc_freezing_points.csv, source crc_concentrative).
-  // Default set spencer_1990_icefit (Spencer et al. 1990 with NaCl and CaCl2 curvature
-  // below 25 C fitted to Melinder's 2010 ice lines, not to these rows). Tolerance 0.2 K
+  // Default set harvie_spencer_icefit (Spencer et al. 1990 with NaCl and CaCl2 curvature
+  // below 25 C fitted to Melinder's 2010 ice lines, CaCl2 and MgCl2 on Harvie et al.'s 1984
+  // 25 C values; not fitted to these rows). Tolerance 0.2 K
   // where met; where not, the achieved tolerance and the reason (docs/electrolytes.md,
   // "Checks").
   struct limit {

@@ -635,7 +635,7 @@ TEST_CASE("bad input: salts without parameters at T, missing mixing parameters l
                       Catch::Matchers::Contains("potassium_chloride"));
   // Every built-in set with all six ions lists every theta and psi of them.
   const auto sea = solution::seawater(35.0);
-  for (const char* id : {"spencer_1990_icefit", "spencer_1990", "harvie_1984"})
+  for (const char* id : {"harvie_spencer_icefit", "spencer_1990_icefit", "spencer_1990", "harvie_1984"})
     CHECK(pitzer::missing_mixing_parameters(sea, data::find_pitzer_parameter_set(id)).empty());
   // A set without theta(Na+, K+) and psi(Na+, K+, Cl-): both named, code missing_constants.
   auto partial = harvie;
@@ -663,7 +663,7 @@ TEST_CASE("a parameter set chosen through the registry reaches every entry point
   // it was; a named set changes the result by what the set's own functions give.
   const auto brine = solution::from_molalities({{"NaCl", 2.0}, {"KCl", 0.5}});
   const models::model_choice plain("pitzer");
-  const models::model_choice named_default("pitzer", models::model_options{"spencer_1990_icefit"});
+  const models::model_choice named_default("pitzer", models::model_options{"harvie_spencer_icefit"});
   const models::model_choice harvie("pitzer", models::model_options{"harvie_1984"});
   CHECK(models::water_activity(brine, 298.15, plain).value ==
         models::water_activity(brine, 298.15, named_default).value);

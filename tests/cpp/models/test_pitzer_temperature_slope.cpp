@@ -104,7 +104,8 @@ TEST_CASE("J'' of the mixing function and the three-argument J", "[models][pitze
 
 TEST_CASE("Pitzer d ln a_w / dT: value bit-identical, slope against central differences",
           "[models][pitzer][slope]") {
-  for (const auto* set : {&data::spencer_1990_icefit_parameters(), &data::spencer_1990_parameters(),
+  for (const auto* set : {&data::harvie_spencer_icefit_parameters(), &data::spencer_1990_icefit_parameters(),
+                          &data::spencer_1990_parameters(),
                           &data::harvie_1984_parameters()}) {
     for (const auto& s : brines()) {
       models::detail::pitzer_system sys(s, *set);

@@ -529,6 +529,30 @@ TEST_CASE("mean activity coefficients at 25 C of the chlorides and K2SO4 (harvie
   }
 }
 
+TEST_CASE("mean activity coefficients at 25 C with the default set against the CRC table",
+          "[validation][pitzer][25C]") {
+  // The same CRC rows and limits as the harvie_1984 check above (crc_mean_activity_default:
+  // 2 % up to 2 mol/kg, 5 % above; CaCl2 at 2 mol/kg 2.5 %), now through the default set,
+  // whose CaCl2 row carries Harvie et al.'s (1984) 25 C values (issue 12). The table was not
+  // used to fit the set (tools/fit_default_set.py fits the ice line only). MgCl2 keeps
+  // Spencer et al.'s row and misses (+3.5 % at 1 mol/kg): not checked, the basis says why.
+  const auto& c = tolerances::find("crc_mean_activity_default");
+  REQUIRE_FALSE(c.check_beyond_range);
+  const std::string id = data::pitzer_parameter_set_ids().front();
+  REQUIRE(id == models::pitzer::default_parameters().id);
+  int n = 0;
+  for (const char* salt : {"NaCl", "KCl", "CaCl2", "K2SO4"}) {
+    for (const auto& r : crc_gamma_rows(c, salt, id.c_str())) {
+      const double m = num(r, "molality_mol_per_kg");
+      INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
+      CHECK_THAT(gamma_pm(salt, m, id.c_str()),
+                 Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+      ++n;
+    }
+  }
+  CHECK(n >= 40);
+}
+
 TEST_CASE("sulfates at 25 C: the rise of gamma above 0.1 mol/kg against the CRC table",
           "[validation][pitzer][25C][two_two]") {
   // Na2SO4 and MgSO4 with Harvie et al. (1984) (MgSO4: Pitzer & Mayorga 1974, alpha1 1.4,

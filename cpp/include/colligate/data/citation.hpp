@@ -89,6 +89,20 @@ inline const std::vector<citation>& citations() {
        "chloride rows cross-checked against the paper's eq. 2 coefficients as copied in "
        "pytzer (MgCl2) and pypitzer (NaCl, KCl, CaCl2); "
        "the A_phi(T) polynomial of the model, coefficients read in public copies"},
+      {"colligate_default_fit", "colligate developers", 2026,
+       "CaCl2 Pitzer parameters on the 25 C values of Harvie, Moller & Weare (1984) with "
+       "Spencer et al.'s (1990) slopes and a curvature below 25 C fitted to the evaluated ice "
+       "line of Melinder (2010); solubility-product shifts of antarcticite and halite",
+       "colligate source tree: tools/fit_default_set.py", "",
+       "least-squares fit to Melinder's freezing curve as represented by CoolProp "
+       "INCOMP::MCA (CaCl2 1-30 wt%), with a stated penalty on the change from the old "
+       "default's parameters at 220-273.15 K; 25 C values fixed. Halite's shift also fitted "
+       "to alternate rows of the Salt Institute solubility table"},
+      {"salt_institute_solubility", "Salt Institute", 2013,
+       "Chemical and physical properties of pure sodium chloride: solubility of salt at "
+       "various temperatures", "saltinstitute.org (salt-101/chemical-physical-properties)", "",
+       "table of mass per cent NaCl in the saturated solution, -21.11 to 108.7 C; read in a "
+       "public copy of the page (tuticorin-salt.blogspot.com, 2013)"},
       {"colligate_icefit", "colligate developers", 2026,
        "Low-temperature curvature of the NaCl and CaCl2 Pitzer parameters of Spencer et al. "
        "(1990), fitted to the evaluated ice lines of Melinder (2010)",

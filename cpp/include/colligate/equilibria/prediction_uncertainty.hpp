@@ -353,7 +353,8 @@ class linear_plan {
       block_end_[b] = k + 1;
     }
     if ((path_ == linear_path::pitzer || path_ == linear_path::ross) && !constants_.constants.empty()) {
-      const auto& set = models::pitzer::default_parameters();
+      // The caller's parameter set (model_options), the default when it names none.
+      const auto& set = models::pitzer::parameters_for(m.options());
       if (models::detail::has_record_binaries(s)) {
         own_rows_ = std::make_unique<data::pitzer_parameter_set>(models::detail::with_record_binaries(s, set));
         rows_ = own_rows_.get();

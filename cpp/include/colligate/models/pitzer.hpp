@@ -13,7 +13,8 @@
 ///     ln a_w = -M_w sum_i m_i phi
 ///
 /// Parameters come from a named set in data/pitzer_parameters.hpp (default
-/// "spencer_1990_icefit", valid 219.15-298.15 K; "spencer_1990" as published;
+/// "harvie_spencer_icefit", valid 219.15-298.15 K; "spencer_1990_icefit" the default before;
+/// "spencer_1990" as published;
 /// "harvie_1984" at 25 C). The Debye-Hueckel slope A_phi(T) is the one each set was
 /// fitted with (pitzer_parameter_set::aphi): the Spencer, Moller & Weare (1990)
 /// polynomial for the two spencer sets, the Clegg, Rard & Pitzer
@@ -89,7 +90,7 @@ struct pitzer {
   }
 
   static const data::pitzer_parameter_set& default_parameters() {
-    return data::spencer_1990_icefit_parameters();
+    return data::harvie_spencer_icefit_parameters();
   }
 
   /// The parameter set a caller's options name (model_options::parameter_set), or the

@@ -139,6 +139,9 @@ class pitzer_system {
     if (has_record_binaries(s)) {
       const auto copy = with_record_binaries(s, set);
       build(s, indexed_parameter_rows(copy));
+    } else if (&set == &data::harvie_spencer_icefit_parameters()) {
+      static const indexed_parameter_rows rows(data::harvie_spencer_icefit_parameters());
+      build(s, rows);
     } else if (&set == &data::spencer_1990_icefit_parameters()) {
       static const indexed_parameter_rows rows(data::spencer_1990_icefit_parameters());
       build(s, rows);

@@ -1,0 +1,302 @@
+"""Fit the default Pitzer set `harvie_spencer_icefit`: right at 25 C and along the ice line.
+
+Provenance script for `harvie_spencer_icefit_parameters()` in
+cpp/include/colligate/data/pitzer_parameters.hpp (issue 12, step 1).
+
+The earlier default `spencer_1990_icefit` keeps Spencer, Moller & Weare's (1990) 25 C
+values, which miss the CRC mean activity coefficients of CaCl2 (-24 % at 5 mol/kg) and
+MgCl2 (+10 %) at 25 C, while Harvie, Moller & Weare (1984) (= Pitzer & Mayorga 1973) meet
+them. For CaCl2 the new set takes Harvie et al.'s 25 C values and refits the temperature
+functions below 25 C to the evaluated ice line:
+
+    P(T) = P_spencer(T) + [P_harvie - P_spencer(T_r)] + sum_k c_k g_k(T)
+
+The bracket is a constant (the 25 C values become Harvie et al.'s exactly; Spencer et
+al.'s slope dP/dT at 25 C, their enthalpy data, is kept); the shapes g1, g2 (value and
+slope zero at T_r, see fit_brine_ice_line.py) carry the change below 25 C. Their
+coefficients are fitted, with scipy.optimize.least_squares, to
+
+  * the freezing points of Melinder (2010) (CoolProp 8 INCOMP::MCA, CaCl2 1-30 wt%, 1 wt%
+    steps), weight 1 per K;
+  * a penalty that keeps the parameters near the old default's below 0 C: the change of
+    beta0, beta1 and C-phi against `spencer_1990_icefit` at 10 temperatures 220-273.15 K,
+    scaled by 0.05, 0.5 and 0.005, weight 0.1 K per unit.
+
+The 25 C data are not fitted: Harvie et al.'s published values are the 25 C anchor (an
+infinite weight on them), and every CRC row stays a held-out check.
+
+MgCl2 keeps Spencer et al.'s row. The same treatment (Melinder's INCOMP::MMG ice line,
+penalty weights 1 and 10 K) could not bring the parameters back to Spencer et al.'s by
+0 C: the shapes have zero value and slope at 25 C, so Harvie et al.'s beta1 offset
+(-0.14) was still -0.07 at 271 K, and seawater (whose magnesium these rows set) moved out
+of its checks (TEOS-10 latent heat 5 -> -2 C 2.3 % off, gypsum onset 1.2 K and sylvite
+onset 1.9 K from FREZCHEM's). Joining the two would need a change of the 25 C slope
+(the enthalpy of dilution), which needs the thermal data; not done. NaCl, KCl and the
+sulfates keep the rows of `spencer_1990_icefit` (their 25 C values meet the CRC table
+within the issue's limits).
+
+Step 2 shifts the solubility product of antarcticite (CaCl2.6H2O) so that its published
+solubility curve (Spencer et al. 1990 activities) holds with the new activities, 222-298 K,
+as fit_brine_ice_line.py does for the old default. Step 3 fits halite's K (see
+halite_shift).
+
+Run: python3 tools/fit_default_set.py     (prints the rows, the residuals and the
+covariance of the fitted coefficients)
+"""
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+import numpy as np
+from scipy.optimize import brentq, least_squares
+
+import CoolProp.CoolProp as CP
+import colligate as cg
+from colligate import _core
+
+sys.path.insert(0, str(Path(__file__).resolve().parent))
+from fit_brine_ice_line import TR, MW, analytic, aphi_spencer, shape_to_coefficients, ln_k  # noqa: E402
+
+# Rows of spencer_1990_icefit (a0..a5) and Harvie et al. (1984) 25 C values.
+SALTS = {
+    "CaCl2": {
+        "old": {
+            "beta0": [0.304058, 864.4903987, 11.94793, -0.05285165275, 3.783969605e-05, -3394.2],
+            "beta1": [1.708132, -39643.40661, 0, -1.640686996, 0.002009494198, 0],
+            "cphi": [-0.00199, 247.8404573, -0.64691, 0.009321530354, -9.066156702e-06, -12466.4],
+        },
+        "spencer": {
+            "beta0": [0.304058, 1265.271, 11.94793, -0.03558926, 1.64514e-05, -3394.2],
+            "beta1": [1.708132, 0, 0, -0.015417, 0.000031791, 0],
+            "cphi": [-0.00199, 125.363, -0.64691, 0.00444735, -3.2027e-06, -12466.4],
+        },
+        "harvie": {"beta0": 0.3159, "beta1": 1.614, "cphi": -0.00034},
+        "molar_mass": 0.110984, "melinder": "INCOMP::MCA", "w_max": 0.30,
+    },
+}
+SHAPES = ("g1", "g2")
+NAMES = ("beta0", "beta1", "cphi")
+SCALE = {"beta0": 0.05, "beta1": 0.5, "cphi": 0.005}
+# K per scaled unit.
+REGULARISATION = {"CaCl2": 0.1}
+PENALTY_TEMPS = np.linspace(220.0, 273.15, 10)
+
+
+def rows_with(salt: str, x: np.ndarray) -> dict:
+    rec = SALTS[salt]
+    rows = {}
+    i = 0
+    for k in NAMES:
+        a = np.array(rec["spencer"][k], dtype=float)
+        a[0] = rec["harvie"][k]  # constant shift: the 25 C value becomes Harvie et al.'s
+        for shape in SHAPES:
+            a = a + shape_to_coefficients(shape, x[i])
+            i += 1
+        rows[k] = a
+    return rows
+
+
+def osmotic(m: float, T: float, rows: dict) -> float:
+    """Binary 2:1 chloride (nu = 3), alpha1 = 2, b = 1.2."""
+    s = np.sqrt(3.0 * m)
+    b0, b1, cphi = (analytic(rows[k], T) for k in NAMES)
+    return (1 - 2 * aphi_spencer(T) * s / (1 + 1.2 * s)
+            + m * (4.0 / 3.0) * (b0 + b1 * np.exp(-2 * s))
+            + m * m * (2 * 2 ** 1.5 / 3.0) * cphi)
+
+
+def freezing_point(salt: str, w: float, rows: dict) -> float:
+    m = w / (1 - w) / SALTS[salt]["molar_mass"]
+    f = lambda T: -osmotic(m, T, rows) * 3 * m * MW - _core.ln_water_activity_of_ice(T)
+    return brentq(f, 215.0, 273.15, xtol=1e-12)
+
+
+def melinder(salt: str, w: float) -> float:
+    return CP.PropsSI("T_freeze", "T", 273.15, "P", 101325, f"{SALTS[salt]['melinder']}[{w}]")
+
+
+def fit(salt: str):
+    rec = SALTS[salt]
+    ws = np.round(np.arange(0.01, rec["w_max"] + 1e-9, 0.01), 2)
+    target = np.array([melinder(salt, w) for w in ws])
+    old = {k: np.array(rec["old"][k], dtype=float) for k in NAMES}
+    # The NumPy copy must reproduce colligate's old default (osmotic coefficients).
+    worst = max(abs(osmotic(m, T, old) - _core.pitzer_osmotic_coefficient(
+        cg.Solution(1.0, {salt: m * rec["molar_mass"]}), T, "spencer_1990_icefit")[0])
+        for m in (0.5, 2.0, 4.0) for T in (233.15, 263.15, 298.15))
+    assert worst < 1e-6, f"{salt}: NumPy copy differs from colligate by {worst}"
+
+    def residuals(x):
+        rows = rows_with(salt, x)
+        return np.array([freezing_point(salt, w, rows) for w in ws]) - target
+
+    def penalised(x):
+        rows = rows_with(salt, x)
+        pen = [REGULARISATION[salt] * (analytic(rows[k], PENALTY_TEMPS) - analytic(old[k], PENALTY_TEMPS))
+               / SCALE[k] for k in NAMES]
+        return np.concatenate([residuals(x)] + pen)
+
+    n = len(NAMES) * len(SHAPES)
+    res = least_squares(penalised, np.zeros(n), x_scale=1e-3, xtol=1e-14, ftol=1e-14)
+    r = residuals(res.x)
+    r_old = np.array([freezing_point(salt, w, old) for w in ws]) - target
+    dof = len(res.fun) - n
+    s2 = float(res.fun @ res.fun) / dof
+    cov = s2 * np.linalg.inv(res.jac.T @ res.jac)
+    print(f"\n{salt}: {n} curvature terms on Harvie et al.'s 25 C values; ice line vs Melinder "
+          f"{ws[0]:.2f}-{ws[-1]:.2f} wt fraction ({len(ws)} rows, all used in the fit):")
+    print(f"  new rms {np.sqrt(np.mean(r**2)):.3f} K, worst {np.abs(r).max():.3f} K; "
+          f"old default rms {np.sqrt(np.mean(r_old**2)):.3f} K, worst {np.abs(r_old).max():.3f} K; "
+          f"copy within {worst:.1e}")
+    print("  residuals (K) by wt%: " + ", ".join(f"{100 * w:.0f}:{d:+.3f}" for w, d in zip(ws, r)))
+    print("  shape coefficients (beta0 g1 g2, beta1 g1 g2, cphi g1 g2):",
+          ", ".join(f"{v:.10g}" for v in res.x))
+    print(f"  covariance (s^2 = {s2:.4g} K^2, {dof} degrees of freedom), standard "
+          "uncertainties: " + ", ".join(f"{np.sqrt(cov[i, i]):.3g}" for i in range(n)))
+    corr = cov / np.sqrt(np.outer(np.diag(cov), np.diag(cov)))
+    print("  correlation:\n" + "\n".join("    " + " ".join(f"{v:+.3f}" for v in row) for row in corr))
+    rows = rows_with(salt, res.x)
+    for k in NAMES:
+        print(f"  {k}: tf(" + ", ".join(f"{v:.10g}" for v in rows[k]) + ")")
+        grid = np.linspace(219.15, 298.15, 80)
+        change = analytic(rows[k], grid) - analytic(old[k], grid)
+        print(f"    change vs old default over 219-298 K: {change.min():+.4f} .. {change.max():+.4f}")
+    return rows
+
+
+# Salt hydrates whose solubility product goes with the CaCl2 and MgCl2 activities:
+# frezchem.dat log10 K (A1..A6), waters of hydration, the temperatures fitted (K).
+HYDRATES = {
+    "CaCl2": ("CaCl2.6H2O", 6,
+              [-38613.99886, -14.14140164, 1381731.005, 15479.47256, -52024247.5, 0.005422163],
+              (222.0, 298.15)),
+}
+
+
+def ln_gamma(m: float, T: float, rows: dict) -> float:
+    """ln of the mean activity coefficient of a binary 2:1 chloride (Pitzer 1991, ch. 3)."""
+    s = np.sqrt(3.0 * m)
+    b0, b1, cphi = (analytic(rows[k], T) for k in NAMES)
+    f = -aphi_spencer(T) * (s / (1 + 1.2 * s) + (2 / 1.2) * np.log(1 + 1.2 * s))
+    x = 2 * s
+    bg = 2 * b0 + 2 * b1 / (x * x) * (1 - (1 + x - x * x / 2) * np.exp(-x))
+    return 2 * f + m * (4.0 / 3.0) * bg + m * m * (2 * 2 ** 1.5 / 3.0) * 1.5 * cphi
+
+
+def ln_iap(m: float, T: float, rows: dict, waters: int) -> float:
+    ln_aw = -osmotic(m, T, rows) * 3 * m * MW
+    return np.log(m) + 2 * np.log(2 * m) + 3 * ln_gamma(m, T, rows) + waters * ln_aw
+
+
+def solubility_shift(salt: str, rows: dict) -> None:
+    phase, waters, a, (t_lo, t_hi) = HYDRATES[salt]
+    spencer = {k: np.array(SALTS[salt]["spencer"][k], dtype=float) for k in NAMES}
+    copy = max(abs(np.exp(ln_gamma(m, T, spencer)) - _core.mean_activity_coefficient(
+        cg.Solution(1.0, {salt: m * SALTS[salt]["molar_mass"]}), salt, T, "spencer_1990")[0])
+        for m in (0.5, 2.0, 5.0) for T in (238.15, 263.15, 298.15))
+    assert copy < 1e-6, f"{salt}: NumPy gamma differs from colligate's spencer_1990 by {copy}"
+    temps = np.linspace(t_lo, t_hi, 32)
+    shift = []
+    for T in temps:
+        m_sat = brentq(lambda m: ln_iap(m, T, spencer, waters) - ln_k(a, T), 0.5, 4.5 if waters == 12 else 8.0)
+        shift.append((ln_iap(m_sat, T, rows, waters) - ln_iap(m_sat, T, spencer, waters)) / np.log(10.0))
+    shift = np.array(shift)
+    basis = np.column_stack([np.ones_like(temps), temps, 1.0 / temps, np.log10(temps),
+                             1.0 / temps**2, temps**2])
+    # MgCl2.12H2O's curve spans 16 K only: three terms (A1..A3), so that the shift stays
+    # tame where it is extrapolated (219-236 K).
+    terms = 3 if salt == "MgCl2" else 6
+    d = np.zeros(6)
+    d[:terms], *_ = np.linalg.lstsq(basis[:, :terms], shift, rcond=None)
+    worst = np.abs(basis @ d - shift).max()
+    grid = np.linspace(219.15, 298.15, 80)
+    wide = np.column_stack([np.ones_like(grid), grid, 1.0 / grid, np.log10(grid), 1.0 / grid**2, grid**2]) @ d
+    print(f"\n{phase}: log10 K shift {shift.min():+.4f} .. {shift.max():+.4f} over "
+          f"{t_lo}-{t_hi} K; A1..A6 += {', '.join(f'{v:.10g}' for v in d)} (fit within {worst:.1e}; "
+          f"NumPy gamma within {copy:.1e} of colligate's spencer_1990)")
+    print(f"  (shift over 219-298 K: {wide.min():+.4f} .. {wide.max():+.4f})")
+
+
+# Halite (NaCl), frezchem.dat log10 K (A1..A6), and the NaCl rows of Spencer et al. (1990)
+# and of the default set (spencer_1990_icefit's beta0 curvature).
+HALITE = [596.809454, 0.73058662, 9360.9197, -315.516708, -1749318.4, -0.000495535]
+NACL_SPENCER = {
+    "beta0": [0.076276, -886.777, -4.19728, 0.00613645, -1.1006e-06, 8942.9],
+    "beta1": [0.280431, -8677.858, -94.69966, 0.2944375, -0.000147476, -191956],
+    "cphi": [0.001271, 52.6, 0.07951, 0.00031974, -3.195e-07, -1237.7],
+}
+NACL_DEFAULT = dict(NACL_SPENCER, beta0=[0.076276, -886.777, -4.19728, 0.007239381384,
+                                         -2.950224994e-06, 8942.9])
+M_NACL = 0.05844277
+SOLUBILITY_CSV = Path(__file__).resolve().parents[1] / "tests" / "reference" / "nacl_solubility.csv"
+
+
+def ln_gamma_nacl(m: float, T: float, rows: dict) -> float:
+    """ln gamma of NaCl (1:1, alpha1 = 2, b = 1.2; Pitzer 1991, ch. 3) with Spencer's A_phi."""
+    s = np.sqrt(m)
+    b0, b1, cphi = (analytic(np.array(rows[k], dtype=float), T) for k in NAMES)
+    f = -aphi_spencer(T) * (s / (1 + 1.2 * s) + (2 / 1.2) * np.log(1 + 1.2 * s))
+    x = 2 * s
+    return f + m * (2 * b0 + 2 * b1 / (x * x) * (1 - (1 + x - x * x / 2) * np.exp(-x))) + m * m * 1.5 * cphi
+
+
+def halite_molality(T: float, rows: dict, shift=None) -> float:
+    ln_k_t = ln_k(HALITE, T) + (0.0 if shift is None else ln_k(shift, T))
+    return brentq(lambda m: 2 * np.log(m) + 2 * ln_gamma_nacl(m, T, rows) - ln_k_t, 3.0, 8.0)
+
+
+def halite_shift() -> None:
+    """Halite's log10 K for the default set: (1) the shift that keeps Spencer et al.'s
+    saturation curve with the default set's NaCl curvature below 25 C (as the hydrohalite
+    shift of fit_brine_ice_line.py; without it the curve rises on cooling, 6.106 -> 6.142
+    mol/kg from 25 to 0.1 C), plus (2) c0 + c1 (T - T_r), fitted to the used_in_fit rows of
+    the Salt Institute solubility table (tests/reference/nacl_solubility.csv: 0.1, 10,
+    21.11 C; 4.44 and 15.56 C held out): a correction of halite's 25 C solubility product
+    and of its enthalpy of solution."""
+    import pandas as pd
+
+    worst = max(abs(np.exp(ln_gamma_nacl(m, T, NACL_SPENCER)) - _core.mean_activity_coefficient(
+        cg.Solution(1.0, {"NaCl": m * M_NACL}), "NaCl", T, "spencer_1990")[0])
+        for m in (0.5, 3.0, 6.0) for T in (263.15, 283.15, 298.15))
+    assert worst < 1e-6, f"NaCl: NumPy gamma differs from colligate's spencer_1990 by {worst}"
+    temps = np.linspace(252.0, 298.15, 24)
+    comp = np.array([(2 * ln_gamma_nacl(m, T, NACL_DEFAULT) - 2 * ln_gamma_nacl(m, T, NACL_SPENCER))
+                     / np.log(10.0) for T in temps for m in [halite_molality(T, NACL_SPENCER)]])
+    basis = lambda t: np.column_stack([np.ones_like(t), t, 1.0 / t, np.log10(t), 1.0 / t**2, t**2])
+    d_comp, *_ = np.linalg.lstsq(basis(temps), comp, rcond=None)
+    table = pd.read_csv(SOLUBILITY_CSV)
+    used = table[table.used_in_fit == "yes"]
+    t_used = used.temperature_C.to_numpy() + 273.15
+    need = np.array([(2 * np.log(m) + 2 * ln_gamma_nacl(m, T, NACL_DEFAULT) - ln_k(HALITE, T)) / np.log(10.0)
+                     for m, T in zip(used.molality_mol_per_kg, t_used)])
+    resid = need - basis(t_used) @ d_comp
+    design = np.column_stack([np.ones_like(t_used), t_used - TR])
+    (c0, c1), *_ = np.linalg.lstsq(design, resid, rcond=None)
+    shift = d_comp.copy()
+    shift[0] += c0 - c1 * TR
+    shift[1] += c1
+    print(f"\nhalite: compensation fitted within {np.abs(basis(temps) @ d_comp - comp).max():.1e} in "
+          f"log10 K over 252-298.15 K; data term c0 = {c0:+.6f}, c1 = {c1:+.3e} /K "
+          f"(NumPy gamma within {worst:.1e} of colligate's spencer_1990)")
+    print("  A1..A6 += " + ", ".join(f"{v:.10g}" for v in shift))
+    for _, r in table.iterrows():
+        T = r.temperature_C + 273.15
+        m = halite_molality(T, NACL_DEFAULT, shift)
+        print(f"  {r.temperature_C:6.2f} C: model {m:.4f}, table {r.molality_mol_per_kg:.4f} mol/kg "
+              f"({m - r.molality_mol_per_kg:+.4f}; used_in_fit {r.used_in_fit})")
+    for T in (273.25, 298.15):
+        print(f"  {T} K: Spencer {halite_molality(T, NACL_SPENCER):.4f}, old default "
+              f"{halite_molality(T, NACL_DEFAULT):.4f}, new default "
+              f"{halite_molality(T, NACL_DEFAULT, shift):.4f} mol/kg")
+
+
+def main() -> None:
+    rows = {salt: fit(salt) for salt in SALTS}
+    for salt in HYDRATES:
+        solubility_shift(salt, rows[salt])
+    halite_shift()
+
+
+if __name__ == "__main__":
+    main()
