@@ -128,7 +128,7 @@ void register_uncertainty(py::module_& m) {
       "propagate_uncertainty",
       [](const colligate::solution& s, const std::string& quantity, double temperature,
          const std::string& model, double bound_fraction, const std::string& method, int draws,
-         std::uint64_t seed, const std::string& parameter_set) {
+         std::uint64_t seed, const std::string& parameter_set, bool salts_crystallise) {
         const auto q = quantity_from_string(quantity);
         const auto choice = model_with_set(model, parameter_set);
         const double bound = colligate::bound_water_kg(s, bound_fraction, eq::to_string(q));
@@ -136,7 +136,7 @@ void register_uncertainty(py::module_& m) {
           eq::prediction_uncertainty r;
           {
             py::gil_scoped_release release;
-            r = eq::propagate_linear(q, s, temperature, choice, bound);
+            r = eq::propagate_linear(q, s, temperature, choice, bound, salts_crystallise);
           }
           return linear_dict(r);
         }
@@ -148,8 +148,8 @@ void register_uncertainty(py::module_& m) {
         std::vector<std::string> constants, not_stated;
         {
           py::gil_scoped_release release;
-          r = eq::propagate_monte_carlo(q, s, temperature, choice, bound, draws, seed);
-          value = eq::predict(q, s, temperature, choice, bound);
+          r = eq::propagate_monte_carlo(q, s, temperature, choice, bound, draws, seed, salts_crystallise);
+          value = eq::predict(q, s, temperature, choice, bound, salts_crystallise);
           const auto c = eq::uncertain_constants(s);
           for (std::size_t k = 0; k < c.constants.size(); ++k) constants.push_back(c.label(k, s));
           not_stated = c.not_stated;
@@ -161,10 +161,13 @@ void register_uncertainty(py::module_& m) {
       py::arg("solution"), py::arg("quantity"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("bound_water_fraction_of_water") = 0.0, py::arg("method") = "linear",
       py::arg("draws") = 100000, py::arg("seed") = 0, py::arg("parameter_set") = "",
+      py::arg("salts_crystallise") = true,
       "A prediction with its standard uncertainty from the covariance of the solution's "
       "constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' "
       "(`draws` samples, generator seeded with `seed`). Temperature in K (unused for the "
-      "freezing point).");
+      "freezing point). salts_crystallise (default): a salt above its solubility crystallises "
+      "as in the plain calls (first-solid freezing point, equilibrium a_w; the linear method "
+      "refuses such a state when a constant is uncertain); false: metastable values.");
 
   m.def(
       "food_thermal_uncertainty",

@@ -585,9 +585,9 @@ def batch_freezing_points(batch: SolutionBatchCore, model: str = 'auto', threads
     ...
 def batch_ice_fractions(batch: SolutionBatchCore, temperatures: typing.Annotated[numpy.typing.ArrayLike, numpy.float64], model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
-def batch_predictions_with_uncertainty(batch: SolutionBatchCore, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.int32], numpy.typing.NDArray[numpy.uint8]]:
+def batch_predictions_with_uncertainty(batch: SolutionBatchCore, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, salts_crystallise: bool = True) -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.int32], numpy.typing.NDArray[numpy.uint8]]:
     """
-    Value, standard uncertainty, effective degrees of freedom and row status of `quantity` for every row (linear propagation per row in C++; temperature in K, unused for the freezing point).
+    Value, standard uncertainty, effective degrees of freedom and row status of `quantity` for every row (linear propagation per row in C++; temperature in K, unused for the freezing point). salts_crystallise (default): a row where a salt crystallises keeps the plain batch call's value with u = NaN; false: metastable values.
     """
 def batch_water_activities(batch: SolutionBatchCore, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', threads: typing.SupportsInt | typing.SupportsIndex = 0, range_policy: str = 'extrapolate', saturation: str = 'equilibrium', parameter_set: str = '') -> tuple[numpy.typing.NDArray[numpy.float64], numpy.typing.NDArray[numpy.uint8]]:
     ...
@@ -870,9 +870,9 @@ def plank_time_uncertainty(shape: str, size: typing.SupportsFloat | typing.Suppo
     """
     Plank's freezing time (s) with its standard uncertainty from stated, uncorrelated standard uncertainties of its inputs (closed-form partial derivatives; normal law).
     """
-def propagate_uncertainty(solution: Solution, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, method: str = 'linear', draws: typing.SupportsInt | typing.SupportsIndex = 100000, seed: typing.SupportsInt | typing.SupportsIndex = 0, parameter_set: str = '') -> dict:
+def propagate_uncertainty(solution: Solution, quantity: str, temperature: typing.SupportsFloat | typing.SupportsIndex, model: str = 'auto', bound_water_fraction_of_water: typing.SupportsFloat | typing.SupportsIndex = 0.0, method: str = 'linear', draws: typing.SupportsInt | typing.SupportsIndex = 100000, seed: typing.SupportsInt | typing.SupportsIndex = 0, parameter_set: str = '', salts_crystallise: bool = True) -> dict:
     """
-    A prediction with its standard uncertainty from the covariance of the solution's constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' (`draws` samples, generator seeded with `seed`). Temperature in K (unused for the freezing point).
+    A prediction with its standard uncertainty from the covariance of the solution's constants: method 'linear' (analytic sensitivities, GUM eq. 13) or 'monte_carlo' (`draws` samples, generator seeded with `seed`). Temperature in K (unused for the freezing point). salts_crystallise (default): a salt above its solubility crystallises as in the plain calls (first-solid freezing point, equilibrium a_w; the linear method refuses such a state when a constant is uncertain); false: metastable values.
     """
 def record_with_uncertainty(record: SoluteRecord, names: collections.abc.Sequence[str], covariance: typing.Annotated[numpy.typing.ArrayLike, numpy.float64, "[m, n]"], degrees_of_freedom: typing.SupportsInt | typing.SupportsIndex, source: str = 'colligate_fit_user') -> SoluteRecord:
     """

@@ -151,12 +151,9 @@ def freezing_point(
         supersaturated in a salt at 298.15 K (the top of the solubility data).
     """
     if with_uncertainty is not False:
-        if metastable:
-            raise InvalidInputError("metastable = True with with_uncertainty: the propagation "
-                                    "covers the default freezing point only")
         return propagate(_uncertain_input(solution), "freezing_point", 0.0, model, range_policy=range_policy,
                          parameter_set=parameter_set, bound_water_fraction_of_water=bound_water_fraction_of_water,
-                         method=_method(with_uncertainty))
+                         method=_method(with_uncertainty), salts_crystallise=not metastable)
     if isinstance(solution, SolutionBatch):
         return batch_freezing_point(solution, model, range_policy=range_policy,
                                     bound_water_fraction_of_water=bound_water_fraction_of_water,
@@ -208,8 +205,11 @@ def water_activity(
         Water activity, dimensionless, in (0, 1].
     """
     if with_uncertainty is not False:
+        if saturation not in ("equilibrium", "metastable"):
+            raise InvalidInputError(f"saturation = {saturation!r}: valid values are 'equilibrium' and 'metastable'")
         return propagate(_uncertain_input(solution), "water_activity", T, model, range_policy=range_policy,
-                         parameter_set=parameter_set, method=_method(with_uncertainty))
+                         parameter_set=parameter_set, method=_method(with_uncertainty),
+                         salts_crystallise=saturation == "equilibrium")
     if isinstance(solution, SolutionBatch):
         return batch_water_activity(solution, T, model, range_policy=range_policy, saturation=saturation,
                                     parameter_set=parameter_set)

@@ -226,7 +226,7 @@ UNCERTAIN_QUANTITIES = {"freezing_point": "freezing_point_K", "water_activity": 
 
 def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.15, model: str = "auto", *,
                            threads: int = 0, range_policy: str = "extrapolate",
-                           bound_water_fraction_of_water: float = 0.0):
+                           bound_water_fraction_of_water: float = 0.0, salts_crystallise: bool = True):
     """``quantity`` of every row with its standard uncertainty, as a pandas DataFrame with
     the batch's index: the value column (``freezing_point_K``, ``water_activity``,
     ``osmotic_coefficient``, ``ice_fraction`` or ``unfrozen_water_kg``), the same name with
@@ -238,19 +238,23 @@ def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.1
     ``threads``; each row equals the scalar
     ``with_uncertainty=True`` result. ``T`` in K (unused for the freezing point). Solutes
     without a stated uncertainty contribute none (std 0). A row whose state has no closed
-    form (a salt crystallised) keeps its value with std NaN and a warning."""
+    form (a salt crystallises: a brine that forms a salt before ice, an a_w above a salt's
+    solubility, an ice fraction below a salt's saturation) keeps the plain batch call's
+    value with std NaN and a warning; ``salts_crystallise=False`` gives the metastable values
+    of each row as one liquid instead."""
     import pandas as pd
 
     if quantity not in UNCERTAIN_QUANTITIES:
         raise _core.InvalidInputError(
             f"batch_with_uncertainty: quantity = {quantity!r}: must be one of {', '.join(UNCERTAIN_QUANTITIES)}")
     value, std, dof, status = _core.batch_predictions_with_uncertainty(
-        batch._core, quantity, float(T), model, threads, range_policy, bound_water_fraction_of_water)
+        batch._core, quantity, float(T), model, threads, range_policy, bound_water_fraction_of_water,
+        bool(salts_crystallise))
     _report(status, quantity, batch)
     no_u = np.isfinite(value) & np.isnan(std)
     if np.any(no_u):
         warnings.warn(f"{quantity}: {int(no_u.sum())} row(s) have no closed-form standard uncertainty "
-                      "(a salt has crystallised at this temperature); use the Monte Carlo propagation "
+                      "(a salt crystallises in that state); use the Monte Carlo propagation "
                       "of single solutions for them (std NaN)", BatchRowWarning, stacklevel=2)
     name = UNCERTAIN_QUANTITIES[quantity]
     index = batch.index if batch.index is not None else pd.RangeIndex(len(value))

@@ -105,7 +105,7 @@ class UncertainValue:
 def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto", *,
               bound_water_fraction_of_water: float = 0.0, method: str = "linear",
               draws: int = 100_000, seed: int = 0, range_policy: str = "extrapolate",
-              parameter_set: Any = None) -> Any:
+              parameter_set: Any = None, salts_crystallise: bool = True) -> Any:
     """``quantity`` of ``solution`` at temperature(s) ``T`` (K) with its standard uncertainty.
 
     For a :class:`colligate.SolutionBatch` the result is a pandas DataFrame of value and
@@ -129,6 +129,12 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
         Pitzer parameter set for the ions (one of :func:`colligate.pitzer_parameter_sets`);
         None: the default set. Both methods evaluate the model and its sensitivities with it.
         A :class:`colligate.SolutionBatch` takes the default set only.
+    salts_crystallise : bool
+        True (default, as the plain calls): a salt above its solubility crystallises, so the
+        freezing point is that of the first solid and the water activity that of the
+        equilibrium state; such a state has no closed form, so "linear" refuses it when a
+        constant is uncertain (use "monte_carlo"; batch rows keep the value with std NaN).
+        False: the metastable values of the solution as one liquid.
     """
     if quantity not in QUANTITIES:
         raise _core.InvalidInputError(f"propagate: quantity = {quantity!r}: must be one of {', '.join(QUANTITIES)}")
@@ -143,7 +149,8 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
                 f"'extrapolate' or 'nan' (got method={method!r}, range_policy={range_policy!r}, "
                 f"T of shape {np.shape(T)})")
         return batch_with_uncertainty(solution, quantity, float(T), model, range_policy=range_policy,
-                                      bound_water_fraction_of_water=bound_water_fraction_of_water)
+                                      bound_water_fraction_of_water=bound_water_fraction_of_water,
+                                      salts_crystallise=salts_crystallise)
     if method not in METHODS:
         raise _core.InvalidInputError(f"propagate: method = {method!r}: must be 'linear' or 'monte_carlo'")
     if range_policy not in ("extrapolate", "nan", "raise"):
@@ -151,7 +158,8 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
             f"range_policy = {range_policy!r}: must be 'extrapolate', 'nan' or 'raise'")
     if isinstance(T, (int, float)) and method == "linear":  # one temperature: no array shaping
         r = _core.propagate_uncertainty(solution, quantity, float(T), model, float(bound_water_fraction_of_water),
-                                        method, int(draws), int(seed), parameter_set or "")
+                                        method, int(draws), int(seed), parameter_set or "",
+                                        bool(salts_crystallise))
         if r["reason"]:
             if range_policy == "raise":
                 raise _core.OutOfValidityRangeError(r["reason"])
@@ -165,7 +173,8 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     scalar = np.ndim(T) == 0
     temps = np.atleast_1d(np.asarray(T, dtype=float))
     rows = [_core.propagate_uncertainty(solution, quantity, float(t), model, float(bound_water_fraction_of_water),
-                                        method, int(draws), int(seed), parameter_set or "") for t in temps.ravel()]
+                                        method, int(draws), int(seed), parameter_set or "",
+                                        bool(salts_crystallise)) for t in temps.ravel()]
     reasons = [r["reason"] for r in rows if r["reason"]]
     if reasons and range_policy == "raise":
         raise _core.OutOfValidityRangeError(reasons[0])

@@ -461,3 +461,43 @@ def test_correlation_warning_on_synthetic_data_from_known_constants():
     with pytest.warns(cg.PoorlyDeterminedFitWarning, match="beta0 and cphi are correlated"):
         fp = fit.fit_pitzer("NaCl", mf, freezing_point=tf)
     assert abs(fp.correlation.loc["beta0", "cphi"]) > 0.99 > abs(osm.correlation.loc["beta0", "cphi"])
+
+
+# ------------------------------------------------ a salt that crystallises
+
+
+def test_uncertain_predictions_follow_the_plain_calls_where_a_salt_crystallises():
+    # 25 wt% NaCl lies above the NaCl eutectic composition (23.3 wt%, common practice):
+    # hydrohalite forms before ice; 30 wt% NaCl is above the solubility at 25 C (26.4 wt%,
+    # CRC Handbook aqueous solubility table, from memory). With uncertainty the values are
+    # those of the plain calls (first solid; saturated liquid), metastable on request.
+    brine25 = cg.Solution.from_mass_fractions({"NaCl": 0.25})
+    brine30 = cg.Solution.from_mass_fractions({"NaCl": 0.30})
+    with warnings.catch_warnings():
+        # the supersaturation notices and 30 wt% lying above the parameters' 6.2 mol/kg
+        warnings.simplefilter("ignore")
+        fp = cg.freezing_point(brine25)
+        fp_meta = cg.freezing_point(brine25, metastable=True)
+        aw = cg.water_activity(brine30)
+        aw_meta = cg.water_activity(brine30, saturation="metastable")
+        assert fp - fp_meta > 10.0 and aw - aw_meta > 0.02
+        assert cg.freezing_point(brine25, with_uncertainty=True).value == fp
+        assert cg.freezing_point(brine25, metastable=True, with_uncertainty=True).value == fp_meta
+        assert cg.water_activity(brine30, with_uncertainty=True).value == aw
+        assert cg.water_activity(brine30, saturation="metastable", with_uncertainty=True).value == aw_meta
+        with pytest.raises(cg.InvalidInputError, match="saturation = 'ice'"):
+            cg.water_activity(brine30, saturation="ice", with_uncertainty=True)
+
+
+def test_batch_with_uncertainty_keeps_the_plain_batch_value_where_a_salt_crystallises():
+    # rows of 10, 25 and 30 wt% NaCl at 25 C (30 wt% above the solubility, as above)
+    batch = cg.SolutionBatch.from_mass_fractions(pd.DataFrame({"NaCl": [0.10, 0.25, 0.30]}))
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        plain = cg.batch.batch_water_activity(batch, 298.15)
+        meta = cg.batch.batch_water_activity(batch, 298.15, saturation="metastable")
+        with_u = cg.batch.batch_with_uncertainty(batch, "water_activity", 298.15)
+        with_u_meta = cg.batch.batch_with_uncertainty(batch, "water_activity", 298.15, salts_crystallise=False)
+    np.testing.assert_array_equal(with_u["water_activity"].to_numpy(), np.asarray(plain))
+    np.testing.assert_array_equal(with_u_meta["water_activity"].to_numpy(), np.asarray(meta))
+    assert with_u["water_activity"].iloc[2] - with_u_meta["water_activity"].iloc[2] > 0.02
