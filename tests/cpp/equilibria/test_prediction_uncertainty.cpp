@@ -593,27 +593,37 @@ TEST_CASE("A brine that crystallises a salt: uncertain predictions follow the pl
   }
 
   SECTION("batch: the value of the plain batch call, u = NaN where a salt crystallises") {
-    const auto r = crc_salt_fit();
-    REQUIRE(r.success());
+    // NaCl with 0.1 mol/kg of the sucrose-like solute fitted to the CRC sucrose freezing
+    // points (crc_sucrose_fit: K, K3 uncertain) under the Ross rule
+    const auto sugar = crc_sucrose_fit(true);
+    REQUIRE(sugar.success());
     auto records = data::builtin_solutes().records();
-    records.push_back(crc_salt_record(r));
+    records.push_back(fit::norrish_solute_record(sugar, "my_sucrose", "my sucrose", 0.3422965, 0.42, "test"));
     const data::solute_table table(std::move(records));
-    const std::vector<std::string> species{"my_salt"};
-    const std::vector<double> m{1.0, 0.25 / 0.75 / 0.0584428, 0.30 / 0.70 / 0.0584428};
+    const std::vector<std::string> species{"NaCl", "my_sucrose"};
+    const std::vector<double> m{1.0, 0.1, 0.25 / 0.75 / 0.0584428, 0.1, 0.30 / 0.70 / 0.0584428, 0.1};
     const auto b = batch::solution_batch::from_molalities(species, m.data(), 3, table);
-    batch::options o;
-    std::vector<double> plain(3), v(3), u(3);
+    batch::options o, meta;
+    meta.salts_crystallise = false;
+    std::vector<double> plain(3), plain_meta(3), v(3), u(3), v_meta(3), u_meta(3);
     std::vector<std::int32_t> dof(3);
-    std::vector<std::uint8_t> st(3), st_plain(3);
-    batch::predictions_with_uncertainty(b, predicted_quantity::water_activity, 298.15, "pitzer", o, v.data(),
+    std::vector<std::uint8_t> st(3);
+    batch::water_activities(b, 298.15, "ross", o, plain.data(), st.data());
+    batch::water_activities(b, 298.15, "ross", meta, plain_meta.data(), st.data());
+    REQUIRE(plain[2] - plain_meta[2] > 0.02);  // the 30 wt% row is above the solubility
+    batch::predictions_with_uncertainty(b, predicted_quantity::water_activity, 298.15, "ross", o, v.data(),
                                         u.data(), dof.data(), st.data());
-    batch::water_activities(b, 298.15, "pitzer", o, plain.data(), st_plain.data());
+    batch::predictions_with_uncertainty(b, predicted_quantity::water_activity, 298.15, "ross", meta,
+                                        v_meta.data(), u_meta.data(), dof.data(), st.data());
     for (std::size_t i = 0; i < 3; ++i) {
       INFO("row " << i);
       CHECK(v[i] == plain[i]);
+      CHECK(v_meta[i] == plain_meta[i]);
+      CHECK(u_meta[i] > 0.0);
     }
-    CHECK(std::isfinite(u[0]));
-    CHECK(std::isfinite(u[1]));  // 25 wt% is below the solubility at 25 C
-    CHECK(std::isnan(u[2]));     // 30 wt%: NaCl crystallises
+    CHECK(u[0] > 0.0);
+    CHECK(u[1] > 0.0);        // 25 wt% is below the solubility at 25 C
+    CHECK(std::isnan(u[2]));  // 30 wt%: NaCl crystallises, no closed form
+
   }
 }
