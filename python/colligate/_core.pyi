@@ -490,7 +490,7 @@ class IceCurve:
     @property
     def freezing_point(self) -> tuple[float, str, str]:
         """
-        (temperature K, status, reason) of the first solid to form, as colligate.freezing_point gives it: the ice freezing point, or for a brine richer than its eutectic composition the temperature where a salt begins to crystallise (status 'salt_saturated_above_data' and NaN when it is supersaturated already at 298.15 K). first_solid() names the phase; first_solid(metastable=True) gives the ice value.
+        The tuple (temperature K, status, reason) of the first solid to form, the value colligate.freezing_point gives. That is the ice freezing point or, for a brine richer than its eutectic composition, the temperature where a salt begins to crystallise (status 'salt_saturated_above_data' and NaN when it is supersaturated already at 298.15 K). first_solid() names the phase; first_solid(metastable=True) gives the ice value.
         """
     @property
     def model(self) -> str:
