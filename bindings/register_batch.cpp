@@ -156,7 +156,8 @@ void register_batch(py::module_& m) {
   m.def(
       "batch_predictions_with_uncertainty",
       [](const solution_batch& b, const std::string& quantity, double temperature, const std::string& model,
-         int threads, const std::string& policy, double bound, bool salts_crystallise) {
+         int threads, const std::string& policy, double bound, bool salts_crystallise,
+         const std::string& parameter_set) {
         namespace eq = colligate::equilibria;
         eq::predicted_quantity q = eq::predicted_quantity::freezing_point;
         bool known = false;
@@ -168,7 +169,7 @@ void register_batch(py::module_& m) {
           throw colligate::invalid_input("batch uncertainty: quantity = '" + quantity +
                                          "': must be one of freezing_point, water_activity, "
                                          "osmotic_coefficient, ice_fraction, unfrozen_water");
-        const auto id = colligate::models::model_choice(model);
+        const auto id = model_with_set(model, parameter_set);
         auto opt = make_options(threads, policy, bound);
         opt.salts_crystallise = salts_crystallise;
         const auto n = static_cast<py::ssize_t>(b.rows());
@@ -187,10 +188,12 @@ void register_batch(py::module_& m) {
       py::arg("batch"), py::arg("quantity"), py::arg("temperature"), py::arg("model") = "auto",
       py::arg("threads") = 0, py::arg("range_policy") = "extrapolate",
       py::arg("bound_water_fraction_of_water") = 0.0, py::arg("salts_crystallise") = true,
+      py::arg("parameter_set") = "",
       "Value, standard uncertainty, effective degrees of freedom and row status of `quantity` "
       "for every row (linear propagation per row in C++; temperature in K, unused for the "
       "freezing point). salts_crystallise (default): a row where a salt crystallises keeps "
-      "the plain batch call's value with u = NaN; false: metastable values.");
+      "the plain batch call's value with u = NaN; false: metastable values. parameter_set: "
+      "the Pitzer parameter set for the ions (empty: the model's default set).");
 }
 
 }  // namespace colligate_bindings

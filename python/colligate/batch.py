@@ -226,7 +226,8 @@ UNCERTAIN_QUANTITIES = {"freezing_point": "freezing_point_K", "water_activity": 
 
 def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.15, model: str = "auto", *,
                            threads: int = 0, range_policy: str = "extrapolate",
-                           bound_water_fraction_of_water: float = 0.0, salts_crystallise: bool = True):
+                           bound_water_fraction_of_water: float = 0.0, salts_crystallise: bool = True,
+                           parameter_set: Optional[str] = None):
     """``quantity`` of every row with its standard uncertainty, as a pandas DataFrame with
     the batch's index: the value column (``freezing_point_K``, ``water_activity``,
     ``osmotic_coefficient``, ``ice_fraction`` or ``unfrozen_water_kg``), the same name with
@@ -241,7 +242,9 @@ def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.1
     form (a salt crystallises: a brine that forms a salt before ice, an a_w above a salt's
     solubility, an ice fraction below a salt's saturation) keeps the plain batch call's
     value with std NaN and a warning; ``salts_crystallise=False`` gives the metastable values
-    of each row as one liquid instead."""
+    of each row as one liquid instead. ``parameter_set``: the Pitzer parameter set for the
+    ions (:func:`colligate.pitzer_parameter_sets`; None: the default set), as in the scalar
+    ``with_uncertainty=True`` call."""
     import pandas as pd
 
     if quantity not in UNCERTAIN_QUANTITIES:
@@ -249,7 +252,7 @@ def batch_with_uncertainty(batch: SolutionBatch, quantity: str, T: float = 298.1
             f"batch_with_uncertainty: quantity = {quantity!r}: must be one of {', '.join(UNCERTAIN_QUANTITIES)}")
     value, std, dof, status = _core.batch_predictions_with_uncertainty(
         batch._core, quantity, float(T), model, threads, range_policy, bound_water_fraction_of_water,
-        bool(salts_crystallise))
+        bool(salts_crystallise), parameter_set or "")
     _report(status, quantity, batch)
     no_u = np.isfinite(value) & np.isnan(std)
     if np.any(no_u):

@@ -127,8 +127,8 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
         uncertainty, warn) or "raise" (:class:`colligate.OutOfValidityRangeError`).
     parameter_set : str, optional
         Pitzer parameter set for the ions (one of :func:`colligate.pitzer_parameter_sets`);
-        None: the default set. Both methods evaluate the model and its sensitivities with it.
-        A :class:`colligate.SolutionBatch` takes the default set only.
+        None: the default set. Both methods evaluate the model and its sensitivities with it;
+        a :class:`colligate.SolutionBatch` passes it to every row.
     salts_crystallise : bool
         True (default, as the plain calls): a salt above its solubility crystallises, so the
         freezing point is that of the first solid and the water activity that of the
@@ -139,10 +139,6 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
     if quantity not in QUANTITIES:
         raise _core.InvalidInputError(f"propagate: quantity = {quantity!r}: must be one of {', '.join(QUANTITIES)}")
     if isinstance(solution, SolutionBatch):
-        if parameter_set:
-            raise _core.InvalidInputError(
-                f"propagate: parameter_set = {parameter_set!r} with a SolutionBatch: the batch "
-                "columns use the default Pitzer set only; leave parameter_set out (None)")
         if method != "linear" or range_policy == "raise" or np.ndim(T) != 0:
             raise _core.InvalidInputError(
                 f"propagate: a SolutionBatch takes the linear method, one temperature and range_policy "
@@ -150,7 +146,7 @@ def propagate(solution: Any, quantity: str, T: Any = 298.15, model: str = "auto"
                 f"T of shape {np.shape(T)})")
         return batch_with_uncertainty(solution, quantity, float(T), model, range_policy=range_policy,
                                       bound_water_fraction_of_water=bound_water_fraction_of_water,
-                                      salts_crystallise=salts_crystallise)
+                                      salts_crystallise=salts_crystallise, parameter_set=parameter_set)
     if method not in METHODS:
         raise _core.InvalidInputError(f"propagate: method = {method!r}: must be 'linear' or 'monte_carlo'")
     if range_policy not in ("extrapolate", "nan", "raise"):

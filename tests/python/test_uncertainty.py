@@ -227,12 +227,27 @@ def test_propagation_with_a_non_default_parameter_set():
                               with_uncertainty="monte_carlo")
     assert aw_lin.value == cg.water_activity(s, 298.15, model="pitzer", parameter_set="harvie_1984")
     assert aw_mc.std == pytest.approx(aw_lin.std, rel=0.05)
-    # a batch takes the default set only, and says so
+    # a batch carries the set too: each row equals the scalar linear result bit for bit,
+    # on one and two threads, and differs from the default set's
     from colligate.uncertainty import propagate
 
-    with pytest.raises(cg.InvalidInputError, match="parameter_set"):
-        propagate(cg.SolutionBatch.from_molalities(pd.DataFrame({"NaCl": [1.0, 2.0]})), "water_activity",
-                  298.15, parameter_set="harvie_1984")
+    table = fit.SoluteLibrary([salt])
+    frame = pd.DataFrame({"my salt": [0.5, 2.0, 3.0], "KCl": [0.2, 1.0, 0.5]})
+    batch = cg.SolutionBatch.from_molalities(frame, library=table)
+    for threads in (1, 2):
+        out = cg.batch.batch_with_uncertainty(batch, "water_activity", 298.15, model="pitzer",
+                                              parameter_set="harvie_1984", threads=threads)
+        for i, row in frame.iterrows():
+            one = cg.Solution.from_molalities(row.to_dict(), table=table)
+            ref = cg.water_activity(one, 298.15, model="pitzer", parameter_set="harvie_1984", with_uncertainty=True)
+            assert out["water_activity"].iloc[i] == ref.value
+            assert out["water_activity_std"].iloc[i] == ref.std
+    default = cg.batch.batch_with_uncertainty(batch, "water_activity", 298.15, model="pitzer")
+    assert not np.array_equal(default["water_activity"].to_numpy(), out["water_activity"].to_numpy())
+    via_propagate = propagate(batch, "water_activity", 298.15, model="pitzer", parameter_set="harvie_1984")
+    pd.testing.assert_frame_equal(via_propagate, out)
+    with pytest.raises(cg.InvalidInputError, match="no_such_set"):
+        cg.batch.batch_with_uncertainty(batch, "water_activity", 298.15, model="pitzer", parameter_set="no_such_set")
 
 
 def test_fitted_salt_propagates_linearly_and_by_monte_carlo():
