@@ -5,6 +5,7 @@
 
 #include <string>
 #include <tuple>
+#include <vector>
 
 #include "colligate/colligate.hpp"
 #include "register.hpp"
@@ -50,6 +51,53 @@ void register_electrolytes(py::module_& m) {
       },
       py::arg("solution"), py::arg("solute"), py::arg("temperature"),
       py::arg("parameter_set") = "harvie_spencer_icefit");
+  m.def(
+      "single_salt_activity",
+      [](const std::string& salt, const std::vector<double>& molality, double T) {
+        std::vector<double> phi, ln_gamma, aw;
+        std::string reason;
+        for (double m : molality) {
+          const auto r = colligate::models::single_salt::evaluate(salt, m, T);
+          phi.push_back(r.osmotic_coefficient);
+          ln_gamma.push_back(r.ln_mean_activity_coefficient);
+          aw.push_back(r.water_activity);
+          if (reason.empty()) reason = r.reason;
+        }
+        return std::make_tuple(phi, ln_gamma, aw, reason);
+      },
+      py::arg("salt"), py::arg("molality"), py::arg("temperature"),
+      "(osmotic coefficients, ln mean activity coefficients, water activities, first range "
+      "reason) of one salt of data/single_salt_pitzer.hpp in water at each molality (mol/kg), "
+      "closed binary Pitzer form at 25 C.");
+  m.def(
+      "single_salt_table",
+      [] {
+        py::list rows;
+        for (const auto& r : colligate::data::single_salt_table()) {
+          py::dict d;
+          d["id"] = r.id;
+          d["name"] = r.name;
+          d["formula"] = r.formula;
+          d["cation_charge"] = r.cation_charge;
+          d["anion_charge"] = r.anion_charge;
+          d["cation_count"] = r.cation_count;
+          d["anion_count"] = r.anion_count;
+          d["molar_mass_kg_per_mol"] = r.molar_mass;
+          d["beta0"] = r.beta0;
+          d["beta1"] = r.beta1;
+          d["beta2"] = r.beta2;
+          d["cphi"] = r.cphi;
+          d["alpha1"] = r.alpha1;
+          d["alpha2"] = r.alpha2;
+          d["max_molality"] = r.max_molality;
+          d["source"] = r.source;
+          rows.append(d);
+        }
+        return py::make_tuple(rows, colligate::data::single_salt_parameter_set_id,
+                              colligate::data::single_salt_temperature,
+                              colligate::data::single_salt_temperature_window);
+      },
+      "(rows, set id, temperature K, half-width K) of the single-salt Pitzer table.");
   m.def(
       "pitzer_osmotic_coefficient",
       [](const solution& s, double T, const std::string& set_id) {

@@ -125,6 +125,12 @@ def _gamma_default(row) -> float:
     return cg.mean_activity_coefficient(s, row.salt, row.temperature_K)
 
 
+def _gamma_single_salt(row) -> float:
+    cg = _cg()
+    table = cg.single_salt_activity(row.salt, row.molality_mol_per_kg, row.temperature_K)
+    return float(table.mean_activity_coefficient.iloc[0])
+
+
 def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
     # gamma(m) / gamma(0.1 mol/kg) of the model, scaled by the table's gamma(0.1 mol/kg): the
     # residual against the table's gamma(m) is then the residual of the ratio times the
@@ -289,6 +295,9 @@ QUANTITIES: dict[str, Quantity] = {
     "mean_activity_coefficient_harvie_1984": Quantity(_gamma_harvie, "molality_mol_per_kg", "molality, mol/kg",
                                                       "salt", log_y=True, relative=True),
     "mean_activity_coefficient_default_set": Quantity(_gamma_default, "molality_mol_per_kg",
+                                                      "molality, mol/kg", "salt", log_y=True,
+                                                      relative=True),
+    "mean_activity_coefficient_single_salt": Quantity(_gamma_single_salt, "molality_mol_per_kg",
                                                       "molality, mol/kg", "salt", log_y=True,
                                                       relative=True),
     "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",

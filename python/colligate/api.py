@@ -676,6 +676,50 @@ def pitzer_parameter_sets() -> list[str]:
     return list(_core.pitzer_parameter_sets())
 
 
+def single_salt_activity(salt: str, molality: Any, T: float = 298.15):
+    """Osmotic coefficient, mean activity coefficient and water activity of one salt of food
+    in water at 25 C, from published Pitzer parameters (May et al. 2011) in the closed
+    binary form.
+
+    For salts the mixture model's ion tables do not hold: sodium and potassium acetate,
+    the sodium and potassium phosphates, carbonates and bicarbonates
+    (:func:`single_salt_parameters` lists them; ``salt`` is an id, name or formula).
+    ``molality`` in mol/kg of water, a number or an array. The parameters hold at 25 C only:
+    ``T`` (K) must lie within 0.5 K of 298.15 K, else :class:`InvalidInputError` names the
+    salt, the set and that range. A molality above the data behind the parameters warns
+    (:class:`OutOfValidityRangeWarning`).
+
+    Returns a pandas DataFrame with columns ``molality_mol_per_kg``,
+    ``osmotic_coefficient``, ``mean_activity_coefficient`` and ``water_activity``.
+    An estimate: verify the water activity of a food or brine by measurement before relying
+    on it.
+    """
+    import pandas as pd
+
+    m = np.atleast_1d(np.asarray(molality, dtype=float)).ravel()
+    phi, ln_gamma, aw, reason = _core.single_salt_activity(str(salt), m.tolist(), float(T))
+    _warn(reason)
+    return pd.DataFrame({"molality_mol_per_kg": m, "osmotic_coefficient": phi,
+                         "mean_activity_coefficient": np.exp(ln_gamma), "water_activity": aw})
+
+
+def single_salt_parameters():
+    """The Pitzer parameters at 25 C used by :func:`single_salt_activity`, one row per salt.
+
+    A pandas DataFrame indexed by salt id with the name, formula, charges and
+    stoichiometry, molar mass (kg/mol), beta0, beta1, beta2, cphi, alpha1, alpha2, the top
+    of the molality range behind the fit (``max_molality``, mol/kg) and the source key
+    (:func:`citation`). The set's id, temperature (K) and the window around it are in
+    ``DataFrame.attrs``.
+    """
+    import pandas as pd
+
+    rows, set_id, temperature, window = _core.single_salt_table()
+    table = pd.DataFrame(list(rows)).set_index("id")
+    table.attrs.update({"parameter_set": set_id, "temperature_K": temperature, "window_K": window})
+    return table
+
+
 def weak_acids():
     """Dissociation constants of the built-in weak acids, one row per step.
 

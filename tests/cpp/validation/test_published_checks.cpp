@@ -25,6 +25,7 @@
 #include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/equilibria/sugar_crystallisation.hpp"
 #include "colligate/models/pitzer.hpp"
+#include "colligate/models/pitzer_single_salt.hpp"
 #include "colligate/models/water_activity.hpp"
 #include "colligate/thermal/components.hpp"
 #include "colligate/thermal/enthalpy.hpp"
@@ -551,6 +552,28 @@ TEST_CASE("mean activity coefficients at 25 C with the default set against the C
     }
   }
   CHECK(n >= 40);
+}
+
+TEST_CASE("mean activity coefficients at 25 C of salts of food against the CRC table",
+          "[validation][pitzer][25C][single_salt]") {
+  // Sodium and potassium acetate, NaH2PO4, KH2PO4, Na2HPO4 and Na2CO3 through the closed
+  // binary form with May et al.'s (2011) 25 C parameters (data/single_salt_pitzer.hpp),
+  // against the CRC table (tests/reference/crc_mean_activity_food_salts_25c.csv, pyEQL's
+  // copy); limits of check crc_mean_activity_food_salts (2 % to 2 mol/kg, 5 % above).
+  const auto& c = tolerances::find("crc_mean_activity_food_salts");
+  int n = 0;
+  for (const auto& r : read_reference(c.file)) {
+    if (r.at("used_in_fit") != "no") continue;
+    const std::string salt = r.at("salt");
+    const double m = num(r, "molality_mol_per_kg");
+    INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
+    const auto v = models::single_salt::evaluate(salt, m, num(r, "temperature_K"));
+    CHECK(v.reason.empty());
+    CHECK_THAT(std::exp(v.ln_mean_activity_coefficient),
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++n;
+  }
+  CHECK(n == 42);
 }
 
 TEST_CASE("sulfates at 25 C: the rise of gamma above 0.1 mol/kg against the CRC table",

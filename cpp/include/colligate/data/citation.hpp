@@ -462,6 +462,14 @@ inline const std::vector<citation>& citations() {
        "+ a5 w_s^a6, and its constants a1-a6 with each fit's temperature and concentration "
        "range (NaCl, KCl, CaCl2, MgCl2, Na2SO4, K2SO4, MgSO4, ethanol, acetic acid); read from "
        "the copy in the chemicals package (Laliberte2009.tsv, electrochem.py), paper not read"},
+      {"may_2011", "May, P. M.; Rowland, D.; Hefter, G.; Koenigsberger, E.", 2011,
+       "A generic and updatable Pitzer characterization of aqueous binary electrolyte "
+       "solutions at 1 bar and 25 C",
+       "J. Chem. Eng. Data 56, 5066-5077 (volume and pages from memory)", "doi:10.1021/je2009329",
+       "beta0, beta1, beta2, C-phi and the top molality of the data behind each fit, 25 C, for "
+       "sodium and potassium acetate, phosphates, carbonates and bicarbonates; read in the "
+       "pyEQL database copy (src/pyEQL/database/pyeql_db.json, commit f02cb4e, DOI as given "
+       "there), paper not read"},
   };
   return table;
 }

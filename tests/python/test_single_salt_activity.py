@@ -1,0 +1,86 @@
+"""Salts of food at 25 C by published Pitzer parameters, one salt in water (issue 12):
+sodium and potassium acetate and the sodium and potassium phosphates, carbonates and
+bicarbonates (May et al. 2011, read in pyEQL's database copy) in the closed binary form."""
+from __future__ import annotations
+
+import math
+import tomllib
+import warnings
+from pathlib import Path
+
+import numpy as np
+import pandas as pd
+import pytest
+
+import colligate as cg
+
+REFERENCE = Path(__file__).resolve().parents[1] / "reference"
+M_W = 0.018015268  # kg/mol, molar mass of water (IAPWS, common practice)
+
+
+def test_mean_activity_coefficients_vs_crc():
+    # CRC Handbook mean activity coefficients at 25 C (tests/reference/
+    # crc_mean_activity_food_salts_25c.csv, pyEQL's copy), rows and limits of check
+    # crc_mean_activity_food_salts in tests/reference/tolerances.toml (2 % up to 2 mol/kg,
+    # 5 % above). Not fitted by colligate (the basis there says what the check tests).
+    with open(REFERENCE / "tolerances.toml", "rb") as fh:
+        check = next(c for c in tomllib.load(fh)["check"] if c["id"] == "crc_mean_activity_food_salts")
+    table = pd.read_csv(REFERENCE / check["file"]).query(check["rows"])
+    tolerance = table.eval(check["tolerance"])
+    assert set(table.source_key) == {"crc_mean_activity"}
+    worst = 0.0
+    for (_, row), tol in zip(table.iterrows(), tolerance):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")  # no row is above its salt's range
+            out = cg.single_salt_activity(row.salt, row.molality_mol_per_kg, row.temperature_K)
+        gamma = float(out.mean_activity_coefficient.iloc[0])
+        assert abs(gamma - row.mean_activity_coefficient) <= tol, (row.salt, row.molality_mol_per_kg, gamma)
+        worst = max(worst, abs(gamma / row.mean_activity_coefficient - 1))
+    assert len(table) == 42 and set(table.salt) == {
+        "sodium_acetate", "potassium_acetate", "monosodium_phosphate", "monopotassium_phosphate",
+        "disodium_phosphate", "sodium_carbonate"}
+    assert worst < 0.012  # as the basis states (worst -1.1 %)
+
+
+def test_water_activity_and_arrays():
+    # a_w = exp(-phi nu m M_w) (definition); one row per molality; names, formulas and ids.
+    m = np.array([0.5, 1.0, 2.0])
+    out = cg.single_salt_activity("potassium acetate", m)
+    assert list(out.columns) == ["molality_mol_per_kg", "osmotic_coefficient", "mean_activity_coefficient",
+                                 "water_activity"]
+    np.testing.assert_allclose(out.water_activity, np.exp(-out.osmotic_coefficient * 2 * m * M_W), rtol=1e-14)
+    same = cg.single_salt_activity("CH3COOK", m, T=298.15)
+    pd.testing.assert_frame_equal(out, same)
+    # a_w falls with molality; 2:1 phosphate lowers it more than 1:1 at the same molality
+    assert np.all(np.diff(out.water_activity) < 0)
+    one_one = cg.single_salt_activity("monosodium_phosphate", 1.0).water_activity.iloc[0]
+    two_one = cg.single_salt_activity("disodium_phosphate", 1.0).water_activity.iloc[0]
+    assert two_one < one_one
+
+
+def test_parameter_table_names_its_source_and_range():
+    table = cg.single_salt_parameters()
+    assert table.attrs["parameter_set"] == "may_2011"
+    assert table.attrs["temperature_K"] == 298.15
+    assert set(table.source) == {"may_2011"}
+    assert "potassium_acetate" in table.index and "trisodium_phosphate" in table.index
+    assert (table.max_molality > 0).all() and (table.molar_mass_kg_per_mol > 0.05).all()
+    assert "Pitzer" in cg.citation("may_2011")["title"]
+    # the sodium acetate row as the copy gives it (May et al. 2011, pyEQL's database)
+    row = table.loc["sodium_acetate"]
+    assert (row.beta0, row.beta1, row.cphi) == (0.1382, 0.3317, -0.00496)
+
+
+def test_bad_input_names_what_is_wrong():
+    # a temperature away from 25 C: the salt, the set and its range are named
+    with pytest.raises(cg.InvalidInputError, match=r"sodium_acetate.*may_2011.*297.65 to 298.65 K"):
+        cg.single_salt_activity("sodium_acetate", 1.0, T=268.15)
+    # a salt the table does not hold: the salts it does hold are listed
+    with pytest.raises(cg.InvalidInputError, match="potassium lactate.*sodium_acetate"):
+        cg.single_salt_activity("potassium lactate", 1.0)
+    with pytest.raises(cg.InvalidInputError, match="molality"):
+        cg.single_salt_activity("sodium_acetate", [-0.5])
+    # above the data behind the fit: computed and flagged
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="1.8 mol/kg"):
+        out = cg.single_salt_activity("monopotassium_phosphate", 2.5)
+    assert math.isfinite(out.water_activity.iloc[0])
