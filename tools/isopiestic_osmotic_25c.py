@@ -24,7 +24,7 @@ so a wrong parameter of a sample salt shows as a residual. The derived columns
 (reference_osmotic_coefficient, osmotic_coefficient) are written by this script:
 
     python3 tools/isopiestic_osmotic_25c.py --write     # recompute the derived columns
-    python3 tools/isopiestic_osmotic_25c.py             # check them (exit 1 if stale) and
+    python3 tools/isopiestic_osmotic_25c.py [--check]   # check them (exit 1 if stale) and
                                                         # print the residuals per salt and set
 
 tests/python/test_published_magnitudes.py re-derives the columns, so a stale file fails.
@@ -66,6 +66,7 @@ def derived(cg, row: dict) -> tuple[float, float]:
 def main() -> int:
     ap = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     ap.add_argument("--write", action="store_true", help="rewrite the derived columns")
+    ap.add_argument("--check", action="store_true", help="check the derived columns (the default)")
     args = ap.parse_args()
     import colligate as cg
 
