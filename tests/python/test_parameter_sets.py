@@ -85,8 +85,8 @@ def test_harvie_mean_activity_coefficients_vs_crc():
 
 
 def test_default_set_mean_activity_coefficients_vs_crc():
-    # NaCl, KCl, CaCl2 and K2SO4 at 25 C through the DEFAULT set (no parameter_set; MgCl2
-    # keeps Spencer et al.'s row and misses, see the check's basis):
+    # NaCl, KCl, CaCl2, MgCl2 and K2SO4 at 25 C through the DEFAULT set (no parameter_set;
+    # its MgCl2 row has Harvie et al.'s 25 C values and Silvester & Pitzer's slopes):
     # CRC Handbook mean activity coefficients (tests/reference/
     # crc_mean_activity_coefficients_25c.csv, the pyEQL copy), rows and limits of check
     # crc_mean_activity_default in tests/reference/tolerances.toml (2 % up to 2 mol/kg, 5 %

@@ -92,10 +92,14 @@ inline const std::vector<citation>& citations() {
       {"colligate_default_fit", "colligate developers", 2026,
        "CaCl2 Pitzer parameters on the 25 C values of Harvie, Moller & Weare (1984) with "
        "Spencer et al.'s (1990) slopes and a curvature below 25 C fitted to the evaluated ice "
-       "line of Melinder (2010); solubility-product shifts of antarcticite and halite",
+       "line of Melinder (2010); MgCl2 on Harvie et al.'s 25 C values with the 25 C slopes "
+       "of Silvester & Pitzer as tabulated in Pitzer (1991) ch. 3 Table 13 (read in pytzer's "
+       "copy, pytzer/tables.py) and a curvature that holds it near Spencer et al.'s below 0 C; "
+       "solubility-product shifts of antarcticite and halite",
        "colligate source tree: tools/fit_default_set.py", "",
        "least-squares fit to Melinder's freezing curve as represented by CoolProp "
-       "INCOMP::MCA (CaCl2 1-30 wt%), with a stated penalty on the change from the old "
+       "INCOMP::MCA (CaCl2 1-30 wt%) and INCOMP::MMG (MgCl2 1-21 wt%), with a stated penalty "
+       "on the change from the old "
        "default's parameters at 220-273.15 K; 25 C values fixed. Halite's shift also fitted "
        "to alternate rows of the Salt Institute solubility table"},
       {"salt_institute_solubility", "Salt Institute", 2013,
