@@ -86,7 +86,8 @@ TEST_CASE("every reference row says whether it was used in a fit", "[validation]
         "sucrose_osmotic_coefficients_25c.csv", "norrish_constants.csv", "seawater_brine_path.csv",
         "nist_strd_data.csv", "nist_strd_certified.csv", "lange_propylene_glycol_freezing.csv",
         "crc_mean_activity_coefficients_25c.csv", "greenspan_saturated_salts_25c.csv",
-        "sugar_solubility.csv", "goff_hartel_ice_cream_freezing_curve.csv"}) {
+        "sugar_solubility.csv", "goff_hartel_ice_cream_freezing_curve.csv",
+        "isopiestic_osmotic_coefficients_25c.csv"}) {
     const auto rows = read_reference(file);
     REQUIRE(!rows.empty());
     for (const auto& r : rows) {
