@@ -7,7 +7,10 @@ salt whose rows are the checks of both regimes, each with its source:
 
   * 25 C mean activity coefficients against the CRC table (worst deviation in per cent up to
     2 mol/kg and above; rows above a set's highest molality are left out);
-  * 25 C osmotic coefficients of NaCl against Hamer & Wu (1972);
+  * 25 C osmotic coefficients of NaCl against Hamer & Wu (1972), and of the other salts
+    against the isopiestic table (tests/reference/isopiestic_osmotic_coefficients_25c.csv,
+    tools/isopiestic_osmotic_25c.py; worst deviation in per cent up to 2 mol/kg and above,
+    rows above a set's highest molality left out);
   * freezing points against the CRC table (worst |residual|, K; harvie_1984 has no
     temperature functions and is extrapolated there);
   * freezing points against Melinder's (2010) evaluated ice lines (NaCl, CaCl2 from
@@ -62,6 +65,22 @@ def gamma_deviations(rows: pd.DataFrame, salt: str, parameter_set: str) -> tuple
     return low, high
 
 
+def phi_deviations(rows: pd.DataFrame, salt: str, parameter_set: str) -> tuple[float, float]:
+    low, high = math.nan, math.nan
+    for _, r in rows.iterrows():
+        m = float(r.molality_mol_per_kg)
+        phi, msgs = _quiet(cg.osmotic_coefficient, cg.Solution.from_molalities({salt: m}), 298.15,
+                           model="pitzer", parameter_set=parameter_set)
+        if any("molality" in w for w in msgs):
+            continue  # beyond the set's range
+        dev = 100.0 * (phi / r.osmotic_coefficient - 1.0)
+        if m <= 2.0:
+            low = dev if math.isnan(low) or abs(dev) > abs(low) else low
+        else:
+            high = dev if math.isnan(high) or abs(dev) > abs(high) else high
+    return low, high
+
+
 def freezing_residual(salt: str, table: pd.DataFrame, parameter_set: str, column: str) -> float:
     worst = 0.0
     for _, r in table.iterrows():
@@ -93,6 +112,7 @@ def main() -> None:
     gamma = pd.read_csv(REFERENCE / "crc_mean_activity_coefficients_25c.csv")
     crc_tf = pd.read_csv(REFERENCE / "crc_freezing_points.csv")
     hamer = pd.read_csv(REFERENCE / "nacl_osmotic_coefficients_25c.csv")
+    iso = pd.read_csv(REFERENCE / "isopiestic_osmotic_coefficients_25c.csv")
     head = "| check (source) | " + " | ".join(f"{LABELS[s]} `{s}`" for s in SETS) + " |"
     for salt, rows in gamma.groupby("salt", sort=False):
         print(f"\n{salt}\n")
@@ -114,6 +134,15 @@ def main() -> None:
                     worst = d if abs(d) > abs(worst) else worst
                 cells.append(f"{worst:+.4f}")
             print("| 25 C phi: worst residual (Hamer & Wu 1972) | " + " | ".join(cells) + " |")
+        irows = iso[iso.salt == salt]
+        if len(irows):
+            pdev = {s: phi_deviations(irows, salt, s) for s in SETS}
+            fmt = lambda x: "-" if math.isnan(x) else f"{x:+.1f}"  # noqa: E731
+            span = f"{irows.molality_mol_per_kg.min():.2g}-{irows.molality_mol_per_kg.max():.3g} mol/kg"
+            print(f"| 25 C phi: worst dev. to 2 mol/kg, % (isopiestic, {span}) | "
+                  + " | ".join(fmt(pdev[s][0]) for s in SETS) + " |")
+            print("| 25 C phi: worst dev. above 2 mol/kg, % (isopiestic) | "
+                  + " | ".join(fmt(pdev[s][1]) for s in SETS) + " |")
         t = crc_tf[(crc_tf.solute == SOLUTE_ID[salt]) & (crc_tf.mass_percent <= CRC_MAX_PERCENT.get(salt, 0))]
         if len(t):
             print(f"| freezing point: worst residual, K (CRC, {t.mass_percent.min():g}-{t.mass_percent.max():g} wt%) | "

@@ -131,6 +131,17 @@ def _gamma_single_salt(row) -> float:
     return float(table.mean_activity_coefficient.iloc[0])
 
 
+def _osmotic_set(parameter_set) -> Callable:
+    """Osmotic coefficient of a binary salt solution at the row's temperature, Pitzer with a
+    named set (None: the default set)."""
+    def f(row) -> float:
+        cg = _cg()
+        s = cg.Solution.from_molalities({row.salt: row.molality_mol_per_kg})
+        return cg.osmotic_coefficient(s, T=row.temperature_K, model="pitzer", parameter_set=parameter_set)
+
+    return f
+
+
 def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
     # gamma(m) / gamma(0.1 mol/kg) of the model, scaled by the table's gamma(0.1 mol/kg): the
     # residual against the table's gamma(m) is then the residual of the ratio times the
@@ -300,6 +311,10 @@ QUANTITIES: dict[str, Quantity] = {
     "mean_activity_coefficient_single_salt": Quantity(_gamma_single_salt, "molality_mol_per_kg",
                                                       "molality, mol/kg", "salt", log_y=True,
                                                       relative=True),
+    "osmotic_coefficient_harvie_1984": Quantity(_osmotic_set("harvie_1984"), "molality_mol_per_kg",
+                                                "molality, mol/kg", "salt", relative=True),
+    "osmotic_coefficient_default_set": Quantity(_osmotic_set(None), "molality_mol_per_kg",
+                                                "molality, mol/kg", "salt", relative=True),
     "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",
                                                             "molality, mol/kg", "salt", with_rows=True,
                                                             relative=True),

@@ -31,6 +31,26 @@ def test_reference_tables_match_their_source(tool):
     assert out.returncode == 0, out.stdout + out.stderr
 
 
+def test_isopiestic_osmotic_coefficients_match_their_reduction():
+    # tests/reference/isopiestic_osmotic_coefficients_25c.csv: phi of each row re-derived from
+    # its published isopiestic molalities and the reference salt's phi (Archer 1992 NaCl,
+    # Pitzer & Mayorga 1973 KCl) by tools/isopiestic_osmotic_25c.py; a stale column fails.
+    out = subprocess.run([sys.executable, str(ROOT / "tools" / "isopiestic_osmotic_25c.py"), "--check"],
+                         capture_output=True, text=True, check=False)
+    assert out.returncode == 0, out.stdout + out.stderr
+
+
+def test_isopiestic_reduction_identity():
+    # Identity of the isopiestic method (Robinson & Stokes 1959, ch. 8): the two solutions of a
+    # row have the same water activity, nu_s m_s phi_s = nu_r m_r phi_r, for every row.
+    df = pd.read_csv(REFERENCE / "isopiestic_osmotic_coefficients_25c.csv")
+    nu = {"NaCl": 2, "KCl": 2, "CaCl2": 3, "MgCl2": 3, "Na2SO4": 3, "K2SO4": 3, "MgSO4": 2}
+    lhs = df.salt.map(nu) * df.molality_mol_per_kg * df.osmotic_coefficient
+    rhs = df.reference_salt.map(nu) * df.reference_molality_mol_per_kg * df.reference_osmotic_coefficient
+    assert ((lhs / rhs - 1).abs() < 2e-5).all()  # the derived columns are printed to 5 decimals
+    assert set(df.salt) == {"KCl", "CaCl2", "MgCl2", "Na2SO4", "K2SO4", "MgSO4"}
+
+
 def test_every_reference_row_has_used_in_fit():
     for path in sorted(REFERENCE.glob("*.csv")):
         df = pd.read_csv(path, keep_default_na=False)

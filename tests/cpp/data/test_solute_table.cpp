@@ -23,7 +23,8 @@ TEST_CASE("every source key of the built-in table resolves", "[data][citations]"
 }
 
 TEST_CASE("every source key of the reference tables resolves", "[data][citations]") {
-  for (const char* table : {"crc_freezing_points.csv", "norrish_constants.csv"}) {
+  for (const char* table : {"crc_freezing_points.csv", "norrish_constants.csv",
+                            "isopiestic_osmotic_coefficients_25c.csv"}) {
     for (const auto& row : colligate_test::read_reference(table)) {
       INFO(table << ": " << row.at("source_key"));
       CHECK_NOTHROW(find_citation(row.at("source_key")));

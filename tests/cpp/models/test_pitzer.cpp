@@ -746,3 +746,32 @@ TEST_CASE("pitzer_system: the temperature cache gives the values of a fresh syst
     for (std::size_t k = 0; k < cached.ion_slots(); ++k) CHECK(g_cached[k] == g_fresh[k]);
   }
 }
+
+TEST_CASE("default set MgCl2: Harvie et al.'s 25 C values, Silvester & Pitzer's 25 C slopes",
+          "[models][pitzer][data]") {
+  // tools/fit_default_set.py (fit_mgcl2): the row takes Harvie, Moller & Weare's (1984) 25 C
+  // values (0.35235, 1.6815, 0.00519) and the 25 C slopes of Silvester & Pitzer as tabulated
+  // in Pitzer (1991) ch. 3 Table 13 part I (-0.194e-3, 2.78e-3, -0.580e-4 per K; pytzer's
+  // copy), exactly by construction: value to 1e-12, slope by central difference over
+  // +-0.01 K to 1e-8 per K (truncation about 1e-10). Below 0 C the curvature terms hold it
+  // near Spencer et al.'s (1990) row (spencer_1990), the stated aim of the fit's penalty:
+  // beta1 within 0.03, beta0 within 0.003, C-phi within 0.002 at 220-273.15 K.
+  const auto* row = data::harvie_spencer_icefit_parameters().find_binary("Mg+2", "Cl-");
+  const auto* spencer = data::spencer_1990_parameters().find_binary("Mg+2", "Cl-");
+  REQUIRE(row != nullptr);
+  REQUIRE(spencer != nullptr);
+  const double Tr = 298.15, h = 0.01;
+  auto slope = [&](const auto& f) { return (f(Tr + h) - f(Tr - h)) / (2 * h); };
+  CHECK_THAT(row->beta0(Tr), WithinAbs(0.35235, 1e-12));
+  CHECK_THAT(row->beta1(Tr), WithinAbs(1.6815, 1e-12));
+  CHECK_THAT(row->cphi(Tr), WithinAbs(0.00519, 1e-12));
+  CHECK_THAT(slope([&](double T) { return row->beta0(T); }), WithinAbs(-0.194e-3, 1e-8));
+  CHECK_THAT(slope([&](double T) { return row->beta1(T); }), WithinAbs(2.78e-3, 1e-8));
+  CHECK_THAT(slope([&](double T) { return row->cphi(T); }), WithinAbs(-0.580e-4, 1e-8));
+  for (double T : {220.0, 233.15, 253.15, 263.15, 273.15}) {
+    INFO("T = " << T);
+    CHECK_THAT(row->beta0(T), WithinAbs(spencer->beta0(T), 0.003));
+    CHECK_THAT(row->beta1(T), WithinAbs(spencer->beta1(T), 0.03));
+    CHECK_THAT(row->cphi(T), WithinAbs(spencer->cphi(T), 0.002));
+  }
+}

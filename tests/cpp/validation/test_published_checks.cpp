@@ -87,7 +87,8 @@ TEST_CASE("every reference row says whether it was used in a fit", "[validation]
         "sucrose_osmotic_coefficients_25c.csv", "norrish_constants.csv", "seawater_brine_path.csv",
         "nist_strd_data.csv", "nist_strd_certified.csv", "lange_propylene_glycol_freezing.csv",
         "crc_mean_activity_coefficients_25c.csv", "greenspan_saturated_salts_25c.csv",
-        "sugar_solubility.csv", "goff_hartel_ice_cream_freezing_curve.csv"}) {
+        "sugar_solubility.csv", "goff_hartel_ice_cream_freezing_curve.csv",
+        "isopiestic_osmotic_coefficients_25c.csv"}) {
     const auto rows = read_reference(file);
     REQUIRE(!rows.empty());
     for (const auto& r : rows) {
@@ -535,14 +536,14 @@ TEST_CASE("mean activity coefficients at 25 C with the default set against the C
   // The same CRC rows and limits as the harvie_1984 check above (crc_mean_activity_default:
   // 2 % up to 2 mol/kg, 5 % above; CaCl2 at 2 mol/kg 2.5 %), now through the default set,
   // whose CaCl2 row carries Harvie et al.'s (1984) 25 C values (issue 12). The table was not
-  // used to fit the set (tools/fit_default_set.py fits the ice line only). MgCl2 keeps
-  // Spencer et al.'s row and misses (+3.5 % at 1 mol/kg): not checked, the basis says why.
+  // used to fit the set (tools/fit_default_set.py fits the ice line only). MgCl2 too: the
+  // default set's row has Harvie et al.'s 25 C values and Silvester & Pitzer's 25 C slopes.
   const auto& c = tolerances::find("crc_mean_activity_default");
   REQUIRE_FALSE(c.check_beyond_range);
   const std::string id = data::pitzer_parameter_set_ids().front();
   REQUIRE(id == models::pitzer::default_parameters().id);
   int n = 0;
-  for (const char* salt : {"NaCl", "KCl", "CaCl2", "K2SO4"}) {
+  for (const char* salt : {"NaCl", "KCl", "CaCl2", "MgCl2", "K2SO4"}) {
     for (const auto& r : crc_gamma_rows(c, salt, id.c_str())) {
       const double m = num(r, "molality_mol_per_kg");
       INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
@@ -574,6 +575,95 @@ TEST_CASE("mean activity coefficients at 25 C of salts of food against the CRC t
     ++n;
   }
   CHECK(n == 42);
+}
+
+// --- 25 C osmotic coefficients from published isopiestic molalities (issue 12) -------------
+
+namespace {
+
+/// Ions per formula unit of the salts of the isopiestic table.
+double ions_per_formula(const std::string& salt) {
+  return salt == "NaCl" || salt == "KCl" || salt == "MgSO4" ? 2.0 : 3.0;
+}
+
+/// Osmotic coefficient of a binary salt solution (1 kg of water) from a named parameter set.
+double phi_set(const std::string& salt, double m, double temperature, const char* set) {
+  const auto s = solution::from_molalities({{salt, m}});
+  const double ln_aw = models::pitzer::ln_water_activity(s, 1.0, temperature,
+                                                         data::find_pitzer_parameter_set(set));
+  return -ln_aw / (constants::molar_mass_water * ions_per_formula(salt) * m);
+}
+
+/// The held-out rows of an isopiestic check up to the highest molality of each salt's row in
+/// the set (check_beyond_range = false: rows beyond are drawn by the gallery, not checked).
+std::vector<csv_row> isopiestic_rows(const tolerances::check& c, const char* set) {
+  std::vector<csv_row> out;
+  for (const auto& r : tolerances::rows(c)) {
+    const std::string salt = r.at("salt");
+    const auto* row = data::find_pitzer_parameter_set(set).find_binary(
+        salt.rfind("Na", 0) == 0 ? "Na+" : salt.rfind("K", 0) == 0 ? "K+"
+        : salt.rfind("Ca", 0) == 0                                 ? "Ca+2"
+                                                                   : "Mg+2",
+        salt.find("SO4") != std::string::npos ? "SO4-2" : "Cl-");
+    REQUIRE(row != nullptr);
+    if (held_out(r) && num(r, "molality_mol_per_kg") <= row->max_molality) out.push_back(r);
+  }
+  return out;
+}
+
+}  // namespace
+
+TEST_CASE("osmotic coefficients at 25 C (harvie_1984) from published isopiestic molalities",
+          "[validation][pitzer][25C][isopiestic]") {
+  // tests/reference/isopiestic_osmotic_coefficients_25c.csv: molality pairs in isopiestic
+  // equilibrium at 298.15 K (Robinson & Sinclair 1934 KCl; Stokes 1945 and Spedding et al.
+  // 1976 CaCl2; Kuschel & Seidel 1985 MgCl2 and MgSO4; Rard & Miller 1981 MgSO4; Platford
+  // 1968, Rard et al. 2000 and Robinson, Wilson & Stokes 1941 Na2SO4; Robinson, Wilson &
+  // Stokes 1941 K2SO4), reduced to phi with the reference salt's phi (NaCl: Archer 1992;
+  // KCl: Pitzer & Mayorga 1973) by tools/isopiestic_osmotic_25c.py. Rows and limits
+  // (isopiestic_osmotic_harvie): 2 % up to 2 mol/kg, 5 % above, the limits of issue 12
+  // taken over for phi; the basis in tolerances.toml says why.
+  const auto& c = tolerances::find("isopiestic_osmotic_harvie");
+  REQUIRE_FALSE(c.check_beyond_range);
+  std::map<std::string, int> per_salt;
+  for (const auto& r : isopiestic_rows(c, "harvie_1984")) {
+    const std::string salt = r.at("salt");
+    const double m = num(r, "molality_mol_per_kg");
+    INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
+    CHECK_THAT(phi_set(salt, m, num(r, "temperature_K"), "harvie_1984"),
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++per_salt[salt];
+  }
+  for (const char* salt : {"KCl", "CaCl2", "MgCl2", "Na2SO4", "K2SO4", "MgSO4"}) {
+    INFO(salt);
+    CHECK(per_salt[salt] >= 5);
+  }
+}
+
+TEST_CASE("osmotic coefficients at 25 C with the default set from published isopiestic molalities",
+          "[validation][pitzer][25C][isopiestic]") {
+  // The same rows and limits through the default set (isopiestic_osmotic_default), with two
+  // known misses named in the check's basis: K2SO4 -2.0 % at 0.69 mol/kg (Marion & Farren's
+  // 1999 row; the same rows meet Pitzer & Mayorga's within 1 %), given 2.5 %; MgSO4 not
+  // checked (-13 % at 1.5 mol/kg with Marion & Farren's row).
+  const auto& c = tolerances::find("isopiestic_osmotic_default");
+  REQUIRE_FALSE(c.check_beyond_range);
+  const std::string id = data::pitzer_parameter_set_ids().front();
+  REQUIRE(id == models::pitzer::default_parameters().id);
+  std::map<std::string, int> per_salt;
+  for (const auto& r : isopiestic_rows(c, id.c_str())) {
+    const std::string salt = r.at("salt");
+    const double m = num(r, "molality_mol_per_kg");
+    INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << "]");
+    CHECK_THAT(phi_set(salt, m, num(r, "temperature_K"), id.c_str()),
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++per_salt[salt];
+  }
+  for (const char* salt : {"KCl", "CaCl2", "MgCl2", "Na2SO4", "K2SO4"}) {
+    INFO(salt);
+    CHECK(per_salt[salt] >= 5);
+  }
+  CHECK(per_salt.count("MgSO4") == 0);
 }
 
 TEST_CASE("sulfates at 25 C: the rise of gamma above 0.1 mol/kg against the CRC table",

@@ -92,10 +92,14 @@ inline const std::vector<citation>& citations() {
       {"colligate_default_fit", "colligate developers", 2026,
        "CaCl2 Pitzer parameters on the 25 C values of Harvie, Moller & Weare (1984) with "
        "Spencer et al.'s (1990) slopes and a curvature below 25 C fitted to the evaluated ice "
-       "line of Melinder (2010); solubility-product shifts of antarcticite and halite",
+       "line of Melinder (2010); MgCl2 on Harvie et al.'s 25 C values with the 25 C slopes "
+       "of Silvester & Pitzer as tabulated in Pitzer (1991) ch. 3 Table 13 (read in pytzer's "
+       "copy, pytzer/tables.py) and a curvature that holds it near Spencer et al.'s below 0 C; "
+       "solubility-product shifts of antarcticite and halite",
        "colligate source tree: tools/fit_default_set.py", "",
        "least-squares fit to Melinder's freezing curve as represented by CoolProp "
-       "INCOMP::MCA (CaCl2 1-30 wt%), with a stated penalty on the change from the old "
+       "INCOMP::MCA (CaCl2 1-30 wt%) and INCOMP::MMG (MgCl2 1-21 wt%), with a stated penalty "
+       "on the change from the old "
        "default's parameters at 220-273.15 K; 25 C values fixed. Halite's shift also fitted "
        "to alternate rows of the Salt Institute solubility table"},
       {"salt_institute_solubility", "Salt Institute", 2013,
@@ -365,6 +369,54 @@ inline const std::vector<citation>& citations() {
        "25 C table built on Hamer & Wu (1972), Goldberg & Nuttall (1978), Goldberg (1981) "
        "(the compilations it credits, from memory); read in the pyEQL copy "
        "(tests/test_benchmark/mean_activity_coefficient.json, commit a6f8678)"},
+      {"robinson_sinclair_1934", "Robinson; Sinclair", 1934,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Am. Chem. Soc. 56", "doi:10.1021/ja01324a003",
+       "KCl against NaCl; read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"stokes_1945", "Stokes", 1945,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "Trans. Faraday Soc. 41", "doi:10.1039/TF9454100637",
+       "CaCl2 against NaCl; the compilation took these rows from Rard & Clegg (1997); read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"spedding_1976", "Spedding et al.", 1976,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Chem. Eng. Data", "doi:10.1021/je60070a015",
+       "CaCl2 against KCl; the compilation took these rows from Rard & Clegg (1997); read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"kuschel_seidel_1985", "Kuschel; Seidel", 1985,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Chem. Eng. Data", "doi:10.1021/je00042a021",
+       "MgCl2 and MgSO4 against KCl (the copy spells the second author 'Seldel'); read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"rard_miller_1981", "Rard; Miller", 1981,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Chem. Eng. Data", "doi:10.1021/je00023a013",
+       "MgSO4 against KCl; read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"platford_1968", "Platford", 1968,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Chem. Eng. Data", "doi:10.1021/je60036a015",
+       "Na2SO4 against NaCl; read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"rard_2000", "Rard et al.", 2000,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Solution Chem.", "doi:10.1023/A:1005182316790",
+       "Na2SO4 against NaCl; read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
+      {"robinson_wilson_stokes_1941", "Robinson; Wilson; Stokes", 1941,
+       "Isopiestic molalities at 298.15 K (title not read)",
+       "J. Am. Chem. Soc. 63", "doi:10.1021/ja01849a034",
+       "Na2SO4 and K2SO4 against KCl; read in the "
+       "compilation of isopiestic data kept with pytzer (mvdh7/pytzer datasets/iso.xlsx, "
+       "commit 0cd0d63), which names this paper and its DOI"},
       {"greenspan_1977_fit", "Greenspan, L.", 1977,
        "Humidity fixed points of binary saturated aqueous solutions",
        "J. Res. Natl. Bur. Stand. 81A, 89-96", "doi:10.6028/jres.081A.011",

@@ -441,8 +441,9 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
 /// (1-30 wt%) with a penalty that keeps the parameters near the old default's below 0 C
 /// (tools/fit_default_set.py, which prints the residuals and the covariance of the fitted
 /// coefficients). The 25 C data are not fitted: every CRC row stays a held-out check.
-/// MgCl2 keeps Spencer et al.'s row: the same treatment moved seawater's freezing point and
-/// salt onsets out of their checks (docs/electrolytes.md). The halite K carries a shift
+/// MgCl2 likewise takes Harvie et al.'s 25 C values, and in addition Silvester & Pitzer's 25 C
+/// slopes (Spencer et al.'s slope kept Harvie's offset down to 0 C and moved seawater out of its
+/// checks), with curvature holding the row near Spencer et al.'s below 0 C. The halite K carries a shift
 /// fitted to the Salt Institute solubility table (the solubility slope, issue 12).
 inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
   using detail::tf;
@@ -452,8 +453,9 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
     s.description =
         "spencer_1990_icefit with the CaCl2 row on the 25 C values of Harvie, Moller & Weare "
         "(1984) and its curvature below 25 C refitted to Melinder (2010) ice lines by "
-        "colligate (Spencer et al. 1990 slope at 25 C kept); halite K fitted to the Salt "
-        "Institute solubility table";
+        "colligate (Spencer et al. 1990 slope at 25 C kept); MgCl2 on Harvie et al.'s 25 C values "
+        "with Silvester & Pitzer's 25 C slopes (Pitzer 1991) and its curvature held near Spencer et al.'s "
+        "below 0 C; halite K fitted to the Salt Institute solubility table";
     for (auto& b : s.binaries) {
       if (b.cation == "Ca+2" && b.anion == "Cl-") {
         // tools/fit_default_set.py: Harvie et al. 25 C values + g1, g2 on beta0, beta1, C-phi
@@ -463,6 +465,20 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
         b.cphi = tf(-0.00034, 26.85056639, -0.64691, 0.0005016735271, 1.555757348e-06, -12466.4);
         b.source = "colligate_default_fit";
         b.note = "CaCl2 (Harvie et al. 1984 at 25 C, curvature fitted to Melinder's ice line)";
+      }
+      if (b.cation == "Mg+2" && b.anion == "Cl-") {
+        // tools/fit_default_set.py (fit_mgcl2): Harvie et al.'s (1984) 25 C values, Silvester &
+        // Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.194e-3, 2.78e-3, -0.580e-4 /K;
+        // Spencer et al.'s row has -4.78e-4, 1.47e-2, -1.06e-4), g1, g2 on beta0, beta1, C-phi
+        // fitted to Melinder's ice line with a penalty that keeps the row at Spencer et al.'s
+        // below 0 C (beta1 within +0.026 below 0 C, 0 to -0.14 between 0 and 25 C); ice line vs
+        // Melinder 1-21 wt% rms 0.577 K, worst 1.05 K (Spencer et al. 0.573, 1.04 K).
+        b.beta0 = tf(0.35235, -832.3003188, -17.65506, 0.0503159046, -1.602083794e-05, -117885);
+        b.beta1 = tf(1.6815, -55641.46231, 1302.23382, -6.236091092, 0.003799565209, 13522889.4);
+        b.cphi = tf(0.00519, -147.3904233, 0, -0.006791315853, 8.511249634e-06, 0);
+        b.source = "colligate_default_fit";
+        b.note = "MgCl2 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
+                 "held near Spencer et al. 1990)";
       }
     }
     // Antarcticite: the shift of ln IAP along Spencer et al.'s saturation curve with the new
