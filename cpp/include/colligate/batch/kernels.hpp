@@ -286,6 +286,8 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
                         "use 'extrapolate' or 'nan' and read the row status");
   check_bound_water_fraction_of_water("freezing_points", opt.bound_water_fraction_of_water);
+  // One species list for every row: whether a salt may form first is decided once.
+  const bool salt_path = opt.salts_crystallise && b.has_electrolytes();
   detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
     row_status st = b.input_status(i);
     double v = detail::nan;
@@ -293,7 +295,7 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
       const solution& s = ws.load(b, i);
       const double bound = bound_water_kg(s, opt.bound_water_fraction_of_water);
       equilibria::freezing_point_result r;
-      if (opt.salts_crystallise && s.has_electrolytes()) {
+      if (salt_path) {
         // As the scalar default: a salt that forms before ice gives its crystallisation
         // temperature (equilibria::ice_curve::salt_first, on the same curve and evaluator).
         auto& curve = ws.curve(m, bound);

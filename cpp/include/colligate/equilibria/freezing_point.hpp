@@ -102,7 +102,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
     if (std::isnan(T)) return below_limit();
     r.temperature = T;
     r.check = ln_aw.check(W, T);
-    r.check.merge(water::ice_temperature_validity(T));
+    water::merge_ice_temperature_validity(r.check, T);
     return r;
   }
   const double R = constants::gas_constant;
@@ -215,7 +215,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   r.status = converged ? solve_status::converged : solve_status::max_iterations;
   if (!converged && std::isnan(f)) r.temperature = std::numeric_limits<double>::quiet_NaN();
   r.check = ln_aw.check(W, r.temperature);
-  r.check.merge(water::ice_temperature_validity(r.temperature));
+  water::merge_ice_temperature_validity(r.check, r.temperature);
   return r;
 }
 
