@@ -92,6 +92,11 @@ class workspace {
   /// The ice curve of the row loaded last (prepared on first use for the species list,
   /// reset for each row's amounts).
   equilibria::ice_curve& curve(const models::model_choice& m, double bound_water_kg) {
+    if (curve_ && last_curve_requested_ == &m) {  // the same choice as the last row
+      curve_->reset(bound_water_kg);
+      return *curve_;
+    }
+    last_curve_requested_ = &m;
     if (!curve_ || !(curve_model_ == m)) {
       // A non-owning view of this workspace's solution: the curve follows its amounts.
       curve_.emplace(std::shared_ptr<const solution>(&s_, [](const solution*) {}), m,
@@ -112,6 +117,7 @@ class workspace {
   const models::model_choice* last_requested_ = nullptr;  ///< the object asked for last (a batch passes one)
   std::optional<equilibria::ice_curve> curve_;
   models::model_choice curve_model_ = "auto";
+  const models::model_choice* last_curve_requested_ = nullptr;  ///< as last_requested_
 };
 
 /// Most threads a batch call starts: eight per hardware thread (at least 8), never more

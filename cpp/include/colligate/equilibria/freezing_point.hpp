@@ -37,13 +37,19 @@ struct freezing_point_result {
 
 namespace detail {
 
+/// The error of check_bound_water, built out of line (the test inlines).
+[[noreturn]] inline void throw_bad_bound_water(const char* where, const solution& s,
+                                               double bound_water_kg) {
+  throw invalid_input(colligate::detail::describe(
+      where, "bound_water", bound_water_kg,
+      "must be finite, >= 0 kg and below the water in the solution (" +
+          std::to_string(s.water_mass()) + " kg)"));
+}
+
 inline void check_bound_water(const char* where, const solution& s, double bound_water_kg) {
   if (!std::isfinite(bound_water_kg) || bound_water_kg < 0.0 ||
       !(bound_water_kg < s.water_mass()))
-    throw invalid_input(colligate::detail::describe(
-        where, "bound_water", bound_water_kg,
-        "must be finite, >= 0 kg and below the water in the solution (" +
-            std::to_string(s.water_mass()) + " kg)"));
+    throw_bad_bound_water(where, s, bound_water_kg);
 }
 
 /// The water that can freeze, kg: the solution's water less `bound_water_kg` (checked).

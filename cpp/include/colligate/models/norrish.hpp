@@ -406,7 +406,7 @@ class norrish_evaluator final : public activity_evaluator {
   /// True when norrish::check finds nothing (prepared_check_ only): the same comparisons
   /// on the same numbers, in the same order.
   bool in_range(double water_kg, double temperature) const {
-    if (!norrish::temperature_limit().contains(temperature)) return false;
+    if (!temperature_limit_->contains(temperature)) return false;
     const double* moles = s_->moles().data();
     for (const auto& l : mass_limits_) {
       const double mass = moles[l.species] * l.molar_mass;
@@ -418,6 +418,7 @@ class norrish_evaluator final : public activity_evaluator {
 
   const solution* s_;
   std::vector<norrish::term> terms_;
+  const range_limit* temperature_limit_ = &norrish::temperature_limit();
   bool prepared_check_ = false;  ///< non-electrolytes with constants only
   std::vector<mass_limit> mass_limits_;
 };
