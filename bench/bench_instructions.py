@@ -5,8 +5,9 @@ Run:
 
 Builds bench/cpp/kernel_rows.cpp (one thread, the rows of bench_kernels.py's kinds) against
 the headers of this checkout and of the baseline checkout (g++ -O3 -DNDEBUG), then counts
-instructions with valgrind --tool=callgrind for `rows` and 2 x `rows` rows of each kernel;
-the difference over `rows` is the cost of one row without the set-up. Instruction counts do
+instructions with valgrind --tool=callgrind for one and for two calls of each kernel on
+`rows` rows; the difference over `rows` is the cost of one row in the kernel alone (without
+drawing the rows, building the batch or the tables built on first use). Instruction counts do
 not depend on the load of the machine (timings do), so two builds can be compared while
 others work; they are not a time (the cost of one instruction varies, and rows that overlap
 in the processor are not counted cheaper). The CPU time per row of a plain run and the
@@ -33,9 +34,9 @@ def build(checkout: str, out: str) -> None:
                     "-lpthread"], check=True)
 
 
-def instructions(exe: str, kernel: str, rows: int) -> int:
+def instructions(exe: str, kernel: str, rows: int, calls: int) -> int:
     r = subprocess.run(["valgrind", "--tool=callgrind", "--callgrind-out-file=/dev/null", exe, kernel,
-                        str(rows)], capture_output=True, text=True, check=True)
+                        str(rows), str(calls)], capture_output=True, text=True, check=True)
     return int(re.search(r"I\s+refs:\s+([\d,]+)", r.stderr).group(1).replace(",", ""))
 
 
@@ -62,7 +63,7 @@ def main() -> int:
             n = args.rows if k != "ross" else max(args.rows // 10, 1)
             per_row = {}
             for name, exe in exes.items():
-                per_row[name] = (instructions(exe, k, 2 * n) - instructions(exe, k, n)) / n
+                per_row[name] = (instructions(exe, k, n, 2) - instructions(exe, k, n, 1)) / n
             t_this, c_this = plain_run(exes["this"], k, 10 * n)
             t_base, c_base = plain_run(exes["baseline"], k, 10 * n)
             print(f"| {k} | {per_row['this']:.0f} ({per_row['baseline']:.0f}; "

@@ -3,10 +3,10 @@
 // invented sweeps of the same kind as bench_kernels.py's (six sugar / polyol / acid solutes
 // at 0-5 wt% each, or NaCl + sucrose), drawn here with std::mt19937 (seed 1).
 //
-//   kernel_rows KERNEL ROWS [REPEATS]     KERNEL: freezing_point | ice_fraction | ross
+//   kernel_rows KERNEL ROWS [CALLS]     KERNEL: freezing_point | ice_fraction | ross
 //
-// Prints the CPU time per row (best of REPEATS) and a checksum of the outputs, so two
-// builds can be seen to give the same numbers.
+// Calls the kernel CALLS times (default 1); prints the CPU time per row (best call) and a
+// checksum of the outputs, so two builds can be seen to give the same numbers.
 #include <algorithm>
 #include <cstdio>
 #include <cstdlib>
@@ -26,7 +26,7 @@ int main(int argc, char** argv) {
   }
   const std::string kernel = argv[1];
   const std::size_t rows = std::strtoul(argv[2], nullptr, 10);
-  const int repeats = argc > 3 ? std::atoi(argv[3]) : 1;
+  const int calls = argc > 3 ? std::atoi(argv[3]) : 1;
   std::vector<std::string> species;
   std::vector<double> x;
   if (kernel == "ross") {  // as bench_kernels.mixture_fractions
@@ -53,7 +53,7 @@ int main(int argc, char** argv) {
   const models::model_choice m(kernel == "ross" ? "ross" : "norrish");
   const double T = 263.15;  // K, bench_kernels.T_ICE
   double best = 1e300;
-  for (int r = 0; r < repeats; ++r) {
+  for (int r = 0; r < calls; ++r) {
     timespec t0, t1;
     clock_gettime(CLOCK_THREAD_CPUTIME_ID, &t0);
     if (kernel == "ice_fraction")
