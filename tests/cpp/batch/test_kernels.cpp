@@ -1,6 +1,7 @@
 // Batch kernels: equal to scalar calls bit for bit, independent of the thread count,
 // robust to bad rows.
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
 #include <cstring>
@@ -239,4 +240,71 @@ TEST_CASE("NaCl + sucrose batch (Ross rule) equals scalar calls bit for bit", "[
   CHECK(flagged > 0);
   CHECK(std::memcmp(tf[0].data(), tf[1].data(), N * sizeof(double)) == 0);
   CHECK(std::memcmp(aw[0].data(), aw[1].data(), N * sizeof(double)) == 0);
+}
+
+TEST_CASE("Norrish freezing points by stages: every kind of row equals its scalar call", "[batch][norrish]") {
+  // Identity test (no literature value). The kernel runs rows of a temperature-independent
+  // model in blocks of batch::detail::ice_line_block_rows, one stage at a time; each row
+  // must still give the scalar result and status, whatever its neighbours in the block,
+  // the thread count and the interruption hook. Rows (mol/kg, invented): ordinary ones;
+  // no solute (ice point); a negative amount (invalid); sucrose 14 mol/kg (ln a_w below the
+  // interpolated ice line: the Newton inverse, out of range); 20 mol/kg (no freezing
+  // point above -50 C); glycerol past its Norrish range (out of range). 203 rows: the last
+  // block is short.
+  const std::vector<std::string> species = {"sucrose", "glycerol", "citric_acid"};
+  const std::size_t N = 203;
+  auto m = random_molalities(N, species.size(), 11);
+  for (std::size_t i = 0; i < N; i += 7) m[i * 3] = m[i * 3 + 1] = m[i * 3 + 2] = 0.0;
+  for (std::size_t i = 3; i < N; i += 11) m[i * 3 + 1] = -1.0;
+  for (std::size_t i = 5; i < N; i += 13) m[i * 3] = 14.0;
+  for (std::size_t i = 6; i < N; i += 17) m[i * 3] = 20.0;
+  for (std::size_t i = 9; i < N; i += 19) m[i * 3 + 1] = 12.0;
+  const auto b = batch::solution_batch::from_molalities(species, m.data(), N);
+  const double bound_fraction = 0.05;
+  std::vector<double> expected(N);
+  std::vector<std::uint8_t> expected_status(N);
+  for (std::size_t i = 0; i < N; ++i) {
+    if (!b.valid(i)) {
+      expected[i] = std::nan("");
+      expected_status[i] = static_cast<std::uint8_t>(batch::row_status::invalid_input);
+      continue;
+    }
+    const auto s = solution::from_molalities(
+        {{species[0], m[i * 3]}, {species[1], m[i * 3 + 1]}, {species[2], m[i * 3 + 2]}});
+    const auto r = equilibria::freezing_point(s, "norrish", bound_water_kg(s, bound_fraction));
+    auto st = batch::row_status::ok;
+    double v = r.temperature;
+    if (r.status == equilibria::solve_status::below_search_limit) {
+      st = batch::row_status::no_freezing_point;
+      v = std::nan("");
+    } else if (!r.check.in_range()) {
+      st = batch::row_status::out_of_range;
+    }
+    expected[i] = v;
+    expected_status[i] = static_cast<std::uint8_t>(st);
+  }
+  // Every kind of row is present.
+  for (auto st : {batch::row_status::ok, batch::row_status::out_of_range,
+                  batch::row_status::invalid_input, batch::row_status::no_freezing_point})
+    CHECK(std::count(expected_status.begin(), expected_status.end(),
+                     static_cast<std::uint8_t>(st)) > 0);
+  for (unsigned threads : {1u, 3u}) {
+    for (bool hook : {false, true}) {
+      batch::options o;
+      o.threads = threads;
+      o.bound_water_fraction_of_water = bound_fraction;
+      if (hook) o.interrupted = [] { return false; };
+      std::vector<double> out(N);
+      std::vector<std::uint8_t> st(N);
+      batch::freezing_points(b, "norrish", o, out.data(), st.data());
+      for (std::size_t i = 0; i < N; ++i) {
+        INFO("row " << i << ", " << threads << " threads, hook " << hook);
+        CHECK(st[i] == expected_status[i]);
+        if (std::isnan(expected[i]))
+          CHECK(std::isnan(out[i]));
+        else
+          CHECK(out[i] == expected[i]);
+      }
+    }
+  }
 }

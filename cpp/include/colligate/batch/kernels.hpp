@@ -92,6 +92,11 @@ class workspace {
   /// The ice curve of the row loaded last (prepared on first use for the species list,
   /// reset for each row's amounts).
   equilibria::ice_curve& curve(const models::model_choice& m, double bound_water_kg) {
+    if (curve_ && last_curve_requested_ == &m) {  // the same choice as the last row
+      curve_->reset(bound_water_kg);
+      return *curve_;
+    }
+    last_curve_requested_ = &m;
     if (!curve_ || !(curve_model_ == m)) {
       // A non-owning view of this workspace's solution: the curve follows its amounts.
       curve_.emplace(std::shared_ptr<const solution>(&s_, [](const solution*) {}), m,
@@ -112,6 +117,7 @@ class workspace {
   const models::model_choice* last_requested_ = nullptr;  ///< the object asked for last (a batch passes one)
   std::optional<equilibria::ice_curve> curve_;
   models::model_choice curve_model_ = "auto";
+  const models::model_choice* last_curve_requested_ = nullptr;  ///< as last_requested_
 };
 
 /// Most threads a batch call starts: eight per hardware thread (at least 8), never more
@@ -150,24 +156,36 @@ inline std::size_t piece_rows(std::size_t rows, unsigned threads) {
   return std::max<std::size_t>(1, std::min<std::size_t>(target, 16));
 }
 
-/// Runs body(workspace&, row) over all rows. Without an interruption hook: contiguous
-/// chunks, one per thread, of round_up_to_lines() rows (the calling thread alone when one
-/// thread is asked). With one: the rows go out in pieces of piece_rows() rows to worker
-/// threads while the calling thread waits and calls the hook about every 50 ms. Rows are independent, so the results do
-/// not depend on how they are split. An exception in a worker (a caller mistake found
-/// while preparing the model, say) reaches the caller as the same exception the serial
-/// path throws: each worker keeps its first one (std::exception_ptr), every started
-/// thread is joined, then the first is rethrown.
-template <class Body>
-void parallel_rows(const solution_batch& b, unsigned threads,
-                   const std::function<bool()>& interrupted_hook, Body body) {
-  const std::size_t N = b.rows();
+/// Runs body(workspace&, lo, hi) over all rows, in blocks [lo, hi) of `block_rows` rows
+/// (the last one shorter), each block given to one thread whole. Without an interruption
+/// hook: contiguous chunks of blocks, one per thread, of round_up_to_lines() blocks (the
+/// calling thread alone when one thread is asked). With one: the blocks go out in pieces of
+/// piece_rows() blocks to worker threads while the calling thread waits and calls the hook
+/// about every 50 ms; a stopped batch ends after the block under way. Rows are independent,
+/// so the results do not depend on how they are split. An exception in a worker (a caller
+/// mistake found while preparing the model, say) reaches the caller as the same exception
+/// the serial path throws: each worker keeps its first one (std::exception_ptr), every
+/// started thread is joined, then the first is rethrown.
+template <class BlockBody>
+void parallel_row_blocks(const solution_batch& b, unsigned threads,
+                         const std::function<bool()>& interrupted_hook, std::size_t block_rows,
+                         BlockBody body) {
+  const std::size_t rows = b.rows();
+  const std::size_t N = (rows + block_rows - 1) / block_rows;  // blocks
+  const auto rows_of = [rows, block_rows](std::size_t k, std::size_t& lo, std::size_t& hi) {
+    lo = k * block_rows;
+    hi = std::min(rows, lo + block_rows);
+  };
   const unsigned T = thread_count(threads, N);
   std::atomic<bool> stop{false};
   if (!interrupted_hook) {
     auto run = [&](std::size_t lo, std::size_t hi) {
       workspace ws(b, nullptr);
-      for (std::size_t i = lo; i < hi; ++i) body(ws, i);
+      for (std::size_t k = lo; k < hi; ++k) {
+        std::size_t r0, r1;
+        rows_of(k, r0, r1);
+        body(ws, r0, r1);
+      }
     };
     if (T <= 1) {
       run(0, N);
@@ -217,7 +235,11 @@ void parallel_rows(const solution_batch& b, unsigned threads,
         const std::size_t lo = next.fetch_add(piece);
         if (lo >= N) break;
         const std::size_t hi = std::min(N, lo + piece);
-        for (std::size_t i = lo; i < hi && !stop.load(std::memory_order_relaxed); ++i) body(ws, i);
+        for (std::size_t k = lo; k < hi && !stop.load(std::memory_order_relaxed); ++k) {
+          std::size_t r0, r1;
+          rows_of(k, r0, r1);
+          body(ws, r0, r1);
+        }
       }
     } catch (...) {
       errors[t] = std::current_exception();
@@ -267,12 +289,69 @@ void parallel_rows(const solution_batch& b, unsigned threads,
     if (e) std::rethrow_exception(e);
 }
 
+/// Runs body(workspace&, row) over all rows (parallel_row_blocks with blocks of one row).
+template <class Body>
+void parallel_rows(const solution_batch& b, unsigned threads,
+                   const std::function<bool()>& interrupted_hook, Body body) {
+  parallel_row_blocks(b, threads, interrupted_hook, 1,
+                      [&body](workspace& ws, std::size_t lo, std::size_t) { body(ws, lo); });
+}
+
 constexpr double nan = std::numeric_limits<double>::quiet_NaN();
 
 inline double policy_value(double value, bool in_range, range_policy policy, row_status& st) {
   if (in_range) return value;
   st = row_status::out_of_range;
   return policy == range_policy::nan ? nan : value;
+}
+
+/// Rows a thread takes at a time where a kernel runs its rows by stages.
+inline constexpr std::size_t ice_line_block_rows = 8;
+
+/// Freezing points of rows [lo, hi) (at most ice_line_block_rows) under a model whose ln a_w
+/// does not depend on T, by the steps of equilibria::freezing_point for such models run
+/// row by row, one step at a time: ln a_w at the ice point of each row, then the ice line
+/// read backwards for each (equilibria::temperature_on_ice_line_searched), then each row's
+/// validity (equilibria::freezing_point_on_ice_line, the row loaded again). A row's
+/// arithmetic is that of the scalar call, so its result is the same bit for bit; what
+/// changes is the order: the rows' latency chains (a logarithm, a Clenshaw recurrence, a
+/// Newton step, each waiting on the last) are independent and overlap in the processor,
+/// where one row alone leaves it waiting. `store(i, status, result)` writes a row.
+template <class Store>
+void freezing_points_on_ice_line(const solution_batch& b, workspace& ws,
+                                 models::ln_water_activity_evaluator& ln_aw, const options& opt,
+                                 std::size_t lo, std::size_t hi, const Store& store) {
+  constexpr std::size_t B = ice_line_block_rows;
+  double water[B], ln_aw_0[B], T[B];
+  bool solve[B];
+  for (std::size_t i = lo; i < hi; ++i) {
+    const std::size_t k = i - lo;
+    solve[k] = false;
+    const row_status st = b.input_status(i);
+    if (st != row_status::ok) {
+      store(i, st, equilibria::freezing_point_result{});
+      continue;
+    }
+    const solution& s = ws.load(b, i);
+    water[k] = equilibria::detail::freezable_water(
+        "freezing_point", s, bound_water_kg(s, opt.bound_water_fraction_of_water));
+    if (equilibria::detail::without_solutes(s)) {
+      equilibria::freezing_point_result r;
+      r.temperature = constants::ice_point;
+      store(i, st, r);
+      continue;
+    }
+    ln_aw_0[k] = ln_aw(water[k], constants::ice_point);
+    solve[k] = true;
+  }
+  for (std::size_t k = 0; k < hi - lo; ++k)
+    if (solve[k]) T[k] = equilibria::temperature_on_ice_line_searched(ln_aw_0[k]);
+  for (std::size_t i = lo; i < hi; ++i) {
+    const std::size_t k = i - lo;
+    if (!solve[k]) continue;
+    ws.load(b, i);
+    store(i, row_status::ok, equilibria::freezing_point_on_ice_line(T[k], water[k], ln_aw));
+  }
 }
 
 }  // namespace detail
@@ -286,29 +365,12 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
     throw invalid_input("batch kernels: range_policy 'raise' is not available for batches; "
                         "use 'extrapolate' or 'nan' and read the row status");
   check_bound_water_fraction_of_water("freezing_points", opt.bound_water_fraction_of_water);
-  detail::parallel_rows(b, opt.threads, opt.interrupted, [&](detail::workspace& ws, std::size_t i) {
-    row_status st = b.input_status(i);
+  // One species list for every row: whether a salt may form first is decided once.
+  const bool salt_path = opt.salts_crystallise && b.has_electrolytes();
+  // A row's result as its value and status.
+  const auto store = [&](std::size_t i, row_status st, const equilibria::freezing_point_result& r) {
     double v = detail::nan;
     if (st == row_status::ok) {
-      const solution& s = ws.load(b, i);
-      const double bound = bound_water_kg(s, opt.bound_water_fraction_of_water);
-      equilibria::freezing_point_result r;
-      if (opt.salts_crystallise && s.has_electrolytes()) {
-        // As the scalar default: a salt that forms before ice gives its crystallisation
-        // temperature (equilibria::ice_curve::salt_first, on the same curve and evaluator).
-        auto& curve = ws.curve(m, bound);
-        const auto first = curve.salt_first();
-        if (first.phase != nullptr) {
-          if (std::isnan(first.temperature)) st = row_status::out_of_range;
-          else v = detail::policy_value(first.temperature, first.check.in_range(), opt.policy, st);
-          out[i] = v;
-          status[i] = static_cast<std::uint8_t>(st);
-          return;
-        }
-        r = curve.initial_freezing_point();  // ice first: the curve's freezing point
-      } else {
-        r = equilibria::freezing_point(s, m, bound, ws.evaluator(m));
-      }
       if (r.status == equilibria::solve_status::below_search_limit) st = row_status::no_freezing_point;
       else if (r.check.code == validity_code::outside_physical_bounds) st = row_status::no_physical_value;
       else if (!r.success()) st = row_status::not_converged;
@@ -316,6 +378,48 @@ inline void freezing_points(const solution_batch& b, const models::model_choice&
     }
     out[i] = v;
     status[i] = static_cast<std::uint8_t>(st);
+  };
+  detail::parallel_row_blocks(b, opt.threads, opt.interrupted, detail::ice_line_block_rows,
+                              [&](detail::workspace& ws, std::size_t lo, std::size_t hi) {
+    if (!salt_path) {
+      // The model is prepared on the block's first valid row, as the scalar call prepares
+      // it on its solution; one whose ln a_w does not depend on T is solved by stages.
+      for (std::size_t i = lo; i < hi; ++i) {
+        if (b.input_status(i) != row_status::ok) continue;
+        ws.load(b, i);
+        if (!ws.evaluator(m).model().traits.temperature_dependent) {
+          detail::freezing_points_on_ice_line(b, ws, ws.evaluator(m), opt, lo, hi, store);
+          return;
+        }
+        break;
+      }
+    }
+    for (std::size_t i = lo; i < hi; ++i) {
+      row_status st = b.input_status(i);
+      equilibria::freezing_point_result r;
+      if (st == row_status::ok) {
+        const solution& s = ws.load(b, i);
+        const double bound = bound_water_kg(s, opt.bound_water_fraction_of_water);
+        if (salt_path) {
+          // As the scalar default: a salt that forms before ice gives its crystallisation
+          // temperature (equilibria::ice_curve::salt_first, on the same curve and evaluator).
+          auto& curve = ws.curve(m, bound);
+          const auto first = curve.salt_first();
+          if (first.phase != nullptr) {
+            double v = detail::nan;
+            if (std::isnan(first.temperature)) st = row_status::out_of_range;
+            else v = detail::policy_value(first.temperature, first.check.in_range(), opt.policy, st);
+            out[i] = v;
+            status[i] = static_cast<std::uint8_t>(st);
+            continue;
+          }
+          r = curve.initial_freezing_point();  // ice first: the curve's freezing point
+        } else {
+          r = equilibria::freezing_point(s, m, bound, ws.evaluator(m));
+        }
+      }
+      store(i, st, r);
+    }
   });
 }
 

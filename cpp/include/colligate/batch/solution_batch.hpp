@@ -100,6 +100,12 @@ class solution_batch {
   /// Water of row i, kg.
   double water(std::size_t i) const noexcept { return water_[i]; }
   bool valid(std::size_t i) const noexcept { return input_status_[i] == row_status::ok; }
+  /// True if any species is an electrolyte (solution::has_electrolytes of every row).
+  bool has_electrolytes() const noexcept {
+    for (const auto& r : species_)
+      if (r.kind == data::solute_class::electrolyte) return true;
+    return false;
+  }
   row_status input_status(std::size_t i) const noexcept { return input_status_[i]; }
 
  private:

@@ -23,13 +23,21 @@
 
 namespace colligate {
 
+namespace detail {
+/// The error of check_bound_water_fraction_of_water, built out of line (the test stays
+/// small enough to inline where a kernel repeats it per row).
+[[noreturn]] inline void throw_bad_bound_water_fraction(const char* where, double fraction) {
+  throw invalid_input(describe(
+      where, "bound_water_fraction_of_water", fraction,
+      "must be finite and in [0, 1) (kg of water that cannot freeze per kg of all the water)"));
+}
+}  // namespace detail
+
 /// Throws invalid_input unless 0 <= fraction < 1 (finite); the message names the input,
 /// its value and the valid range.
 inline void check_bound_water_fraction_of_water(const char* where, double fraction) {
   if (!(std::isfinite(fraction) && fraction >= 0.0 && fraction < 1.0))
-    throw invalid_input(detail::describe(
-        where, "bound_water_fraction_of_water", fraction,
-        "must be finite and in [0, 1) (kg of water that cannot freeze per kg of all the water)"));
+    detail::throw_bad_bound_water_fraction(where, fraction);
 }
 
 /// Unfreezable water of `s`, kg: `fraction_of_water` times the water of `s`.

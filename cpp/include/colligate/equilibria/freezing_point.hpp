@@ -37,13 +37,42 @@ struct freezing_point_result {
 
 namespace detail {
 
+/// The error of check_bound_water, built out of line (the test inlines).
+[[noreturn]] inline void throw_bad_bound_water(const char* where, const solution& s,
+                                               double bound_water_kg) {
+  throw invalid_input(colligate::detail::describe(
+      where, "bound_water", bound_water_kg,
+      "must be finite, >= 0 kg and below the water in the solution (" +
+          std::to_string(s.water_mass()) + " kg)"));
+}
+
 inline void check_bound_water(const char* where, const solution& s, double bound_water_kg) {
   if (!std::isfinite(bound_water_kg) || bound_water_kg < 0.0 ||
       !(bound_water_kg < s.water_mass()))
-    throw invalid_input(colligate::detail::describe(
-        where, "bound_water", bound_water_kg,
-        "must be finite, >= 0 kg and below the water in the solution (" +
-            std::to_string(s.water_mass()) + " kg)"));
+    throw_bad_bound_water(where, s, bound_water_kg);
+}
+
+/// The water that can freeze, kg: the solution's water less `bound_water_kg` (checked).
+inline double freezable_water(const char* where, const solution& s, double bound_water_kg) {
+  check_bound_water(where, s, bound_water_kg);
+  return s.water_mass() - bound_water_kg;
+}
+
+/// True when the solution holds no solute at all (it freezes at the ice point).
+inline bool without_solutes(const solution& s) {
+  double total_moles = 0.0;
+  for (double n : s.moles()) total_moles += n;
+  return total_moles == 0.0;
+}
+
+/// The result of a solution that does not freeze above the lowest temperature searched.
+inline freezing_point_result below_search_limit() {
+  freezing_point_result r;
+  r.status = solve_status::below_search_limit;
+  r.check = flagged(validity_code::no_freezing_point, "freezing_point",
+                    "lowest temperature searched = 223.15 K",
+                    "the solution does not freeze above this temperature (-50 C)");
+  return r;
 }
 
 /// f(T) = ln a_w(solution with `water_kg`, T) - ln a_w,ice(T); negative above the
@@ -54,6 +83,32 @@ inline double ice_imbalance(const models::model_choice& m, const solution& s, do
 
 
 }  // namespace detail
+
+/// The freezing point of a solution whose ln a_w does not depend on T (equal to `ln_aw_0`
+/// at every T), K: the ice line read backwards (water/ice_line_inverse.hpp: interpolated
+/// inverse plus one Newton step) over its validated range; below it, the Newton inverse of
+/// ice.hpp down to the lowest temperature searched; NaN below that. The middle step of
+/// freezing_point for such models, apart so that a batch can run it for several rows
+/// side by side (their latency chains overlap; each row's arithmetic is unchanged).
+inline double temperature_on_ice_line_searched(double ln_aw_0) {
+  double T = water::temperature_on_ice_line(ln_aw_0);
+  if (std::isnan(T)) T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
+  return T;
+}
+
+/// The result for temperature T from temperature_on_ice_line_searched (NaN: below the
+/// search limit) of the solution `ln_aw` is prepared for, with `water_kg` of water that can
+/// freeze: the model's validity at T and that of the ice line. The last step of
+/// freezing_point for models whose ln a_w does not depend on T.
+inline freezing_point_result freezing_point_on_ice_line(double T, double water_kg,
+                                                        models::ln_water_activity_evaluator& ln_aw) {
+  if (std::isnan(T)) return detail::below_search_limit();
+  freezing_point_result r;
+  r.temperature = T;
+  r.check = ln_aw.check(water_kg, T);
+  water::merge_ice_temperature_validity(r.check, T);
+  return r;
+}
 
 /// Initial freezing point of a solution, K, with status and validity, using `ln_aw`, an
 /// evaluator prepared for `s` with model `m` (a batch thread keeps one for all its rows).
@@ -75,35 +130,17 @@ inline double ice_imbalance(const models::model_choice& m, const solution& s, do
 inline freezing_point_result freezing_point(const solution& s, const models::model_choice& m,
                                             double bound_water_kg,
                                             models::ln_water_activity_evaluator& ln_aw) {
-  detail::check_bound_water("freezing_point", s, bound_water_kg);
   static_cast<void>(m);  // values and check both come from `ln_aw`, prepared with m for s
-  const double W = s.water_mass() - bound_water_kg;
+  const double W = detail::freezable_water("freezing_point", s, bound_water_kg);
   freezing_point_result r;
-  double total_moles = 0.0;
-  for (double n : s.moles()) total_moles += n;
-  if (total_moles == 0.0) {
+  if (detail::without_solutes(s)) {
     r.temperature = constants::ice_point;
     return r;
   }
-  const auto below_limit = [&r] {
-    r.status = solve_status::below_search_limit;
-    r.check = flagged(validity_code::no_freezing_point, "freezing_point",
-                      "lowest temperature searched = 223.15 K",
-                      "the solution does not freeze above this temperature (-50 C)");
-    return r;
-  };
   if (!ln_aw.model().traits.temperature_dependent) {
-    // a_w does not depend on T: read the ice line backwards (water/ice_line_inverse.hpp:
-    // interpolated inverse plus one Newton step) over its validated range; below it, the
-    // Newton inverse of ice.hpp down to the lowest temperature searched.
-    const double ln_aw_0 = ln_aw(W, constants::ice_point);
-    double T = water::temperature_on_ice_line(ln_aw_0);
-    if (std::isnan(T)) T = water::temperature_of_ice_equilibrium(ln_aw_0, search_min_temperature);
-    if (std::isnan(T)) return below_limit();
-    r.temperature = T;
-    r.check = ln_aw.check(W, T);
-    r.check.merge(water::ice_temperature_validity(T));
-    return r;
+    // a_w does not depend on T: read the ice line backwards at ln a_w.
+    const double T = temperature_on_ice_line_searched(ln_aw(W, constants::ice_point));
+    return freezing_point_on_ice_line(T, W, ln_aw);
   }
   const double R = constants::gas_constant;
   const auto ice_slope = [R](double T) {  // d ln a_w,ice / dT = dH_fus / (R T^2)
@@ -120,7 +157,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   const double f_hi = L_hi;  // ln a_w,ice(T0) = 0
   if (std::isnan(f_hi) &&
       !(ln_aw(W, lo) - water::ln_water_activity_of_ice(lo) > 0.0))  // no usable model value
-    return below_limit();
+    return detail::below_search_limit();
   if (f_hi > 0.0) {  // a_w > 1: the model, extrapolated, gives no physical value
     r.temperature = std::numeric_limits<double>::quiet_NaN();
     r.status = solve_status::max_iterations;
@@ -184,7 +221,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
     if (!(next > lo && next < hi)) {
       if (!lo_known) {
         const double f_lo = ln_aw(W, lo) - water::ln_water_activity_of_ice(lo);
-        if (!(f_lo > 0.0)) return below_limit();
+        if (!(f_lo > 0.0)) return detail::below_search_limit();
         lo_known = true;
       }
       next = 0.5 * (lo + hi);
@@ -215,7 +252,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   r.status = converged ? solve_status::converged : solve_status::max_iterations;
   if (!converged && std::isnan(f)) r.temperature = std::numeric_limits<double>::quiet_NaN();
   r.check = ln_aw.check(W, r.temperature);
-  r.check.merge(water::ice_temperature_validity(r.temperature));
+  water::merge_ice_temperature_validity(r.check, r.temperature);
   return r;
 }
 

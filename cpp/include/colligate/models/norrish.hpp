@@ -352,11 +352,29 @@ namespace detail {
 /// Model 'norrish' prepared for one species list: each solute's constants copied out of
 /// its record once (norrish::term, sqrt(K) taken there), so an evaluation reads a short
 /// array. The same sum as norrish::ln_water_activity on the solution, bit for bit.
+///
+/// The validity check is prepared too. For a species list of non-electrolytes that all have
+/// Norrish constants (every batch of sugars, polyols and acids), a row is in range when T
+/// lies in the temperature limit and each solute's binary mass fraction is at most its
+/// record's limit: check() tests that on a short array of (molar mass, limit) with the same
+/// arithmetic as norrish::check, and only a row that fails it (or a species list with
+/// electrolytes or missing constants) goes through norrish::check, which builds the record.
+/// So the record is the one norrish::check gives, and an in-range row costs no look-up in
+/// the solute records.
 class norrish_evaluator final : public activity_evaluator {
  public:
   explicit norrish_evaluator(const solution& s) : s_(&s) {
     terms_.reserve(s.size());
     for (std::size_t i = 0; i < s.size(); ++i) terms_.push_back(norrish::term_of(s, i));
+    prepared_check_ = true;
+    for (std::size_t i = 0; i < s.size(); ++i) {
+      const auto& rec = s.species()[i];
+      if (rec.kind == data::solute_class::electrolyte || !rec.norrish.available) {
+        prepared_check_ = false;  // ionic strength or a missing-constants record: the full check
+        break;
+      }
+      mass_limits_.push_back({i, rec.molar_mass, rec.norrish.max_mass_fraction});
+    }
   }
   double ln_water_activity(double water_kg, double /*temperature*/) override {
     return norrish::ln_water_activity(terms_.data(), terms_.size(), s_->moles().data(), water_kg);
@@ -373,12 +391,36 @@ class norrish_evaluator final : public activity_evaluator {
                                           water_kg, target, water_out, iterations);
   }
   validity check(double water_kg, double temperature) override {
+    if (prepared_check_ && in_range(water_kg, temperature)) return {};
     return norrish::check(*s_, water_kg, temperature);
   }
 
  private:
+  /// One non-electrolyte's binary mass-fraction limit (norrish::check's test).
+  struct mass_limit {
+    std::size_t species;
+    double molar_mass;         ///< kg/mol
+    double max_mass_fraction;  ///< the record's Norrish range
+  };
+
+  /// True when norrish::check finds nothing (prepared_check_ only): the same comparisons
+  /// on the same numbers, in the same order.
+  bool in_range(double water_kg, double temperature) const {
+    if (!temperature_limit_->contains(temperature)) return false;
+    const double* moles = s_->moles().data();
+    for (const auto& l : mass_limits_) {
+      const double mass = moles[l.species] * l.molar_mass;
+      const double w = mass / (mass + water_kg);
+      if (w > l.max_mass_fraction) return false;
+    }
+    return true;
+  }
+
   const solution* s_;
   std::vector<norrish::term> terms_;
+  const range_limit* temperature_limit_ = &norrish::temperature_limit();
+  bool prepared_check_ = false;  ///< non-electrolytes with constants only
+  std::vector<mass_limit> mass_limits_;
 };
 
 }  // namespace detail

@@ -216,6 +216,12 @@ inline double temperature_of_ice_equilibrium(double ln_aw, double t_min = 223.15
       .x;
 }
 
+/// True when ice_temperature_validity(temperature) is in range (no record to build): T at or
+/// above 233.15 K (less 1e-9 K for temperatures converted from Celsius); false for NaN.
+inline bool ice_temperature_in_validated_range(double temperature) {
+  return temperature >= ice_model_min_temperature - 1e-9;
+}
+
 /// Range check for the ice equilibrium: outside_physical_bounds below 215 K (no value),
 /// temperature_out_of_range from 215 to 233.15 K (extrapolated).
 inline validity ice_temperature_validity(double temperature) {
@@ -227,11 +233,18 @@ inline validity ice_temperature_validity(double temperature) {
                          "down to 233.15 K, departs from the Murphy & Koop (2005) ratio by more "
                          "than 1 % there and turns unphysical below about 207 K",
                          "murphy_koop_2005", validity_code::outside_physical_bounds);
-  if (temperature < ice_model_min_temperature - 1e-9)
+  if (!ice_temperature_in_validated_range(temperature))
     v = outside_range("ice equilibrium", "temperature", temperature, ice_model_min_temperature,
                       ice_model_max_temperature, " K", "the validated range of a_w,ice",
                       "murphy_koop_2005");
   return v;
+}
+
+/// v.merge(ice_temperature_validity(temperature)), building the ice record only when it is
+/// needed (v in range and T outside the validated range): the kernels' per-row form.
+inline void merge_ice_temperature_validity(validity& v, double temperature) {
+  if (v.in_range() && !ice_temperature_in_validated_range(temperature))
+    v = ice_temperature_validity(temperature);
 }
 
 /// Water activity of a solution in equilibrium with ice at T (K) with the caller's range
