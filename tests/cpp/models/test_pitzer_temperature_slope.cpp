@@ -5,6 +5,7 @@
 // Identities, no published values: the tolerances say what a central difference and the
 // 1e-9 K solver tolerance allow (common practice).
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <cmath>
 #include <vector>
 
@@ -154,4 +155,86 @@ TEST_CASE("freezing point with the closed-form slope equals a bisection of the s
       CHECK_THAT(T, WithinAbs(ref, 1e-9));
     }
   }
+}
+
+TEST_CASE("J as a power series equals Harvie's Chebyshev recurrence", "[models][pitzer][slope]") {
+  // Identity (common practice): mixing_j evaluates the Chebyshev sum of Pitzer (1991)
+  // Table B-1 rewritten as a polynomial in z; the Clenshaw recurrence of the table itself,
+  // b_k = a_k + z b_(k+1) - b_(k+2), J = x/4 - 1 + (b_0 - b_2)/2, with its z derivative,
+  // must give the same J and J' to rounding (sum |c_n| 2^n is at most 4.1, so a few 1e-16
+  // absolute; 1e-14 allows for the z(x) map and the x/4 - 1 cancellation).
+  const auto clenshaw = [](double x, double& J, double& dJ) {
+    const bool low = x < 1.0;
+    const auto& a = low ? models::detail::harvie_j_low : models::detail::harvie_j_high;
+    const double px = low ? std::pow(x, 0.2) : std::pow(x, -0.1);
+    const double z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
+    const double dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
+    double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0;
+    for (int k = 20; k >= 0; --k) {
+      b2 = b1;
+      b1 = b0;
+      d2 = d1;
+      d1 = d0;
+      b0 = z * b1 - b2 + a[k];
+      d0 = b1 + z * d1 - d2;
+    }
+    J = 0.25 * x - 1.0 + 0.5 * (b0 - b2);
+    dJ = 0.25 + 0.5 * dz * (d0 - d2);
+  };
+  for (double x = 1e-3; x < 500.0; x *= 1.13) {
+    double J, dJ, Jc, dJc;
+    models::detail::mixing_j(x, J, dJ);
+    clenshaw(x, Jc, dJc);
+    INFO("x = " << x);
+    CHECK_THAT(J, WithinAbs(Jc, 1e-14 * std::max(1.0, std::abs(Jc))));
+    CHECK_THAT(dJ, WithinAbs(dJc, 1e-14 * std::max(1.0, std::abs(dJc))));
+  }
+}
+
+TEST_CASE("ln a_w along temperature equals the slope path within rounding",
+          "[models][pitzer][slope]") {
+  // Identity (common practice): ln_water_activity_along_temperature regroups the osmotic
+  // sum per composition (parameter rows summed with their molality weights once, then one
+  // dot product with the temperature basis); value and slope equal those of
+  // ln_water_activity_with_temperature_slope up to rounding (|ln a_w| below 0.2 here:
+  // 1e-15 absolute is a few ulp of the terms summed; the slope sums terms of up to about
+  // 1e-4 per K that partly cancel (4.5e-7 per K for seawater at 273.15 K with
+  // spencer_1990_icefit), so 1e-16 per K absolute, 1e-12 of those terms).
+  for (const auto* set : {&data::harvie_spencer_icefit_parameters(), &data::spencer_1990_icefit_parameters(),
+                          &data::spencer_1990_parameters(), &data::harvie_1984_parameters()}) {
+    for (const auto& s : brines()) {
+      models::detail::pitzer_system sys(s, *set);
+      for (double T : {240.0, 255.0, 268.0, 273.15, 298.15}) {
+        double slope = 0.0, slope_ref = 0.0;
+        const double v = sys.ln_water_activity_along_temperature(s.moles().data(), s.water_mass(), T, slope);
+        const double ref = sys.ln_water_activity_with_temperature_slope(s.moles().data(), s.water_mass(),
+                                                                        T, slope_ref);
+        INFO(set->id << " T = " << T);
+        CHECK_THAT(v, WithinAbs(ref, 1e-15));
+        CHECK_THAT(slope, WithinAbs(slope_ref, 1e-16));
+      }
+    }
+  }
+  // The per-composition sums are kept for the last molalities only and never change a value:
+  // the same calls in another order, on a fresh system each, give the same bits.
+  const auto sea = solution::seawater(35.16504);
+  const auto& set = models::pitzer::default_parameters();
+  models::detail::pitzer_system kept(sea, set);
+  for (double W : {1.0, 0.5, 1.0, 0.25, 0.5}) {
+    for (double T : {273.15, 265.0, 273.15}) {
+      models::detail::pitzer_system fresh(sea, set);
+      double a = 0.0, b = 0.0;
+      CHECK(kept.ln_water_activity_along_temperature(sea.moles().data(), W, T, a) ==
+            fresh.ln_water_activity_along_temperature(sea.moles().data(), W, T, b));
+      CHECK(a == b);
+      CHECK(kept.ln_water_activity(sea.moles().data(), W, T) ==
+            models::detail::pitzer_system(sea, set).ln_water_activity(sea.moles().data(), W, T));
+    }
+  }
+  // Archer's extended rows have no slope here either.
+  const auto nacl = solution::from_molalities({{"sodium_chloride", 1.0}});
+  models::detail::pitzer_system archer(nacl, data::archer_1992_parameters());
+  double slope = 0.0;
+  CHECK_THROWS_AS(archer.ln_water_activity_along_temperature(nacl.moles().data(), 1.0, 260.0, slope),
+                  invalid_input);
 }

@@ -116,7 +116,9 @@ inline freezing_point_result freezing_point_on_ice_line(double T, double water_k
 /// Temperature-dependent models (Pitzer, Ross) are solved by a safeguarded Newton
 /// iteration on f(T) = ln a_w(T) - ln a_w,ice(T) from the ice point. When the evaluator
 /// gives d ln a_w / dT in closed form (Pitzer and Ross with parameters in the analytic
-/// temperature form), each step meets the model linearised at the iterate with the ice
+/// temperature form; evaluated at the fixed amounts of the solve through
+/// activity_evaluator::ln_water_activity_along_temperature, which prepares the
+/// composition once and then costs little per temperature), each step meets the model linearised at the iterate with the ice
 /// line itself (a few Newton steps on the cheap ice function), so only the curvature of
 /// ln a_w in T is left as error: two model evaluations for seawater, the second result
 /// accepted when its Taylor bound (curvature from the last two slopes) is below 1e-11 K.
@@ -152,7 +154,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
   // With a closed-form d ln a_w / dT (Pitzer), the slope of the model at each iterate.
   double dL_analytic = 0.0, dL_prev = 0.0;
   double L_hi = 0.0;
-  const bool analytic = ln_aw.with_temperature_slope(W, hi, L_hi, dL_analytic);
+  const bool analytic = ln_aw.along_temperature(W, hi, L_hi, dL_analytic);
   if (!analytic) L_hi = ln_aw(W, hi);
   const double f_hi = L_hi;  // ln a_w,ice(T0) = 0
   if (std::isnan(f_hi) &&
@@ -231,7 +233,7 @@ inline freezing_point_result freezing_point(const solution& s, const models::mod
     dL_prev = dL_analytic;
     T = next;
     if (analytic)
-      ln_aw.with_temperature_slope(W, T, L, dL_analytic);
+      ln_aw.along_temperature(W, T, L, dL_analytic);
     else
       L = ln_aw(W, T);
     f = L - water::ln_water_activity_of_ice(T);

@@ -396,10 +396,12 @@ class ice_curve {
       end_temperature_ = fp.temperature;
       return false;
     }
-    liquid_state probe;
-    probe.u = std::log(W_);
+    // The liquid as given, in its freezable water (W itself, not exp(log W): the ion
+    // molalities then equal those of the freezing-point solve bit for bit, and the
+    // evaluator's molality-only terms are reused, models/detail/pitzer_system.hpp).
     const salt_phase* ph = nullptr;
-    if (max_saturation(fp.temperature, probe, &ph) > 0.0) {
+    n_liq_ = n0_;
+    if (max_saturation_in(fp.temperature, W_, &ph) > 0.0) {
       end_ = curve_end::saturated_before_ice;
       end_temperature_ = fp.temperature;
       saturated_phase_ = ph;
@@ -451,7 +453,11 @@ class ice_curve {
   const candidate& candidate_of(std::size_t onset) const { return candidates_[onset_candidate_[onset]]; }
 
   double saturation_index(const candidate& c, double T, double ln_aw) const {
-    double si = c.phase->water * ln_aw - c.phase->ln_k(T, c.shift);
+    return saturation_index(c, T, std::log10(T), ln_aw);
+  }
+  /// The same with log10(T) given (one logarithm for all the phases tested at T).
+  double saturation_index(const candidate& c, double T, double log10_t, double ln_aw) const {
+    double si = c.phase->water * ln_aw - c.phase->ln_k(T, log10_t, c.shift);
     for (const auto& [k, count] : c.slots) si += count * ln_act_[k];
     return si;
   }
@@ -467,11 +473,16 @@ class ice_curve {
   /// (whose xi are already applied to n_liq_ by the caller when relevant).
   double max_saturation(double T, const liquid_state& st, const salt_phase** which) {
     if (st.xi.empty()) n_liq_ = n0_;
-    const double ln_aw = evaluate_liquid(std::exp(st.u), T);
+    return max_saturation_in(T, std::exp(st.u), which);
+  }
+  /// The same for the liquid n_liq_ in `water_kg` of water.
+  double max_saturation_in(double T, double water_kg, const salt_phase** which) {
+    const double ln_aw = evaluate_liquid(water_kg, T);
+    const double log10_t = std::log10(T);
     double best = -std::numeric_limits<double>::infinity();
     for (std::size_t c = 0; c < candidates_.size(); ++c) {
       if (on_path(c)) continue;
-      const double si = saturation_index(candidates_[c], T, ln_aw);
+      const double si = saturation_index(candidates_[c], T, log10_t, ln_aw);
       if (si > best) {
         best = si;
         if (which) *which = candidates_[c].phase;

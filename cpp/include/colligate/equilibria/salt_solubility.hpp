@@ -43,9 +43,14 @@ struct salt_phase {
   /// ln K(T) with a parameter set's shift of this phase added to A1..A6 (nullptr: none;
   /// data::pitzer_parameter_set::find_solubility_shift(formula) gives it).
   double ln_k(double T, const std::array<double, 6>* shift) const {
+    return ln_k(T, std::log10(T), shift);
+  }
+  /// The same with log10(T) given (`log10_t`): a test of many phases at one temperature
+  /// takes the logarithm once.
+  double ln_k(double T, double log10_t, const std::array<double, 6>* shift) const {
     double sum = 0.0;
     const auto add = [&](const std::array<double, 6>& a) {
-      sum += a[0] + a[1] * T + a[2] / T + a[3] * std::log10(T) + a[4] / (T * T) + a[5] * T * T;
+      sum += a[0] + a[1] * T + a[2] / T + a[3] * log10_t + a[4] / (T * T) + a[5] * T * T;
     };
     add(log10_k);
     if (shift != nullptr) add(*shift);

@@ -68,6 +68,15 @@ class activity_evaluator {
                                                         double& /*ln_aw*/, double& /*slope*/) {
     return false;
   }
+  /// ln a_w and d ln a_w / dT (1/K) at fixed amounts for a solver that evaluates one
+  /// composition at several temperatures (the freezing point): equal to
+  /// ln_water_activity_with_temperature_slope() within rounding, not necessarily bit for
+  /// bit (Pitzer regroups its sums per composition, pitzer_system::
+  /// ln_water_activity_along_temperature). By default that function itself.
+  virtual bool ln_water_activity_along_temperature(double water_kg, double temperature,
+                                                   double& ln_aw, double& slope) {
+    return ln_water_activity_with_temperature_slope(water_kg, temperature, ln_aw, slope);
+  }
   /// The water mass W_u (kg) at which ln a_w of the prepared solution equals `target`
   /// (< 0) at T, solved by the model in closed form (no general root finder), searched
   /// below `water_kg`, where ln a_w must lie above `target`: the unfrozen water of the ice

@@ -101,6 +101,18 @@ class ross_system {
     if (has_non_electrolytes()) out += ln_non_electrolytes(moles, water_kg);
     return out;
   }
+  /// The same with the Pitzer part regrouped per composition
+  /// (pitzer_system::ln_water_activity_along_temperature): equal within rounding.
+  double ln_water_activity_along_temperature(const double* moles, double water_kg,
+                                             double temperature, double& slope) {
+    double out = 0.0;
+    slope = 0.0;
+    if (has_electrolytes())
+      out += electrolytes_->ln_water_activity_along_temperature(moles, water_kg, temperature,
+                                                                slope);
+    if (has_non_electrolytes()) out += ln_non_electrolytes(moles, water_kg);
+    return out;
+  }
 
  private:
   std::optional<pitzer_system> electrolytes_;
@@ -281,6 +293,13 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
     if (!system_.has_temperature_slope()) return false;
     ln_aw = system_.ln_water_activity_with_temperature_slope(s_->moles().data(), water_kg,
                                                              temperature, slope);
+    return true;
+  }
+  bool ln_water_activity_along_temperature(double water_kg, double temperature, double& ln_aw,
+                                           double& slope) override {
+    if (!system_.has_temperature_slope()) return false;
+    ln_aw = system_.ln_water_activity_along_temperature(s_->moles().data(), water_kg, temperature,
+                                                        slope);
     return true;
   }
   validity check(double water_kg, double temperature) override {

@@ -436,6 +436,13 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
                                                              temperature, slope);
     return true;
   }
+  bool ln_water_activity_along_temperature(double water_kg, double temperature, double& ln_aw,
+                                           double& slope) override {
+    if (!system_.has_temperature_slope()) return false;
+    ln_aw = system_.ln_water_activity_along_temperature(s_->moles().data(), water_kg, temperature,
+                                                        slope);
+    return true;
+  }
   validity check(double water_kg, double temperature) override {
     return pitzer::check(*s_, water_kg, temperature, *set_, pitzer::species_checked::all,
                          &memo_);

@@ -63,8 +63,8 @@ namespace detail {
 
 // dA_phi/dT: debye_huckel_osmotic_slope_derivative(T, correlation) of pitzer_kernel.hpp.
 
-/// d^2 J / dx^2 of mixing_j (pitzer_kernel.hpp, which differentiates its Chebyshev
-/// recurrence twice); 0 at x <= 0.
+/// d^2 J / dx^2 of mixing_j (pitzer_kernel.hpp, the second derivative of its power series
+/// in z); 0 at x <= 0.
 inline double mixing_j_second_derivative(double x) {
   if (!(x > 0.0)) return 0.0;
   double J = 0.0, dJ = 0.0, d2J = 0.0;

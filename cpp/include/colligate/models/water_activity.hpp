@@ -46,6 +46,12 @@ class ln_water_activity_evaluator {
   bool with_temperature_slope(double water_kg, double temperature, double& ln_aw, double& slope) {
     return impl_->ln_water_activity_with_temperature_slope(water_kg, temperature, ln_aw, slope);
   }
+  /// ln a_w and d ln a_w / dT at fixed amounts for a scan over temperature (the
+  /// freezing point), equal to with_temperature_slope() within rounding; false for a model
+  /// without a closed-form slope (activity_evaluator::ln_water_activity_along_temperature).
+  bool along_temperature(double water_kg, double temperature, double& ln_aw, double& slope) {
+    return impl_->ln_water_activity_along_temperature(water_kg, temperature, ln_aw, slope);
+  }
   /// The water mass at which ln a_w equals `target`, below `water_kg`, in closed form;
   /// false for a model without it (activity_evaluator::water_for_ln_activity).
   bool water_for_ln_activity(double water_kg, double temperature, double target,

@@ -168,13 +168,41 @@ inline constexpr std::array<double, 21> harvie_j_high = {
     0.000000000237816};
 
 namespace mixing_j_detail {
-/// One evaluation of the Chebyshev sum of J at x > 0: the variable z(x) of its piece, z'
-/// and the coefficients; b is the Clenshaw recurrence, d its z derivative, e its second.
+/// The Chebyshev sum of Table B-1 in the variable z of its piece as a power series,
+/// S(z) = sum_n c_n z^n, with J = x/4 - 1 + S(z). Harvie's sum is the Clenshaw recurrence
+/// b_k = a_k + z b_(k+1) - b_(k+2), S = (b_0 - b_2) / 2, whose basis is C_0 = 2, C_1 = z,
+/// C_(k+1) = z C_k - C_(k-1) (C_k(z) = 2 T_k(z/2), integer coefficients): S = sum_k a_k C_k / 2
+/// - a_0 / 2. The same polynomial of degree 20, so the same J up to rounding (a few units
+/// in the last place: sum_n |c_n| 2^n is 1.2 on the lower piece, 4.1 on the upper, against
+/// |S| of about 1; tests/cpp/models/test_pitzer_temperature_slope.cpp compares the two).
+/// d and e are the coefficients of S' and S'' (padded with zeros to degree 20), so one
+/// Horner loop gives S, S' and S'' on three independent chains.
+struct power_series {
+  std::array<double, 21> c{}, d{}, e{};
+};
+constexpr power_series to_power_series(const std::array<double, 21>& a) {
+  double C[21][21] = {};  // C[k][n]: coefficient of z^n in C_k(z)
+  C[0][0] = 2.0;
+  C[1][1] = 1.0;
+  for (int k = 1; k < 20; ++k)
+    for (int n = 0; n < 21; ++n) C[k + 1][n] = (n > 0 ? C[k][n - 1] : 0.0) - C[k - 1][n];
+  power_series p;
+  for (int k = 0; k < 21; ++k)
+    for (int n = 0; n < 21; ++n) p.c[n] += a[k] * C[k][n] / 2.0;
+  p.c[0] -= a[0] / 2.0;
+  for (int n = 0; n < 20; ++n) p.d[n] = (n + 1) * p.c[n + 1];
+  for (int n = 0; n < 19; ++n) p.e[n] = (n + 2) * (n + 1) * p.c[n + 2];
+  return p;
+}
+inline constexpr power_series j_low_series = to_power_series(harvie_j_low);
+inline constexpr power_series j_high_series = to_power_series(harvie_j_high);
+
+/// One argument x > 0 of J: its piece, z(x), z'(x), and S, S', S'' on Horner chains.
 struct chain {
-  const double* ak = nullptr;
+  const power_series* p = nullptr;
   bool low = false;
   double x = 0, z = 0, dz = 0;
-  double b0 = 0, b1 = 0, b2 = 0, d0 = 0, d1 = 0, d2 = 0, e0 = 0, e1 = 0, e2 = 0;
+  double s = 0, ds = 0, d2s = 0;
   explicit chain(double x_) : x(x_) {
     low = x < 1.0;
     // One power per call: x^-0.8 = x^0.2 / x and x^-1.1 = x^-0.1 / x.
@@ -186,48 +214,43 @@ struct chain {
     set(low ? p02 : 1.0 / std::sqrt(p02));
   }
   void set(double px) {
-    ak = low ? harvie_j_low.data() : harvie_j_high.data();
+    p = low ? &j_low_series : &j_high_series;
     z = low ? 4.0 * px - 2.0 : 40.0 / 9.0 * px - 22.0 / 9.0;
     dz = low ? 0.8 * px / x : -4.0 / 9.0 * px / x;
+    s = p->c[20];
+    ds = p->d[20];
+    d2s = p->e[20];
   }
   template <bool Second>
-  void step(int k) {
-    b2 = b1;
-    b1 = b0;
-    d2 = d1;
-    d1 = d0;
-    b0 = z * b1 - b2 + ak[k];
-    d0 = b1 + z * d1 - d2;
-    if constexpr (Second) {
-      e2 = e1;
-      e1 = e0;
-      e0 = 2.0 * d1 + z * e1 - e2;
-    }
+  void step(int n) {
+    s = s * z + p->c[n];
+    ds = ds * z + p->d[n];
+    if constexpr (Second) d2s = d2s * z + p->e[n];
   }
   template <bool Second>
   void finish(double& J, double& dJ, double* d2J) const {
     if constexpr (Second) {
       // z'' = -0.8 z' / x (low), -1.1 z' / x (high).
       const double d2z = (low ? -0.8 : -1.1) * dz / x;
-      *d2J = 0.5 * (dz * dz * (e0 - e2) + d2z * (d0 - d2));
+      *d2J = dz * dz * d2s + d2z * ds;
     }
-    J = 0.25 * x - 1.0 + 0.5 * (b0 - b2);
-    dJ = 0.25 + 0.5 * dz * (d0 - d2);
+    J = 0.25 * x - 1.0 + s;
+    dJ = 0.25 + dz * ds;
   }
 };
 template <bool Second>
 inline void j1(double x, double& J, double& dJ, double* d2J) {
   chain c(x);
-  for (int k = 20; k >= 0; --k) c.step<Second>(k);
+  for (int n = 19; n >= 0; --n) c.step<Second>(n);
   c.finish<Second>(J, dJ, d2J);
 }
 template <bool Second>
 inline void j3(const double* x, double* J, double* dJ, double* d2J) {
   chain p(x[0]), q(x[1]), r(x[2]);
-  for (int k = 20; k >= 0; --k) {
-    p.step<Second>(k);
-    q.step<Second>(k);
-    r.step<Second>(k);
+  for (int n = 19; n >= 0; --n) {
+    p.step<Second>(n);
+    q.step<Second>(n);
+    r.step<Second>(n);
   }
   p.finish<Second>(J[0], dJ[0], Second ? &d2J[0] : nullptr);
   q.finish<Second>(J[1], dJ[1], Second ? &d2J[1] : nullptr);
@@ -240,10 +263,10 @@ inline void j124(double x, double* J, double* dJ, double* d2J) {
   constexpr double four_02 = 1.3195079107728942;  // 4^0.2
   const double p = std::pow(x, 0.2);
   chain a(x, p), b(2.0 * x, two_02 * p), c(4.0 * x, four_02 * p);
-  for (int k = 20; k >= 0; --k) {
-    a.step<Second>(k);
-    b.step<Second>(k);
-    c.step<Second>(k);
+  for (int n = 19; n >= 0; --n) {
+    a.step<Second>(n);
+    b.step<Second>(n);
+    c.step<Second>(n);
   }
   a.finish<Second>(J[0], dJ[0], Second ? &d2J[0] : nullptr);
   b.finish<Second>(J[1], dJ[1], Second ? &d2J[1] : nullptr);
@@ -252,9 +275,10 @@ inline void j124(double x, double* J, double* dJ, double* d2J) {
 }  // namespace mixing_j_detail
 
 /// J(x), dJ/dx and, when `d2J` is not null, d2J/dx2 of the unsymmetrical mixing theory
-/// (Harvie 1981 as given by Pitzer 1991, eqs. B-21 to B-30, Table B-1). J(0) = 0. The
-/// second derivative (for the temperature slope of E-theta) differentiates the same
-/// recurrence once more; J and dJ are the same arithmetic with or without it.
+/// (Harvie 1981 as given by Pitzer 1991, eqs. B-21 to B-30, Table B-1), J(0) = 0: the
+/// Chebyshev sum of the table as its power series in z (mixing_j_detail::power_series),
+/// evaluated by Horner's rule with its first and second derivatives on chains of their own.
+/// J and dJ are the same arithmetic with or without the second derivative.
 inline void mixing_j(double x, double& J, double& dJ, double* d2J = nullptr) {
   if (!(x > 0.0)) {
     J = 0.0;
@@ -269,9 +293,9 @@ inline void mixing_j(double x, double& J, double& dJ, double* d2J = nullptr) {
 }
 
 /// mixing_j at the three arguments x[0..2] at once (the charge products 1, 2 and 4 that
-/// every unsymmetrical pair of ions of charges 1 and 2 needs): the same recurrence per
-/// argument as mixing_j, run as three independent chains in one loop so that they overlap
-/// in the processor instead of waiting on each other.
+/// every unsymmetrical pair of ions of charges 1 and 2 needs): the same Horner chains per
+/// argument as mixing_j, run in one loop so that they overlap in the processor instead of
+/// waiting on each other.
 inline void mixing_j3(const double* x, double* J, double* dJ, double* d2J = nullptr) {
   if (!(x[0] > 0.0 && x[1] > 0.0 && x[2] > 0.0)) {
     for (int c = 0; c < 3; ++c) mixing_j(x[c], J[c], dJ[c], d2J ? &d2J[c] : nullptr);

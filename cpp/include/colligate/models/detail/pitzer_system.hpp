@@ -26,14 +26,18 @@
 ///
 /// Work done once per temperature: A_phi(T) and the parameters P(T) of the pairs and
 /// triplets present, as dot products with the basis of the analytic form
-/// (data::t_function), one logarithm in all. Work done once per evaluation: one
-/// exponential per distinct alpha (2, 1.4, 12) and one J(x) per distinct charge product
-/// (1, 2, 4) of the unsymmetrical mixing terms (the three J at once, on interleaved
-/// recurrences and from one power, when ions of charges 1 and 2 are mixed). The temperature
-/// slope of ln a_w (ln_water_activity_with_temperature_slope, for the freezing-point
-/// Newton) adds the slopes
-/// of A_phi and of the same parameters, once per temperature, and J''(x) on the same
-/// recurrences.
+/// (data::t_function), one loop over a table of the rows (by column) that the compiler
+/// vectorises, one logarithm in all. Work done once per composition (the last molalities
+/// are kept, composition_terms): ionic strength, one exponential per distinct alpha (2,
+/// 1.4, 12) and, for ln gamma, g and g'. Work done once per evaluation: one J(x) per
+/// distinct charge product (1, 2, 4) of the unsymmetrical mixing terms (the three J at
+/// once, from one power, when ions of charges 1 and 2 are mixed). The temperature slope of
+/// ln a_w (ln_water_activity_with_temperature_slope) adds the slopes of A_phi and of the
+/// same parameters, once per temperature, and J''(x). A solver that evaluates one
+/// composition at several temperatures (the freezing point) takes
+/// ln_water_activity_along_temperature, which forms the parameter part of the osmotic sum
+/// once per composition as six sums over the rows (so a temperature costs the basis, A_phi
+/// and J).
 ///
 /// The object caches the coefficients of the last three temperatures evaluated (and their
 /// slopes of the last two): a freezing-point solve evaluates the ice point and then the
@@ -41,12 +45,15 @@
 /// batch finds the ice point's coefficients still there. It is therefore not
 /// meant to be shared between threads: each solve or batch thread owns its own.
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
+#include <cstring>
 #include <limits>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "colligate/core/errors.hpp"
@@ -131,6 +138,10 @@ class pitzer_system {
   static constexpr std::size_t max_pairs = n_ions * n_ions / 4 + 1;
   static constexpr std::size_t max_like = n_ions * (n_ions - 1) / 2;
   static constexpr std::size_t max_triplets = max_like * n_ions;
+  /// Pair rows (beta0, beta1, beta2, C-phi), theta and psi rows: ln_water_activity_along_temperature.
+  static constexpr std::size_t max_linear_rows = 4 * max_pairs + max_like + max_triplets;
+  /// Distinct charge pairs of like ions of unequal charge.
+  static constexpr std::size_t max_unequal = max_like;
 
   /// Prepares the model for the species of `s` (their amounts are read at evaluation).
   /// Salts carrying their own parameters (solute_record::pitzer) replace the set's row for
@@ -195,16 +206,19 @@ class pitzer_system {
   /// Ion molalities `m` (mol/kg, one per slot) and ideal particles `other` (mol/kg:
   /// non-electrolytes and ions the tables do not know) for `moles` (one per species of
   /// the solution it was prepared for) in `water_kg` of water.
+  /// The amounts of each ion are summed first and divided by the water once, so the ion
+  /// amounts of ion_moles-style callers (moles per slot in 1 kg, then divided by the water)
+  /// give the same molalities bit for bit.
   void molalities(const double* moles, double water_kg, double* m, double& other) const {
     for (std::size_t k = 0; k < n_; ++k) m[k] = 0.0;
     other = 0.0;
     for (const auto& t : terms_) {
-      const double mi = moles[t.species] / water_kg;
       if (t.slot < n_)
-        m[t.slot] += t.count * mi;
+        m[t.slot] += t.count * moles[t.species];
       else
-        other += t.count * mi;
+        other += t.count * (moles[t.species] / water_kg);
     }
+    for (std::size_t k = 0; k < n_; ++k) m[k] /= water_kg;
   }
 
   /// The osmotic sums on ion molalities `m_slots` (mol/kg, one per slot) at temperature
@@ -270,6 +284,65 @@ class pitzer_system {
     return -constants::molar_mass_water * (r.total_molality + r.osmotic_excess + r.other_particles);
   }
 
+  /// ln a_w and d ln a_w / dT (1/K) at fixed amounts, for a solver that evaluates one
+  /// composition at several temperatures (the freezing-point Newton). The parameter part of
+  /// the osmotic sum is linear in the parameters, each linear in the basis of the analytic
+  /// form, so at fixed molalities it is one dot product with that basis:
+  ///     sum_r w_r P_r(T) = sum_k (sum_r w_r a_rk) v_k(T),
+  /// w_r the molality weights of pair, theta and psi rows (m_c m_a, m_c m_a e^(-alpha sqrt I),
+  /// m_c m_a Z / (2 sqrt|z_c z_a|), m_i m_j, m_i m_j m_k). The six sums over r are formed once
+  /// per composition (kept with the other molality-only terms: ionic strength, the
+  /// exponentials), so a further temperature costs the basis, A_phi and E-theta (J(x) at
+  /// x = 6 z z' A_phi sqrt I, with J' and J'' for the slope). Equal to
+  /// ln_water_activity_with_temperature_slope() within rounding (the sums are regrouped, so
+  /// not bit for bit; tests/cpp/models/test_pitzer_temperature_slope.cpp). Requires
+  /// has_temperature_slope(); otherwise throws invalid_input.
+  double ln_water_activity_along_temperature(const double* moles, double water_kg, double T,
+                                             double& slope) {
+    if (has_extended_)
+      throw invalid_input(
+          "pitzer_system: no temperature slope for pair rows in the extended form (Archer 1992)");
+    ion_array m{};
+    double other = 0.0;
+    molalities(moles, water_kg, m.data(), other);
+    composition_terms& q = composition_for(m.data());
+    double bracket = 0.0, d_bracket = 0.0;
+    if (q.I > 0.0) {
+      linear_sums(q);
+      const temperature_terms& t = temperature_terms_at(T);
+      const double dh = q.I * q.sI / (1.0 + pitzer_b * q.sI);
+      bracket = -t.aphi * dh + (q.c[0] + q.c[1] * t.v[1] + q.c[2] * t.v[2] + q.c[3] * t.v[3] +
+                                q.c[4] * t.v[4] + q.c[5] * t.v[5]);
+      d_bracket = -t.daphi * dh + (q.c[1] * t.dv[1] + q.c[2] * t.dv[2] + q.c[3] * t.dv[3] +
+                                   q.c[4] * t.dv[4] + q.c[5] * t.dv[5]);
+      if (has_unsymmetrical_) {
+        // E-theta + I E-theta' of the like pairs of unequal charge, and its T slope (file
+        // comment of ln_water_activity_with_temperature_slope).
+        j_values j;
+        const double s6 = 6.0 * t.aphi * q.sI;
+        fill_j<true>(s6, j);
+        const double scale = t.daphi / t.aphi;
+        for (std::size_t u = 0; u < n_unequal_; ++u) {
+          const double mm = q.mm_unequal[u];
+          if (mm == 0.0) continue;
+          const int zi = unequal_charges_[u].first, zj = unequal_charges_[u].second;
+          const int ij = zi * zj, ii = zi * zi, jj = zj * zj;
+          ensure_j<true>(s6, ij, j);
+          ensure_j<true>(s6, ii, j);
+          ensure_j<true>(s6, jj, j);
+          double et = 0.0, etp = 0.0;
+          e_theta(static_cast<double>(ij), q.I, j.J[ij], j.J[ii], j.J[jj], j.x[ij] * j.dJ[ij],
+                  j.x[ii] * j.dJ[ii], j.x[jj] * j.dJ[jj], et, etp);
+          bracket += mm * (et + q.I * etp);
+          d_bracket += mm * ij / (8.0 * q.I) *
+                       (j.dxdJ_dT(ij, scale) - 0.5 * j.dxdJ_dT(ii, scale) - 0.5 * j.dxdJ_dT(jj, scale));
+        }
+      }
+    }
+    slope = -constants::molar_mass_water * (2.0 * d_bracket);
+    return -constants::molar_mass_water * (q.mt + 2.0 * bracket + other);
+  }
+
  private:
   struct term {
     std::size_t species;
@@ -283,6 +356,8 @@ class pitzer_system {
     bool two_two;
     double c_scale;  ///< 2 sqrt|z_c z_a|
     const data::extended_binary* ext;  ///< extended form (C1, omega), else nullptr
+    std::size_t p0 = 0;     ///< index of beta0 in coefficients::P (beta1, beta2 follow)
+    std::size_t c_off = 0;  ///< C (C0, then C1 for the extended form) at P[p0 + c_off]
   };
   struct like_row {
     std::size_t i, j;
@@ -290,6 +365,9 @@ class pitzer_system {
     data::t_function theta;
     bool has_theta;
     std::size_t psi_begin, psi_end;  ///< into triplets_
+    std::size_t unequal;  ///< zi != zj: its entry of unequal_charges_
+    std::size_t p0 = 0;      ///< index of theta in coefficients::P (has_theta)
+    std::size_t psi_p0 = 0;  ///< index of the psi of triplet psi_begin (the others follow)
   };
   struct triplet_row {
     std::size_t k;
@@ -298,9 +376,10 @@ class pitzer_system {
   struct coefficients {
     double temperature = std::numeric_limits<double>::quiet_NaN();
     double aphi = 0.0;
-    std::array<double, max_pairs> beta0{}, beta1{}, beta2{}, c{}, c1{};
-    std::array<double, max_like> theta{};
-    std::array<double, max_triplets> psi{};
+    /// Every parameter at T by its index (pair_row::p0, like_row::p0 and psi_p0): the rows
+    /// in the analytic form first (C-phi already divided by 2 sqrt|z_c z_a|), then per pair
+    /// in the extended form beta0, beta1, C0, C1. Entries not used are left unset.
+    std::array<double, max_linear_rows + 4 * max_pairs> P;
   };
   /// d/dT of the coefficients (pairs in the analytic form only), at `temperature`.
   struct coefficient_slopes {
@@ -310,6 +389,169 @@ class pitzer_system {
     std::array<double, max_like> theta{};
     std::array<double, max_triplets> psi{};
   };
+
+  /// The parts of the sums that depend on the molalities alone, for the last molalities
+  /// seen (compared bit for bit): a freezing-point row evaluates one composition at several
+  /// temperatures and its ion activities at the result. Every value is the one the sums
+  /// would compute afresh, so the cache never changes a result.
+  struct composition_terms {
+    bool valid = false;
+    ion_array m{};  ///< the key
+    double I = 0.0, Z = 0.0, mt = 0.0, sI = 0.0;
+    double e2 = 0.0, e14 = 0.0, e12 = 0.0;  ///< exp(-alpha sqrt I), alpha = 2, 1.4, 12
+    bool has_g = false;  ///< g, g' and the Debye-Hueckel part of F below are filled
+    double g2 = 0.0, g14 = 0.0, g12 = 0.0, gp2 = 0.0, gp14 = 0.0, gp12 = 0.0;
+    double f_dh = 0.0;  ///< sqrt I / (1 + b sqrt I) + (2/b) ln(1 + b sqrt I)
+    bool has_linear = false;  ///< c and mm_unequal below are filled
+    std::array<double, 6> c{};  ///< sum_r w_r a_rk (ln_water_activity_along_temperature)
+    /// sum of m_i m_j over the like pairs of unequal charge, per entry of unequal_charges_
+    std::array<double, max_unequal> mm_unequal{};
+  };
+  /// The basis of the analytic form, its slope and A_phi with its slope at one temperature.
+  struct temperature_terms {
+    double temperature = std::numeric_limits<double>::quiet_NaN();
+    std::array<double, 6> v{}, dv{};
+    double aphi = 0.0, daphi = 0.0;
+  };
+  /// J(x), J'(x) (and J''(x)) at x = zz s6 for the charge products zz = 1, 2, 4 (index zz).
+  struct j_values {
+    std::array<double, 5> J{}, dJ{}, x{}, d2J{};
+    std::array<bool, 5> have{};
+    /// d(x J'(x))/dT = (x J' + x^2 J'') (dA_phi/dT) / A_phi, x proportional to A_phi;
+    /// `scale` = (dA_phi/dT) / A_phi.
+    double dxdJ_dT(int zz, double scale) const {
+      return (x[zz] * dJ[zz] + x[zz] * x[zz] * d2J[zz]) * scale;
+    }
+  };
+
+  /// J at the charge products 1, 2 and 4 at once when ions of charges 1 and 2 are mixed
+  /// (one power for the three arguments, mixing_j124); nothing otherwise (ensure_j fills
+  /// what a like pair needs).
+  template <bool Second>
+  void fill_j(double s6, j_values& j) const {
+    if (!has_unsymmetrical_) return;
+    double Js[3], dJs[3], d2Js[3];
+    mixing_j124(s6, Js, dJs, Second ? d2Js : nullptr);
+    for (int c = 0; c < 3; ++c) {
+      const int zz = 1 << c;
+      j.x[zz] = s6 * zz;
+      j.J[zz] = Js[c];
+      j.dJ[zz] = dJs[c];
+      if constexpr (Second) j.d2J[zz] = d2Js[c];
+      j.have[zz] = true;
+    }
+  }
+  template <bool Second>
+  static void ensure_j(double s6, int zz, j_values& j) {
+    if (j.have[zz]) return;
+    j.x[zz] = s6 * zz;
+    mixing_j(j.x[zz], j.J[zz], j.dJ[zz], Second ? &j.d2J[zz] : nullptr);
+    j.have[zz] = true;
+  }
+
+  /// The molality-only terms of `m` (one per slot), from the cache when `m` is the last
+  /// composition seen.
+  composition_terms& composition_for(const double* m) {
+    composition_terms& q = comp_;
+    if (q.valid && std::memcmp(q.m.data(), m, n_ * sizeof(double)) == 0) return q;
+    q.valid = true;
+    q.has_g = false;
+    q.has_linear = false;
+    std::memcpy(q.m.data(), m, n_ * sizeof(double));
+    double I = 0.0, Z = 0.0, mt = 0.0;
+    for (std::size_t k = 0; k < n_; ++k) {
+      I += 0.5 * m[k] * z_[k] * z_[k];
+      Z += m[k] * std::abs(z_[k]);
+      mt += m[k];
+    }
+    q.I = I;
+    q.Z = Z;
+    q.mt = mt;
+    q.sI = q.e2 = q.e14 = q.e12 = 0.0;
+    if (!(I > 0.0)) return q;
+    const double sI = std::sqrt(I);
+    q.sI = sI;
+    q.e2 = need_alpha_2_ ? std::exp(-2.0 * sI) : 0.0;
+    q.e14 = need_alpha_14_ ? std::exp(-1.4 * sI) : 0.0;
+    q.e12 = need_alpha_12_ ? std::exp(-12.0 * sI) : 0.0;
+    return q;
+  }
+
+  /// g, g' and the Debye-Hueckel part of F of ln gamma (requires I > 0).
+  void gamma_terms(composition_terms& q) const {
+    if (q.has_g) return;
+    const double sI = q.sI;
+    q.f_dh = sI / (1.0 + pitzer_b * sI) + 2.0 / pitzer_b * std::log1p(pitzer_b * sI);
+    q.g2 = q.g14 = q.g12 = q.gp2 = q.gp14 = q.gp12 = 0.0;
+    if (need_alpha_2_) {
+      q.g2 = pitzer_g(2.0 * sI, q.e2);
+      q.gp2 = pitzer_gp(2.0 * sI, q.e2);
+    }
+    if (need_alpha_14_) {
+      q.g14 = pitzer_g(1.4 * sI, q.e14);
+      q.gp14 = pitzer_gp(1.4 * sI, q.e14);
+    }
+    if (need_alpha_12_) {
+      q.g12 = pitzer_g(12.0 * sI, q.e12);
+      q.gp12 = pitzer_gp(12.0 * sI, q.e12);
+    }
+    q.has_g = true;
+  }
+
+  /// The six sums c_k = sum_r w_r a_rk of ln_water_activity_along_temperature and the
+  /// sums of m_i m_j over the like pairs of unequal charge, per charge pair (requires I > 0
+  /// and no extended row). Each row's weight multiplies its six coefficients at once (six
+  /// independent sums, which the compiler vectorises), in the order of linear_rows_.
+  void linear_sums(composition_terms& q) const {
+    if (q.has_linear) return;
+    const double* m = q.m.data();
+    std::array<double, 6> c{};
+    std::size_t r = 0;
+    const auto add = [&c, this, &r](double w) {
+      const auto& a = linear_rows_[r++];
+      for (std::size_t k = 0; k < 6; ++k) c[k] += w * a[k];
+    };
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      const auto& row = pairs_[k];
+      const double mm = m[row.c] * m[row.a];
+      if (row.ext != nullptr) continue;  // not reached: no temperature slope with them
+      add(mm);
+      add(mm * (row.alpha1 == 0 ? q.e2 : q.e14));
+      if (row.two_two) add(mm * q.e12);
+      add(mm * q.Z);  // the row holds C-phi / (2 sqrt|z_c z_a|)
+    }
+    q.mm_unequal = {};
+    for (std::size_t k = 0; k < n_like_; ++k) {
+      const auto& L = like_[k];
+      const double mm = m[L.i] * m[L.j];
+      if (L.has_theta) add(mm);
+      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) add(mm * m[triplets_[t].k]);
+      if (L.zi != L.zj) q.mm_unequal[L.unequal] += mm;
+    }
+    q.c = c;
+    q.has_linear = true;
+  }
+
+  /// The basis, its slope and A_phi with its slope at T, from a two-slot cache (the ice
+  /// point, which every freezing-point row evaluates first, stays in one slot).
+  const temperature_terms& temperature_terms_at(double T) {
+    if (tt_[0].temperature == T) {
+      tt_last_ = 0;
+      return tt_[0];
+    }
+    if (tt_[1].temperature == T) {
+      tt_last_ = 1;
+      return tt_[1];
+    }
+    tt_last_ ^= 1;
+    temperature_terms& t = tt_[tt_last_];
+    t.temperature = T;
+    t.v = t_basis(T).v;
+    t.dv = t_basis_slope(T).dv;
+    t.aphi = debye_huckel_osmotic_slope(T, aphi_);
+    t.daphi = debye_huckel_osmotic_slope_derivative(T, aphi_);
+    return t;
+  }
 
   void build(const solution& s, const indexed_parameter_rows& set) {
     // Ions present, in the fixed order of data::pitzer_ions (cations, then anions).
@@ -363,7 +605,7 @@ class pitzer_system {
     for (std::size_t i = 0; i < n_; ++i) {
       for (std::size_t j = i + 1; j < n_; ++j) {
         if ((z_[i] > 0) != (z_[j] > 0)) continue;
-        like_row L{i, j, std::abs(z_[i]), std::abs(z_[j]), {}, false, n_triplets_, n_triplets_};
+        like_row L{i, j, std::abs(z_[i]), std::abs(z_[j]), {}, false, n_triplets_, n_triplets_, 0};
         for (const auto& t : set.thetas) {
           const auto p = slot(t.i), q = slot(t.j);
           if ((p == i && q == j) || (p == j && q == i)) {
@@ -381,11 +623,56 @@ class pitzer_system {
           if (found) triplets_[n_triplets_++] = {k, *found};
         }
         L.psi_end = n_triplets_;
-        if (L.zi != L.zj) has_unsymmetrical_ = true;
+        if (L.zi != L.zj) {
+          has_unsymmetrical_ = true;
+          // The charge pairs of unequal charge (|z| of 1 and 2 with the ions known: one).
+          const std::pair<int, int> zz{std::min(L.zi, L.zj), std::max(L.zi, L.zj)};
+          std::size_t u = 0;
+          while (u < n_unequal_ && unequal_charges_[u] != zz) ++u;
+          if (u == n_unequal_) unequal_charges_[n_unequal_++] = zz;
+          L.unequal = u;
+        }
         like_[n_like_++] = L;
       }
     }
     aphi_ = set.aphi;
+    // The rows of the analytic form (pairs not in the extended form, theta, psi) in the
+    // order at() and linear_sums() read them, by row and by column.
+    // C-phi enters as C = C-phi / (2 sqrt|z_c z_a|): its row is divided once here (exact
+    // for 1:1 and 2:2 pairs, whose divisor is 2 or 4).
+    const auto put = [this](const data::t_function& f, double divisor) {
+      for (std::size_t k = 0; k < 6; ++k) {
+        linear_rows_[n_linear_][k] = f.a[k] / divisor;
+        linear_cols_[k][n_linear_] = f.a[k] / divisor;
+      }
+      ++n_linear_;
+    };
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      auto& row = pairs_[k];
+      if (row.ext != nullptr) continue;
+      row.p0 = n_linear_;
+      put(row.beta0, 1.0);
+      put(row.beta1, 1.0);
+      if (row.two_two) put(row.beta2, 1.0);
+      row.c_off = n_linear_ - row.p0;
+      put(row.cphi, row.c_scale);
+    }
+    for (std::size_t k = 0; k < n_like_; ++k) {
+      auto& L = like_[k];
+      L.p0 = n_linear_;
+      if (L.has_theta) put(L.theta, 1.0);
+      L.psi_p0 = n_linear_;
+      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) put(triplets_[t].psi, 1.0);
+    }
+    // The pairs in the extended form: four values each after the rows above.
+    std::size_t next = n_linear_;
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      auto& row = pairs_[k];
+      if (row.ext == nullptr) continue;
+      row.p0 = next;
+      row.c_off = 2;
+      next += 4;
+    }
   }
 
   /// The coefficients at T from the cache of the last temperatures used (on a miss the
@@ -405,25 +692,21 @@ class pitzer_system {
     const t_basis basis(T);
     c.temperature = T;
     c.aphi = debye_huckel_osmotic_slope(T, aphi_);
+    // Every row in the analytic form at once, with the arithmetic of t_basis::operator()
+    // row by row (a loop over the rows, which the compiler vectorises).
+    const auto& v = basis.v;
+    for (std::size_t r = 0; r < n_linear_; ++r)
+      c.P[r] = linear_cols_[0][r] + linear_cols_[1][r] * v[1] + linear_cols_[2][r] * v[2] +
+               linear_cols_[3][r] * v[3] + linear_cols_[4][r] * v[4] + linear_cols_[5][r] * v[5];
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& p = pairs_[k];
-      if (p.ext != nullptr) {
-        // Extended form (data::extended_binary): C0 is C already; beta2 unused.
-        c.beta0[k] = p.ext->beta0(T);
-        c.beta1[k] = p.ext->beta1(T);
-        c.beta2[k] = 0.0;
-        c.c[k] = p.ext->c0(T);
-        c.c1[k] = p.ext->c1(T);
-        continue;
-      }
-      c.beta0[k] = basis(p.beta0);
-      c.beta1[k] = basis(p.beta1);
-      c.beta2[k] = p.two_two ? basis(p.beta2) : 0.0;
-      c.c[k] = basis(p.cphi) / p.c_scale;
+      if (p.ext == nullptr) continue;
+      // Extended form (data::extended_binary): C0 is C already; beta2 unused.
+      c.P[p.p0] = p.ext->beta0(T);
+      c.P[p.p0 + 1] = p.ext->beta1(T);
+      c.P[p.p0 + 2] = p.ext->c0(T);
+      c.P[p.p0 + 3] = p.ext->c1(T);
     }
-    for (std::size_t k = 0; k < n_like_; ++k)
-      c.theta[k] = like_[k].has_theta ? basis(like_[k].theta) : 0.0;
-    for (std::size_t k = 0; k < n_triplets_; ++k) c.psi[k] = basis(triplets_[k].psi);
     return c;
   }
 
@@ -471,12 +754,8 @@ class pitzer_system {
   template <bool WithGamma, bool WithSlope = false>
   void sums(const double* m, double T, pitzer_osmotic_sums& r, double* lng,
             double* d_osm_out = nullptr) {
-    double I = 0.0, Z = 0.0, mt = 0.0;
-    for (std::size_t k = 0; k < n_; ++k) {
-      I += 0.5 * m[k] * z_[k] * z_[k];
-      Z += m[k] * std::abs(z_[k]);
-      mt += m[k];
-    }
+    composition_terms& q = composition_for(m);
+    const double I = q.I, Z = q.Z, mt = q.mt;
     r.ionic_strength = I;
     r.total_molality = mt;
     if constexpr (WithGamma)
@@ -484,7 +763,7 @@ class pitzer_system {
     if constexpr (WithSlope) *d_osm_out = 0.0;
     if (!(I > 0.0)) return;
     const auto& p = at(T);
-    const double sI = std::sqrt(I);
+    const double sI = q.sI;
     const double A = p.aphi;
     double osm = -A * I * sI / (1.0 + pitzer_b * sI);
     const coefficient_slopes* dp = nullptr;
@@ -494,27 +773,20 @@ class pitzer_system {
       d_osm = -dp->aphi * I * sI / (1.0 + pitzer_b * sI);
     }
     // exp(-alpha sqrt I) for alpha = 2 (1:1, 2:1 pairs), 1.4 and 12 (2:2 pairs).
-    const double e2 = need_alpha_2_ ? std::exp(-2.0 * sI) : 0.0;
-    const double e14 = need_alpha_14_ ? std::exp(-1.4 * sI) : 0.0;
-    const double e12 = need_alpha_12_ ? std::exp(-12.0 * sI) : 0.0;
+    const double e2 = q.e2, e14 = q.e14, e12 = q.e12;
     // ln gamma only: F without its pair sums, sum_c sum_a m_c m_a C^T, and g(x), g'(x)
     // at x = alpha sqrt I from the same exponentials.
     double F = 0.0, sum_mmC = 0.0;
     double g2 = 0.0, g14 = 0.0, g12 = 0.0, gp2 = 0.0, gp14 = 0.0, gp12 = 0.0;
     if constexpr (WithGamma) {
-      F = -A * (sI / (1.0 + pitzer_b * sI) + 2.0 / pitzer_b * std::log1p(pitzer_b * sI));
-      if (need_alpha_2_) {
-        g2 = pitzer_g(2.0 * sI, e2);
-        gp2 = pitzer_gp(2.0 * sI, e2);
-      }
-      if (need_alpha_14_) {
-        g14 = pitzer_g(1.4 * sI, e14);
-        gp14 = pitzer_gp(1.4 * sI, e14);
-      }
-      if (need_alpha_12_) {
-        g12 = pitzer_g(12.0 * sI, e12);
-        gp12 = pitzer_gp(12.0 * sI, e12);
-      }
+      gamma_terms(q);
+      F = -A * q.f_dh;
+      g2 = q.g2;
+      g14 = q.g14;
+      g12 = q.g12;
+      gp2 = q.gp2;
+      gp14 = q.gp14;
+      gp12 = q.gp12;
     }
     for (std::size_t k = 0; k < n_pairs_; ++k) {
       const auto& row = pairs_[k];
@@ -525,13 +797,17 @@ class pitzer_system {
       } else {
         if (mm == 0.0) continue;
       }
-      const bool beta2 = row.two_two && p.beta2[k] != 0.0;
-      double Bphi = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? e2 : e14);
-      if (beta2) Bphi += p.beta2[k] * e12;
+      // This pair's parameters at T (coefficients::P).
+      const double* P = p.P.data() + row.p0;
+      const double beta0 = P[0], beta1 = P[1], beta2v = row.two_two ? P[2] : 0.0;
+      const double C0 = P[row.c_off], C1 = row.ext != nullptr ? P[row.c_off + 1] : 0.0;
+      const bool beta2 = row.two_two && beta2v != 0.0;
+      double Bphi = beta0 + beta1 * (row.alpha1 == 0 ? e2 : e14);
+      if (beta2) Bphi += beta2v * e12;
       // C^T_phi = C0 + C1 exp(-omega sqrt I) for the extended form, else C.
-      const bool extended = row.ext != nullptr && p.c1[k] != 0.0;
+      const bool extended = row.ext != nullptr && C1 != 0.0;
       const double ew = extended ? std::exp(-(row.ext->omega * sI)) : 0.0;
-      const double CTphi = extended ? p.c[k] + p.c1[k] * ew : p.c[k];
+      const double CTphi = extended ? C0 + C1 * ew : C0;
       if (mm != 0.0) osm += mm * (Bphi + Z * CTphi);
       if constexpr (WithSlope) {
         double dBphi = dp->beta0[k] + dp->beta1[k] * (row.alpha1 == 0 ? e2 : e14);
@@ -539,20 +815,20 @@ class pitzer_system {
         d_osm += mm * (dBphi + Z * dp->c[k]);
       }
       if constexpr (WithGamma) {
-        double B = p.beta0[k] + p.beta1[k] * (row.alpha1 == 0 ? g2 : g14);
-        double Bp = p.beta1[k] * (row.alpha1 == 0 ? gp2 : gp14);
+        double B = beta0 + beta1 * (row.alpha1 == 0 ? g2 : g14);
+        double Bp = beta1 * (row.alpha1 == 0 ? gp2 : gp14);
         if (beta2) {
-          B += p.beta2[k] * g12;
-          Bp += p.beta2[k] * gp12;
+          B += beta2v * g12;
+          Bp += beta2v * gp12;
         }
         Bp /= I;
         // C^T = C0 + 4 C1 h(w) and dC^T/dI = 2 C1 (e^-w - 4 h(w)) / I, w = omega sqrt I
         // (C^T_phi = C^T + I dC^T/dI / 2 because 4 h + x h' = e^-x).
-        double CT = p.c[k], CTp = 0.0;
+        double CT = C0, CTp = 0.0;
         if (extended) {
           const double hw = pitzer_h(row.ext->omega * sI);
-          CT = p.c[k] + 4.0 * p.c1[k] * hw;
-          CTp = 2.0 * p.c1[k] * (ew - 4.0 * hw) / I;
+          CT = C0 + 4.0 * C1 * hw;
+          CTp = 2.0 * C1 * (ew - 4.0 * hw) / I;
         }
         if (mm != 0.0) {
           F += mm * (Bp + 0.5 * Z * CTp);
@@ -563,35 +839,17 @@ class pitzer_system {
         lng[row.a] += mc * w;
       }
     }
-    // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4.
-    std::array<double, 5> J{}, dJ{}, x{}, d2J{};
-    std::array<bool, 5> have{};
+    // J(x) and J'(x) at x = 6 z z' A_phi sqrt I for the charge products 1, 2 and 4
+    // (ions of charges 1 and 2 mixed: all three at once, fill_j).
+    j_values jv;
     const double s6 = 6.0 * A * sI;
-    const auto j_of = [&](int zz) {
-      if (!have[zz]) {
-        x[zz] = s6 * zz;
-        mixing_j(x[zz], J[zz], dJ[zz], WithSlope ? &d2J[zz] : nullptr);
-        have[zz] = true;
-      }
-    };
-    if (has_unsymmetrical_) {
-      // Ions of charges 1 and 2 mixed: J at the charge products 1, 2 and 4, all at once
-      // (one power for the three arguments, mixing_j124).
-      double Js[3], dJs[3], d2Js[3];
-      mixing_j124(s6, Js, dJs, WithSlope ? d2Js : nullptr);
-      for (int c = 0; c < 3; ++c) {
-        const int zz = 1 << c;
-        x[zz] = s6 * zz;
-        J[zz] = Js[c];
-        dJ[zz] = dJs[c];
-        if constexpr (WithSlope) d2J[zz] = d2Js[c];
-        have[zz] = true;
-      }
-    }
+    fill_j<WithSlope>(s6, jv);
+    const auto& J = jv.J;
+    const auto& dJ = jv.dJ;
+    const auto& x = jv.x;
+    const auto j_of = [&](int zz) { ensure_j<WithSlope>(s6, zz, jv); };
     // d(x J'(x))/dT = (x J' + x^2 J'') (dA_phi/dT) / A_phi, x proportional to A_phi.
-    const auto dxdJ_dT = [&](int zz) {
-      return (x[zz] * dJ[zz] + x[zz] * x[zz] * d2J[zz]) * (dp->aphi / A);
-    };
+    const auto dxdJ_dT = [&](int zz) { return jv.dxdJ_dT(zz, dp->aphi / A); };
     for (std::size_t k = 0; k < n_like_; ++k) {
       const auto& L = like_[k];
       const double mi = m[L.i], mj = m[L.j];
@@ -601,7 +859,9 @@ class pitzer_system {
       } else {
         if (mm == 0.0) continue;
       }
-      double phiphi = p.theta[k], et = 0.0, etp = 0.0;
+      const double theta = L.has_theta ? p.P[L.p0] : 0.0;
+      const double* psi = p.P.data() + L.psi_p0;  // psi[t - L.psi_begin]
+      double phiphi = theta, et = 0.0, etp = 0.0;
       double d_phiphi = 0.0;
       if constexpr (WithSlope) d_phiphi = dp->theta[k];
       if (L.zi != L.zj) {
@@ -612,12 +872,13 @@ class pitzer_system {
         j_of(jj);
         e_theta(static_cast<double>(ij), I, J[ij], J[ii], J[jj], x[ij] * dJ[ij], x[ii] * dJ[ii],
                 x[jj] * dJ[jj], et, etp);
-        phiphi = p.theta[k] + et + I * etp;
+        phiphi = theta + et + I * etp;
         if constexpr (WithSlope)  // E-theta + I E-theta' = zz / (8 I) [x J']_ij - ...
           d_phiphi += ij / (8.0 * I) * (dxdJ_dT(ij) - 0.5 * dxdJ_dT(ii) - 0.5 * dxdJ_dT(jj));
       }
       double psum = 0.0;
-      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) psum += m[triplets_[t].k] * p.psi[t];
+      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t)
+        psum += m[triplets_[t].k] * psi[t - L.psi_begin];
       if (mm != 0.0) osm += mm * (phiphi + psum);
       if constexpr (WithSlope) {
         double dpsum = 0.0;
@@ -630,9 +891,9 @@ class pitzer_system {
         if (mm != 0.0) {
           F += mm * etp;
           for (std::size_t t = L.psi_begin; t < L.psi_end; ++t)
-            lng[triplets_[t].k] += mm * p.psi[t];
+            lng[triplets_[t].k] += mm * psi[t - L.psi_begin];
         }
-        const double w = 2.0 * (p.theta[k] + et) + psum;
+        const double w = 2.0 * (theta + et) + psum;
         lng[L.i] += mj * w;
         lng[L.j] += mi * w;
       }
@@ -668,6 +929,18 @@ class pitzer_system {
   std::uint64_t coef_clock_ = 0;
   std::array<coefficient_slopes, 2> slopes_;  ///< the last two temperatures (NaN: empty)
   unsigned slopes_last_ = 0;  ///< slot used last
+  /// The analytic-form rows (a_0..a_5) of every pair (not in the extended form), theta and
+  /// psi parameter, in the order of at() and linear_sums(): by row and by column (entries
+  /// from n_linear_ on are never read, so they are left unset).
+  std::array<std::array<double, 6>, max_linear_rows> linear_rows_;
+  std::array<std::array<double, max_linear_rows>, 6> linear_cols_;
+  std::size_t n_linear_ = 0;
+  /// The distinct charge pairs (|z_i| < |z_j|) of the like pairs of unequal charge.
+  std::array<std::pair<int, int>, max_unequal> unequal_charges_{};
+  std::size_t n_unequal_ = 0;
+  composition_terms comp_;
+  std::array<temperature_terms, 2> tt_;
+  unsigned tt_last_ = 0;
 };
 
 }  // namespace colligate::models::detail
