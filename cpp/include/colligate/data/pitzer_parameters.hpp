@@ -480,6 +480,31 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
         b.note = "MgCl2 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
                  "held near Spencer et al. 1990)";
       }
+      if (b.cation == "K+" && b.anion == "SO4-2") {
+        // tools/fit_default_set.py (fit_sulfate): Harvie et al.'s (1984) 25 C values (= Pitzer &
+        // Mayorga 1973), Silvester & Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: 1.440e-3,
+        // 6.70e-3 /K, C 0), g1, g2 on beta0, beta1, C-phi held near Marion & Farren's (1999) row
+        // below 0 C (no freezing point fitted: every CRC K2SO4 row stays a check).
+        b.beta0 = tf(0.04995, 4514.948788, 0.2029, 0.2003029122, -0.0002495281919, -540.7);
+        b.beta1 = tf(0.7793, -24376.77206, 6.36874, -1.141084313, 0.001426993515, -16995.7);
+        b.cphi = tf(0, -479.6033553, 0.12817, -0.02041918294, 2.443230397e-05, -332);
+        b.source = "colligate_default_fit";
+        b.note = "K2SO4 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
+                 "held near Marion & Farren 1999)";
+      }
+      if (b.cation == "Mg+2" && b.anion == "SO4-2") {
+        // tools/fit_default_set.py (fit_sulfate): Harvie et al.'s (1984) 25 C values (= Pitzer &
+        // Mayorga 1974), Silvester & Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.690e-3,
+        // 1.530e-2, -0.253 /K and dC-phi/dT = 4 x 0.131e-3 /K), g1, g2 on every parameter fitted to
+        // alternate CRC freezing points (0.5-14 wt%).
+        b.beta0 = tf(0.221, 478.8116054, 6.08307, -0.03351734816, 2.785227521e-05, -15937.6);
+        b.beta1 = tf(3.343, 2639.738122, 34.29203, -0.1720850789, 0.0001597712945, -90018.9);
+        b.beta2 = tf(-37.23, 245008.2742, 1276.67549, -6.461795362, 0.007402742007, -3561447.4);
+        b.cphi = tf(0.025, -5.902531223, -0.43928, 0.00317332702, -1.9422307e-06, 1116.1);
+        b.source = "colligate_default_fit";
+        b.note = "MgSO4 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
+                 "fitted to CRC freezing points)";
+      }
     }
     // Antarcticite: the shift of ln IAP along Spencer et al.'s saturation curve with the new
     // CaCl2 activities (222-298.15 K, within 1e-4 in log10 K; tools/fit_default_set.py), so
