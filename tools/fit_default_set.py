@@ -177,8 +177,7 @@ def fit(salt: str):
 # (C-phi) per K, where Silvester & Pitzer's enthalpy-of-dilution fit gives -0.194e-3,
 # 2.78e-3 and -0.580e-4 (Pitzer 1991, ch. 3, Table 13 part I, 2-1 electrolytes, read in
 # pytzer's copy, pytzer/tables.py P91_Ch3_T13_I 'Mg-Cl', valid to 2 mol/kg; pytzer labels
-# the third column C0, taken here as printed for C-phi: the ice-line fit below absorbs the
-# difference). Keeping Spencer et al.'s slope left Harvie et al.'s beta1 offset (-0.14) at
+# the third column C0, and it is C, not C-phi: see MGCL2_SLOPE). Keeping Spencer et al.'s slope left Harvie et al.'s beta1 offset (-0.14) at
 # -0.07 at 271 K; with Silvester & Pitzer's slope the offset changes sign within 25 K, and
 # the curvature terms g1, g2 can bring the row back to Spencer et al.'s below 0 C.
 MGCL2_SPENCER = {
@@ -187,7 +186,11 @@ MGCL2_SPENCER = {
     "cphi": [0.006507, 0, 0, -0.00024995, 2.418e-07, 0],
 }
 MGCL2_HARVIE = {"beta0": 0.35235, "beta1": 1.6815, "cphi": 0.00519}
-MGCL2_SLOPE = {"beta0": -0.194e-3, "beta1": 2.78e-3, "cphi": -0.580e-4}
+# Table 13's third column is dC/dT with C = C-phi / (2 sqrt|z_M z_X|) (see SULFATES below), so
+# dC-phi/dT = 2 sqrt(2) x (-0.580e-4) = -1.64e-4 /K (Silvester & Pitzer's Table II, as copied in
+# pytzer's bC_Mg_Cl_SP78: -3.11e-4 x 3 / 2^(5/2) = -1.65e-4). The row before used -0.580e-4 for
+# dC-phi/dT; the curvature terms absorbed most of it (ice line rms 0.577 -> 0.567 K now).
+MGCL2_SLOPE = {"beta0": -0.194e-3, "beta1": 2.78e-3, "cphi": 2 * np.sqrt(2.0) * -0.580e-4}
 # K per scaled unit: the seawater checks (TEOS-10 latent heat, FREZCHEM salt onsets) need the
 # row at Spencer et al.'s below 0 C, so the penalty weighs 100 times the CaCl2 one.
 MGCL2_REGULARISATION = 10.0

@@ -468,14 +468,15 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
       }
       if (b.cation == "Mg+2" && b.anion == "Cl-") {
         // tools/fit_default_set.py (fit_mgcl2): Harvie et al.'s (1984) 25 C values, Silvester &
-        // Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.194e-3, 2.78e-3, -0.580e-4 /K;
-        // Spencer et al.'s row has -4.78e-4, 1.47e-2, -1.06e-4), g1, g2 on beta0, beta1, C-phi
+        // Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.194e-3, 2.78e-3 /K and dC/dT
+        // -0.580e-4 /K, i.e. dC-phi/dT = 2 sqrt 2 x that = -1.64e-4 /K; Spencer et al.'s row has
+        // -4.78e-4, 1.47e-2, -1.06e-4), g1, g2 on beta0, beta1, C-phi
         // fitted to Melinder's ice line with a penalty that keeps the row at Spencer et al.'s
         // below 0 C (beta1 within +0.026 below 0 C, 0 to -0.14 between 0 and 25 C); ice line vs
-        // Melinder 1-21 wt% rms 0.577 K, worst 1.05 K (Spencer et al. 0.573, 1.04 K).
-        b.beta0 = tf(0.35235, -832.3003188, -17.65506, 0.0503159046, -1.602083794e-05, -117885);
-        b.beta1 = tf(1.6815, -55641.46231, 1302.23382, -6.236091092, 0.003799565209, 13522889.4);
-        b.cphi = tf(0.00519, -147.3904233, 0, -0.006791315853, 8.511249634e-06, 0);
+        // Melinder 1-21 wt% rms 0.567 K, worst 1.03 K (Spencer et al. 0.573, 1.04 K).
+        b.beta0 = tf(0.35235, -834.5920092, -17.65506, 0.05021998643, -1.590321598e-05, -117885);
+        b.beta1 = tf(1.6815, -55641.46436, 1302.23382, -6.236091896, 0.003799566518, 13522889.4);
+        b.cphi = tf(0.00519, 10.95187724, 0, 0.0004718154034, -8.597381207e-07, 0);
         b.source = "colligate_default_fit";
         b.note = "MgCl2 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
                  "held near Spencer et al. 1990)";
