@@ -315,7 +315,7 @@ SULFATE_SCALE = {"beta0": 0.05, "beta1": 0.5, "beta2": 5.0, "cphi": 0.005}
 SULFATE_REGULARISATION = {"K2SO4": 10.0, "MgSO4": 10.0}
 # What the penalty holds the row to below 0 C: "old" (the old row) or "line" (Harvie et al.'s value
 # and the published slope on the old row's curvature, the fitted terms zero).
-SULFATE_REFERENCE = {"K2SO4": "old", "MgSO4": "old"}
+SULFATE_REFERENCE = {"K2SO4": "old", "MgSO4": "old"}  # "line": see docs/electrolytes.md (seawater)
 CRC_FREEZING_CSV = Path(__file__).resolve().parents[1] / "tests" / "reference" / "crc_freezing_points.csv"
 
 
@@ -336,6 +336,28 @@ def sulfate_osmotic(salt: str, m: float, T: float, rows: dict) -> float:
             + m * (2 * nm * nx / nu) * bphi + m * m * (2 * (nm * nx) ** 1.5 / nu) * p["cphi"])
 
 
+# The sulfate rows change more between 25 and 0 C than the chlorides' (MgSO4 beta2: -37.2 at 25 C
+# in Harvie et al.'s row, +14 at 0 C in the old one), so two more shapes with value and slope zero
+# at T_r, on the other terms of the analytic form: g3 = 1e6 [1/T^2 - 1/T_r^2 + 2 (T - T_r)/T_r^3],
+# g4 = 100 [ln(T/T_r) - (T - T_r)/T_r].
+SULFATE_SHAPES = ("g1", "g2", "g3", "g4")
+
+
+def sulfate_shape(shape: str, c: float) -> np.ndarray:
+    if shape in ("g1", "g2"):
+        return shape_to_coefficients(shape, c)
+    d = np.zeros(6)
+    if shape == "g3":
+        d[5] += 1e6 * c
+        d[3] += 1e6 * c * 2 / TR**3
+    elif shape == "g4":
+        d[2] += 100 * c
+        d[3] -= 100 * c / TR
+    else:
+        raise ValueError(shape)
+    return d
+
+
 def sulfate_rows_with(salt: str, x: np.ndarray) -> dict:
     rec = SULFATES[salt]
     rows = {}
@@ -344,8 +366,8 @@ def sulfate_rows_with(salt: str, x: np.ndarray) -> dict:
         a = np.array(rec["old"][k], dtype=float)
         a[0] = rec["harvie"][k]                                # 25 C value: Harvie et al.
         a[3] += rec["slope"][k] - slope_at_tr(rec["old"][k])   # 25 C slope: Silvester & Pitzer
-        for shape in SHAPES:
-            a = a + shape_to_coefficients(shape, x[i])
+        for shape in SULFATE_SHAPES:
+            a = a + sulfate_shape(shape, x[i])
             i += 1
         rows[k] = a
     return rows
@@ -382,12 +404,13 @@ def fit_sulfate(salt: str) -> dict:
 
     def penalised(x):
         rows = sulfate_rows_with(salt, x)
-        ref = old if SULFATE_REFERENCE[salt] == "old" else sulfate_rows_with(salt, np.zeros(n))
+        line = sulfate_rows_with(salt, np.zeros(n))
+        ref = old if SULFATE_REFERENCE[salt] == "old" else line
         pen = [SULFATE_REGULARISATION[salt] * (analytic(rows[k], PENALTY_TEMPS) - analytic(ref[k], PENALTY_TEMPS))
                / SULFATE_SCALE[k] for k in names]
         return np.concatenate([residuals(x)] + pen)
 
-    n = len(names) * len(SHAPES)
+    n = len(names) * len(SULFATE_SHAPES)
     res = least_squares(penalised, np.zeros(n), x_scale=1e-3, xtol=1e-14, ftol=1e-14)
     dof = len(res.fun) - n
     s2 = float(res.fun @ res.fun) / dof
@@ -402,11 +425,12 @@ def fit_sulfate(salt: str) -> dict:
         print(f"  {r.mass_percent:5.1f} wt% ({m:.3f} mol/kg): CRC {r.depression_K:.2f} K, new "
               f"{new:.3f} ({new - r.depression_K:+.3f}), old {was:.3f} ({was - r.depression_K:+.3f}); "
               f"used_in_fit {r.used_in_fit}")
-    print("  shape coefficients (g1 g2 per parameter):", ", ".join(f"{v:.10g}" for v in res.x))
+    print("  shape coefficients (g1 g2 g3 g4 per parameter):", ", ".join(f"{v:.10g}" for v in res.x))
     print(f"  covariance (s^2 = {s2:.4g} K^2, {dof} degrees of freedom), standard uncertainties: "
           + ", ".join(f"{np.sqrt(cov[i, i]):.3g}" for i in range(n)))
     for k in names:
-        print(f"  {k}: tf(" + ", ".join(f"{v:.10g}" for v in rows[k]) + ")")
+        # 17 digits: the four shapes cancel each other in large coefficients
+        print(f"  {k}: tf(" + ", ".join(f"{v:.17g}" for v in rows[k]) + ")")
         grid = np.linspace(219.15, 298.15, 80)
         change = analytic(rows[k], grid) - analytic(old[k], grid)
         print(f"    change vs old row over 219-298 K: {change.min():+.4f} .. {change.max():+.4f}; "

@@ -156,26 +156,6 @@ TEST_CASE("sodium and potassium sulfate freezing points with the default Pitzer 
   CHECK(checked["potassium_sulfate"] == 9);
 }
 
-TEST_CASE("MgSO4 freezing points (default Pitzer set) against the CRC rows not fitted",
-          "[validation][pitzer]") {
-  // CRC Handbook "Concentrative Properties of Aqueous Solutions", magnesium sulfate 1-12 wt%,
-  // the alternate rows not used by tools/fit_default_set.py (fit_sulfate) for the curvature of
-  // the default set's MgSO4 row below 25 C (25 C values and slopes published: Harvie et al.
-  // 1984, Silvester & Pitzer 1978). Rows and tolerance (0.063 K: the fit rows' worst deviation
-  // plus two printed digits): check crc_mgso4_held_out of tolerances.toml.
-  const auto& c = tolerances::find("crc_mgso4_held_out");
-  int n = 0;
-  for (const auto& r : tolerances::rows(c)) {
-    const double percent = num(r, "mass_percent");
-    REQUIRE(held_out(r));
-    INFO("magnesium_sulfate " << percent << " wt% [" << r.at("source_key") << "]");
-    CHECK_THAT(depression("magnesium_sulfate", percent / 100.0),
-               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
-    ++n;
-  }
-  CHECK(n == 6);
-}
-
 TEST_CASE("the food salts' effective constants keep ln a_w falling as water freezes out",
           "[validation][norrish]") {
   // Identity (no literature): an ice curve concentrates the unfrozen phase far beyond the
