@@ -38,9 +38,17 @@ curvature terms hold the row within 0.026 of Spencer et al.'s below 0 C (penalty
 1.28 K). The MgCl2 ice line stays Spencer et al.'s (worst 1.05 K from Melinder's,
 unchecked there; the CRC rows to 5 wt% move by 0.001 K; the MgCl2.12H2O eutectic of this
 NumPy copy moves from -32.98 to -32.87 C, so its solubility product is not shifted). NaCl,
-KCl and the sulfates keep the rows of `spencer_1990_icefit` (NaCl and KCl meet the CRC
-table within the issue's limits; the K2SO4 and MgSO4 rows of Marion & Farren 1999 miss the
-isopiestic osmotic coefficients at 25 C, docs/electrolytes.md).
+KCl and Na2SO4 keep the rows of `spencer_1990_icefit` (they meet the CRC table within the
+issue's limits).
+
+K2SO4 and MgSO4 (fit_sulfate): Marion & Farren's (1999) rows missed the isopiestic osmotic
+coefficients at 25 C (-2.0 % and -13 %). They take Harvie et al.'s 25 C values and Silvester &
+Pitzer's 25 C slopes (Pitzer 1991 Table 13, whose third column is dC/dT, converted to C-phi),
+and four curvature shapes per parameter hold them at Marion & Farren's rows below 0 C (penalty
+only: no freezing point in these fits). A MgSO4 row that follows the CRC freezing points
+(SULFATE_REFERENCE "line" with used_in_fit rows) moved seawater out of its TEOS-10 latent-heat
+and gypsum-onset checks, because the sulfate mixing terms were fitted with the old binary row
+(docs/electrolytes.md).
 
 Step 2 shifts the solubility product of antarcticite (CaCl2.6H2O) so that its published
 solubility curve (Spencer et al. 1990 activities) holds with the new activities, 222-298 K,
