@@ -136,8 +136,10 @@ TEST_CASE("sodium and potassium sulfate freezing points with the default Pitzer 
           "[validation][independent][pitzer]") {
   // CRC Handbook 102nd ed. (2021), "Concentrative Properties of Aqueous Solutions", sodium
   // sulfate 0.5-4 wt% and potassium sulfate 0.5-5 wt%; depressions printed to 0.01 K.
-  // Default set spencer_1990_icefit (sulfate rows of Marion & Farren 1999, unchanged by the
-  // ice-line fit); no row was fitted. Tolerance 0.02 K: two printed digits, as for lactose.
+  // Default set (Na2SO4: Marion & Farren's 1999 row; K2SO4: Harvie et al.'s 1984 25 C values
+  // and Silvester & Pitzer's slopes, held at Marion & Farren's row below 0 C by
+  // tools/fit_default_set.py); no row was fitted. Tolerance 0.02 K: two printed digits, as
+  // for lactose.
   // Na2SO4 at 5 and 6 wt% lies beyond the ice-mirabilite eutectic (metastable rows; the
   // model is 0.025 and 0.066 K off there, cause not found) and is not checked here.
   // Rows and tolerance: check crc_sulfates_pitzer of tolerances.toml.
