@@ -443,7 +443,10 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
 /// coefficients). The 25 C data are not fitted: every CRC row stays a held-out check.
 /// MgCl2 likewise takes Harvie et al.'s 25 C values, and in addition Silvester & Pitzer's 25 C
 /// slopes (Spencer et al.'s slope kept Harvie's offset down to 0 C and moved seawater out of its
-/// checks), with curvature holding the row near Spencer et al.'s below 0 C. The halite K carries a shift
+/// checks), with curvature holding the row near Spencer et al.'s below 0 C. K2SO4 and MgSO4 take
+/// Harvie et al.'s 25 C values and Silvester & Pitzer's 25 C slopes too (Marion & Farren's 1999
+/// rows missed the isopiestic osmotic coefficients at 25 C by -2 % and -13 %), held at Marion &
+/// Farren's rows below 0 C for seawater (docs/electrolytes.md). The halite K carries a shift
 /// fitted to the Salt Institute solubility table (the solubility slope, issue 12).
 inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
   using detail::tf;
