@@ -38,9 +38,17 @@ curvature terms hold the row within 0.026 of Spencer et al.'s below 0 C (penalty
 1.28 K). The MgCl2 ice line stays Spencer et al.'s (worst 1.05 K from Melinder's,
 unchecked there; the CRC rows to 5 wt% move by 0.001 K; the MgCl2.12H2O eutectic of this
 NumPy copy moves from -32.98 to -32.87 C, so its solubility product is not shifted). NaCl,
-KCl and the sulfates keep the rows of `spencer_1990_icefit` (NaCl and KCl meet the CRC
-table within the issue's limits; the K2SO4 and MgSO4 rows of Marion & Farren 1999 miss the
-isopiestic osmotic coefficients at 25 C, docs/electrolytes.md).
+KCl and Na2SO4 keep the rows of `spencer_1990_icefit` (they meet the CRC table within the
+issue's limits).
+
+K2SO4 and MgSO4 (fit_sulfate): Marion & Farren's (1999) rows missed the isopiestic osmotic
+coefficients at 25 C (-2.0 % and -13 %). They take Harvie et al.'s 25 C values and Silvester &
+Pitzer's 25 C slopes (Pitzer 1991 Table 13, whose third column is dC/dT, converted to C-phi),
+and four curvature shapes per parameter hold them at Marion & Farren's rows below 0 C (penalty
+only: no freezing point in these fits). A MgSO4 row that follows the CRC freezing points
+(SULFATE_REFERENCE "line" with used_in_fit rows) moved seawater out of its TEOS-10 latent-heat
+and gypsum-onset checks, because the sulfate mixing terms were fitted with the old binary row
+(docs/electrolytes.md).
 
 Step 2 shifts the solubility product of antarcticite (CaCl2.6H2O) so that its published
 solubility curve (Spencer et al. 1990 activities) holds with the new activities, 222-298 K,
@@ -177,8 +185,7 @@ def fit(salt: str):
 # (C-phi) per K, where Silvester & Pitzer's enthalpy-of-dilution fit gives -0.194e-3,
 # 2.78e-3 and -0.580e-4 (Pitzer 1991, ch. 3, Table 13 part I, 2-1 electrolytes, read in
 # pytzer's copy, pytzer/tables.py P91_Ch3_T13_I 'Mg-Cl', valid to 2 mol/kg; pytzer labels
-# the third column C0, taken here as printed for C-phi: the ice-line fit below absorbs the
-# difference). Keeping Spencer et al.'s slope left Harvie et al.'s beta1 offset (-0.14) at
+# the third column C0, and it is C, not C-phi: see MGCL2_SLOPE). Keeping Spencer et al.'s slope left Harvie et al.'s beta1 offset (-0.14) at
 # -0.07 at 271 K; with Silvester & Pitzer's slope the offset changes sign within 25 K, and
 # the curvature terms g1, g2 can bring the row back to Spencer et al.'s below 0 C.
 MGCL2_SPENCER = {
@@ -187,7 +194,11 @@ MGCL2_SPENCER = {
     "cphi": [0.006507, 0, 0, -0.00024995, 2.418e-07, 0],
 }
 MGCL2_HARVIE = {"beta0": 0.35235, "beta1": 1.6815, "cphi": 0.00519}
-MGCL2_SLOPE = {"beta0": -0.194e-3, "beta1": 2.78e-3, "cphi": -0.580e-4}
+# Table 13's third column is dC/dT with C = C-phi / (2 sqrt|z_M z_X|) (see SULFATES below), so
+# dC-phi/dT = 2 sqrt(2) x (-0.580e-4) = -1.64e-4 /K (Silvester & Pitzer's Table II, as copied in
+# pytzer's bC_Mg_Cl_SP78: -3.11e-4 x 3 / 2^(5/2) = -1.65e-4). The row before used -0.580e-4 for
+# dC-phi/dT; the curvature terms absorbed most of it (ice line rms 0.577 -> 0.567 K now).
+MGCL2_SLOPE = {"beta0": -0.194e-3, "beta1": 2.78e-3, "cphi": 2 * np.sqrt(2.0) * -0.580e-4}
 # K per scaled unit: the seawater checks (TEOS-10 latent heat, FREZCHEM salt onsets) need the
 # row at Spencer et al.'s below 0 C, so the penalty weighs 100 times the CaCl2 one.
 MGCL2_REGULARISATION = 10.0
@@ -262,6 +273,179 @@ def fit_mgcl2() -> dict:
         change = analytic(rows[k], grid) - analytic(old[k], grid)
         print(f"    change vs Spencer et al. over 219-298 K: {change.min():+.4f} .. {change.max():+.4f}; "
               f"at 271.15 K {analytic(rows[k], 271.15) - analytic(old[k], 271.15):+.4f}")
+    return rows
+
+
+# K2SO4 and MgSO4 (issue 12, step 3), as MgCl2: Harvie et al.'s (1984) 25 C values (Table 1,
+# read in pytzer's copy, parameters.py bC_K_SO4_HMW84, bC_Mg_SO4_HMW84; = Pitzer & Mayorga
+# 1973, 1974) and Silvester & Pitzer's (1978) 25 C slopes as Pitzer (1991, ch. 3, Table 13)
+# prints them (pytzer/tables.py P91_Ch3_T13_I 'K-SO4', P91_Ch3_T13_II 'Mg-SO4'). Table 13's
+# third column is dC/dT in the C = C-phi / (2 sqrt|z_M z_X|) convention (pytzer's label "C0" is
+# right): Silvester & Pitzer's Table II, read in pytzer's bC_*_SP78 functions, prints the
+# Pitzer & Mayorga scaled slopes, and for Mg-Cl (-3.11e-4) and Na-SO4 (-9.2e-4) times 3/2^(5/2)
+# / (2 sqrt 2) they give Table 13's -0.580e-4 and -1.725e-4. So dC-phi/dT = 2 sqrt|z_M z_X|
+# times the column: 0 for K2SO4 (printed 0), 4 x 0.131e-3 for MgSO4.
+# The old rows (Marion & Farren 1999, frezchem.dat) miss the 25 C isopiestic osmotic
+# coefficients (K2SO4 -2.0 %, MgSO4 -13 %); Harvie et al.'s rows meet them within 1 %.
+# Curvature g1, g2 on every parameter is fitted to published freezing points (CRC, rows marked
+# used_in_fit = yes in tests/reference/crc_freezing_points.csv) with the penalty of fit()
+# against the old row at 220-273.15 K, which keeps the seawater sulfate phases (mirabilite,
+# arcanite, epsomite/meridianiite, gypsum) on the old default's path.
+SULFATES = {
+    "K2SO4": {
+        "crc": "potassium_sulfate", "molar_mass": 0.1742592, "nu": (2, 1), "z": 2.0,
+        "alpha": (2.0, None),
+        "names": ("beta0", "beta1", "cphi"),
+        "old": {
+            "beta0": [0.003795, 22.492, 0.2029, 0.00165088, 9.746e-07, -540.7],
+            "beta1": [1.052416, 767.611, 6.36874, -0.03159629, 2.98397e-05, -16995.7],
+            "cphi": [0.014845, 6.792, 0.12817, -0.00049111, 5.849e-07, -332],
+        },
+        "harvie": {"beta0": 0.04995, "beta1": 0.7793, "cphi": 0.0},
+        "slope": {"beta0": 1.440e-3, "beta1": 6.70e-3, "cphi": 0.0},
+    },
+    "MgSO4": {
+        "crc": "magnesium_sulfate", "molar_mass": 0.1203676, "nu": (1, 1), "z": 4.0,
+        "alpha": (1.4, 12.0),
+        "names": ("beta0", "beta1", "beta2", "cphi"),
+        "old": {
+            "beta0": [0.126545, 470.866, 6.08307, -0.03139609, 2.82462e-05, -15937.6],
+            "beta1": [3.491512, 2603.294, 34.29203, -0.13991327, 0.000161578, -90018.9],
+            "beta2": [-6.243985, 245008.193, 1276.67549, -6.82364722, 0.007402746, -3561447.4],
+            "cphi": [0.05291, -6.004, -0.43928, 0.00120236, -1.9372e-06, 1116.1],
+        },
+        "harvie": {"beta0": 0.221, "beta1": 3.343, "beta2": -37.23, "cphi": 0.025},
+        "slope": {"beta0": -0.690e-3, "beta1": 1.530e-2, "beta2": -2.53e-1, "cphi": 4 * 0.131e-3},
+    },
+}
+SULFATE_SCALE = {"beta0": 0.05, "beta1": 0.5, "beta2": 5.0, "cphi": 0.005}
+# K per scaled unit (as MGCL2_REGULARISATION).
+SULFATE_REGULARISATION = {"K2SO4": 10.0, "MgSO4": 10.0}
+# What the penalty holds the row to below 0 C: "old" (the old row) or "line" (Harvie et al.'s value
+# and the published slope on the old row's curvature, the fitted terms zero).
+SULFATE_REFERENCE = {"K2SO4": "old", "MgSO4": "old"}  # "line": see docs/electrolytes.md (seawater)
+CRC_FREEZING_CSV = Path(__file__).resolve().parents[1] / "tests" / "reference" / "crc_freezing_points.csv"
+
+
+def sulfate_osmotic(salt: str, m: float, T: float, rows: dict) -> float:
+    """Binary sulfate (Pitzer 1991, ch. 3, eq. for phi), Spencer et al.'s A_phi, b = 1.2."""
+    rec = SULFATES[salt]
+    nm, nx = rec["nu"]
+    nu = nm + nx
+    zz = rec["z"]
+    ionic = 3.0 * m if nu == 3 else 4.0 * m  # K2SO4: I = 3m; MgSO4: I = 4m
+    s = np.sqrt(ionic)
+    a1, a2 = rec["alpha"]
+    p = {k: analytic(rows[k], T) for k in rec["names"]}
+    bphi = p["beta0"] + p["beta1"] * np.exp(-a1 * s)
+    if a2 is not None:
+        bphi = bphi + p["beta2"] * np.exp(-a2 * s)
+    return (1 - zz * aphi_spencer(T) * s / (1 + 1.2 * s)
+            + m * (2 * nm * nx / nu) * bphi + m * m * (2 * (nm * nx) ** 1.5 / nu) * p["cphi"])
+
+
+# The sulfate rows change more between 25 and 0 C than the chlorides' (MgSO4 beta2: -37.2 at 25 C
+# in Harvie et al.'s row, +14 at 0 C in the old one), so two more shapes with value and slope zero
+# at T_r, on the other terms of the analytic form: g3 = 1e6 [1/T^2 - 1/T_r^2 + 2 (T - T_r)/T_r^3],
+# g4 = 100 [ln(T/T_r) - (T - T_r)/T_r].
+SULFATE_SHAPES = ("g1", "g2", "g3", "g4")
+
+
+def sulfate_shape(shape: str, c: float) -> np.ndarray:
+    if shape in ("g1", "g2"):
+        return shape_to_coefficients(shape, c)
+    d = np.zeros(6)
+    if shape == "g3":
+        d[5] += 1e6 * c
+        d[3] += 1e6 * c * 2 / TR**3
+    elif shape == "g4":
+        d[2] += 100 * c
+        d[3] -= 100 * c / TR
+    else:
+        raise ValueError(shape)
+    return d
+
+
+def sulfate_rows_with(salt: str, x: np.ndarray) -> dict:
+    rec = SULFATES[salt]
+    rows = {}
+    i = 0
+    for k in rec["names"]:
+        a = np.array(rec["old"][k], dtype=float)
+        a[0] = rec["harvie"][k]                                # 25 C value: Harvie et al.
+        a[3] += rec["slope"][k] - slope_at_tr(rec["old"][k])   # 25 C slope: Silvester & Pitzer
+        for shape in SULFATE_SHAPES:
+            a = a + sulfate_shape(shape, x[i])
+            i += 1
+        rows[k] = a
+    return rows
+
+
+def sulfate_freezing_point(salt: str, m: float, rows: dict) -> float:
+    nu = sum(SULFATES[salt]["nu"])
+    f = lambda T: -sulfate_osmotic(salt, m, T, rows) * nu * m * MW - _core.ln_water_activity_of_ice(T)
+    return brentq(f, 250.0, 273.15, xtol=1e-12)
+
+
+def fit_sulfate(salt: str) -> dict:
+    """K2SO4 or MgSO4 row of the default set: 25 C values and slopes fixed (above), g1 and g2 on
+    every parameter fitted to the used_in_fit = yes CRC freezing points with the penalty against
+    the old row below 0 C; prints the residuals of every CRC row (fit and held out)."""
+    import pandas as pd
+
+    rec = SULFATES[salt]
+    names = rec["names"]
+    old = {k: np.array(rec["old"][k], dtype=float) for k in names}
+    worst = max(abs(sulfate_osmotic(salt, m, T, old) - _core.pitzer_osmotic_coefficient(
+        cg.Solution.from_molalities({salt: m}), T, "spencer_1990_icefit")[0])
+        for m in (0.1, 0.5, 1.5) for T in (253.15, 273.15, 298.15))
+    assert worst < 1e-6, f"{salt}: NumPy copy differs from colligate by {worst}"
+    table = pd.read_csv(CRC_FREEZING_CSV)
+    table = table[table.solute == rec["crc"]]
+    used = table[table.used_in_fit == "yes"]
+    m_fit = used.molality_mol_per_kg.to_numpy()
+    target = 273.15 - used.depression_K.to_numpy()
+
+    def residuals(x):
+        rows = sulfate_rows_with(salt, x)
+        return np.array([sulfate_freezing_point(salt, m, rows) for m in m_fit]) - target
+
+    def penalised(x):
+        rows = sulfate_rows_with(salt, x)
+        line = sulfate_rows_with(salt, np.zeros(n))
+        ref = old if SULFATE_REFERENCE[salt] == "old" else line
+        pen = [SULFATE_REGULARISATION[salt] * (analytic(rows[k], PENALTY_TEMPS) - analytic(ref[k], PENALTY_TEMPS))
+               / SULFATE_SCALE[k] for k in names]
+        return np.concatenate([residuals(x)] + pen)
+
+    n = len(names) * len(SULFATE_SHAPES)
+    res = least_squares(penalised, np.zeros(n), x_scale=1e-3, xtol=1e-14, ftol=1e-14)
+    dof = len(res.fun) - n
+    s2 = float(res.fun @ res.fun) / dof
+    cov = s2 * np.linalg.inv(res.jac.T @ res.jac)
+    rows = sulfate_rows_with(salt, res.x)
+    print(f"\n{salt}: Harvie et al.'s 25 C values, Silvester & Pitzer's 25 C slopes, {n} curvature "
+          f"terms; {len(used)} CRC freezing points in the fit (copy within {worst:.1e}):")
+    for _, r in table.iterrows():
+        m = r.molality_mol_per_kg
+        new = 273.15 - sulfate_freezing_point(salt, m, rows)
+        was = 273.15 - sulfate_freezing_point(salt, m, old)
+        print(f"  {r.mass_percent:5.1f} wt% ({m:.3f} mol/kg): CRC {r.depression_K:.2f} K, new "
+              f"{new:.3f} ({new - r.depression_K:+.3f}), old {was:.3f} ({was - r.depression_K:+.3f}); "
+              f"used_in_fit {r.used_in_fit}")
+    print("  shape coefficients (g1 g2 g3 g4 per parameter):", ", ".join(f"{v:.10g}" for v in res.x))
+    print(f"  covariance (s^2 = {s2:.4g} K^2, {dof} degrees of freedom), standard uncertainties: "
+          + ", ".join(f"{np.sqrt(cov[i, i]):.3g}" for i in range(n)))
+    for k in names:
+        # 17 digits: the four shapes cancel each other in large coefficients
+        print(f"  {k}: tf(" + ", ".join(f"{v:.17g}" for v in rows[k]) + ")")
+        grid = np.linspace(219.15, 298.15, 80)
+        change = analytic(rows[k], grid) - analytic(old[k], grid)
+        print(f"    change vs old row over 219-298 K: {change.min():+.4f} .. {change.max():+.4f}; "
+              f"at 271.15 K {analytic(rows[k], 271.15) - analytic(old[k], 271.15):+.4f}")
+    for m in (0.1, 0.5, 0.7, 1.5, 2.5):
+        print(f"  phi(25 C, {m} mol/kg): new {sulfate_osmotic(salt, m, TR, rows):.4f}, "
+              f"old {sulfate_osmotic(salt, m, TR, old):.4f}")
     return rows
 
 
@@ -394,6 +578,8 @@ def halite_shift() -> None:
 def main() -> None:
     rows = {salt: fit(salt) for salt in SALTS}
     fit_mgcl2()
+    for salt in SULFATES:
+        fit_sulfate(salt)
     for salt in HYDRATES:
         solubility_shift(salt, rows[salt])
     halite_shift()

@@ -154,6 +154,15 @@ def _gamma_ratio_harvie(row, rows: pd.DataFrame) -> float:
     return _gamma_harvie(row) / g01 * float(first.iloc[0].mean_activity_coefficient)
 
 
+def _gamma_ratio_default(row, rows: pd.DataFrame) -> float:
+    # as _gamma_ratio_harvie, through the default parameter set
+    first = rows[(rows.salt == row.salt) & (rows.molality_mol_per_kg == 0.1)]
+    if len(first) != 1:
+        raise SystemExit(f"{row.salt}: the ratio check needs the 0.1 mol/kg row of the table")
+    g01 = _gamma_default(first.iloc[0])
+    return _gamma_default(row) / g01 * float(first.iloc[0].mean_activity_coefficient)
+
+
 # --- seawater: where each salt starts to crystallise --------------------------------------
 
 _SEAWATER_CURVES: dict = {}
@@ -316,6 +325,9 @@ QUANTITIES: dict[str, Quantity] = {
     "osmotic_coefficient_default_set": Quantity(_osmotic_set(None), "molality_mol_per_kg",
                                                 "molality, mol/kg", "salt", relative=True),
     "mean_activity_coefficient_ratio_harvie_1984": Quantity(_gamma_ratio_harvie, "molality_mol_per_kg",
+                                                            "molality, mol/kg", "salt", with_rows=True,
+                                                            relative=True),
+    "mean_activity_coefficient_ratio_default_set": Quantity(_gamma_ratio_default, "molality_mol_per_kg",
                                                             "molality, mol/kg", "salt", with_rows=True,
                                                             relative=True),
     "saturated_salt_water_activity": Quantity(_saturated_water_activity, "water_activity",

@@ -95,13 +95,19 @@ inline const std::vector<citation>& citations() {
        "line of Melinder (2010); MgCl2 on Harvie et al.'s 25 C values with the 25 C slopes "
        "of Silvester & Pitzer as tabulated in Pitzer (1991) ch. 3 Table 13 (read in pytzer's "
        "copy, pytzer/tables.py) and a curvature that holds it near Spencer et al.'s below 0 C; "
+       "K2SO4 and MgSO4 on Harvie et al.'s 25 C values with the same table's 25 C slopes (its "
+       "third column is dC/dT, C = C-phi / (2 sqrt|z_M z_X|), checked against Silvester & "
+       "Pitzer's Table II as copied in pytzer's bC_*_SP78 functions), the K2SO4 curvature held "
+       "near Marion & Farren's (1999) row below 0 C and the MgSO4 curvature fitted to "
+       "alternate CRC freezing points; "
        "solubility-product shifts of antarcticite and halite",
        "colligate source tree: tools/fit_default_set.py", "",
        "least-squares fit to Melinder's freezing curve as represented by CoolProp "
        "INCOMP::MCA (CaCl2 1-30 wt%) and INCOMP::MMG (MgCl2 1-21 wt%), with a stated penalty "
        "on the change from the old "
        "default's parameters at 220-273.15 K; 25 C values fixed. Halite's shift also fitted "
-       "to alternate rows of the Salt Institute solubility table"},
+       "to alternate rows of the Salt Institute solubility table; MgSO4 curvature to the "
+       "used_in_fit rows of the CRC magnesium sulfate freezing points (0.5-14 wt%)"},
       {"salt_institute_solubility", "Salt Institute", 2013,
        "Chemical and physical properties of pure sodium chloride: solubility of salt at "
        "various temperatures", "saltinstitute.org (salt-101/chemical-physical-properties)", "",

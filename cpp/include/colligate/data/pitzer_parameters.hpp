@@ -443,7 +443,10 @@ inline const pitzer_parameter_set& harvie_1984_parameters() {
 /// coefficients). The 25 C data are not fitted: every CRC row stays a held-out check.
 /// MgCl2 likewise takes Harvie et al.'s 25 C values, and in addition Silvester & Pitzer's 25 C
 /// slopes (Spencer et al.'s slope kept Harvie's offset down to 0 C and moved seawater out of its
-/// checks), with curvature holding the row near Spencer et al.'s below 0 C. The halite K carries a shift
+/// checks), with curvature holding the row near Spencer et al.'s below 0 C. K2SO4 and MgSO4 take
+/// Harvie et al.'s 25 C values and Silvester & Pitzer's 25 C slopes too (Marion & Farren's 1999
+/// rows missed the isopiestic osmotic coefficients at 25 C by -2 % and -13 %), held at Marion &
+/// Farren's rows below 0 C for seawater (docs/electrolytes.md). The halite K carries a shift
 /// fitted to the Salt Institute solubility table (the solubility slope, issue 12).
 inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
   using detail::tf;
@@ -468,17 +471,54 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
       }
       if (b.cation == "Mg+2" && b.anion == "Cl-") {
         // tools/fit_default_set.py (fit_mgcl2): Harvie et al.'s (1984) 25 C values, Silvester &
-        // Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.194e-3, 2.78e-3, -0.580e-4 /K;
-        // Spencer et al.'s row has -4.78e-4, 1.47e-2, -1.06e-4), g1, g2 on beta0, beta1, C-phi
+        // Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.194e-3, 2.78e-3 /K and dC/dT
+        // -0.580e-4 /K, i.e. dC-phi/dT = 2 sqrt 2 x that = -1.64e-4 /K; Spencer et al.'s row has
+        // -4.78e-4, 1.47e-2, -1.06e-4), g1, g2 on beta0, beta1, C-phi
         // fitted to Melinder's ice line with a penalty that keeps the row at Spencer et al.'s
         // below 0 C (beta1 within +0.026 below 0 C, 0 to -0.14 between 0 and 25 C); ice line vs
-        // Melinder 1-21 wt% rms 0.577 K, worst 1.05 K (Spencer et al. 0.573, 1.04 K).
-        b.beta0 = tf(0.35235, -832.3003188, -17.65506, 0.0503159046, -1.602083794e-05, -117885);
-        b.beta1 = tf(1.6815, -55641.46231, 1302.23382, -6.236091092, 0.003799565209, 13522889.4);
-        b.cphi = tf(0.00519, -147.3904233, 0, -0.006791315853, 8.511249634e-06, 0);
+        // Melinder 1-21 wt% rms 0.567 K, worst 1.03 K (Spencer et al. 0.573, 1.04 K).
+        b.beta0 = tf(0.35235, -834.5920092, -17.65506, 0.05021998643, -1.590321598e-05, -117885);
+        b.beta1 = tf(1.6815, -55641.46436, 1302.23382, -6.236091896, 0.003799566518, 13522889.4);
+        b.cphi = tf(0.00519, 10.95187724, 0, 0.0004718154034, -8.597381207e-07, 0);
         b.source = "colligate_default_fit";
         b.note = "MgCl2 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, curvature below 25 C "
                  "held near Spencer et al. 1990)";
+      }
+      if (b.cation == "K+" && b.anion == "SO4-2") {
+        // tools/fit_default_set.py (fit_sulfate): Harvie et al.'s (1984) 25 C values (= Pitzer &
+        // Mayorga 1973), Silvester & Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: 1.440e-3,
+        // 6.70e-3 /K, C 0), four curvature shapes per parameter holding the row at Marion &
+        // Farren's (1999) below 0 C (within 0.004 in beta0, 0.02 in beta1 at 271 K), so that
+        // seawater's sulfate phases keep their path; no freezing point fitted (every CRC K2SO4 row
+        // stays a check). The shapes cancel in large coefficients: all 17 digits are needed.
+        b.beta0 = tf(0.04995, -5157286.2144275811, -30500.39680608836,
+                  79.898891563759236, -0.039102929095397282, 162971187.39630195);
+        b.beta1 = tf(0.7793, 29490270.091161814, 174369.49647161062,
+                  -456.66784518765991, 0.22345916624349435, -932081739.86822593);
+        b.cphi = tf(0, 980639.78945389926, 5772.3771838623288,
+                  -15.042973227120369, 0.0073208823597215771, -31122061.76512276);
+        b.source = "colligate_default_fit";
+        b.note = "K2SO4 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, held at Marion & "
+                 "Farren 1999 below 0 C)";
+      }
+      if (b.cation == "Mg+2" && b.anion == "SO4-2") {
+        // tools/fit_default_set.py (fit_sulfate): Harvie et al.'s (1984) 25 C values (= Pitzer &
+        // Mayorga 1974), Silvester & Pitzer's 25 C slopes (Pitzer 1991 ch. 3 Table 13: -0.690e-3,
+        // 1.530e-2, -0.253 /K, and dC-phi/dT = 4 x 0.131e-3 /K), four curvature shapes per
+        // parameter holding the row at Marion & Farren's (1999) below 0 C (beta2 within -2.0 at
+        // 271 K, beta0 0.007), for seawater; its binary ice line stays theirs (0.5 K warm of the
+        // CRC rows at 14 wt%, docs/electrolytes.md). All 17 digits are needed (see K2SO4).
+        b.beta0 = tf(0.221, -10407734.605090998, -61543.657463836746,
+                  161.18562761490568, -0.078867964607793509, 328908749.94629401);
+        b.beta1 = tf(3.343, -23195043.055845048, -138771.99968033042,
+                  368.08732011449177, -0.18253621909455539, 725045432.72718358);
+        b.beta2 = tf(-37.23, 2949463937.2838693, 17422726.42064552,
+                  -45584.381917489467, 22.282915941892639, -93299105527.355911);
+        b.cphi = tf(0.025, 4385423.6095502563, 25987.45752374173,
+                  -68.224172581573782, 0.033469386522247582, -138322698.42545924);
+        b.source = "colligate_default_fit";
+        b.note = "MgSO4 (Harvie et al. 1984 at 25 C, Silvester & Pitzer slope, held at Marion & "
+                 "Farren 1999 below 0 C)";
       }
     }
     // Antarcticite: the shift of ln IAP along Spencer et al.'s saturation curve with the new
