@@ -92,19 +92,33 @@ inline const std::vector<single_salt_parameters>& single_salt_table() {
        0.07556, 0.0, -0.00469, 2.0, 12.0, 1.0, "may_2011"},
       // Ice line, fitted by colligate (tools/fit_single_salt_ice_line.py): beta0 and beta1 to
       // the CRC Handbook freezing points marked used_in_fit in crc_freezing_points.csv, C-phi
-      // held at 0 (its 95 % interval spans zero with data to 1 mol/kg); window from the
-      // lowest fitted freezing point to 273.15 K, molality to the highest fitted row.
-      // sodium acetate: 5 rows 0.061-1.06 mol/kg, 269.17-272.93 K; beta0 0.1269 +/- 0.0032,
-      // beta1 0.360 +/- 0.022 (May et al.'s 25 C values: 0.1382, 0.3317).
+      // held at 0 (its 95 % interval spans zero with data to about 1 mol/kg); window from the
+      // lowest fitted freezing point to 273.15 K, molality to the highest fitted row. Kept
+      // where the data determine both parameters (95 % intervals exclude zero, |r| < 0.99);
+      // the tool prints the salts it does not keep (KH2PO4, NaHCO3, Na2CO3) and why.
+      // sodium acetate: 5 rows 0.061-1.06 mol/kg; beta0 0.1269 +/- 0.0032, beta1 0.360 +/- 0.022
+      // (May et al.'s 25 C values: 0.1382, 0.3317).
       {"sodium_acetate", "sodium acetate", "CH3COONa", 1, -1, 1, 1, 0.082034, 0.126867222,
        0.359922399, 0.0, 0.0, 2.0, 12.0, 1.06, "colligate_fit_crc_pitzer", "colligate_ice_line_fit",
        269.17, 273.15},
       // trisodium citrate (anhydrous Na3C6H5O7, as the CRC molality column): 8 rows
-      // 0.039-0.969 mol/kg, 268.76-272.95 K; beta0 0.1765 +/- 0.0036, beta1 4.29 +/- 0.24.
-      // No Pitzer parameters of it were found published.
+      // 0.039-0.969 mol/kg; beta0 0.1765 +/- 0.0036, beta1 4.29 +/- 0.24. No Pitzer
+      // parameters of it were found published.
       {"trisodium_citrate", "trisodium citrate", "Na3C6H5O7", 1, -3, 3, 1, 0.2580683, 0.176470501,
        4.29267699, 0.0, 0.0, 2.0, 12.0, 0.969, "colligate_fit_crc_pitzer", "colligate_ice_line_fit",
        268.76, 273.15},
+      // NaH2PO4: 10 rows 0.042-0.875 mol/kg; beta0 -0.160 +/- 0.012, beta1 0.474 +/- 0.066.
+      {"monosodium_phosphate", "monosodium phosphate", "NaH2PO4", 1, -1, 1, 1, 0.119976,
+       -0.160413948, 0.473713956, 0.0, 0.0, 2.0, 12.0, 0.875, "colligate_fit_crc_pitzer",
+       "colligate_ice_line_fit", 270.68, 273.15},
+      // K2HPO4: 8 rows 0.029-0.466 mol/kg; beta0 0.074 +/- 0.016, beta1 0.41 +/- 0.14.
+      {"dipotassium_phosphate", "dipotassium phosphate", "K2HPO4", 1, -2, 2, 1, 0.174174,
+       0.0737923324, 0.408729300, 0.0, 0.0, 2.0, 12.0, 0.466, "colligate_fit_crc_pitzer",
+       "colligate_ice_line_fit", 271.33, 273.15},
+      // KHCO3: 7 rows 0.05-1.626 mol/kg; beta0 -0.0414 +/- 0.0016, beta1 -0.108 +/- 0.017.
+      {"potassium_bicarbonate", "potassium bicarbonate", "KHCO3", 1, -1, 1, 1, 0.100114,
+       -0.0414187618, -0.107866824, 0.0, 0.0, 2.0, 12.0, 1.626, "colligate_fit_crc_pitzer",
+       "colligate_ice_line_fit", 268.74, 273.15},
   };
   return table;
 }
