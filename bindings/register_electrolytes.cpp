@@ -89,11 +89,8 @@ void register_electrolytes(py::module_& m) {
       "single_salt_closed_form_freezing_point",
       [](int cation_charge, int anion_charge, int cation_count, int anion_count, double beta0,
          double beta1, double cphi, const std::vector<double>& molality) {
-        colligate::data::single_salt_parameters p;
-        p.cation_charge = cation_charge;
-        p.anion_charge = anion_charge;
-        p.cation_count = cation_count;
-        p.anion_count = anion_count;
+        auto p = colligate::data::single_salt_shape(cation_charge, anion_charge, cation_count,
+                                                    anion_count);
         p.beta0 = beta0;
         p.beta1 = beta1;
         p.cphi = cphi;

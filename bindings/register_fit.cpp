@@ -298,11 +298,8 @@ Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) t
       [](int cation_charge, int anion_charge, int cation_count, int anion_count,
          const VectorXd& molality, const VectorXd& tf, const std::optional<VectorXd>& w,
          bool fit_cphi) {
-        data::single_salt_parameters shape;
-        shape.cation_charge = cation_charge;
-        shape.anion_charge = anion_charge;
-        shape.cation_count = cation_count;
-        shape.anion_count = anion_count;
+        const auto shape =
+            data::single_salt_shape(cation_charge, anion_charge, cation_count, anion_count);
         fit::single_salt_fit_options o;
         o.fit_cphi = fit_cphi;
         py::gil_scoped_release release;

@@ -160,11 +160,7 @@ TEST_CASE("single-salt freezing-point fit recovers the parameters its data were 
   // Jacobian agrees with central differences of the model.
   for (const auto& [zc, za, nc, na, b0, b1, c] :
        {std::tuple{1, -3, 3, 1, 0.18, 4.3, -0.02}, std::tuple{1, -1, 1, 1, 0.12, 0.35, 0.004}}) {
-    data::single_salt_parameters truth;
-    truth.cation_charge = zc;
-    truth.anion_charge = za;
-    truth.cation_count = nc;
-    truth.anion_count = na;
+    auto truth = data::single_salt_shape(zc, za, nc, na);
     truth.beta0 = b0;
     truth.beta1 = b1;
     truth.cphi = c;

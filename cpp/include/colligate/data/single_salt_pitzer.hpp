@@ -53,6 +53,18 @@ struct single_salt_parameters {
   double max_temperature = 298.65;  ///< K
 };
 
+/// A row holding only a salt's charges and ions per formula unit (parameters zero): the
+/// shape a fit or a caller's own parameters start from.
+inline single_salt_parameters single_salt_shape(int cation_charge, int anion_charge,
+                                                int cation_count, int anion_count) {
+  single_salt_parameters p;
+  p.cation_charge = cation_charge;
+  p.anion_charge = anion_charge;
+  p.cation_count = cation_count;
+  p.anion_count = anion_count;
+  return p;
+}
+
 /// The 25 C set's id, its temperature and the half-width of the window in which it is used.
 inline constexpr const char* single_salt_parameter_set_id = "may_2011";
 inline constexpr double single_salt_temperature = 298.15;
