@@ -68,7 +68,47 @@ void register_electrolytes(py::module_& m) {
       py::arg("salt"), py::arg("molality"), py::arg("temperature"),
       "(osmotic coefficients, ln mean activity coefficients, water activities, first range "
       "reason) of one salt of data/single_salt_pitzer.hpp in water at each molality (mol/kg), "
-      "closed binary Pitzer form at 25 C.");
+      "closed binary Pitzer form with the salt's row whose window holds T.");
+  m.def(
+      "single_salt_freezing_point",
+      [](const std::string& salt, const std::vector<double>& molality) {
+        std::vector<double> tf;
+        std::string set, reason;
+        for (double m : molality) {
+          const auto r = colligate::models::single_salt::freezing_point(salt, m);
+          tf.push_back(r.temperature);
+          set = r.parameter_set;
+          if (reason.empty()) reason = r.reason;
+        }
+        return std::make_tuple(tf, set, reason);
+      },
+      py::arg("salt"), py::arg("molality"),
+      "(freezing temperatures K, parameter set, first range reason) of one salt of "
+      "data/single_salt_pitzer.hpp at each molality (mol/kg), by its ice-line row.");
+  m.def(
+      "single_salt_closed_form_freezing_point",
+      [](int cation_charge, int anion_charge, int cation_count, int anion_count, double beta0,
+         double beta1, double cphi, const std::vector<double>& molality) {
+        auto p = colligate::data::single_salt_shape(cation_charge, anion_charge, cation_count,
+                                                    anion_count);
+        p.beta0 = beta0;
+        p.beta1 = beta1;
+        p.cphi = cphi;
+        std::vector<double> tf;
+        for (double m : molality) {
+          if (!std::isfinite(m) || m < 0.0)
+            throw colligate::invalid_input(colligate::detail::describe(
+                "single_salt_closed_form_freezing_point", "molality", m, "must be finite and >= 0"));
+          tf.push_back(colligate::models::single_salt::freezing_temperature_closed_form(p, m));
+        }
+        return tf;
+      },
+      py::arg("cation_charge"), py::arg("anion_charge"), py::arg("cation_count"),
+      py::arg("anion_count"), py::arg("beta0"), py::arg("beta1"), py::arg("cphi"),
+      py::arg("molality"),
+      "Freezing temperatures (K) of a salt of the given charges and counts with Pitzer "
+      "parameters beta0, beta1, C-phi (alpha1 = 2) held constant, at each molality (mol/kg); "
+      "no table row, no checks of range (for fits and their checks).");
   m.def(
       "single_salt_table",
       [] {
@@ -91,13 +131,14 @@ void register_electrolytes(py::module_& m) {
           d["alpha2"] = r.alpha2;
           d["max_molality"] = r.max_molality;
           d["source"] = r.source;
+          d["parameter_set"] = r.parameter_set;
+          d["min_temperature_K"] = r.min_temperature;
+          d["max_temperature_K"] = r.max_temperature;
           rows.append(d);
         }
-        return py::make_tuple(rows, colligate::data::single_salt_parameter_set_id,
-                              colligate::data::single_salt_temperature,
-                              colligate::data::single_salt_temperature_window);
+        return rows;
       },
-      "(rows, set id, temperature K, half-width K) of the single-salt Pitzer table.");
+      "The rows of the single-salt Pitzer table, one dict each.");
   m.def(
       "pitzer_osmotic_coefficient",
       [](const solution& s, double T, const std::string& set_id) {

@@ -15,6 +15,7 @@
 #include "colligate/fit/fitters.hpp"
 #include "colligate/fit/levenberg_marquardt.hpp"
 #include "colligate/fit/pitzer_fitter.hpp"
+#include "colligate/fit/single_salt_fitter.hpp"
 #include "register.hpp"
 
 namespace colligate_bindings {
@@ -292,6 +293,23 @@ Levenberg-Marquardt fit of ``model(x, p)`` (x: (n, d) array; returns n values) t
       py::arg("weights") = py::none(), py::arg("temperature_terms") = false,
       py::arg("beta2") = false, py::arg("table") = nullptr,
       "Pitzer beta0, beta1, C-phi of a salt from (molality mol/kg, initial freezing point K).");
+  m.def(
+      "fit_single_salt_freezing_point",
+      [](int cation_charge, int anion_charge, int cation_count, int anion_count,
+         const VectorXd& molality, const VectorXd& tf, const std::optional<VectorXd>& w,
+         bool fit_cphi) {
+        const auto shape =
+            data::single_salt_shape(cation_charge, anion_charge, cation_count, anion_count);
+        fit::single_salt_fit_options o;
+        o.fit_cphi = fit_cphi;
+        py::gil_scoped_release release;
+        return fit::fit_single_salt_freezing_point(shape, molality, tf, optional_vector(w), o);
+      },
+      py::arg("cation_charge"), py::arg("anion_charge"), py::arg("cation_count"),
+      py::arg("anion_count"), py::arg("molality"), py::arg("freezing_point"),
+      py::arg("weights") = py::none(), py::arg("fit_cphi") = true,
+      "Pitzer beta0, beta1, C-phi (closed binary form, alpha1 = 2) of a salt of any charge "
+      "type from (molality mol/kg, freezing point K), parameters constant over the data.");
   m.def(
       "pitzer_solute_record",
       [](const fit::fit_result& r, const std::string& salt, const std::string& id,

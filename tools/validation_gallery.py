@@ -131,6 +131,11 @@ def _gamma_single_salt(row) -> float:
     return float(table.mean_activity_coefficient.iloc[0])
 
 
+def _depression_single_salt(row) -> float:
+    cg = _cg()
+    return float(cg.single_salt_freezing_point(row.solute, row.molality_mol_per_kg).depression_K.iloc[0])
+
+
 def _osmotic_set(parameter_set) -> Callable:
     """Osmotic coefficient of a binary salt solution at the row's temperature, Pitzer with a
     named set (None: the default set)."""
@@ -320,6 +325,8 @@ QUANTITIES: dict[str, Quantity] = {
     "mean_activity_coefficient_single_salt": Quantity(_gamma_single_salt, "molality_mol_per_kg",
                                                       "molality, mol/kg", "salt", log_y=True,
                                                       relative=True),
+    "depression_single_salt_ice_line": Quantity(_depression_single_salt, "molality_mol_per_kg",
+                                                "molality, mol/kg", "solute"),
     "osmotic_coefficient_harvie_1984": Quantity(_osmotic_set("harvie_1984"), "molality_mol_per_kg",
                                                 "molality, mol/kg", "salt", relative=True),
     "osmotic_coefficient_default_set": Quantity(_osmotic_set(None), "molality_mol_per_kg",

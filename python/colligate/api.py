@@ -678,16 +678,18 @@ def pitzer_parameter_sets() -> list[str]:
 
 def single_salt_activity(salt: str, molality: Any, T: float = 298.15):
     """Osmotic coefficient, mean activity coefficient and water activity of one salt of food
-    in water at 25 C, from published Pitzer parameters (May et al. 2011) in the closed
-    binary form.
+    in water, from Pitzer parameters in the closed binary form.
 
     For salts the mixture model's ion tables do not hold: sodium and potassium acetate,
-    the sodium and potassium phosphates, carbonates and bicarbonates
+    trisodium citrate, the sodium and potassium phosphates, carbonates and bicarbonates
     (:func:`single_salt_parameters` lists them; ``salt`` is an id, name or formula).
-    ``molality`` in mol/kg of water, a number or an array. The parameters hold at 25 C only:
-    ``T`` (K) must lie within 0.5 K of 298.15 K, else :class:`InvalidInputError` names the
-    salt, the set and that range. A molality above the data behind the parameters warns
-    (:class:`OutOfValidityRangeWarning`).
+    ``molality`` in mol/kg of water, a number or an array. Each salt's rows hold in their
+    own temperature window: at 25 C (``T`` within 0.5 K of 298.15 K) the published
+    parameters of May et al. (2011); on the ice line (273.15 K down to the lowest fitted
+    freezing point) parameters fitted by colligate to CRC Handbook freezing points, for the
+    salts that have them. A ``T`` in no window of the salt raises
+    :class:`InvalidInputError` naming the salt, its sets and their windows. A molality
+    above the data behind the parameters warns (:class:`OutOfValidityRangeWarning`).
 
     Returns a pandas DataFrame with columns ``molality_mol_per_kg``,
     ``osmotic_coefficient``, ``mean_activity_coefficient`` and ``water_activity``.
@@ -703,21 +705,47 @@ def single_salt_activity(salt: str, molality: Any, T: float = 298.15):
                          "mean_activity_coefficient": np.exp(ln_gamma), "water_activity": aw})
 
 
-def single_salt_parameters():
-    """The Pitzer parameters at 25 C used by :func:`single_salt_activity`, one row per salt.
+def single_salt_freezing_point(salt: str, molality: Any):
+    """Freezing point of one salt of food in water by its ice-line Pitzer parameters.
 
-    A pandas DataFrame indexed by salt id with the name, formula, charges and
-    stoichiometry, molar mass (kg/mol), beta0, beta1, beta2, cphi, alpha1, alpha2, the top
-    of the molality range behind the fit (``max_molality``, mol/kg) and the source key
-    (:func:`citation`). The set's id, temperature (K) and the window around it are in
-    ``DataFrame.attrs``.
+    For the salts with a row in the ``colligate_ice_line_fit`` set of
+    :func:`single_salt_parameters` (fitted by colligate to CRC Handbook freezing points,
+    constant over the fitted freezing temperatures; A_phi follows T): the temperature at
+    which the solution's water activity equals that of ice. ``molality`` in mol/kg of
+    water, a number or an array. A salt without such a row raises
+    :class:`InvalidInputError` naming the sets it has; a molality above the fitted data, or
+    a freezing point below the lowest fitted one, warns
+    (:class:`OutOfValidityRangeWarning`).
+
+    Returns a pandas DataFrame with columns ``molality_mol_per_kg``, ``freezing_point_K``
+    and ``depression_K`` (below 273.15 K); ``DataFrame.attrs["parameter_set"]`` names the
+    set. An estimate: where freezing matters for safety, verify by measurement.
     """
     import pandas as pd
 
-    rows, set_id, temperature, window = _core.single_salt_table()
-    table = pd.DataFrame(list(rows)).set_index("id")
-    table.attrs.update({"parameter_set": set_id, "temperature_K": temperature, "window_K": window})
-    return table
+    m = np.atleast_1d(np.asarray(molality, dtype=float)).ravel()
+    tf, set_id, reason = _core.single_salt_freezing_point(str(salt), m.tolist())
+    _warn(reason)
+    tf = np.asarray(tf, dtype=float)
+    out = pd.DataFrame({"molality_mol_per_kg": m, "freezing_point_K": tf,
+                        "depression_K": _core.ICE_POINT - tf})
+    out.attrs["parameter_set"] = set_id
+    return out
+
+
+def single_salt_parameters():
+    """The Pitzer parameters used by :func:`single_salt_activity`, one row per salt and set.
+
+    A pandas DataFrame indexed by salt id (a salt may have a row at 25 C and one on the ice
+    line) with the name, formula, charges and stoichiometry, molar mass (kg/mol), beta0,
+    beta1, beta2, cphi, alpha1, alpha2, the top of the molality range behind the fit
+    (``max_molality``, mol/kg), the source key (:func:`citation`), the set
+    (``parameter_set``: ``may_2011`` or ``colligate_ice_line_fit``) and the window in which
+    the row is used (``min_temperature_K``, ``max_temperature_K``).
+    """
+    import pandas as pd
+
+    return pd.DataFrame(list(_core.single_salt_table())).set_index("id")
 
 
 def weak_acids():

@@ -49,6 +49,7 @@ __all__ = [
     "fit_norrish",
     "fit_effective_solute",
     "fit_pitzer",
+    "fit_single_salt",
     "load_solute",
     "solute_from_entry",
 ]
@@ -279,6 +280,11 @@ class FitResult:
         if not self.success:
             raise _core.ConvergenceError(
                 f"as_solute: the fit did not converge (status '{self.status}'); refusing to build a solute")
+        if self.model.startswith("single-salt"):
+            raise _core.InvalidInputError(
+                "as_solute: a single-salt Pitzer fit makes no solute for mixtures (its ions are not "
+                "in the Pitzer model's tables); use its params in the closed binary form, e.g. "
+                "colligate._core.single_salt_closed_form_freezing_point")
         sid = id or "_".join(name.lower().replace("-", " ").split())
         note = f"fitted by colligate.fit ({self.model}) to {self._core.n_points} points"
         if self.source.get("data"):
@@ -828,6 +834,57 @@ def fit_pitzer(salt: str, molality, osmotic_coefficient=None, water_activity=Non
     res = FitResult(core, model=f"pitzer {salt_id} ({kind})", x=m, y=y,
                     x_label="molality / (mol/kg)", y_label=ylab, source=src,
                     extra={"molality": m, "temperature": temps, "salt": salt_id, "table": table})
+    res._warn_if_poorly_determined()
+    return res
+
+
+def fit_single_salt(cation_charge: int, anion_charge: int, cation_count: int, anion_count: int,
+                    molality, freezing_point, weights=None, *, cphi: bool = True, data=None,
+                    data_name: Optional[str] = None) -> FitResult:
+    """Fit Pitzer's beta0, beta1 (and C-phi) of one salt of any charge type to the freezing
+    points of its solutions, in the closed binary form (alpha1 = 2, b = 1.2).
+
+    For salts whose ions the mixture model's tables do not hold (citrate, acetate,
+    phosphates, lactate...); :func:`fit_pitzer` fits salts of the mixture model's ions. The
+    parameters are taken as constant over the freezing temperatures of the data; A_phi
+    follows T.
+
+    Parameters
+    ----------
+    cation_charge, anion_charge : int
+        z of the cation (1 to 4) and of the anion (-1 to -4); 2:2 salts need beta2 and are
+        refused.
+    cation_count, anion_count : int
+        Ions per formula unit (trisodium citrate: 3 and 1); the unit must be neutral.
+    molality : array_like or str
+        Molality of each sample, mol/kg (or a column name of ``data``).
+    freezing_point : array_like or str
+        Freezing point of each sample, K (below 273.15 K).
+    weights : array_like or str, optional
+        Relative weights (e.g. 1/sigma^2); default all 1.
+    cphi : bool
+        Also fit C-phi (default). With data to about 1 mol/kg its interval often spans zero:
+        fit beta0 and beta1 alone then (C-phi = 0).
+
+    Returns
+    -------
+    FitResult
+        Parameters ``beta0``, ``beta1`` (kg/mol) and ``cphi`` (kg^2/mol^2), with standard
+        errors and confidence intervals. A poorly determined fit warns
+        (:class:`PoorlyDeterminedFitWarning`).
+    """
+    m = _column(molality, data, "molality")
+    tf = _column(freezing_point, data, "freezing_point")
+    w = _column(weights, data, "weights")
+    if m is None or tf is None:
+        raise _core.InvalidInputError("fit_single_salt: molality (mol/kg) and freezing_point (K) are required")
+    core = _core.fit_single_salt_freezing_point(int(cation_charge), int(anion_charge), int(cation_count),
+                                                int(anion_count), m, tf, w, fit_cphi=bool(cphi))
+    src = _provenance(data_name, [m, tf])
+    shape = f"{int(cation_count)}x({int(cation_charge):+d}) {int(anion_count)}x({int(anion_charge):+d})"
+    res = FitResult(core, model=f"single-salt pitzer {shape} (freezing point)", x=m, y=tf,
+                    x_label="molality / (mol/kg)", y_label="freezing point / K", source=src,
+                    extra={"molality": m})
     res._warn_if_poorly_determined()
     return res
 

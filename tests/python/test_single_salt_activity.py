@@ -60,20 +60,28 @@ def test_water_activity_and_arrays():
 
 def test_parameter_table_names_its_source_and_range():
     table = cg.single_salt_parameters()
-    assert table.attrs["parameter_set"] == "may_2011"
-    assert table.attrs["temperature_K"] == 298.15
-    assert set(table.source) == {"may_2011"}
-    assert "potassium_acetate" in table.index and "trisodium_phosphate" in table.index
+    assert set(table.parameter_set) == {"may_2011", "colligate_ice_line_fit"}
+    may = table[table.parameter_set == "may_2011"]
+    assert set(may.source) == {"may_2011"}
+    assert (may.min_temperature_K == 297.65).all() and (may.max_temperature_K == 298.65).all()
+    assert "potassium_acetate" in may.index and "trisodium_phosphate" in may.index
     assert (table.max_molality > 0).all() and (table.molar_mass_kg_per_mol > 0.05).all()
     assert "Pitzer" in cg.citation("may_2011")["title"]
     # the sodium acetate row as the copy gives it (May et al. 2011, pyEQL's database)
-    row = table.loc["sodium_acetate"]
+    row = may.loc["sodium_acetate"]
     assert (row.beta0, row.beta1, row.cphi) == (0.1382, 0.3317, -0.00496)
+    ice = table[table.parameter_set == "colligate_ice_line_fit"]
+    assert set(ice.index) == {"sodium_acetate", "trisodium_citrate", "monosodium_phosphate",
+                              "dipotassium_phosphate", "potassium_bicarbonate"}
+    assert set(ice.source) == {"colligate_fit_crc_pitzer"}
+    assert (ice.max_temperature_K == 273.15).all() and (ice.cphi == 0.0).all()
+    assert "fit_single_salt_ice_line.py" in cg.citation("colligate_fit_crc_pitzer")["container"]
 
 
 def test_bad_input_names_what_is_wrong():
     # a temperature away from 25 C: the salt, the set and its range are named
-    with pytest.raises(cg.InvalidInputError, match=r"sodium_acetate.*may_2011.*297.65 to 298.65 K"):
+    with pytest.raises(cg.InvalidInputError, match=r"sodium_acetate.*may_2011.*297.65 to 298.65 K"
+                                                    r".*colligate_ice_line_fit.*269.17 to 273.15 K"):
         cg.single_salt_activity("sodium_acetate", 1.0, T=268.15)
     # a salt the table does not hold: the salts it does hold are listed
     with pytest.raises(cg.InvalidInputError, match="potassium lactate.*sodium_acetate"):
@@ -84,3 +92,71 @@ def test_bad_input_names_what_is_wrong():
     with pytest.warns(cg.OutOfValidityRangeWarning, match="1.8 mol/kg"):
         out = cg.single_salt_activity("monopotassium_phosphate", 2.5)
     assert math.isfinite(out.water_activity.iloc[0])
+
+
+def _ice_line_check():
+    with open(REFERENCE / "tolerances.toml", "rb") as fh:
+        check = next(c for c in tomllib.load(fh)["check"] if c["id"] == "crc_single_salt_ice_line")
+    table = pd.read_csv(REFERENCE / check["file"], keep_default_na=False).query(check["rows"])
+    plus = table[check["tolerance_plus"]["column"]].map(check["tolerance_plus"]["values"])
+    return check, table, float(check["tolerance"]) + plus
+
+
+def test_freezing_points_vs_crc_held_out_rows():
+    # CRC Handbook 102nd ed. (2021) freezing-point depressions of sodium acetate and sodium
+    # citrate (tests/reference/crc_freezing_points.csv), the rows not used in the fit of the
+    # ice-line rows; limits of check crc_single_salt_ice_line.
+    check, table, tolerance = _ice_line_check()
+    assert set(table.source_key) == {"crc_concentrative"} and set(table.used_in_fit) == {"no"}
+    assert table.solute.value_counts().to_dict() == {
+        "trisodium_citrate": 7, "sodium_acetate": 4, "monosodium_phosphate": 9, "dipotassium_phosphate": 7,
+        "potassium_bicarbonate": 6}
+    for (_, row), tol in zip(table.iterrows(), tolerance):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")  # no row beyond the fitted range
+            out = cg.single_salt_freezing_point(row.solute, row.molality_mol_per_kg)
+        assert out.attrs["parameter_set"] == "colligate_ice_line_fit"
+        assert abs(out.depression_K.iloc[0] - row.depression_K) <= tol, (row.solute, row.molality_mol_per_kg)
+
+
+def test_ice_line_rows_are_what_the_tool_fits():
+    # Provenance: rerunning tools/fit_single_salt_ice_line.py's fit gives the constants in
+    # data/single_salt_pitzer.hpp (to their printed digits), and each kept fit is well
+    # determined; the fits it does not keep are the ones its rule rejects.
+    import importlib.util
+    spec = importlib.util.spec_from_file_location(
+        "fit_single_salt_ice_line", REFERENCE.parents[1] / "tools" / "fit_single_salt_ice_line.py")
+    tool = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(tool)
+    table = cg.single_salt_parameters()
+    ice = table[table.parameter_set == "colligate_ice_line_fit"]
+    for salt, row in ice.iterrows():
+        r, fitted, _ = tool.fit_salt(salt)
+        assert r.success and not r.poorly_determined()
+        assert r.params["beta0"] == pytest.approx(row.beta0, rel=1e-6)
+        assert r.params["beta1"] == pytest.approx(row.beta1, rel=1e-6)
+        assert row.max_molality == fitted.molality_mol_per_kg.max()
+        assert row.min_temperature_K == pytest.approx(fitted.freezing_point_K.min(), abs=1e-9)
+    for salt in set(tool.SALTS) - set(ice.index):  # the salts the tool's rule does not keep
+        r, _, _ = tool.fit_salt(salt)
+        assert r.poorly_determined(), salt
+
+
+def test_fit_single_salt_recovers_parameters_and_refuses_mixture_use():
+    # Identity: freezing points made by the closed form with known 3:1 parameters are fitted
+    # back to them; a single-salt fit makes no solute for mixtures.
+    m = np.linspace(0.05, 1.0, 8)
+    tf = cg._core.single_salt_closed_form_freezing_point(1, -3, 3, 1, 0.18, 4.3, -0.02, m.tolist())
+    # with data to 1 mol/kg beta0 and C-phi are nearly collinear: the fit says so
+    with pytest.warns(cg.fit.PoorlyDeterminedFitWarning, match="beta0 and cphi"):
+        r = cg.fit.fit_single_salt(1, -3, 3, 1, m, tf)
+    assert r.success
+    assert r.params["beta0"] == pytest.approx(0.18, abs=1e-7)
+    assert r.params["beta1"] == pytest.approx(4.3, abs=1e-6)
+    assert r.params["cphi"] == pytest.approx(-0.02, abs=1e-7)
+    with pytest.raises(cg.InvalidInputError, match="single-salt"):
+        r.as_solute("my citrate")
+    with pytest.raises(cg.InvalidInputError, match="not neutral"):
+        cg.fit.fit_single_salt(1, -3, 1, 1, m, tf)
+    with pytest.raises(cg.InvalidInputError, match="single_salt_freezing_point|ice line"):
+        cg.single_salt_freezing_point("KH2PO4", 0.5)

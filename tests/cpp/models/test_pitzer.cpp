@@ -375,6 +375,41 @@ TEST_CASE("ZSR: the water each class needs alone at the mixture's activity adds 
   }
 }
 
+TEST_CASE("the Ross-ZSR comparison decides as the converged ZSR value does", "[models][ross][zsr]") {
+  // Identity: check() stops the ZSR solve once its bracket lies within 0.005 of a_w(Ross);
+  // the flag must then be the one the converged ZSR value gives. A grid of NaCl + sucrose
+  // from dilute to concentrated crosses the 0.005 limit (the rules part as both classes
+  // concentrate), at 298.15 K and on the ice line's temperatures. Each bracket the solve
+  // reports holds the converged value.
+  int flagged = 0, agreed = 0;
+  for (const double T : {298.15, 263.15}) {
+    for (double m_salt = 0.25; m_salt <= 4.0; m_salt += 0.25) {
+      for (double m_sugar = 0.25; m_sugar <= 4.0; m_sugar += 0.25) {
+        const auto mix = solution::from_molalities({{"NaCl", m_salt}, {"sucrose", m_sugar}});
+        models::detail::ross_system sys(mix, models::pitzer::default_parameters());
+        const double* n = mix.moles().data();
+        const double a_ross = std::exp(sys.ln_water_activity(n, 1.0, T));
+        const double a_zsr = std::exp(models::detail::zsr_ln_water_activity(sys, n, 1.0, T));
+        const bool exact_flag = !(std::abs(a_ross - a_zsr) <= models::ross::max_rule_disagreement);
+        const auto v = models::ross::check(mix, 1.0, T);
+        const bool rules_flag = v.code == validity_code::rules_disagree;
+        // A state outside a class's own range is flagged before the rules are compared.
+        if (!rules_flag && !v.in_range()) continue;
+        CHECK(rules_flag == exact_flag);
+        (exact_flag ? flagged : agreed) += 1;
+        std::array<double, 2> bracket;
+        models::detail::zsr_ln_water_activity(
+            sys, n, 1.0, T, sys.ln_electrolytes(n, 1.0, T), sys.ln_non_electrolytes(n, 1.0),
+            [](double, double) { return true; }, bracket);
+        CHECK(bracket[0] <= std::log(a_zsr) + 1e-12);
+        CHECK(std::log(a_zsr) <= bracket[1] + 1e-12);
+      }
+    }
+  }
+  CHECK(flagged > 0);  // the grid reaches both sides of the limit
+  CHECK(agreed > 0);
+}
+
 TEST_CASE("a salt column with zero amount does not trigger the combining-rule flag",
           "[models][ross]") {
   // Identity: with no salt, Ross and ZSR both reduce to the non-electrolyte model.

@@ -579,6 +579,32 @@ TEST_CASE("mean activity coefficients at 25 C of salts of food against the CRC t
   CHECK(n == 42);
 }
 
+TEST_CASE("freezing points of salts of food by single-salt Pitzer rows fitted on the ice line",
+          "[validation][pitzer][single_salt]") {
+  // CRC Handbook 102nd ed. (2021), "Concentrative Properties of Aqueous Solutions", sodium
+  // acetate, sodium citrate (anhydrous molality), NaH2PO4, K2HPO4 and KHCO3, the rows within
+  // the fitted molalities not used in the fit
+  // (tools/fit_single_salt_ice_line.py); limits of check crc_single_salt_ice_line.
+  const auto& c = tolerances::find("crc_single_salt_ice_line");
+  std::map<std::string, int> checked;
+  for (const auto& r : tolerances::rows(c)) {
+    REQUIRE(r.at("used_in_fit") == "no");
+    const std::string salt = r.at("solute");
+    const double m = num(r, "molality_mol_per_kg");
+    INFO(salt << " " << m << " mol/kg [" << r.at("source_key") << ", held out]");
+    const auto f = models::single_salt::freezing_point(salt, m);
+    CHECK(f.reason.empty());
+    CHECK(f.parameter_set == data::single_salt_ice_line_set_id);
+    CHECK_THAT(constants::ice_point - f.temperature,
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++checked[salt];
+  }
+  CHECK(checked == std::map<std::string, int>{{"sodium_acetate", 4}, {"trisodium_citrate", 7},
+                                              {"monosodium_phosphate", 9},
+                                              {"dipotassium_phosphate", 7},
+                                              {"potassium_bicarbonate", 6}});
+}
+
 // --- 25 C osmotic coefficients from published isopiestic molalities (issue 12) -------------
 
 namespace {

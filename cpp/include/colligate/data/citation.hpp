@@ -70,6 +70,13 @@ inline const std::vector<citation>& citations() {
        "Constants fitted by colligate to the CRC Handbook freezing-point depressions",
        "colligate source tree: tools/fit_crc_norrish.py and tests/reference/crc_freezing_points.csv",
        "", "least-squares fit of Norrish constants to the rows named beside each constant"},
+      {"colligate_fit_crc_pitzer", "colligate developers", 2026,
+       "Single-salt Pitzer parameters fitted by colligate to the CRC Handbook freezing-point "
+       "depressions",
+       "colligate source tree: tools/fit_single_salt_ice_line.py (fit/single_salt_fitter.hpp) and "
+       "tests/reference/crc_freezing_points.csv",
+       "", "least-squares fit of beta0 and beta1 (C-phi = 0) to every other CRC row of the salt, "
+       "constant over the fitted freezing temperatures; the other rows held out"},
       {"melinder_2010", "Melinder, A.", 2010,
        "Properties of secondary working fluids for indirect systems",
        "International Institute of Refrigeration, Paris", "ISBN 978-2-913149-76-3 (from memory)",

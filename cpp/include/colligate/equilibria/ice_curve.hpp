@@ -885,7 +885,7 @@ class ice_curve {
     r.state = salts ? phase_state::ice_salts_liquid : phase_state::ice_and_liquid;
     r.status = solve_status::converged;
     r.check = ln_aw_->check(Wu, r.temperature);
-    r.check.merge(water::ice_temperature_validity(r.temperature));
+    water::merge_ice_temperature_validity(r.check, r.temperature);
     return r;
   }
 

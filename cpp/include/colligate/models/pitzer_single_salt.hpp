@@ -15,19 +15,27 @@
 ///
 /// with A_phi(T) of Clegg, Rard & Pitzer (1994) (models/detail/pitzer_kernel.hpp), the
 /// same function the mixture kernel uses, so a salt both tables hold gives the same values
-/// in both (tested). It serves the salts of data/single_salt_pitzer.hpp, whose parameters
-/// hold at 25 C only: a temperature further than 0.5 K from 298.15 K is an error naming the
-/// salt, the set and that range; a molality above the data behind the fit is computed and
-/// flagged (`reason`).
+/// in both (tested). It serves the salts of data/single_salt_pitzer.hpp, whose rows each hold
+/// in one temperature window (25 C for the may_2011 set; the ice line, 273.15 K down to the
+/// lowest fitted freezing point, for the colligate_ice_line_fit set): a temperature in no
+/// window of the salt is an error naming the salt, its sets and their windows; a molality
+/// above the data behind the fit is computed and flagged (`reason`).
+///
+/// The freezing point of one salt solution is the T at which ln a_w(m, T) equals
+/// ln a_w,ice(T) (water/ice.hpp), with the salt's ice-line row and A_phi(T).
 
+#include <array>
 #include <cmath>
+#include <limits>
 #include <sstream>
 #include <string>
 
 #include "colligate/core/constants.hpp"
 #include "colligate/core/errors.hpp"
 #include "colligate/data/single_salt_pitzer.hpp"
+#include "colligate/core/roots.hpp"
 #include "colligate/models/detail/pitzer_kernel.hpp"
+#include "colligate/water/ice.hpp"
 
 namespace colligate::models::single_salt {
 
@@ -62,35 +70,122 @@ inline activity evaluate_closed_form(const data::single_salt_parameters& p, doub
   return r;
 }
 
-/// Osmotic coefficient, mean activity coefficient and water activity of `salt` (id, name
-/// or formula of data::single_salt_table()) at molality m (mol/kg of water) and
-/// temperature T (K).
-inline activity evaluate(const std::string& salt, double molality, double temperature) {
-  const auto& p = data::find_single_salt(salt);
+/// The weights of beta0..C-phi in phi at molality m: phi = phi_DH + sum_j g_j p_j with
+/// p = (beta0, beta1, beta2, C-phi) (the closed form is linear in them).
+inline std::array<double, 4> osmotic_parameter_weights(const data::single_salt_parameters& p,
+                                                       double m) {
+  const double nm = p.cation_count, nx = p.anion_count, nu = nm + nx;
+  const double I = 0.5 * m *
+                   (nm * p.cation_charge * p.cation_charge + nx * p.anion_charge * p.anion_charge);
+  const double sI = std::sqrt(I);
+  const double wb = 2.0 * nm * nx / nu, wc = 2.0 * std::pow(nm * nx, 1.5) / nu;
+  return {m * wb, m * wb * std::exp(-p.alpha1 * sI), m * wb * std::exp(-p.alpha2 * sI),
+          m * m * wc};
+}
+
+/// d ln a_w / dT at molality m (1/K): the Debye-Hueckel term through A_phi(T); the
+/// parameters are constant within a row's window.
+inline double ln_water_activity_temperature_slope(const data::single_salt_parameters& p, double m,
+                                                  double temperature) {
+  constexpr double b = 1.2;
+  const double nm = p.cation_count, nx = p.anion_count, nu = nm + nx;
+  const double zz = std::abs(static_cast<double>(p.cation_charge * p.anion_charge));
+  const double sI = std::sqrt(
+      0.5 * m * (nm * p.cation_charge * p.cation_charge + nx * p.anion_charge * p.anion_charge));
+  const double dphi_dT =
+      -zz * sI / (1.0 + b * sI) * models::detail::debye_huckel_osmotic_slope_derivative(temperature);
+  return -dphi_dT * nu * m * constants::molar_mass_water;
+}
+
+/// Freezing temperature (K) of the salt at molality m (mol/kg) with the row's parameters
+/// held constant: the root of ln a_w(m, T) - ln a_w,ice(T) on [215 K, 273.15 K] by TOMS 748
+/// (the difference falls with T there: a_w,ice falls faster than a_w). NaN when the
+/// solution does not freeze above 215 K. No checks of the row's window.
+inline double freezing_temperature_closed_form(const data::single_salt_parameters& p, double m) {
+  if (m == 0.0) return constants::ice_point;
+  const double nu_m_mw = (p.cation_count + p.anion_count) * m * constants::molar_mass_water;
+  const auto h = [&](double T) {
+    const double phi =
+        evaluate_closed_form(p, m, models::detail::debye_huckel_osmotic_slope(T)).osmotic_coefficient;
+    return -phi * nu_m_mw - water::ln_water_activity_of_ice(T);
+  };
+  const double lo = water::ice_model_lowest_temperature, hi = constants::ice_point;
+  const auto r = toms748_root(h, lo, hi, h(lo), h(hi), 52, 100);
+  return r.status == root_status::converged ? r.x : std::numeric_limits<double>::quiet_NaN();
+}
+
+namespace input {
+
+inline void check_molality(const data::single_salt_parameters& p, double molality,
+                           const char* where) {
   if (!std::isfinite(molality) || molality < 0.0) {
     std::ostringstream os;
-    os << "single-salt activity: molality of '" << p.id << "' = " << molality
+    os << where << ": molality of '" << p.id << "' = " << molality
        << " mol/kg: must be finite and >= 0";
     throw invalid_input(os.str());
   }
-  if (!(std::abs(temperature - data::single_salt_temperature) <= data::single_salt_temperature_window)) {
-    std::ostringstream os;
-    os << "single-salt activity: T = " << temperature << " K for '" << p.id << "': parameter set '"
-       << data::single_salt_parameter_set_id << "' holds at 25 C only (" 
-       << data::single_salt_temperature - data::single_salt_temperature_window << " to "
-       << data::single_salt_temperature + data::single_salt_temperature_window
-       << " K; no temperature functions are published with it)";
-    throw invalid_input(os.str());
-  }
-  auto r = evaluate_closed_form(p, molality, detail::debye_huckel_osmotic_slope(temperature));
-  if (molality > p.max_molality) {
-    std::ostringstream os;
-    os << "single-salt activity: molality of '" << p.id << "' = " << molality << " mol/kg: above "
-       << p.max_molality << " mol/kg, the top of the data behind its parameters ["
-       << p.source << "]";
-    r.reason = os.str();
-  }
+}
+
+inline std::string above_data(const data::single_salt_parameters& p, double molality,
+                              const char* where) {
+  if (!(molality > p.max_molality)) return {};
+  std::ostringstream os;
+  os << where << ": molality of '" << p.id << "' = " << molality << " mol/kg: above "
+     << p.max_molality << " mol/kg, the top of the data behind its parameters ['"
+     << p.parameter_set << "', " << p.source << "]";
+  return os.str();
+}
+
+}  // namespace input
+
+/// Osmotic coefficient, mean activity coefficient and water activity of `salt` (id, name
+/// or formula of data::single_salt_table()) at molality m (mol/kg of water) and
+/// temperature T (K), with the salt's row whose window holds T.
+inline activity evaluate(const std::string& salt, double molality, double temperature) {
+  input::check_molality(data::find_single_salt(salt), molality, "single-salt activity");
+  const auto& p = data::find_single_salt(salt, temperature);
+  auto r = evaluate_closed_form(p, molality, models::detail::debye_huckel_osmotic_slope(temperature));
+  r.reason = input::above_data(p, molality, "single-salt activity");
   return r;
+}
+
+/// A freezing point of one salt solution; `reason` is empty inside the row's range.
+struct freezing_point_result {
+  double temperature = constants::ice_point;  ///< K; NaN when none above 215 K
+  std::string parameter_set;                  ///< the row's set
+  std::string reason;
+};
+
+/// Freezing point of `salt` at molality m (mol/kg) by its ice-line row
+/// (data::single_salt_ice_line_set_id). A salt with no ice-line row is an error naming the
+/// sets it has; a molality above the fitted data, or a freezing point below the row's window,
+/// is computed and flagged.
+inline freezing_point_result freezing_point(const std::string& salt, double molality) {
+  const auto& first = data::find_single_salt(salt);
+  input::check_molality(first, molality, "single-salt freezing point");
+  const data::single_salt_parameters* row = nullptr;
+  std::string sets;
+  for (const auto& r : data::single_salt_table()) {
+    if (!data::single_salt_is(r, salt)) continue;
+    if (r.parameter_set == data::single_salt_ice_line_set_id) row = &r;
+    sets += (sets.empty() ? "'" : ", '") + r.parameter_set + "'";
+  }
+  if (!row)
+    throw invalid_input("single-salt freezing point: '" + first.id +
+                        "' has no parameters on the ice line (set '" +
+                        data::single_salt_ice_line_set_id + "'); its sets: " + sets);
+  freezing_point_result out;
+  out.parameter_set = row->parameter_set;
+  out.temperature = freezing_temperature_closed_form(*row, molality);
+  out.reason = input::above_data(*row, molality, "single-salt freezing point");
+  if (out.reason.empty() && out.temperature < row->min_temperature) {
+    std::ostringstream os;
+    os << "single-salt freezing point: " << out.temperature << " K for '" << row->id
+       << "' lies below " << row->min_temperature << " K, the lowest freezing point fitted ['"
+       << row->parameter_set << "', " << row->source << "]";
+    out.reason = os.str();
+  }
+  return out;
 }
 
 }  // namespace colligate::models::single_salt
