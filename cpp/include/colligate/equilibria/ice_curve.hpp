@@ -491,7 +491,9 @@ class ice_curve {
     return best;
   }
   bool on_path(std::size_t c) const {
-    return std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
+    // No onset yet (the first-solid test of every freezing point): nothing to search.
+    return !onset_candidate_.empty() &&
+           std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
   }
 
   /// ln a_w,ice(T), kept for the last temperature asked (a batch asks every row at the same
