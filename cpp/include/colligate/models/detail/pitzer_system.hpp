@@ -252,9 +252,8 @@ class pitzer_system {
   /// ln_gamma_on_molalities with each parameter replaced by the end of its range over the
   /// bin of width bound_bin_width holding T that makes the term largest (the molalities,
   /// g(x) >= 0, g'(x) <= 0, Z and the charges fix the sign of every factor): each parameter
-  /// is sum_k a_k v_k(T) with every basis function v_k monotone in T, so its range over the
-  /// bin lies within the sum of the ranges of a_k v_k, taken at the bin's ends and widened
-  /// by 1e-12 of their magnitudes for rounding. A_phi and E-theta, E-theta' (J(x) at
+  /// over the bin lies between its values at the bin's ends widened by the largest distance
+  /// of a C2 function from its chord (parameter_ranges). A_phi and E-theta, E-theta' (J(x) at
   /// x = 6 z z' A_phi(T) sqrt I) are the exact values of ln_gamma_on_molalities. The
   /// parameter ranges of a bin are computed the first time it is used and kept (they depend
   /// on the parameter rows alone). False (nothing written) when no bound is available: T
@@ -848,18 +847,28 @@ class pitzer_system {
     lo = r;
     hi = r + max_linear_rows;
     if (bin_filled_[b]) return;
+    // Each parameter P(T) = sum_k a_k v_k(T) at the bin's ends, and its distance from the
+    // straight line between them, at most (Tb - Ta)^2 / 8 max|P''| (a C2 function on an
+    // interval), with |P''| <= sum_k |a_k| max|v_k''|: v_k'' is 0, 2/T^3, -1/T^2, 0, 2 and
+    // 6/T^4 for the basis 1, 1/T - 1/T_r, ln(T/T_r), T - T_r, T^2 - T_r^2, 1/T^2 - 1/T_r^2,
+    // each largest in magnitude at Ta. Widened by 1e-12 of the magnitudes summed for the
+    // rounding of this and of at().
     const t_basis va(Ta), vb(Tb);
+    const double h = Tb - Ta;
+    const std::array<double, 6> d2 = {0.0, 2.0 / (Ta * Ta * Ta), 1.0 / (Ta * Ta), 0.0, 2.0,
+                                      6.0 / (Ta * Ta * Ta * Ta)};
     for (std::size_t row = 0; row < n_linear_; ++row) {
-      double l = 0.0, h = 0.0, size = 0.0;
+      double pa = 0.0, pb = 0.0, size = 0.0, curvature = 0.0;
       for (std::size_t k = 0; k < 6; ++k) {
-        const double x = linear_cols_[k][row] * va.v[k], y = linear_cols_[k][row] * vb.v[k];
-        l += std::min(x, y);
-        h += std::max(x, y);
-        size += std::max(std::abs(x), std::abs(y));
+        const double a = linear_cols_[k][row];
+        pa += a * va.v[k];
+        pb += a * vb.v[k];
+        size += std::max(std::abs(a * va.v[k]), std::abs(a * vb.v[k]));
+        curvature += std::abs(a) * d2[k];
       }
-      const double slack = 1e-12 * size + 1e-300;
-      r[row] = l - slack;
-      r[max_linear_rows + row] = h + slack;
+      const double slack = h * h / 8.0 * curvature * (1.0 + 1e-12) + 1e-12 * size + 1e-300;
+      r[row] = std::min(pa, pb) - slack;
+      r[max_linear_rows + row] = std::max(pa, pb) + slack;
     }
     bin_filled_[b] = 1;
   }
