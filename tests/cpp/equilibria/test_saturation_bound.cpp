@@ -24,13 +24,14 @@ using namespace colligate;
 
 namespace {
 
-/// Exact first-solid decision at the ice freezing point of `s` (Pitzer, default set): the
-/// largest saturation index of the phases there, on the scalar saturation routine.
-double exact_max_saturation(const solution& s) {
-  const auto fp = equilibria::freezing_point(s, "pitzer");
+/// Exact first-solid decision at the ice freezing point of `s` under `model` (ion
+/// activities from the default Pitzer set, a_w of the whole solution): the largest
+/// saturation index of the phases there, on the scalar saturation routine.
+double exact_max_saturation(const solution& s, const char* model = "pitzer") {
+  const auto fp = equilibria::freezing_point(s, model);
   REQUIRE(fp.success());
   const double W = s.water_mass();
-  const double ln_aw = models::ln_water_activity("pitzer", s, W, fp.temperature);
+  const double ln_aw = models::ln_water_activity(model, s, W, fp.temperature);
   return equilibria::most_saturated_phase(s, W, fp.temperature, ln_aw).index;
 }
 
@@ -50,12 +51,12 @@ solution seawater_with_sulfate(double SA, double sulfate) {
 /// The parameter x in [lo, hi] where exact_max_saturation(make(x)) crosses zero (bisection;
 /// saturated at hi, not at lo).
 template <class Make>
-double onset(Make make, double lo, double hi) {
-  REQUIRE(exact_max_saturation(make(lo)) < 0.0);
-  REQUIRE(exact_max_saturation(make(hi)) > 0.0);
+double onset(Make make, double lo, double hi, const char* model = "pitzer") {
+  REQUIRE(exact_max_saturation(make(lo), model) < 0.0);
+  REQUIRE(exact_max_saturation(make(hi), model) > 0.0);
   for (int k = 0; k < 50; ++k) {
     const double mid = 0.5 * (lo + hi);
-    (exact_max_saturation(make(mid)) > 0.0 ? hi : lo) = mid;
+    (exact_max_saturation(make(mid), model) > 0.0 ? hi : lo) = mid;
   }
   return 0.5 * (lo + hi);
 }
@@ -63,12 +64,12 @@ double onset(Make make, double lo, double hi) {
 /// The first solid with the bound in front (ice_curve::salt_first) against the exact
 /// decision, on rows at relative distances 1e-1 ... 1e-4 either side of the onset.
 template <class Make>
-void check_around_onset(Make make, double x0) {
+void check_around_onset(Make make, double x0, const char* model = "pitzer") {
   int saturated = 0, not_saturated = 0;
   for (double d : {-1e-1, -1e-2, -1e-3, -1e-4, 1e-4, 1e-3, 1e-2, 1e-1}) {
     const auto s = make(x0 * (1.0 + d));
-    const double si = exact_max_saturation(s);
-    equilibria::ice_curve curve(s, "pitzer");
+    const double si = exact_max_saturation(s, model);
+    equilibria::ice_curve curve(s, model);
     const auto first = curve.salt_first();
     INFO("relative distance " << d << ", exact largest SI " << si);
     CHECK((first.phase != nullptr) == (si > 0.0));
@@ -133,4 +134,14 @@ TEST_CASE("first solid with the saturation bound in front is the exact test's ne
   const auto make = [](double m) { return solution::from_molalities({{"Na2SO4", m}}); };
   const double x0 = onset(make, 0.05, 1.5);
   check_around_onset(make, x0);
+}
+
+TEST_CASE("first solid with the saturation bound in front is the exact test's for a Na2SO4 + sucrose mixture (Ross)",
+          "[equilibria][saturation_bound][ross]") {
+  // The sugar lowers a_w (and the freezing point), so mirabilite comes at another Na2SO4.
+  const auto make = [](double m) {
+    return solution::from_molalities({{"Na2SO4", m}, {"sucrose", 0.5}});
+  };
+  const double x0 = onset(make, 0.05, 1.5, "ross");
+  check_around_onset(make, x0, "ross");
 }
