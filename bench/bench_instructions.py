@@ -25,7 +25,7 @@ import tempfile
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 ROOT = os.path.dirname(HERE)
-KERNELS = ("freezing_point", "ice_fraction", "ross")
+KERNELS = ("freezing_point", "ice_fraction", "seawater", "ross")
 
 
 def build(checkout: str, out: str) -> None:

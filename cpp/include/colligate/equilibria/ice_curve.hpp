@@ -401,7 +401,7 @@ class ice_curve {
     // evaluator's molality-only terms are reused, models/detail/pitzer_system.hpp).
     const salt_phase* ph = nullptr;
     n_liq_ = n0_;
-    if (max_saturation_in(fp.temperature, W_, &ph) > 0.0) {
+    if (!saturation_ruled_out(fp.temperature, W_) && max_saturation_in(fp.temperature, W_, &ph) > 0.0) {
       end_ = curve_end::saturated_before_ice;
       end_temperature_ = fp.temperature;
       saturated_phase_ = ph;
@@ -430,6 +430,7 @@ class ice_curve {
       if (present) candidates_.push_back(std::move(c));
     }
     ln_act_.assign(n_slots_, 0.0);
+    ln_act_hi_.assign(n_slots_, 0.0);
     n_liq_.assign(n_slots_, 0.0);
   }
 
@@ -469,6 +470,33 @@ class ice_curve {
     return ions_->ln_water_activity_of_ions(n_liq_.data(), Wu, T, ln_act_.data());
   }
 
+  /// Whether no candidate can be saturated in the liquid n_liq_ in `water_kg` at the
+  /// freezing point T of that liquid, decided on upper bounds of the saturation indices
+  /// (the first-solid test, which max_saturation_in() then need not run): each ln(m gamma)
+  /// from the model's upper bounds (ion_activity_model::ln_activity_upper_bounds), ln a_w
+  /// from the ice line at T plus 1e-6 (the freezing-point solve leaves ln a_w within about
+  /// 1e-11 of it: steps below 1e-9 K, |d(ln a_w - ln a_w,ice)/dT| below 0.02 per K), and
+  /// ln K as max_saturation_in() computes it. Every bound below -1e-6 (far beyond the
+  /// rounding of either computation) rules the candidate out; false (run the exact test)
+  /// when any is not, or when the model gives no bound. So the decision, and every result,
+  /// is the exact test's.
+  bool saturation_ruled_out(double T, double water_kg) {
+    for (double n : n_liq_)
+      if (!(n >= 0.0)) return false;
+    if (!(T < constants::ice_point)) return false;
+    if (!ions_->ln_activity_upper_bounds(n_liq_.data(), water_kg, T, ln_act_hi_.data())) return false;
+    const double ln_aw_hi = ice_line(T) + 1e-6;
+    const double log10_t = std::log10(T);
+    for (std::size_t c = 0; c < candidates_.size(); ++c) {
+      if (on_path(c)) continue;
+      const candidate& k = candidates_[c];
+      double si = k.phase->water * ln_aw_hi - k.phase->ln_k(T, log10_t, k.shift);
+      for (const auto& [slot, count] : k.slots) si += count * ln_act_hi_[slot];
+      if (!(si < -1e-6)) return false;
+    }
+    return true;
+  }
+
   /// Largest saturation index over the candidates not yet on the path, at the state `st`
   /// (whose xi are already applied to n_liq_ by the caller when relevant).
   double max_saturation(double T, const liquid_state& st, const salt_phase** which) {
@@ -491,7 +519,9 @@ class ice_curve {
     return best;
   }
   bool on_path(std::size_t c) const {
-    return std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
+    // No onset yet (the first-solid test of every freezing point): nothing to search.
+    return !onset_candidate_.empty() &&
+           std::find(onset_candidate_.begin(), onset_candidate_.end(), c) != onset_candidate_.end();
   }
 
   /// ln a_w,ice(T), kept for the last temperature asked (a batch asks every row at the same
@@ -960,6 +990,7 @@ class ice_curve {
   // salt path
   std::size_t n_slots_ = 0;
   std::vector<double> n0_, n_liq_, ln_act_, work_xi_;
+  std::vector<double> ln_act_hi_;  ///< saturation_ruled_out(): bounds of ln(m gamma) per slot
   std::vector<candidate> candidates_;
   std::vector<salt_onset> onsets_;
   std::vector<std::size_t> onset_candidate_;

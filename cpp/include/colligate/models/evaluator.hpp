@@ -42,6 +42,14 @@ class ion_activity_model {
   /// The Pitzer parameter set the activities come from (its solubility-product shifts go
   /// with it: data::pitzer_parameter_set::solubility_shifts).
   virtual const data::pitzer_parameter_set& parameter_set() const = 0;
+  /// Upper bounds of ln(m_i gamma_i) per slot for `ion_moles` in `water_kg` at T, each at
+  /// least the ln_activity that ln_water_activity_of_ions gives (-inf for an ion with zero
+  /// amount), cheaper than it: a caller may rule a salt out on them and run the exact test
+  /// otherwise. False (nothing written) when the model gives no bound (the default).
+  virtual bool ln_activity_upper_bounds(const double* /*ion_moles*/, double /*water_kg*/,
+                                        double /*temperature*/, double* /*ln_activity_hi*/) {
+    return false;
+  }
 };
 
 /// A model prepared for one species list.

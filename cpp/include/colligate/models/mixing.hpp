@@ -359,6 +359,11 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
            system_.ln_non_electrolytes(s_->moles().data(), water_kg);
   }
   const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
+  /// The ions' bounds (Pitzer on their molalities, as ln_activity above).
+  bool ln_activity_upper_bounds(const double* n, double water_kg, double temperature,
+                                double* ln_activity_hi) override {
+    return ions_->ln_activity_upper_bounds(n, water_kg, temperature, ln_activity_hi);
+  }
 
  private:
   const solution* s_;

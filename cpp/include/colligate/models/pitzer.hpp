@@ -414,6 +414,18 @@ class pitzer_system_ions {
     }
     return osm.total_molality + osm.osmotic_excess + ideal / water_kg;
   }
+  /// Upper bounds of ln(m_i gamma_i) per slot (ion_activity_model::ln_activity_upper_bounds;
+  /// pitzer_system::ln_gamma_upper_bounds), on the molalities particle_sum uses.
+  bool ln_activity_upper_bounds(const double* n, double water_kg, double T, double* ln_activity_hi) {
+    std::array<double, n_ions> m{}, ln_gamma{};
+    const std::size_t k_max = ion_slots();
+    for (std::size_t k = 0; k < k_max; ++k) m[k] = n[k] / water_kg;
+    if (!system_->ln_gamma_upper_bounds(m.data(), T, ln_gamma.data())) return false;
+    for (std::size_t k = 0; k < k_max; ++k)
+      ln_activity_hi[k] = m[k] > 0.0 ? std::log(m[k]) + ln_gamma[k]
+                                     : -std::numeric_limits<double>::infinity();
+    return true;
+  }
 
  private:
   pitzer_system* system_;
@@ -458,6 +470,10 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
     return -constants::molar_mass_water * ions_.particle_sum(n, water_kg, temperature, ln_activity);
   }
   const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
+  bool ln_activity_upper_bounds(const double* n, double water_kg, double temperature,
+                                double* ln_activity_hi) override {
+    return ions_.ln_activity_upper_bounds(n, water_kg, temperature, ln_activity_hi);
+  }
 
  private:
   const solution* s_;

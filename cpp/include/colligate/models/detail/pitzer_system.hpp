@@ -240,6 +240,102 @@ class pitzer_system {
     if (osm != nullptr) *osm = r;
   }
 
+  /// Lowest and highest temperature (K) of the bins of ln_gamma_upper_bounds, and their width.
+  static constexpr double bound_bins_min_temperature = 223.15;
+  static constexpr double bound_bin_width = 0.5;
+  static constexpr std::size_t bound_bins = 100;  ///< 223.15 to 273.15 K
+
+  /// Upper bounds of ln gamma (molal scale) of every ion present, `ln_gamma_hi[k]` for slot
+  /// k (ln gamma_k <= ln_gamma_hi[k] as ln_gamma_on_molalities computes it), on ion
+  /// molalities `m_slots` (mol/kg) at temperature T (K), for a cheap test that rules out
+  /// salt saturation before the exact one (equilibria/ice_curve.hpp). The sums of
+  /// ln_gamma_on_molalities with each parameter replaced by the end of its range over the
+  /// bin of width bound_bin_width holding T that makes the term largest (the molalities,
+  /// g(x) >= 0, g'(x) <= 0, Z and the charges fix the sign of every factor): each parameter
+  /// over the bin lies between its values at the bin's ends widened by the largest distance
+  /// of a C2 function from its chord (parameter_ranges). A_phi and E-theta, E-theta' (J(x) at
+  /// x = 6 z z' A_phi(T) sqrt I) are the exact values of ln_gamma_on_molalities. The
+  /// parameter ranges of a bin are computed the first time it is used and kept (they depend
+  /// on the parameter rows alone). False (nothing written) when no bound is available: T
+  /// outside the bins, I = 0, or a pair row in the extended form (Archer 1992).
+  bool ln_gamma_upper_bounds(const double* m_slots, double T, double* ln_gamma_hi) {
+    if (has_extended_ || !(T >= bound_bins_min_temperature)) return false;
+    const double pos = (T - bound_bins_min_temperature) / bound_bin_width;
+    if (!(pos < static_cast<double>(bound_bins))) return false;
+    const auto b = static_cast<std::size_t>(pos);
+    const double Ta = bound_bins_min_temperature + bound_bin_width * static_cast<double>(b);
+    const double Tb = bound_bins_min_temperature + bound_bin_width * static_cast<double>(b + 1);
+    if (!(Ta <= T && T <= Tb)) return false;
+    composition_terms& q = composition_for(m_slots);
+    if (!(q.I > 0.0)) return false;
+    gamma_terms(q);
+    const double* lo = nullptr;
+    const double* hi = nullptr;
+    parameter_ranges(b, Ta, Tb, lo, hi);
+    const double* m = m_slots;
+    const double I = q.I, Z = q.Z;
+    const double A = debye_huckel_osmotic_slope(T, aphi_);
+    double F = -A * q.f_dh;  // f_dh >= 0
+    double sum_mmC = 0.0;
+    for (std::size_t k = 0; k < n_; ++k) ln_gamma_hi[k] = 0.0;
+    for (std::size_t k = 0; k < n_pairs_; ++k) {
+      const auto& row = pairs_[k];
+      const double mc = m[row.c], ma = m[row.a];
+      const double mm = mc * ma;
+      if (mc == 0.0 && ma == 0.0) continue;
+      const std::size_t p0 = row.p0;
+      const double g = row.alpha1 == 0 ? q.g2 : q.g14;    // >= 0
+      const double gp = row.alpha1 == 0 ? q.gp2 : q.gp14;  // <= 0
+      double B = hi[p0] + hi[p0 + 1] * g;
+      double Bp = lo[p0 + 1] * gp;
+      if (row.two_two) {
+        B += hi[p0 + 2] * q.g12;
+        Bp += lo[p0 + 2] * q.gp12;
+      }
+      Bp /= I;
+      const double CT = hi[p0 + row.c_off];
+      if (mm != 0.0) {
+        F += mm * Bp;
+        sum_mmC += mm * CT;
+      }
+      const double w = 2.0 * B + Z * CT;
+      ln_gamma_hi[row.c] += ma * w;
+      ln_gamma_hi[row.a] += mc * w;
+    }
+    j_values jv;
+    const double s6 = 6.0 * A * q.sI;
+    fill_j<false>(s6, jv);
+    for (std::size_t k = 0; k < n_like_; ++k) {
+      const auto& L = like_[k];
+      const double mi = m[L.i], mj = m[L.j];
+      const double mm = mi * mj;
+      if (mi == 0.0 && mj == 0.0) continue;
+      const double theta = L.has_theta ? hi[L.p0] : 0.0;
+      double et = 0.0, etp = 0.0;
+      if (L.zi != L.zj) {
+        const int ij = L.zi * L.zj, ii = L.zi * L.zi, jj = L.zj * L.zj;
+        ensure_j<false>(s6, ij, jv);
+        ensure_j<false>(s6, ii, jv);
+        ensure_j<false>(s6, jj, jv);
+        e_theta(static_cast<double>(ij), I, jv.J[ij], jv.J[ii], jv.J[jj], jv.x[ij] * jv.dJ[ij],
+                jv.x[ii] * jv.dJ[ii], jv.x[jj] * jv.dJ[jj], et, etp);
+      }
+      double psum = 0.0;
+      for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) {
+        const double psi = hi[L.psi_p0 + (t - L.psi_begin)];
+        psum += m[triplets_[t].k] * psi;
+        if (mm != 0.0) ln_gamma_hi[triplets_[t].k] += mm * psi;
+      }
+      if (mm != 0.0) F += mm * etp;
+      const double w = 2.0 * (theta + et) + psum;
+      ln_gamma_hi[L.i] += mj * w;
+      ln_gamma_hi[L.j] += mi * w;
+    }
+    for (std::size_t k = 0; k < n_; ++k)
+      ln_gamma_hi[k] += z_[k] * z_[k] * F + std::abs(z_[k]) * sum_mmC;
+    return true;
+  }
+
   /// The osmotic sums for `moles` in `water_kg` of water at temperature T (K).
   pitzer_osmotic_sums osmotic(const double* moles, double water_kg, double T) {
     std::array<double, n_ions> m{};
@@ -739,6 +835,44 @@ class pitzer_system {
     return sl;
   }
 
+  /// The range [lo, hi] of every analytic-form parameter (by its index in coefficients::P)
+  /// over the bin [Ta, Tb] (ln_gamma_upper_bounds), from the cache of bins or filled now.
+  void parameter_ranges(std::size_t b, double Ta, double Tb, const double*& lo, const double*& hi) {
+    const std::size_t stride = 2 * max_linear_rows;
+    if (bin_ranges_.empty()) {
+      bin_ranges_.assign(bound_bins * stride, 0.0);
+      bin_filled_.assign(bound_bins, 0);
+    }
+    double* r = bin_ranges_.data() + b * stride;
+    lo = r;
+    hi = r + max_linear_rows;
+    if (bin_filled_[b]) return;
+    // Each parameter P(T) = sum_k a_k v_k(T) at the bin's ends, and its distance from the
+    // straight line between them, at most (Tb - Ta)^2 / 8 max|P''| (a C2 function on an
+    // interval), with |P''| <= sum_k |a_k| max|v_k''|: v_k'' is 0, 2/T^3, -1/T^2, 0, 2 and
+    // 6/T^4 for the basis 1, 1/T - 1/T_r, ln(T/T_r), T - T_r, T^2 - T_r^2, 1/T^2 - 1/T_r^2,
+    // each largest in magnitude at Ta. Widened by 1e-12 of the magnitudes summed for the
+    // rounding of this and of at().
+    const t_basis va(Ta), vb(Tb);
+    const double h = Tb - Ta;
+    const std::array<double, 6> d2 = {0.0, 2.0 / (Ta * Ta * Ta), 1.0 / (Ta * Ta), 0.0, 2.0,
+                                      6.0 / (Ta * Ta * Ta * Ta)};
+    for (std::size_t row = 0; row < n_linear_; ++row) {
+      double pa = 0.0, pb = 0.0, size = 0.0, curvature = 0.0;
+      for (std::size_t k = 0; k < 6; ++k) {
+        const double a = linear_cols_[k][row];
+        pa += a * va.v[k];
+        pb += a * vb.v[k];
+        size += std::max(std::abs(a * va.v[k]), std::abs(a * vb.v[k]));
+        curvature += std::abs(a) * d2[k];
+      }
+      const double slack = h * h / 8.0 * curvature * (1.0 + 1e-12) + 1e-12 * size + 1e-300;
+      r[row] = std::min(pa, pb) - slack;
+      r[max_linear_rows + row] = std::max(pa, pb) + slack;
+    }
+    bin_filled_[b] = 1;
+  }
+
   void check_slot(const char* where, std::size_t slot) const {
     if (slot >= n_)
       throw invalid_input(colligate::detail::describe(
@@ -939,6 +1073,10 @@ class pitzer_system {
   std::array<std::pair<int, int>, max_unequal> unequal_charges_{};
   std::size_t n_unequal_ = 0;
   composition_terms comp_;
+  /// Parameter ranges per bin of ln_gamma_upper_bounds (lo then hi, max_linear_rows each),
+  /// allocated at its first use and filled bin by bin; bin_filled_ says which bins hold them.
+  std::vector<double> bin_ranges_;
+  std::vector<unsigned char> bin_filled_;
   std::array<temperature_terms, 2> tt_;
   unsigned tt_last_ = 0;
 };
