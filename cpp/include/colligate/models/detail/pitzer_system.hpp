@@ -849,23 +849,36 @@ class pitzer_system {
     if (bin_filled_[b]) return;
     // Each parameter P(T) = sum_k a_k v_k(T) at the bin's ends, and its distance from the
     // straight line between them, at most (Tb - Ta)^2 / 8 max|P''| (a C2 function on an
-    // interval), with |P''| <= sum_k |a_k| max|v_k''|: v_k'' is 0, 2/T^3, -1/T^2, 0, 2 and
-    // 6/T^4 for the basis 1, 1/T - 1/T_r, ln(T/T_r), T - T_r, T^2 - T_r^2, 1/T^2 - 1/T_r^2,
-    // each largest in magnitude at Ta. Widened by 1e-12 of the magnitudes summed for the
+    // interval). Over the bin max|P''| <= max(|P''(Ta)|, |P''(Tb)|) + h max|P'''|, with P''
+    // summed at the ends (v_k'' = 0, 2/T^3, -1/T^2, 0, 2, 6/T^4 for the basis 1,
+    // 1/T - 1/T_r, ln(T/T_r), T - T_r, T^2 - T_r^2, 1/T^2 - 1/T_r^2) and
+    // |P'''| <= sum_k |a_k| max|v_k'''| (v_k''' = 0, -6/T^4, 2/T^3, 0, 0, -24/T^5, each largest
+    // in magnitude at Ta). P'' itself at the ends keeps the bound tight for rows whose basis
+    // coefficients are large and cancel (the default set's sulfate rows, up to 1e11), where
+    // sum_k |a_k| max|v_k''| is not. Widened by 1e-12 of the magnitudes summed for the
     // rounding of this and of at().
     const t_basis va(Ta), vb(Tb);
     const double h = Tb - Ta;
-    const std::array<double, 6> d2 = {0.0, 2.0 / (Ta * Ta * Ta), 1.0 / (Ta * Ta), 0.0, 2.0,
-                                      6.0 / (Ta * Ta * Ta * Ta)};
+    const auto second = [](double T) {
+      return std::array<double, 6>{0.0, 2.0 / (T * T * T), -1.0 / (T * T), 0.0, 2.0,
+                                   6.0 / (T * T * T * T)};
+    };
+    const std::array<double, 6> d2a = second(Ta), d2b = second(Tb);
+    const std::array<double, 6> d3 = {0.0, 6.0 / (Ta * Ta * Ta * Ta), 2.0 / (Ta * Ta * Ta), 0.0,
+                                      0.0, 24.0 / (Ta * Ta * Ta * Ta * Ta)};
     for (std::size_t row = 0; row < n_linear_; ++row) {
-      double pa = 0.0, pb = 0.0, size = 0.0, curvature = 0.0;
+      double pa = 0.0, pb = 0.0, size = 0.0, p2a = 0.0, p2b = 0.0, size2 = 0.0, third = 0.0;
       for (std::size_t k = 0; k < 6; ++k) {
         const double a = linear_cols_[k][row];
         pa += a * va.v[k];
         pb += a * vb.v[k];
         size += std::max(std::abs(a * va.v[k]), std::abs(a * vb.v[k]));
-        curvature += std::abs(a) * d2[k];
+        p2a += a * d2a[k];
+        p2b += a * d2b[k];
+        size2 += std::max(std::abs(a * d2a[k]), std::abs(a * d2b[k]));
+        third += std::abs(a) * d3[k];
       }
+      const double curvature = std::max(std::abs(p2a), std::abs(p2b)) + 1e-12 * size2 + h * third;
       const double slack = h * h / 8.0 * curvature * (1.0 + 1e-12) + 1e-12 * size + 1e-300;
       r[row] = std::min(pa, pb) - slack;
       r[max_linear_rows + row] = std::max(pa, pb) + slack;
