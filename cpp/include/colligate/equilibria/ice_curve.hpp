@@ -43,6 +43,7 @@
 
 #include <Eigen/Dense>
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
@@ -380,7 +381,37 @@ class ice_curve {
     std::vector<std::pair<std::size_t, int>> slots;  ///< ion slot, count
     /// The shift of K that goes with the model's parameter set (nullptr: published K).
     const std::array<double, 6>* shift = nullptr;
+    /// Lower bounds of ln K on the last temperature bins asked (ln_k_floor), direct-mapped
+    /// by bin number; -1 marks an empty entry.
+    std::array<long, 32> floor_bin = filled_bins();
+    std::array<double, 32> floor_value{};
+    static std::array<long, 32> filled_bins() {
+      std::array<long, 32> b{};
+      b.fill(-1);
+      return b;
+    }
   };
+  /// Temperature bins of the saturation bound's ln K: width 1/16 K from 219 K to the ice
+  /// point. A bin's bound is a function of the bin alone (salt_phase::ln_k_lower_bound),
+  /// so the result is the same whichever row filled the entry; rows whose freezing points
+  /// share a bin take it from the cache.
+  static constexpr double ln_k_bin_start = 219.0;
+  static constexpr double ln_k_bins_per_kelvin = 16.0;
+  static constexpr double ln_k_bins = 55.0 * 16.0;
+  /// A lower bound of ln K of candidate `k` valid at T (salt_phase::ln_k_lower_bound over
+  /// T's bin), or ln K itself outside the bins.
+  static double ln_k_floor(candidate& k, double T) {
+    const double u = (T - ln_k_bin_start) * ln_k_bins_per_kelvin;
+    if (!(u >= 0.0 && u < ln_k_bins)) return k.phase->ln_k(T, k.shift);
+    const long i = static_cast<long>(u);
+    const std::size_t e = static_cast<std::size_t>(i) % k.floor_bin.size();
+    if (k.floor_bin[e] != i) {
+      const double a = ln_k_bin_start + static_cast<double>(i) / ln_k_bins_per_kelvin;
+      k.floor_value[e] = k.phase->ln_k_lower_bound(a, a + 1.0 / ln_k_bins_per_kelvin, k.shift);
+      k.floor_bin[e] = i;
+    }
+    return k.floor_value[e];
+  }
 
   // --- preparation -----------------------------------------------------------------
 
@@ -486,11 +517,10 @@ class ice_curve {
     if (!(T < constants::ice_point)) return false;
     if (!ions_->ln_activity_upper_bounds(n_liq_.data(), water_kg, T, ln_act_hi_.data())) return false;
     const double ln_aw_hi = ice_line(T) + 1e-6;
-    const double log10_t = std::log10(T);
     for (std::size_t c = 0; c < candidates_.size(); ++c) {
       if (on_path(c)) continue;
-      const candidate& k = candidates_[c];
-      double si = k.phase->water * ln_aw_hi - k.phase->ln_k(T, log10_t, k.shift);
+      candidate& k = candidates_[c];
+      double si = k.phase->water * ln_aw_hi - ln_k_floor(k, T);
       for (const auto& [slot, count] : k.slots) si += count * ln_act_hi_[slot];
       if (!(si < -1e-6)) return false;
     }

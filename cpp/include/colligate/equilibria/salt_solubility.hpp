@@ -19,6 +19,8 @@
 /// the same file's ice expression reproduce our ice model within 5e-4 in a_w at 253 K
 /// (tests/cpp/equilibria/test_eutectic.cpp). Valid 219.15-298.15 K.
 
+#include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <string>
@@ -55,6 +57,28 @@ struct salt_phase {
     add(log10_k);
     if (shift != nullptr) add(*shift);
     return std::log(10.0) * sum;
+  }
+  /// A lower bound of ln K(T) (with `shift` as in ln_k) over the whole interval
+  /// a <= T <= b (219.15 K <= a < b): the smaller of the values at the ends, less the
+  /// chord's largest gap to a convex-or-not curve, (b - a)^2 / 8 max|ln K''|, with
+  /// |ln K''| <= ln 10 (2|A3|/a^3 + |A4|/(ln 10 a^2) + 6|A5|/a^4 + 2|A6|) term by term
+  /// (each term's size falls with T), less 1e-12 of the terms' sizes for the rounding of
+  /// the two evaluations. For a saturation bound, which needs ln K from below.
+  double ln_k_lower_bound(double a, double b, const std::array<double, 6>* shift) const {
+    std::array<double, 6> A = log10_k;
+    if (shift != nullptr)
+      for (int k = 0; k < 6; ++k) A[k] += (*shift)[k];
+    const double ln10 = std::log(10.0);
+    const double curvature = ln10 * (2.0 * std::abs(A[2]) / (a * a * a) +
+                                     std::abs(A[3]) / (ln10 * a * a) +
+                                     6.0 * std::abs(A[4]) / (a * a * a * a) + 2.0 * std::abs(A[5]));
+    double size = 0.0;
+    for (double T : {a, b})
+      size = std::max(size, ln10 * (std::abs(A[0]) + std::abs(A[1] * T) + std::abs(A[2] / T) +
+                                    std::abs(A[3] * std::log10(T)) + std::abs(A[4] / (T * T)) +
+                                    std::abs(A[5] * T * T)));
+    return std::min(ln_k(a, shift), ln_k(b, shift)) - (b - a) * (b - a) / 8.0 * curvature -
+           1e-12 * size;
   }
   /// ln K(T) that goes with the activities of parameter set `set`.
   double ln_k(double T, const data::pitzer_parameter_set& set) const {
