@@ -6,8 +6,10 @@
 // the bound in front is the exact test's on rows a hair either side of the onset of
 // gypsum and of mirabilite before ice (tolerances: common practice).
 #include <catch2/catch.hpp>
+#include <algorithm>
 #include <array>
 #include <cmath>
+#include <limits>
 #include <random>
 #include <string>
 #include <vector>
@@ -144,4 +146,37 @@ TEST_CASE("first solid with the saturation bound in front is the exact test's fo
   };
   const double x0 = onset(make, 0.05, 1.5, "ross");
   check_around_onset(make, x0, "ross");
+}
+
+TEST_CASE("ln K lower bound per temperature bin lies below ln K everywhere in the bin",
+          "[equilibria][saturation_bound]") {
+  // salt_phase::ln_k_lower_bound on the 1/16 K bins of ice_curve (219 K to the ice point),
+  // every phase, published K and each built-in set's shift; 64 points per bin and the ends.
+  // How far below: the chord gap h^2/8 |ln K''| (h = 1/16 K) with the term-wise curvature
+  // bound, under 0.05 for these rows (tolerance: common practice, set by that formula).
+  int checked = 0;
+  double widest = 0.0;
+  for (const auto* set : {&data::spencer_1990_parameters(), &data::spencer_1990_icefit_parameters(),
+                          &data::harvie_1984_parameters(), &data::harvie_spencer_icefit_parameters()}) {
+    for (const auto& ph : equilibria::salt_phases()) {
+      const auto* shift = set->find_solubility_shift(ph.formula);
+      for (int i = 0; i < 55 * 16; ++i) {
+        const double a = 219.0 + i / 16.0, b = a + 1.0 / 16.0;
+        const double floor = ph.ln_k_lower_bound(a, b, shift);
+        double lowest = std::numeric_limits<double>::infinity();
+        for (int k = 0; k <= 64; ++k) {
+          const double T = k == 64 ? b : a + k * (b - a) / 64.0;
+          const double lnk = ph.ln_k(T, shift);
+          INFO(ph.formula << " at " << T << " K");
+          CHECK(floor <= lnk);
+          lowest = std::min(lowest, lnk);
+          ++checked;
+        }
+        widest = std::max(widest, lowest - floor);
+      }
+    }
+  }
+  CHECK(checked > 0);
+  CHECK(widest > 0.0);   // a bound, not ln K again
+  CHECK(widest < 0.05);  // close enough not to send ordinary rows to the exact test
 }
