@@ -180,3 +180,47 @@ TEST_CASE("ln K lower bound per temperature bin lies below ln K everywhere in th
   CHECK(widest > 0.0);   // a bound, not ln K again
   CHECK(widest < 0.05);  // close enough not to send ordinary rows to the exact test
 }
+
+TEST_CASE("Pitzer ln gamma upper bounds from the last J values of the freezing-point solve",
+          "[models][pitzer][saturation_bound]") {
+  // ln_gamma_upper_bounds takes J and J' at x from the J of the last
+  // ln_water_activity_along_temperature (x_last differs by A_phi(T)/A_phi(T_last)) with a
+  // Taylor remainder: still above the exact ln gamma, and close to the bounds from J
+  // evaluated at x: within 1e-2 |T - T_last| per K plus 1e-12 (a converged Newton stops
+  // within 1e-9 K), the x J' remainder x max|J''| |x - x_last| = 0.2 |x - x_last| dominating,
+  // |x - x_last| / x = |A_phi(T) / A_phi(T_last) - 1| about 3e-4 |T - T_last| per K,
+  // times the E-theta' factors z z' / (8 I^2), large at small I (tolerance: from that formula).
+  std::mt19937_64 rng(29);
+  std::uniform_real_distribution<double> u(0.0, 1.0);
+  const std::vector<std::string> salts = {"NaCl", "KCl", "CaCl2", "MgCl2", "Na2SO4"};
+  int differ = 0;
+  double worst = 0.0;
+  for (int r = 0; r < 200; ++r) {
+    std::vector<std::pair<std::string, double>> mol;
+    for (const auto& id : salts) mol.emplace_back(id, (r % 3 == 0 ? 2.0 : 0.6) * u(rng));
+    const auto s = solution::from_molalities(mol);
+    models::detail::pitzer_system plain(s, models::pitzer::default_parameters());
+    models::detail::pitzer_system after(s, models::pitzer::default_parameters());
+    std::array<double, models::detail::n_ions> m{}, exact{}, hi{}, hi_last{};
+    double other = 0.0, slope = 0.0;
+    plain.molalities(s.moles().data(), s.water_mass(), m.data(), other);
+    const double T = 223.15 + 50.0 * u(rng);
+    // the last temperature of a Newton that stopped a little away from T
+    const double T_last = T + (r % 2 == 0 ? 1e-6 : -3e-4) * u(rng);
+    after.ln_water_activity_along_temperature(s.moles().data(), s.water_mass(), T_last, slope);
+    plain.ln_gamma_on_molalities(m.data(), T, exact.data());
+    REQUIRE(plain.ln_gamma_upper_bounds(m.data(), T, hi.data()));
+    REQUIRE(after.ln_gamma_upper_bounds(m.data(), T, hi_last.data()));
+    for (std::size_t k = 0; k < plain.ion_slots(); ++k) {
+      INFO("row " << r << ", T " << T << ", slot " << k);
+      CHECK(hi_last[k] >= exact[k]);
+      CHECK(hi_last[k] >= hi[k] - 1e-14);  // the remainder bounds widen (up to rounding)
+      CHECK(hi_last[k] - hi[k] <= 1e-2 * std::abs(T - T_last) + 1e-12);
+      worst = std::max(worst, (hi_last[k] - hi[k]) / std::abs(T - T_last));
+      if (hi_last[k] != hi[k]) ++differ;
+    }
+  }
+  CHECK(differ > 0);  // the last J values were used
+  INFO("largest widening per K of T - T_last: " << worst);
+  CHECK(worst < 1e-2);  // 1.1e-3 with this seed
+}

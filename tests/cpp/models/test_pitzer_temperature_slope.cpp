@@ -82,6 +82,16 @@ TEST_CASE("J'' of the mixing function and the three-argument J", "[models][pitze
       CHECK(d2J[c] == d2J1);
     }
   }
+  // |x J''(x)| stays below 0.1 (0.0487 at x = 0.58 on this grid): the constant of the Taylor
+  // remainder of ln_gamma_upper_bounds (pitzer_system::j_near_last).
+  double most = 0.0;
+  for (double x = 1e-8; x < 1e8; x *= 1.0002) {
+    double J, dJ, d2J;
+    models::detail::mixing_j(x, J, dJ, &d2J);
+    most = std::max(most, std::abs(x * d2J));
+  }
+  CHECK(most < 0.1);
+  CHECK(most > 0.04);
   // mixing_j124: x, 2x and 4x from one power x^0.2 scaled by 2^0.2 and 4^0.2 (its constants
   // against std::pow to 1 ulp). The Chebyshev variable z then differs from mixing_j's by a
   // few ulp of its size (|z| <= 2, abs ~1e-15), and J, J', J'' by that times their z

@@ -304,7 +304,9 @@ class pitzer_system {
     }
     j_values jv;
     const double s6 = 6.0 * A * q.sI;
-    fill_j<false>(s6, jv);
+    double eJ[5] = {}, exdJ[5] = {};  // bounds of |J - jv.J| and |x J' - jv.x jv.dJ|
+    const bool taylor = j_near_last(s6, jv, eJ, exdJ);
+    if (!taylor) fill_j<false>(s6, jv);
     for (std::size_t k = 0; k < n_like_; ++k) {
       const auto& L = like_[k];
       const double mi = m[L.i], mj = m[L.j];
@@ -319,6 +321,13 @@ class pitzer_system {
         ensure_j<false>(s6, jj, jv);
         e_theta(static_cast<double>(ij), I, jv.J[ij], jv.J[ii], jv.J[jj], jv.x[ij] * jv.dJ[ij],
                 jv.x[ii] * jv.dJ[ii], jv.x[jj] * jv.dJ[jj], et, etp);
+        if (taylor) {
+          // E-theta and E-theta' are linear in the J and x J' (e_theta): widen each by the
+          // sizes of their coefficients times the bounds of the J and x J' errors.
+          const double e_et = ij / (4.0 * I) * (eJ[ij] + 0.5 * eJ[ii] + 0.5 * eJ[jj]);
+          et += e_et;
+          etp += e_et / I + ij / (8.0 * I * I) * (exdJ[ij] + 0.5 * exdJ[ii] + 0.5 * exdJ[jj]);
+        }
       }
       double psum = 0.0;
       for (std::size_t t = L.psi_begin; t < L.psi_end; ++t) {
@@ -418,6 +427,7 @@ class pitzer_system {
         const double s6 = 6.0 * t.aphi * q.sI;
         fill_j<true>(s6, j);
         const double scale = t.daphi / t.aphi;
+        last_j_s6_ = s6;
         for (std::size_t u = 0; u < n_unequal_; ++u) {
           const double mm = q.mm_unequal[u];
           if (mm == 0.0) continue;
@@ -433,6 +443,7 @@ class pitzer_system {
           d_bracket += mm * ij / (8.0 * q.I) *
                        (j.dxdJ_dT(ij, scale) - 0.5 * j.dxdJ_dT(ii, scale) - 0.5 * j.dxdJ_dT(jj, scale));
         }
+        last_j_ = j;
       }
     }
     slope = -constants::molar_mass_water * (2.0 * d_bracket);
@@ -539,10 +550,41 @@ class pitzer_system {
   }
   template <bool Second>
   static void ensure_j(double s6, int zz, j_values& j) {
-    if (j.have[zz]) return;
+    if (!j.have[zz]) fill_one_j<Second>(s6, zz, j);
+  }
+  template <bool Second>
+  static void fill_one_j(double s6, int zz, j_values& j) {
     j.x[zz] = s6 * zz;
     mixing_j(j.x[zz], j.J[zz], j.dJ[zz], Second ? &j.d2J[zz] : nullptr);
     j.have[zz] = true;
+  }
+
+  /// J and J' for ln_gamma_upper_bounds at x = zz s6 from those of the last
+  /// ln_water_activity_along_temperature (last_j_ at x_l = zz s6_l; the freezing-point
+  /// Newton ends at the temperature the bound is asked for, and x changes with A_phi(T)
+  /// alone), when |s6 - s6_l| <= 1e-6 s6_l: J(x) = J(x_l) + J'(x_l) d + R, d = x - x_l,
+  /// |R| <= max|J''| d^2 / 2, and x J'(x) = x J'(x_l) + R', |R'| <= x max|J''| |d|, with
+  /// max|J''| over [x_l, x] <= 0.2 / x_l (|x J''(x)| <= 0.049 for 1e-8 <= x <= 1e8 on a
+  /// grid of ratio 1.0002, tests/cpp/models/test_pitzer_temperature_slope.cpp; 0.1 / x and
+  /// x >= x_l / (1 + 1e-6) give 0.2 / x_l with room); plus 1e-14 (1 + x) for the rounding
+  /// of the series that evaluates J (a few ulp of max(|J|, x / 4, 1)). Writes the bounds of
+  /// the J and x J' errors into eJ and exdJ (index zz). False when the last values do not
+  /// apply (the caller then evaluates J).
+  bool j_near_last(double s6, j_values& jv, double* eJ, double* exdJ) const {
+    const double s6l = last_j_s6_;
+    if (!(s6l >= 1e-8 && 4.0 * s6l <= 1e8 && std::abs(s6 - s6l) <= 1e-6 * s6l)) return false;
+    for (int zz = 1; zz < 5; ++zz) {
+      if (!last_j_.have[zz]) continue;
+      const double xl = last_j_.x[zz], x = s6 * zz, d = x - xl;
+      const double m2 = 0.2 / xl;
+      jv.x[zz] = x;
+      jv.J[zz] = last_j_.J[zz] + last_j_.dJ[zz] * d;
+      jv.dJ[zz] = last_j_.dJ[zz];
+      jv.have[zz] = true;
+      eJ[zz] = 0.5 * m2 * d * d + 1e-14 * (1.0 + x);
+      exdJ[zz] = x * m2 * std::abs(d) + 1e-14 * (1.0 + x);
+    }
+    return true;
   }
 
   /// The molality-only terms of `m` (one per slot), from the cache when `m` is the last
@@ -1086,6 +1128,10 @@ class pitzer_system {
   std::array<std::pair<int, int>, max_unequal> unequal_charges_{};
   std::size_t n_unequal_ = 0;
   composition_terms comp_;
+  /// J values of the last ln_water_activity_along_temperature with unsymmetrical mixing
+  /// (j_near_last), at x = zz last_j_s6_; NaN: none yet.
+  j_values last_j_;
+  double last_j_s6_ = std::numeric_limits<double>::quiet_NaN();
   /// Parameter ranges per bin of ln_gamma_upper_bounds (lo then hi, max_linear_rows each),
   /// allocated at its first use and filled bin by bin; bin_filled_ says which bins hold them.
   std::vector<double> bin_ranges_;
