@@ -253,8 +253,10 @@ class pitzer_system {
   /// bin of width bound_bin_width holding T that makes the term largest (the molalities,
   /// g(x) >= 0, g'(x) <= 0, Z and the charges fix the sign of every factor): each parameter
   /// over the bin lies between its values at the bin's ends widened by the largest distance
-  /// of a C2 function from its chord (parameter_ranges). A_phi and E-theta, E-theta' (J(x) at
-  /// x = 6 z z' A_phi(T) sqrt I) are the exact values of ln_gamma_on_molalities. The
+  /// of a C2 function from its chord (parameter_ranges). A_phi is the exact value of
+  /// ln_gamma_on_molalities; E-theta, E-theta' (J(x) at x = 6 z z' A_phi(T) sqrt I) are too,
+  /// or, when the last ln_water_activity_along_temperature had x within 1e-6 of this one,
+  /// upper bounds from its J values with their Taylor remainders (j_near_last). The
   /// parameter ranges of a bin are computed the first time it is used and kept (they depend
   /// on the parameter rows alone). False (nothing written) when no bound is available: T
   /// outside the bins, I = 0, or a pair row in the extended form (Archer 1992).
