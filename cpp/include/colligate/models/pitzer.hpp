@@ -216,14 +216,20 @@ struct pitzer {
   /// What check() finds by name for one species list and parameter set, kept by a caller
   /// that checks many rows of that list (an evaluator, a batch thread), so a row is
   /// checked without string lookups: the binary row of each species, the data::pitzer_ions
-  /// index of each ion of each species, and the answer of missing_mixing_parameters() for
-  /// the last set of ions present. Filled on first use; not shared between threads.
+  /// indices of each species' ions as bits, the temperatures inside every record's window,
+  /// and the answer of missing_mixing_parameters() for the last set of ions present. Filled
+  /// on first use; not shared between threads.
   struct check_memo {
     bool prepared = false;
     std::vector<const data::pitzer_binary*> rows;  ///< per species (nullptr: none)
-    std::vector<std::vector<std::size_t>> ions;    ///< per species, its ions' indices
+    std::vector<int> ion_bits;  ///< per species, bit g for each of its ions g of data::pitzer_ions
     int present = -1;  ///< bit g: ion g of data::pitzer_ions present; -1: nothing kept
     std::string missing;
+    /// The temperatures (K) inside every electrolyte record's own parameter window as
+    /// detail::record_temperature_validity tests it (its 1e-9 K margins included): a row
+    /// at such a temperature skips those tests, which cannot fail there.
+    double records_min_temperature = -std::numeric_limits<double>::infinity();
+    double records_max_temperature = std::numeric_limits<double>::infinity();
   };
 
   static validity check(const solution& s, double water_kg, double temperature,
@@ -260,8 +266,7 @@ struct pitzer {
         continue;
       }
       if (memo != nullptr && s.moles()[i] > 0.0)
-        for (const auto g : memo->ions[i])
-          if (g < data::pitzer_ion_count) present |= 1 << g;
+        present |= memo->ion_bits[i];
       if (mi == 0.0) continue;
       const data::pitzer_binary* row = nullptr;
       if (memo != nullptr) {
@@ -284,6 +289,9 @@ struct pitzer {
         limit.source = row->source;
         return limit.above(where(), mi);
       }
+      if (memo != nullptr && temperature >= memo->records_min_temperature &&
+          temperature <= memo->records_max_temperature)
+        continue;
       if (auto why = detail::record_temperature_validity(rec, temperature); !why.in_range())
         return why;
     }
@@ -315,16 +323,23 @@ struct pitzer {
   static void prepare_memo(const solution& s, const data::pitzer_parameter_set& set,
                            check_memo& memo) {
     memo.rows.assign(s.size(), nullptr);
-    memo.ions.assign(s.size(), {});
+    memo.ion_bits.assign(s.size(), 0);
     for (std::size_t i = 0; i < s.size(); ++i) {
       const auto& rec = s.species()[i];
       if (rec.kind != data::solute_class::electrolyte) continue;
       std::string cation, anion;
       for (const auto& ion : rec.ions) {
         (ion.charge > 0 ? cation : anion) = ion.ion;
-        memo.ions[i].push_back(data::pitzer_ion_index(ion.ion));
+        const auto g = data::pitzer_ion_index(ion.ion);
+        if (g < data::pitzer_ion_count) memo.ion_bits[i] |= 1 << g;
       }
       memo.rows[i] = (rec.ions.size() == 2) ? detail::binary_for(rec, set, cation, anion) : nullptr;
+      if (rec.pitzer.available) {
+        memo.records_min_temperature =
+            std::max(memo.records_min_temperature, rec.pitzer.min_temperature - 1e-9);
+        memo.records_max_temperature =
+            std::min(memo.records_max_temperature, rec.pitzer.max_temperature + 1e-9);
+      }
     }
     memo.prepared = true;
   }
