@@ -381,36 +381,30 @@ class ice_curve {
     std::vector<std::pair<std::size_t, int>> slots;  ///< ion slot, count
     /// The shift of K that goes with the model's parameter set (nullptr: published K).
     const std::array<double, 6>* shift = nullptr;
-    /// Lower bounds of ln K on the last temperature bins asked (ln_k_floor), direct-mapped
-    /// by bin number; -1 marks an empty entry.
-    std::array<long, 32> floor_bin = filled_bins();
-    std::array<double, 32> floor_value{};
-    static std::array<long, 32> filled_bins() {
-      std::array<long, 32> b{};
-      b.fill(-1);
-      return b;
-    }
+    /// Lower bounds of ln K per temperature bin (ln_k_floor; NaN until first asked; empty
+    /// until the bound first needs one).
+    std::vector<double> ln_k_floors;
   };
-  /// Temperature bins of the saturation bound's ln K: width 1/16 K from 219 K to the ice
+  /// Temperature bins of the saturation bound's ln K: width 1/8 K from 219 K to the ice
   /// point. A bin's bound is a function of the bin alone (salt_phase::ln_k_lower_bound),
-  /// so the result is the same whichever row filled the entry; rows whose freezing points
-  /// share a bin take it from the cache.
+  /// so the result is the same whichever row filled it; later rows whose freezing points
+  /// fall in the bin read it.
   static constexpr double ln_k_bin_start = 219.0;
-  static constexpr double ln_k_bins_per_kelvin = 16.0;
-  static constexpr double ln_k_bins = 55.0 * 16.0;
+  static constexpr double ln_k_bins_per_kelvin = 8.0;
+  static constexpr std::size_t ln_k_bins = 55 * 8;
   /// A lower bound of ln K of candidate `k` valid at T (salt_phase::ln_k_lower_bound over
   /// T's bin), or ln K itself outside the bins.
   static double ln_k_floor(candidate& k, double T) {
     const double u = (T - ln_k_bin_start) * ln_k_bins_per_kelvin;
-    if (!(u >= 0.0 && u < ln_k_bins)) return k.phase->ln_k(T, k.shift);
-    const long i = static_cast<long>(u);
-    const std::size_t e = static_cast<std::size_t>(i) % k.floor_bin.size();
-    if (k.floor_bin[e] != i) {
+    if (!(u >= 0.0 && u < static_cast<double>(ln_k_bins))) return k.phase->ln_k(T, k.shift);
+    const auto i = static_cast<std::size_t>(u);
+    if (k.ln_k_floors.empty()) k.ln_k_floors.assign(ln_k_bins, std::numeric_limits<double>::quiet_NaN());
+    double& f = k.ln_k_floors[i];
+    if (std::isnan(f)) {
       const double a = ln_k_bin_start + static_cast<double>(i) / ln_k_bins_per_kelvin;
-      k.floor_value[e] = k.phase->ln_k_lower_bound(a, a + 1.0 / ln_k_bins_per_kelvin, k.shift);
-      k.floor_bin[e] = i;
+      f = k.phase->ln_k_lower_bound(a, a + 1.0 / ln_k_bins_per_kelvin, k.shift);
     }
-    return k.floor_value[e];
+    return f;
   }
 
   // --- preparation -----------------------------------------------------------------
