@@ -24,6 +24,7 @@
 #include <cmath>
 #include <limits>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "colligate/core/solution.hpp"
@@ -72,12 +73,13 @@ struct salt_phase {
     const double curvature = ln10 * (2.0 * std::abs(A[2]) / (a * a * a) +
                                      std::abs(A[3]) / (ln10 * a * a) +
                                      6.0 * std::abs(A[4]) / (a * a * a * a) + 2.0 * std::abs(A[5]));
+    const double la = std::log10(a), lb = std::log10(b);
     double size = 0.0;
-    for (double T : {a, b})
+    for (const auto& [T, lt] : {std::pair{a, la}, std::pair{b, lb}})
       size = std::max(size, ln10 * (std::abs(A[0]) + std::abs(A[1] * T) + std::abs(A[2] / T) +
-                                    std::abs(A[3] * std::log10(T)) + std::abs(A[4] / (T * T)) +
+                                    std::abs(A[3] * lt) + std::abs(A[4] / (T * T)) +
                                     std::abs(A[5] * T * T)));
-    return std::min(ln_k(a, shift), ln_k(b, shift)) - (b - a) * (b - a) / 8.0 * curvature -
+    return std::min(ln_k(a, la, shift), ln_k(b, lb, shift)) - (b - a) * (b - a) / 8.0 * curvature -
            1e-12 * size;
   }
   /// ln K(T) that goes with the activities of parameter set `set`.
