@@ -441,7 +441,7 @@ class ice_curve {
     n_slots_ = ions_->ion_slots();
     n0_.assign(n_slots_, 0.0);
     for (const auto& ph : salt_phases()) {
-      candidate c{&ph, {}, ions_->parameter_set().find_solubility_shift(ph.formula)};
+      candidate c{&ph, {}, ions_->parameter_set().find_solubility_shift(ph.formula), {}};
       bool present = true;
       for (const auto& [ion, count] : ph.ions) {
         const auto g = data::pitzer_ion_index(ion);
