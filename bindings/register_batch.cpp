@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "colligate/batch/kernels.hpp"
+#include "colligate/batch/seawater_freezing_points.hpp"
 #include "colligate/batch/uncertainty_kernels.hpp"
 #include "colligate/batch/solution_batch.hpp"
 #include "colligate/models/builtin_models.hpp"
@@ -114,6 +115,27 @@ void register_batch(py::module_& m) {
       py::arg("batch"), py::arg("model") = "auto", py::arg("threads") = 0,
       py::arg("range_policy") = "extrapolate", py::arg("bound_water_fraction_of_water") = 0.0,
       py::arg("parameter_set") = "", py::arg("metastable") = false);
+
+  m.def(
+      "seawater_freezing_points",
+      [](const array_in& SA, int threads, const std::string& parameter_set) {
+        if (SA.ndim() != 1)
+          throw colligate::invalid_input("absolute_salinity must be a 1-D array of g/kg");
+        const auto id = model_with_set("pitzer", parameter_set);
+        auto opt = make_options(threads, "extrapolate", 0.0);
+        const auto n = static_cast<std::size_t>(SA.shape(0));
+        py::array_t<double> out(static_cast<py::ssize_t>(n));
+        py::array_t<std::uint8_t> status(static_cast<py::ssize_t>(n));
+        double* o = out.mutable_data();
+        std::uint8_t* st = status.mutable_data();
+        const double* a = SA.data();
+        run_interruptible(opt, [&] { colligate::batch::seawater_freezing_points(id, a, n, opt, o, st); });
+        return py::make_tuple(out, status);
+      },
+      py::arg("absolute_salinity"), py::arg("threads") = 0, py::arg("parameter_set") = "",
+      "(freezing points K, row status codes) of Reference-Composition seawater at each absolute "
+      "salinity (g/kg): the Pitzer model's freezing line (a Chebyshev series in sqrt(SA) of its "
+      "exact freezing points) up to 50 g/kg, the exact path above.");
 
   m.def(
       "batch_water_activities",

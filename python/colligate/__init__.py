@@ -25,6 +25,7 @@ from .batch import (  # noqa: E402,F401
     batch_freezing_point,
     batch_ice_fraction,
     batch_water_activity,
+    seawater_freezing_point,
 )
 from . import fit  # noqa: E402,F401  (colligate.fit: fitting constants to your data)
 from .fit import (  # noqa: E402,F401
@@ -124,7 +125,7 @@ __all__ = [
     "Solution", "IceCurve", "IceCurveState", "Validity", "RowStatus", "fit", "fit_norrish",
     "fit_pitzer", "fit_effective_solute", "FitResult", "SoluteLibrary", "load_solute",
     "SolutionBatch", "BatchRowWarning", "ROW_STATUS", "batch_freezing_point",
-    "batch_water_activity", "batch_ice_fraction", "UnfrozenPhaseState", "freezing_point",
+    "batch_water_activity", "batch_ice_fraction", "seawater_freezing_point", "UnfrozenPhaseState", "freezing_point",
     "water_activity", "osmotic_coefficient", "ice_fraction", "temperature_for_ice_fraction",
     "unfrozen_phase", "leighton_freezing_point", "leighton_ice_fraction", "solutes",
     "citations", "citation", "models", "describe_model", "water_activity_of_ice", "enthalpy",

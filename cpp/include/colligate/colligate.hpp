@@ -27,6 +27,7 @@
 #include "colligate/equilibria/leighton_method.hpp"
 #include "colligate/equilibria/salt_equilibrium.hpp"
 #include "colligate/equilibria/salt_solubility.hpp"
+#include "colligate/equilibria/seawater_freezing_line.hpp"
 #include "colligate/equilibria/solver_status.hpp"
 #include "colligate/equilibria/weak_acid_dissociation.hpp"
 #include "colligate/models/ideal.hpp"
