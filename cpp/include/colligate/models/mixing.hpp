@@ -319,38 +319,15 @@ namespace detail {
 
 /// Model 'ross' prepared for one species list (ross_system); the ion activities on the
 /// Pitzer system of its electrolytes.
-class ross_evaluator final : public activity_evaluator, public ion_activity_model {
+class ross_evaluator final : public pitzer_family_evaluator<ross_system> {
  public:
   ross_evaluator(const solution& s, const data::pitzer_parameter_set& set)
-      : s_(&s), set_(&set), system_(s, set) {
+      : pitzer_family_evaluator(s, set) {
     if (system_.has_electrolytes()) ions_.emplace(system_.electrolytes(), s);
-  }
-  double ln_water_activity(double water_kg, double temperature) override {
-    return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
-  }
-  bool ln_water_activity_with_temperature_slope(double water_kg, double temperature,
-                                                double& ln_aw, double& slope) override {
-    if (!system_.has_temperature_slope()) return false;
-    ln_aw = system_.ln_water_activity_with_temperature_slope(s_->moles().data(), water_kg,
-                                                             temperature, slope);
-    return true;
-  }
-  bool ln_water_activity_along_temperature(double water_kg, double temperature, double& ln_aw,
-                                           double& slope) override {
-    if (!system_.has_temperature_slope()) return false;
-    ln_aw = system_.ln_water_activity_along_temperature(s_->moles().data(), water_kg, temperature,
-                                                        slope);
-    return true;
   }
   validity check(double water_kg, double temperature) override {
     return ross::check(*s_, water_kg, temperature, system_, &memo_, *set_);
   }
-  ion_activity_model* ions() noexcept override { return ions_ ? this : nullptr; }
-
-  std::size_t ion_slots() const override { return ions_->ion_slots(); }
-  std::size_t global_ion(std::size_t slot) const override { return ions_->global_ion(slot); }
-  std::size_t slot_of(std::size_t g) const override { return ions_->slot_of(g); }
-  void ion_moles(double* n) const override { ions_->ion_moles(n); }
   /// Ross: the ions (Pitzer, with the ions that have no parameters as ideal particles)
   /// times the non-electrolytes (Norrish), each in `water_kg`.
   double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
@@ -358,19 +335,6 @@ class ross_evaluator final : public activity_evaluator, public ion_activity_mode
     return -constants::molar_mass_water * ions_->particle_sum(n, water_kg, temperature, ln_activity) +
            system_.ln_non_electrolytes(s_->moles().data(), water_kg);
   }
-  const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
-  /// The ions' bounds (Pitzer on their molalities, as ln_activity above).
-  bool ln_activity_upper_bounds(const double* n, double water_kg, double temperature,
-                                double* ln_activity_hi) override {
-    return ions_->ln_activity_upper_bounds(n, water_kg, temperature, ln_activity_hi);
-  }
-
- private:
-  const solution* s_;
-  const data::pitzer_parameter_set* set_;
-  ross_system system_;
-  std::optional<pitzer_system_ions> ions_;
-  pitzer::check_memo memo_;
 };
 
 }  // namespace detail

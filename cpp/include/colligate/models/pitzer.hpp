@@ -33,6 +33,7 @@
 #include <array>
 #include <limits>
 #include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -447,12 +448,14 @@ class pitzer_system_ions {
   const solution* s_;
 };
 
-/// Model 'pitzer' prepared for one species list: the osmotic sum and the ion activities
-/// on one prepared system.
-class pitzer_evaluator final : public activity_evaluator, public ion_activity_model {
+/// What models 'pitzer' and 'ross' share, on a prepared System (pitzer_system, or
+/// ross_system holding one for its electrolytes): ln a_w and its temperature slope from the
+/// system, and the ion activities of the Pitzer system in `ions_` (set by the derived
+/// class; empty when the solution has no ions). The derived class adds its validity check
+/// and its ln a_w of ion amounts (models::ion_activity_model).
+template <class System>
+class pitzer_family_evaluator : public activity_evaluator, public ion_activity_model {
  public:
-  pitzer_evaluator(const solution& s, const data::pitzer_parameter_set& set)
-      : s_(&s), set_(&set), system_(s, set), ions_(system_, s) {}
   double ln_water_activity(double water_kg, double temperature) override {
     return system_.ln_water_activity(s_->moles().data(), water_kg, temperature);
   }
@@ -470,32 +473,49 @@ class pitzer_evaluator final : public activity_evaluator, public ion_activity_mo
                                                         slope);
     return true;
   }
+  ion_activity_model* ions() noexcept override { return ions_ ? this : nullptr; }
+
+  std::size_t ion_slots() const override { return ions_->ion_slots(); }
+  std::size_t global_ion(std::size_t slot) const override { return ions_->global_ion(slot); }
+  std::size_t slot_of(std::size_t g) const override { return ions_->slot_of(g); }
+  void ion_moles(double* n) const override { ions_->ion_moles(n); }
+  const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
+  /// The ions' bounds (Pitzer on their molalities, as ln_water_activity_of_ions uses them).
+  bool ln_activity_upper_bounds(const double* n, double water_kg, double temperature,
+                                double* ln_activity_hi) override {
+    return ions_->ln_activity_upper_bounds(n, water_kg, temperature, ln_activity_hi);
+  }
+
+ protected:
+  pitzer_family_evaluator(const solution& s, const data::pitzer_parameter_set& set)
+      : s_(&s), set_(&set), system_(s, set) {}
+  // ions_ points into system_: neither copied nor moved.
+  pitzer_family_evaluator(const pitzer_family_evaluator&) = delete;
+  pitzer_family_evaluator& operator=(const pitzer_family_evaluator&) = delete;
+
+  const solution* s_;
+  const data::pitzer_parameter_set* set_;
+  System system_;
+  std::optional<pitzer_system_ions> ions_;
+  pitzer::check_memo memo_;
+};
+
+/// Model 'pitzer' prepared for one species list: the osmotic sum and the ion activities
+/// on one prepared system.
+class pitzer_evaluator final : public pitzer_family_evaluator<pitzer_system> {
+ public:
+  pitzer_evaluator(const solution& s, const data::pitzer_parameter_set& set)
+      : pitzer_family_evaluator(s, set) {
+    ions_.emplace(system_, s);
+  }
   validity check(double water_kg, double temperature) override {
     return pitzer::check(*s_, water_kg, temperature, *set_, pitzer::species_checked::all,
                          &memo_);
   }
-  ion_activity_model* ions() noexcept override { return this; }
-
-  std::size_t ion_slots() const override { return ions_.ion_slots(); }
-  std::size_t global_ion(std::size_t slot) const override { return ions_.global_ion(slot); }
-  std::size_t slot_of(std::size_t g) const override { return ions_.slot_of(g); }
-  void ion_moles(double* n) const override { ions_.ion_moles(n); }
   double ln_water_activity_of_ions(const double* n, double water_kg, double temperature,
                                    double* ln_activity) override {
-    return -constants::molar_mass_water * ions_.particle_sum(n, water_kg, temperature, ln_activity);
+    return -constants::molar_mass_water * ions_->particle_sum(n, water_kg, temperature, ln_activity);
   }
-  const data::pitzer_parameter_set& parameter_set() const override { return *set_; }
-  bool ln_activity_upper_bounds(const double* n, double water_kg, double temperature,
-                                double* ln_activity_hi) override {
-    return ions_.ln_activity_upper_bounds(n, water_kg, temperature, ln_activity_hi);
-  }
-
- private:
-  const solution* s_;
-  const data::pitzer_parameter_set* set_;
-  pitzer_system system_;
-  pitzer_system_ions ions_;
-  pitzer::check_memo memo_;
 };
 
 }  // namespace detail
