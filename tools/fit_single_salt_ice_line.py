@@ -1,9 +1,12 @@
-"""Fit the ice-line Pitzer rows of the single-salt table to the CRC Handbook freezing points.
+"""Fit the ice-line Pitzer rows of the single-salt table to published freezing points.
 
 Provenance script for the rows of set ``colligate_ice_line_fit`` in
-cpp/include/colligate/data/single_salt_pitzer.hpp. For each salt of food with CRC
-freezing-point rows (tests/reference/crc_freezing_points.csv, the ``used_in_fit`` split of
-that file: every other row fitted, the others held out), it fits beta0 and beta1 of the
+cpp/include/colligate/data/single_salt_pitzer.hpp. For each salt of food with published
+freezing-point rows -- the CRC Handbook's (tests/reference/crc_freezing_points.csv) or, for
+potassium acetate, which the CRC table does not hold, Melinder's (2010) curve as CoolProp
+carries it (tests/reference/melinder_freezing_curves.csv, 5-25 wt%) -- it takes the
+``used_in_fit`` split of that file (every other row fitted, the others held out) and fits
+beta0 and beta1 of the
 closed binary Pitzer form with colligate's own fitter (fit/single_salt_fitter.hpp through
 ``colligate.fit.fit_single_salt``), C-phi held at 0, the parameters constant over the
 fitted freezing temperatures. It prints each fit, the worst deviation on the fit rows and
@@ -36,6 +39,7 @@ ROOT = pathlib.Path(__file__).resolve().parents[1]
 # Charges and ions per formula unit (the salts' formulas).
 SALTS = {
     "sodium_acetate": (1, -1, 1, 1),
+    "potassium_acetate": (1, -1, 1, 1),
     "trisodium_citrate": (1, -3, 3, 1),
     "monosodium_phosphate": (1, -1, 1, 1),
     "monopotassium_phosphate": (1, -1, 1, 1),
@@ -46,12 +50,33 @@ SALTS = {
 }
 
 
+# Salts whose rows come from Melinder's curves rather than the CRC table.
+MELINDER = {"potassium_acetate"}
+
+
+def melinder_rows(salt: str) -> pd.DataFrame:
+    """A salt's rows of the Melinder file with molality and freezing point in K (molality from
+    mass % and the single-salt table's molar mass, m = w / (M (1 - w)))."""
+    t = pd.read_csv(ROOT / "tests/reference/melinder_freezing_curves.csv", keep_default_na=False)
+    t = t[t.solute == salt].copy()
+    assert set(t.source_key) == {"melinder_2010"}
+    w = t.mass_percent / 100.0
+    table = cg.single_salt_parameters()
+    molar_mass = float(table[table.index == salt].molar_mass_kg_per_mol.iloc[0])
+    t["molality_mol_per_kg"] = w / (molar_mass * (1.0 - w))
+    t["freezing_point_K"] = cg._core.ICE_POINT + t.freezing_point_C
+    return t
+
+
 def crc_rows(salt: str) -> tuple[pd.DataFrame, pd.DataFrame]:
     """(fit rows, held-out rows within the fitted molalities) of a salt, freezing point in K."""
-    t = pd.read_csv(ROOT / "tests/reference/crc_freezing_points.csv", keep_default_na=False)
-    t = t[(t.solute == salt) & ~t.note.str.contains("below neighbours")].copy()
-    assert set(t.source_key) == {"crc_concentrative"}
-    t["freezing_point_K"] = cg._core.ICE_POINT - t.depression_K
+    if salt in MELINDER:
+        t = melinder_rows(salt)
+    else:
+        t = pd.read_csv(ROOT / "tests/reference/crc_freezing_points.csv", keep_default_na=False)
+        t = t[(t.solute == salt) & ~t.note.str.contains("below neighbours")].copy()
+        assert set(t.source_key) == {"crc_concentrative"}
+        t["freezing_point_K"] = cg._core.ICE_POINT - t.depression_K
     fitted = t[t.used_in_fit == "yes"]
     held = t[(t.used_in_fit == "no") & (t.molality_mol_per_kg <= fitted.molality_mol_per_kg.max())]
     return fitted, held

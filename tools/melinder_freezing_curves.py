@@ -7,15 +7,20 @@ tests/python/test_published_magnitudes.py.
 
 Melinder, Properties of Secondary Working Fluids for Indirect Systems (IIR, 2010), evaluated
 the published freezing data of aqueous secondary coolants; CoolProp (INCOMP::MGL glycerol,
-MEA ethanol, MPG propylene glycol, MNA NaCl, MCA CaCl2) carries polynomial fits of those
-curves, T_freeze(w). The `used_in_fit` column says which rows colligate fitted constants to:
+MEA ethanol, MPG propylene glycol, MNA NaCl, MCA CaCl2, MKA potassium acetate) carries
+polynomial fits of those curves, T_freeze(w). The `used_in_fit` column says which rows colligate fitted constants to:
   * propylene glycol: K and K3 fitted at 5, 7.5, ..., 40 wt% (tools/fit_crc_norrish.py
     --propylene-glycol); the rows between (6.25, 8.75, ...) lie on the same fitted curve, so
     they are held out from the fit but NOT independent of it;
   * NaCl 1-23 wt% and CaCl2 1-30 wt%: the curvature of spencer_1990_icefit was fitted at
     1 wt% steps (tools/fit_brine_ice_line.py);
   * glycerol and ethanol: not used in any fit (those constants come from the CRC rows), so
-    these rows are an independent check.
+    these rows are an independent check;
+  * potassium acetate 5-25 wt% (0.54-3.4 mol/kg, to -16 C): beta0 and beta1 of its ice-line
+    single-salt Pitzer row were fitted to the 5, 7, ..., 25 wt% rows
+    (tools/fit_single_salt_ice_line.py); the rows between lie on the same fitted curve, held
+    out but not independent of it. Rows below 5 wt% are not taken: the polynomial gives
+    -0.027 C at zero concentration (its fit was made for coolant strengths, 10-45 wt%).
 
 Usage:  python tools/melinder_freezing_curves.py [--out PATH] [--check]
 """
@@ -47,6 +52,8 @@ def grid():
         out.append(("sodium_chloride", "MNA", float(p), "yes"))
     for p in range(1, 31):
         out.append(("calcium_chloride", "MCA", float(p), "yes"))
+    for p in range(5, 26):
+        out.append(("potassium_acetate", "MKA", float(p), "yes" if p % 2 == 1 else "no"))
     return out
 
 
@@ -55,7 +62,7 @@ def rows():
     for solute, fluid, p, used in grid():
         t = CP.PropsSI("T_freeze", "T", 300.0, "P", 101325.0, f"INCOMP::{fluid}[{p / 100.0:g}]") - 273.15
         note = f"CoolProp {CoolProp.__version__} INCOMP::{fluid}"
-        if solute == "propylene_glycol" and used == "no":
+        if solute in ("propylene_glycol", "potassium_acetate") and used == "no":
             note += "; between the fit's grid points: held out, but on the same fitted curve (not independent)"
         table.append({"solute": solute, "mass_percent": f"{p:g}", "freezing_point_C": f"{t:.4f}",
                       "source_key": "melinder_2010", "used_in_fit": used, "note": note})

@@ -136,6 +136,16 @@ def _depression_single_salt(row) -> float:
     return float(cg.single_salt_freezing_point(row.solute, row.molality_mol_per_kg).depression_K.iloc[0])
 
 
+def _freezing_point_c_single_salt(row) -> float:
+    """Freezing point, C, of a single salt given by mass % (molality from the table's molar mass)."""
+    cg = _cg()
+    table = cg.single_salt_parameters()
+    molar_mass = float(table[table.index == row.solute].molar_mass_kg_per_mol.iloc[0])
+    w = row.mass_percent / 100.0
+    out = cg.single_salt_freezing_point(row.solute, w / (molar_mass * (1.0 - w)))
+    return float(out.freezing_point_K.iloc[0]) - CELSIUS
+
+
 def _osmotic_set(parameter_set) -> Callable:
     """Osmotic coefficient of a binary salt solution at the row's temperature, Pitzer with a
     named set (None: the default set)."""
@@ -327,6 +337,8 @@ QUANTITIES: dict[str, Quantity] = {
                                                       relative=True),
     "depression_single_salt_ice_line": Quantity(_depression_single_salt, "molality_mol_per_kg",
                                                 "molality, mol/kg", "solute"),
+    "freezing_point_C_single_salt_ice_line": Quantity(_freezing_point_c_single_salt, "mass_percent",
+                                                      "mass %", "solute"),
     "osmotic_coefficient_harvie_1984": Quantity(_osmotic_set("harvie_1984"), "molality_mol_per_kg",
                                                 "molality, mol/kg", "salt", relative=True),
     "osmotic_coefficient_default_set": Quantity(_osmotic_set(None), "molality_mol_per_kg",

@@ -686,8 +686,8 @@ def single_salt_activity(salt: str, molality: Any, T: float = 298.15):
     ``molality`` in mol/kg of water, a number or an array. Each salt's rows hold in their
     own temperature window: at 25 C (``T`` within 0.5 K of 298.15 K) the published
     parameters of May et al. (2011); on the ice line (273.15 K down to the lowest fitted
-    freezing point) parameters fitted by colligate to CRC Handbook freezing points, for the
-    salts that have them. A ``T`` in no window of the salt raises
+    freezing point) parameters fitted by colligate to CRC Handbook freezing points (potassium
+    acetate: to Melinder's 2010 curve, 5-25 wt%), for the salts that have them. A ``T`` in no window of the salt raises
     :class:`InvalidInputError` naming the salt, its sets and their windows. A molality
     above the data behind the parameters warns (:class:`OutOfValidityRangeWarning`).
 
@@ -709,8 +709,9 @@ def single_salt_freezing_point(salt: str, molality: Any):
     """Freezing point of one salt of food in water by its ice-line Pitzer parameters.
 
     For the salts with a row in the ``colligate_ice_line_fit`` set of
-    :func:`single_salt_parameters` (fitted by colligate to CRC Handbook freezing points,
-    constant over the fitted freezing temperatures; A_phi follows T): the temperature at
+    :func:`single_salt_parameters` (fitted by colligate to CRC Handbook freezing points, or
+    for potassium acetate to Melinder's 2010 curve, constant over the fitted freezing
+    temperatures; A_phi follows T): the temperature at
     which the solution's water activity equals that of ice. ``molality`` in mol/kg of
     water, a number or an array. A salt without such a row raises
     :class:`InvalidInputError` naming the sets it has; a molality above the fitted data, or

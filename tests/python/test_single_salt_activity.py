@@ -71,11 +71,13 @@ def test_parameter_table_names_its_source_and_range():
     row = may.loc["sodium_acetate"]
     assert (row.beta0, row.beta1, row.cphi) == (0.1382, 0.3317, -0.00496)
     ice = table[table.parameter_set == "colligate_ice_line_fit"]
-    assert set(ice.index) == {"sodium_acetate", "trisodium_citrate", "monosodium_phosphate",
-                              "dipotassium_phosphate", "potassium_bicarbonate"}
-    assert set(ice.source) == {"colligate_fit_crc_pitzer"}
+    assert set(ice.index) == {"sodium_acetate", "potassium_acetate", "trisodium_citrate",
+                              "monosodium_phosphate", "dipotassium_phosphate", "potassium_bicarbonate"}
+    assert set(ice.source) == {"colligate_fit_crc_pitzer", "colligate_fit_melinder_pitzer"}
+    assert ice.loc["potassium_acetate"].source == "colligate_fit_melinder_pitzer"
     assert (ice.max_temperature_K == 273.15).all() and (ice.cphi == 0.0).all()
-    assert "fit_single_salt_ice_line.py" in cg.citation("colligate_fit_crc_pitzer")["container"]
+    for key in ("colligate_fit_crc_pitzer", "colligate_fit_melinder_pitzer"):
+        assert "fit_single_salt_ice_line.py" in cg.citation(key)["container"]
 
 
 def test_bad_input_names_what_is_wrong():
@@ -117,6 +119,27 @@ def test_freezing_points_vs_crc_held_out_rows():
             out = cg.single_salt_freezing_point(row.solute, row.molality_mol_per_kg)
         assert out.attrs["parameter_set"] == "colligate_ice_line_fit"
         assert abs(out.depression_K.iloc[0] - row.depression_K) <= tol, (row.solute, row.molality_mol_per_kg)
+
+
+def test_potassium_acetate_vs_melinder_held_out_rows():
+    # Melinder (2010), potassium acetate freezing curve as CoolProp INCOMP::MKA carries it
+    # (tests/reference/melinder_freezing_curves.csv), the 6, 8, ..., 24 wt% rows held out of
+    # the fit of the ice-line row; limits of check melinder_single_salt_ice_line.
+    with open(REFERENCE / "tolerances.toml", "rb") as fh:
+        check = next(c for c in tomllib.load(fh)["check"] if c["id"] == "melinder_single_salt_ice_line")
+    table = pd.read_csv(REFERENCE / check["file"], keep_default_na=False).query(check["rows"])
+    assert len(table) == 10 and set(table.source_key) == {"melinder_2010"}
+    molar_mass = 0.098142  # CH3COOK, standard atomic weights (common practice)
+    w = table.mass_percent.to_numpy() / 100.0
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")  # every row within the fitted range
+        out = cg.single_salt_freezing_point("potassium_acetate", w / (molar_mass * (1.0 - w)))
+    assert out.attrs["parameter_set"] == "colligate_ice_line_fit"
+    deviation = out.freezing_point_K.to_numpy() - 273.15 - table.freezing_point_C.to_numpy()
+    assert np.abs(deviation).max() <= float(check["tolerance"])
+    # below the fitted range (-16 C) the row still answers, flagged
+    with pytest.warns(cg.OutOfValidityRangeWarning):
+        cg.single_salt_freezing_point("potassium_acetate", 5.0)
 
 
 def test_ice_line_rows_are_what_the_tool_fits():

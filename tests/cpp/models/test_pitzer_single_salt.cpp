@@ -110,8 +110,12 @@ TEST_CASE("single-salt activity: water activity, range flag and errors", "[pitze
                     Catch::Contains("sodium_acetate") && Catch::Contains("may_2011") &&
                         Catch::Contains("297.65 to 298.65 K") &&
                         Catch::Contains("colligate_ice_line_fit") && Catch::Contains("to 273.15 K"));
-  CHECK_THROWS_WITH(models::single_salt::evaluate("potassium_acetate", 1.0, 273.15),
-                    Catch::Contains("potassium_acetate") && Catch::Contains("may_2011"));
+  // a salt with a 25 C row only, on the ice line
+  CHECK_THROWS_WITH(models::single_salt::evaluate("monopotassium_phosphate", 1.0, 273.15),
+                    Catch::Contains("monopotassium_phosphate") && Catch::Contains("may_2011"));
+  // below the lowest ice-line window (potassium acetate's ends at its fitted 256.92 K)
+  CHECK_THROWS_WITH(models::single_salt::evaluate("potassium_acetate", 1.0, 250.0),
+                    Catch::Contains("potassium_acetate") && Catch::Contains("256.92 to 273.15 K"));
   CHECK_THROWS_WITH(models::single_salt::evaluate("sodium lactate", 1.0, 298.15),
                     Catch::Contains("sodium lactate") && Catch::Contains("potassium_acetate"));
   CHECK_THROWS_WITH(models::single_salt::evaluate("sodium_acetate", -1.0, 298.15),

@@ -77,6 +77,13 @@ inline const std::vector<citation>& citations() {
        "tests/reference/crc_freezing_points.csv",
        "", "least-squares fit of beta0 and beta1 (C-phi = 0) to every other CRC row of the salt, "
        "constant over the fitted freezing temperatures; the other rows held out"},
+      {"colligate_fit_melinder_pitzer", "colligate developers", 2026,
+       "Single-salt Pitzer parameters fitted by colligate to Melinder's (2010) freezing curves",
+       "colligate source tree: tools/fit_single_salt_ice_line.py (fit/single_salt_fitter.hpp) and "
+       "tests/reference/melinder_freezing_curves.csv (CoolProp INCOMP::MKA)",
+       "", "least-squares fit of beta0 and beta1 (C-phi = 0) to the 5, 7, ..., 25 wt% rows of "
+       "potassium acetate, constant over the fitted freezing temperatures; the rows between "
+       "held out (on the same curve, not independent)"},
       {"melinder_2010", "Melinder, A.", 2010,
        "Properties of secondary working fluids for indirect systems",
        "International Institute of Refrigeration, Paris", "ISBN 978-2-913149-76-3 (from memory)",

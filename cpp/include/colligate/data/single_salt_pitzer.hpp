@@ -16,9 +16,10 @@
 ///   published for these salts (none at all for trisodium citrate), so beta0, beta1 and
 ///   C-phi were fitted by colligate's own fitter (fit/single_salt_fitter.hpp,
 ///   tools/fit_single_salt_ice_line.py) to every other CRC Handbook freezing-point row of
-///   the salt (key "colligate_fit_crc"), constant over the fitted rows' freezing
-///   temperatures; the other rows are held out and checked. Used from the lowest fitted
-///   freezing point to 273.15 K.
+///   the salt (key "colligate_fit_crc_pitzer"; potassium acetate, which the CRC table lacks,
+///   to Melinder's 2010 curve, key "colligate_fit_melinder_pitzer"), constant over the fitted
+///   rows' freezing temperatures; the other rows are held out and checked. Used from the
+///   lowest fitted freezing point to 273.15 K.
 /// Both sets take alpha1 = 2 and b = 1.2 (no 2:2 salt is in the table); `max_molality` is
 /// the top of the data each fit used.
 
@@ -113,6 +114,14 @@ inline const std::vector<single_salt_parameters>& single_salt_table() {
       {"sodium_acetate", "sodium acetate", "CH3COONa", 1, -1, 1, 1, 0.082034, 0.126867222,
        0.359922399, 0.0, 0.0, 2.0, 12.0, 1.06, "colligate_fit_crc_pitzer", "colligate_ice_line_fit",
        269.17, 273.15},
+      // potassium acetate (not in the CRC table): Melinder's (2010) curve as CoolProp carries it
+      // (INCOMP::MKA; tests/reference/melinder_freezing_curves.csv), 11 rows 5, 7, ..., 25 wt%,
+      // 0.536-3.396 mol/kg; beta0 0.1281 +/- 0.0024, beta1 0.702 +/- 0.062, r = -0.89; worst
+      // deviation 0.10 K (the curve's own ripple about a two-constant Pitzer line). May et
+      // al.'s 25 C values: 0.1556, 0.3328.
+      {"potassium_acetate", "potassium acetate", "CH3COOK", 1, -1, 1, 1, 0.098142, 0.128072195,
+       0.702098568, 0.0, 0.0, 2.0, 12.0, 3.396439173170848, "colligate_fit_melinder_pitzer",
+       "colligate_ice_line_fit", 256.9223, 273.15},
       // trisodium citrate (anhydrous Na3C6H5O7, as the CRC molality column): 8 rows
       // 0.039-0.969 mol/kg; beta0 0.1765 +/- 0.0036, beta1 4.29 +/- 0.24. No Pitzer
       // parameters of it were found published.
