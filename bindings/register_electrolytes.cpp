@@ -86,6 +86,18 @@ void register_electrolytes(py::module_& m) {
       "(freezing temperatures K, parameter set, first range reason) of one salt of "
       "data/single_salt_pitzer.hpp at each molality (mol/kg), by its ice-line row.");
   m.def(
+      "single_salt_molality",
+      [](const std::string& salt, const std::vector<double>& mass_fraction) {
+        std::vector<double> out;
+        out.reserve(mass_fraction.size());
+        for (double w : mass_fraction)
+          out.push_back(colligate::models::single_salt::molality_from_mass_fraction(salt, w));
+        return out;
+      },
+      py::arg("salt"), py::arg("mass_fraction"),
+      "Molalities (mol/kg of water) of one salt of data/single_salt_pitzer.hpp from its mass "
+      "fractions in solution (anhydrous salt, kg/kg, in [0, 1)).");
+  m.def(
       "single_salt_closed_form_freezing_point",
       [](int cation_charge, int anion_charge, int cation_count, int anion_count, double beta0,
          double beta1, double cphi, const std::vector<double>& molality) {

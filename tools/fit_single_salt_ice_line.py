@@ -56,14 +56,11 @@ MELINDER = {"potassium_acetate"}
 
 def melinder_rows(salt: str) -> pd.DataFrame:
     """A salt's rows of the Melinder file with molality and freezing point in K (molality from
-    mass % and the single-salt table's molar mass, m = w / (M (1 - w)))."""
+    mass % by cg.single_salt_molality, m = w / (M (1 - w)) with the table's molar mass)."""
     t = pd.read_csv(ROOT / "tests/reference/melinder_freezing_curves.csv", keep_default_na=False)
     t = t[t.solute == salt].copy()
     assert set(t.source_key) == {"melinder_2010"}
-    w = t.mass_percent / 100.0
-    table = cg.single_salt_parameters()
-    molar_mass = float(table[table.index == salt].molar_mass_kg_per_mol.iloc[0])
-    t["molality_mol_per_kg"] = w / (molar_mass * (1.0 - w))
+    t["molality_mol_per_kg"] = cg.single_salt_molality(salt, t.mass_percent.to_numpy() / 100.0)
     t["freezing_point_K"] = cg._core.ICE_POINT + t.freezing_point_C
     return t
 

@@ -137,12 +137,9 @@ def _depression_single_salt(row) -> float:
 
 
 def _freezing_point_c_single_salt(row) -> float:
-    """Freezing point, C, of a single salt given by mass % (molality from the table's molar mass)."""
+    """Freezing point, C, of a single salt given by mass % (cg.single_salt_molality)."""
     cg = _cg()
-    table = cg.single_salt_parameters()
-    molar_mass = float(table[table.index == row.solute].molar_mass_kg_per_mol.iloc[0])
-    w = row.mass_percent / 100.0
-    out = cg.single_salt_freezing_point(row.solute, w / (molar_mass * (1.0 - w)))
+    out = cg.single_salt_freezing_point(row.solute, cg.single_salt_molality(row.solute, row.mass_percent / 100.0))
     return float(out.freezing_point_K.iloc[0]) - CELSIUS
 
 

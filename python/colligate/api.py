@@ -734,6 +734,21 @@ def single_salt_freezing_point(salt: str, molality: Any):
     return out
 
 
+def single_salt_molality(salt: str, mass_fraction: Any) -> np.ndarray:
+    """Molality (mol/kg of water) of one salt of food from its mass fraction in the solution.
+
+    ``mass_fraction`` is kg of anhydrous salt per kg of solution (a number or an array in
+    [0, 1); a mass % divided by 100); ``salt`` is an id, name or formula of
+    :func:`single_salt_parameters`. m = w / (M (1 - w)) with the table's molar mass M of the
+    anhydrous salt: for a hydrate as sold, convert its mass to the anhydrous salt first. A
+    fraction outside [0, 1) raises :class:`InvalidInputError` naming the salt and the range.
+    Feeds :func:`single_salt_freezing_point` and :func:`single_salt_activity`, whose tables
+    and curves are often given in mass %.
+    """
+    w = np.atleast_1d(np.asarray(mass_fraction, dtype=float)).ravel()
+    return np.asarray(_core.single_salt_molality(str(salt), w.tolist()), dtype=float)
+
+
 def single_salt_parameters():
     """The Pitzer parameters used by :func:`single_salt_activity`, one row per salt and set.
 

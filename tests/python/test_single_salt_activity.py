@@ -94,6 +94,19 @@ def test_bad_input_names_what_is_wrong():
     with pytest.warns(cg.OutOfValidityRangeWarning, match="1.8 mol/kg"):
         out = cg.single_salt_activity("monopotassium_phosphate", 2.5)
     assert math.isfinite(out.water_activity.iloc[0])
+    # a mass fraction outside [0, 1) (a mass % passed as is, a negative or NaN): salt and range named
+    for bad in (12.0, 1.0, -0.01, float("nan")):
+        with pytest.raises(cg.InvalidInputError, match=r"mass fraction of 'trisodium_citrate'.*\[0, 1\)"):
+            cg.single_salt_molality("Na3C6H5O7", [0.05, bad])
+
+
+def test_single_salt_molality_is_the_mass_fraction_over_the_water():
+    # m = w / (M (1 - w)) (common practice): 11.9976 g of NaH2PO4
+    # (M 0.119976 kg/mol, standard atomic weights) in 100 g of water is 1 mol/kg
+    w = 11.9976 / 111.9976
+    assert cg.single_salt_molality("monosodium phosphate", w)[0] == pytest.approx(1.0, rel=1e-12)
+    assert cg.single_salt_molality("NaH2PO4", [0.0]).tolist() == [0.0]
+    assert cg.single_salt_molality("NaH2PO4", np.array([[0.1, 0.2]])).shape == (2,)
 
 
 def _ice_line_check():
@@ -131,9 +144,11 @@ def test_potassium_acetate_vs_melinder_held_out_rows():
     assert len(table) == 10 and set(table.source_key) == {"melinder_2010"}
     molar_mass = 0.098142  # CH3COOK, standard atomic weights (common practice)
     w = table.mass_percent.to_numpy() / 100.0
+    m = cg.single_salt_molality("potassium_acetate", w)
+    np.testing.assert_allclose(m, w / (molar_mass * (1.0 - w)), rtol=1e-14)  # m = w / (M (1 - w))
     with warnings.catch_warnings():
         warnings.simplefilter("error")  # every row within the fitted range
-        out = cg.single_salt_freezing_point("potassium_acetate", w / (molar_mass * (1.0 - w)))
+        out = cg.single_salt_freezing_point("potassium_acetate", m)
     assert out.attrs["parameter_set"] == "colligate_ice_line_fit"
     deviation = out.freezing_point_K.to_numpy() - 273.15 - table.freezing_point_C.to_numpy()
     assert np.abs(deviation).max() <= float(check["tolerance"])

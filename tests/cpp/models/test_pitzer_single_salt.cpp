@@ -157,6 +157,23 @@ TEST_CASE("single-salt freezing point: on the ice line, from the ice-line rows",
                     Catch::Contains("molality") && Catch::Contains(">= 0"));
 }
 
+TEST_CASE("single-salt molality from a mass fraction", "[pitzer][single_salt]") {
+  // m = w / (M (1 - w)) (common practice): 9.8142 g of CH3COOK (M 0.098142 kg/mol, standard
+  // atomic weights) in 100 g of water is 1 mol/kg, whichever name the salt is given by.
+  const double w = 9.8142 / 109.8142;
+  CHECK_THAT(models::single_salt::molality_from_mass_fraction("potassium_acetate", w),
+             Catch::Matchers::WithinRel(1.0, 1e-12));
+  CHECK_THAT(models::single_salt::molality_from_mass_fraction("CH3COOK", w),
+             Catch::Matchers::WithinRel(1.0, 1e-12));
+  CHECK(models::single_salt::molality_from_mass_fraction("potassium acetate", 0.0) == 0.0);
+  for (double bad : {-0.01, 1.0, 25.0, std::nan("")})
+    CHECK_THROWS_WITH(models::single_salt::molality_from_mass_fraction("potassium_acetate", bad),
+                      Catch::Contains("mass fraction of 'potassium_acetate'") &&
+                          Catch::Contains("[0, 1)"));
+  CHECK_THROWS_WITH(models::single_salt::molality_from_mass_fraction("sodium lactate", 0.1),
+                    Catch::Contains("sodium lactate"));
+}
+
 TEST_CASE("single-salt freezing-point fit recovers the parameters its data were made with",
           "[pitzer][single_salt][fit]") {
   // Identity: freezing points computed by the closed form with known parameters of a 3:1

@@ -612,13 +612,13 @@ TEST_CASE("freezing points of potassium acetate by its single-salt Pitzer row on
   // fit of the row (tools/fit_single_salt_ice_line.py); limits of check
   // melinder_single_salt_ice_line. Molality from mass % and the table's molar mass.
   const auto& c = tolerances::find("melinder_single_salt_ice_line");
-  const double molar_mass = data::find_single_salt("potassium_acetate").molar_mass;
   int n = 0;
   for (const auto& r : tolerances::rows(c)) {
     REQUIRE(r.at("used_in_fit") == "no");
     const double w = num(r, "mass_percent") / 100.0;
     INFO(w * 100.0 << " wt% [" << r.at("source_key") << ", held out]");
-    const auto f = models::single_salt::freezing_point("potassium_acetate", w / (molar_mass * (1.0 - w)));
+    const auto f = models::single_salt::freezing_point(
+        "potassium_acetate", models::single_salt::molality_from_mass_fraction("potassium_acetate", w));
     CHECK(f.reason.empty());
     CHECK(f.parameter_set == data::single_salt_ice_line_set_id);
     CHECK_THAT(f.temperature - constants::ice_point,

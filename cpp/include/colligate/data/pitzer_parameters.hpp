@@ -458,7 +458,9 @@ inline const pitzer_parameter_set& harvie_spencer_icefit_parameters() {
         "(1984) and its curvature below 25 C refitted to Melinder (2010) ice lines by "
         "colligate (Spencer et al. 1990 slope at 25 C kept); MgCl2 on Harvie et al.'s 25 C values "
         "with Silvester & Pitzer's 25 C slopes (Pitzer 1991) and its curvature held near Spencer et al.'s "
-        "below 0 C; halite K fitted to the Salt Institute solubility table";
+        "below 0 C; K2SO4 and MgSO4 on Harvie et al.'s 25 C values with Silvester & Pitzer's 25 C "
+        "slopes, held at Marion & Farren's (1999) rows below 0 C; halite K fitted to the Salt "
+        "Institute solubility table";
     for (auto& b : s.binaries) {
       if (b.cation == "Ca+2" && b.anion == "Cl-") {
         // tools/fit_default_set.py: Harvie et al. 25 C values + g1, g2 on beta0, beta1, C-phi

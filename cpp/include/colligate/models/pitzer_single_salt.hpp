@@ -188,4 +188,20 @@ inline freezing_point_result freezing_point(const std::string& salt, double mola
   return out;
 }
 
+/// Molality (mol/kg of water) of `salt` from its mass fraction w in the solution (kg of
+/// anhydrous salt per kg of solution): m = w / (M (1 - w)), M the table's molar mass of
+/// the anhydrous salt. The conversion at the edge for tables and curves given in mass %
+/// (divide by 100 first). w outside [0, 1) is an error naming the salt and the range.
+inline double molality_from_mass_fraction(const std::string& salt, double mass_fraction) {
+  const auto& p = data::find_single_salt(salt);
+  if (!std::isfinite(mass_fraction) || mass_fraction < 0.0 || mass_fraction >= 1.0) {
+    std::ostringstream os;
+    os << "single-salt molality: mass fraction of '" << p.id << "' = " << mass_fraction
+       << ": must be finite and in [0, 1) (kg of anhydrous salt per kg of solution; "
+          "a mass % divided by 100)";
+    throw invalid_input(os.str());
+  }
+  return mass_fraction / (p.molar_mass * (1.0 - mass_fraction));
+}
+
 }  // namespace colligate::models::single_salt
