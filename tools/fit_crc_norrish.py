@@ -39,7 +39,7 @@ MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
               "monosodium_phosphate": 0.1199755, "monopotassium_phosphate": 0.1360841,
               "dipotassium_phosphate": 0.1741744, "sodium_bicarbonate": 0.0840058,
               "potassium_bicarbonate": 0.1001143, "sodium_carbonate": 0.1059875,
-              "phosphoric_acid": 0.0979938}
+              "phosphoric_acid": 0.0979938, "potassium_acetate": 0.0981423}
 
 # Dissolved particles per formula unit (complete dissociation of the salts, common
 # practice); 1 for everything not listed. The salts below have no Pitzer parameters for
@@ -47,7 +47,13 @@ MOLAR_MASS = {"sucrose": 0.3422965, "glucose": 0.1801559, "fructose": 0.1801559,
 # particles plus fitted constants (norrish.hpp counts x_w = n_w / (n_w + sum nu_i n_i)).
 PARTICLES = {"sodium_acetate": 2, "trisodium_citrate": 4, "monosodium_phosphate": 2,
              "monopotassium_phosphate": 2, "dipotassium_phosphate": 3,
-             "sodium_bicarbonate": 2, "potassium_bicarbonate": 2, "sodium_carbonate": 3}
+             "sodium_bicarbonate": 2, "potassium_bicarbonate": 2, "sodium_carbonate": 3,
+             "potassium_acetate": 2}
+
+# Solutes the CRC table lacks, fitted to Melinder's (2010) curve as CoolProp carries it
+# (tests/reference/melinder_freezing_curves.csv, written by tools/melinder_freezing_curves.py;
+# the same used_in_fit split: 5, 7, ..., 25 wt% fitted, the rows between held out).
+MELINDER = {"potassium_acetate"}
 
 
 def enthalpy_of_fusion(T):
@@ -71,7 +77,11 @@ def rows(solute: str, max_percent: float, used_in_fit: str = "yes"):
     """(molality, depression K) of the CRC rows of a solute up to max_percent whose
     `used_in_fit` column is used_in_fit ("yes": the fit rows, "no": the held-out rows).
     The split lives in tests/reference/crc_freezing_points.csv: every other row from the
-    first (rows flagged "below neighbours" excluded) is fitted, the others are held out."""
+    first (rows flagged "below neighbours" excluded) is fitted, the others are held out.
+    Solutes of MELINDER come from the Melinder file instead."""
+    if solute in MELINDER:
+        yield from melinder_rows(solute, max_percent, used_in_fit)
+        return
     path = pathlib.Path(__file__).resolve().parents[1] / "tests/reference/crc_freezing_points.csv"
     with open(path, newline="") as fh:
         for r in csv.DictReader(fh):
@@ -79,6 +89,18 @@ def rows(solute: str, max_percent: float, used_in_fit: str = "yes"):
                     and "below neighbours" not in r["note"] and r["used_in_fit"] == used_in_fit):
                 w = float(r["mass_percent"]) / 100
                 yield w / (1 - w) / MOLAR_MASS[solute], float(r["depression_K"])
+
+
+def melinder_rows(solute: str, max_percent: float, used_in_fit: str):
+    """(molality, depression K) of a solute's rows of the Melinder file, as rows() does."""
+    path = pathlib.Path(__file__).resolve().parents[1] / "tests/reference/melinder_freezing_curves.csv"
+    with open(path, newline="") as fh:
+        for r in csv.DictReader(fh):
+            if (r["solute"] == solute and float(r["mass_percent"]) <= max_percent
+                    and r["used_in_fit"] == used_in_fit):
+                assert r["source_key"] == "melinder_2010"
+                w = float(r["mass_percent"]) / 100
+                yield w / (1 - w) / MOLAR_MASS[solute], -float(r["freezing_point_C"])
 
 
 # solute: (published K or None, max mass percent fitted, number of higher-order terms)
@@ -100,6 +122,9 @@ PLAN = {
     "dipotassium_phosphate": (None, 100, 1), "sodium_bicarbonate": (None, 100, 1),
     "potassium_bicarbonate": (None, 100, 1), "sodium_carbonate": (None, 100, 1),
     "phosphoric_acid": (None, 20, 0),
+    # Melinder's curve, 5-25 wt% (rows below 5 wt% are not in the file: her polynomial gives
+    # -0.027 C at zero)
+    "potassium_acetate": (None, 25, 1),
 }
 
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 from pathlib import Path
 
 import numpy as np
+import pandas as pd
 import pytest
 
 import colligate as cg
@@ -40,6 +41,40 @@ def test_held_out_crc_rows(crc_freezing, solute):
     assert len(rows) >= 3 and set(rows.source_key) == {"crc_concentrative"}
     dev = np.array([depression(solute, w) for w in rows.mass_percent]) - rows.depression_K.to_numpy()
     assert np.max(np.abs(dev)) <= FIT_ROW_WORST[solute] + 0.02, dict(zip(rows.mass_percent, dev.round(3)))
+
+
+def test_potassium_acetate_held_out_melinder_rows():
+    # Melinder (2010), potassium acetate freezing curve as CoolProp INCOMP::MKA carries it
+    # (tests/reference/melinder_freezing_curves.csv): the 6, 8, ..., 24 wt% rows, held out of
+    # the fit of the record's K and K3 (tools/fit_crc_norrish.py potassium_acetate: fit rows'
+    # worst 0.075 K); limits of check melinder_potassium_acetate_norrish (plus 0.02 K).
+    table = pd.read_csv(Path(__file__).resolve().parents[1] / "reference" / "melinder_freezing_curves.csv",
+                        keep_default_na=False)
+    rows = table[(table.solute == "potassium_acetate") & (table.used_in_fit == "no")]
+    assert len(rows) == 10 and set(rows.source_key) == {"melinder_2010"}
+    dev = np.array([-depression("potassium_acetate", w) for w in rows.mass_percent]) - rows.freezing_point_C.to_numpy()
+    assert np.max(np.abs(dev)) <= 0.075 + 0.02, dict(zip(rows.mass_percent, dev.round(3)))
+    # the same record by its other names, and the single-salt Pitzer row on the ice line agrees
+    # with it within the two fits' worst deviations (0.075 K + 0.10 K) at 15 wt%
+    s = cg.Solution.from_mass_fractions({"CH3COOK": 0.15})
+    assert cg.freezing_point(s) == pytest.approx(T0 - depression("potassium_acetate", 15), abs=1e-12)
+    pitzer = cg.single_salt_freezing_point("potassium_acetate", cg.single_salt_molality("potassium_acetate", 0.15))
+    assert cg.freezing_point(s) == pytest.approx(pitzer.freezing_point_K.iloc[0], abs=0.175)
+    # beyond the fitted 25 wt%: computed and flagged
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="potassium_acetate|potassium acetate"):
+        cg.freezing_point(cg.Solution.from_mass_fractions({"potassium acetate": 0.30}))
+
+
+def test_potassium_acetate_water_activity_at_25c_meets_may_2011():
+    # An independent look at the record fitted on the ice line: at 25 C its water activity
+    # against May et al.'s (2011) published 25 C Pitzer parameters (data/single_salt_pitzer.hpp,
+    # fitted to osmotic data, not to freezing points), 5-25 wt%. 0.003: the usual stated
+    # accuracy of a water-activity meter (common practice).
+    for w in (0.05, 0.10, 0.15, 0.20, 0.25):
+        m = cg.single_salt_molality("potassium_acetate", w)
+        may = cg.single_salt_activity("potassium_acetate", m, T=298.15).water_activity.iloc[0]
+        ours = cg.water_activity(cg.Solution.from_mass_fractions({"potassium_acetate": w}), 298.15)
+        assert ours == pytest.approx(may, abs=0.003), w
 
 
 def test_sulfates_with_the_default_pitzer_set(crc_freezing):

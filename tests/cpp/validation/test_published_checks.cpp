@@ -605,6 +605,25 @@ TEST_CASE("freezing points of salts of food by single-salt Pitzer rows fitted on
                                               {"potassium_bicarbonate", 6}});
 }
 
+TEST_CASE("freezing points of potassium acetate as an effective Norrish solute",
+          "[validation][norrish][food_salts]") {
+  // Melinder (2010), potassium acetate, as CoolProp INCOMP::MKA carries her curve
+  // (tests/reference/melinder_freezing_curves.csv): the 6, 8, ..., 24 wt% rows, held out of
+  // the fit of the record's K and K3 (tools/fit_crc_norrish.py potassium_acetate); limits of
+  // check melinder_potassium_acetate_norrish.
+  const auto& c = tolerances::find("melinder_potassium_acetate_norrish");
+  int n = 0;
+  for (const auto& r : tolerances::rows(c)) {
+    REQUIRE(r.at("used_in_fit") == "no");
+    const double percent = num(r, "mass_percent");
+    INFO(percent << " wt% [" << r.at("source_key") << ", held out]");
+    CHECK_THAT(-depression("potassium_acetate", percent / 100.0),
+               Catch::Matchers::WithinAbs(num(r, c.published), tolerance(c, r)));
+    ++n;
+  }
+  CHECK(n == 10);
+}
+
 TEST_CASE("freezing points of potassium acetate by its single-salt Pitzer row on the ice line",
           "[validation][pitzer][single_salt]") {
   // Melinder (2010), potassium acetate, as CoolProp INCOMP::MKA carries her curve

@@ -90,10 +90,13 @@ inline const std::vector<citation>& citations() {
        "freezing curves of propylene glycol-, NaCl- and CaCl2-water, as fitted in CoolProp's "
        "INCOMP::MPG, INCOMP::MNA and INCOMP::MCA"},
       {"colligate_fit_melinder", "colligate developers", 2026,
-       "Norrish constants of propylene glycol fitted by colligate to the Melinder (2010) "
-       "freezing curve (CoolProp 8.0 INCOMP::MPG T_freeze, 5-40 wt%)",
-       "colligate source tree: tools/fit_crc_norrish.py --propylene-glycol", "",
-       "least-squares fit of K and K3"},
+       "Norrish constants fitted by colligate to the Melinder (2010) freezing curves "
+       "(CoolProp 8.0 T_freeze: INCOMP::MPG propylene glycol 5-40 wt%, INCOMP::MKA potassium "
+       "acetate 5-25 wt%)",
+       "colligate source tree: tools/fit_crc_norrish.py --propylene-glycol; "
+       "tools/fit_crc_norrish.py potassium_acetate (tests/reference/melinder_freezing_curves.csv)",
+       "", "least-squares fit of K and K3 (potassium acetate: to the 5, 7, ..., 25 wt% rows, the "
+       "rows between held out, on the same curve)"},
       {"spencer_1990", "Spencer, R. J.; Moller, N.; Weare, J. H.", 1990,
        "The prediction of mineral solubilities in natural waters: a chemical equilibrium model "
        "for the Na-K-Ca-Mg-Cl-SO4-H2O system at temperatures below 25 C",
