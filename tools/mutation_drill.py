@@ -101,6 +101,30 @@ MUTATIONS = [
              f"{INC}/data/dissolved_heat_capacity.hpp",
              "return 1e3 * (c.a1 * std::exp(alpha) + c.a5 * std::pow(w, c.a6));",
              "return -1e3 * (c.a1 * std::exp(alpha) + c.a5 * std::pow(w, c.a6));"),
+    # salts (issue 12): the 2:2 term, unsymmetrical mixing, a hydrate's water, the single-salt
+    # edge conversion and a fitted food-salt constant
+    Mutation("beta2_term_dropped", "Pitzer B^phi: the beta2 term of 2:2 salts left out",
+             f"{INC}/models/detail/pitzer_system.hpp",
+             "      if (beta2) Bphi += beta2v * e12;",
+             "      if (false) Bphi += beta2v * e12;"),
+    Mutation("e_theta_dropped", "Pitzer: unsymmetrical mixing E-theta and E-theta' left out",
+             f"{INC}/models/detail/pitzer_kernel.hpp",
+             "  et = zz / (4.0 * I) * (J_ij - 0.5 * J_ii - 0.5 * J_jj);\n"
+             "  etp = -et / I + zz / (8.0 * I * I) * (xdJ_ij - 0.5 * xdJ_ii - 0.5 * xdJ_jj);",
+             "  et = 0.0 * (zz + I + J_ij + J_ii + J_jj + xdJ_ij + xdJ_ii + xdJ_jj);  // planted\n"
+             "  etp = 0.0;"),
+    Mutation("hydrohalite_water_dropped", "hydrohalite NaCl.2H2O counted without its two waters in the IAP",
+             f"{INC}/equilibria/salt_solubility.hpp",
+             '{"hydrohalite", "NaCl.2H2O", {{"Na+", 1}, {"Cl-", 1}}, 2,',
+             '{"hydrohalite", "NaCl.2H2O", {{"Na+", 1}, {"Cl-", 1}}, 0,'),
+    Mutation("single_salt_molality_per_solution", "single-salt molality per kg of solution, w / M, not per kg of water",
+             f"{INC}/models/pitzer_single_salt.hpp",
+             "  return mass_fraction / (p.molar_mass * (1.0 - mass_fraction));",
+             "  return mass_fraction / p.molar_mass;"),
+    Mutation("potassium_acetate_k3_dropped", "potassium acetate: the fitted cubic Norrish constant K3 left out",
+             f"{INC}/data/detail/builtin_solutes.inc",
+             'norrish(6.3308, "colligate_fit_melinder", 143.455, 0.0,',
+             'norrish(6.3308, "colligate_fit_melinder", 0.0, 0.0,'),
 ]
 
 
