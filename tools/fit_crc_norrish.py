@@ -15,6 +15,7 @@ solutes (`python3 tools/fit_crc_norrish.py sodium_acetate phosphoric_acid`) to f
 from __future__ import annotations
 
 import csv
+import dataclasses
 import pathlib
 
 import numpy as np
@@ -288,6 +289,50 @@ def report_ethanol(consts, r, percent, dT, fit, dev) -> None:
     print("  " + "  ".join(f"{100 * v:.0f}%:{d:+.2f}" for v, d in zip(w, mod - mel)))
 
 
+@dataclasses.dataclass
+class SoluteFit:
+    """One solute's constants as fitted (or published), with the fit's covariance."""
+    constants: list            # [K, K3, ...] as fitted (full precision)
+    covariance: object         # s^2 (J^T J)^-1 of the fitted constants, None when none fitted
+    degrees_of_freedom: int    # rows - fitted constants (0 when none fitted)
+    rows: int                  # rows fitted (or checked, for a published K)
+    top_percent: float         # highest mass % among them
+    worst_fit: float           # K, worst |model - table| on those rows
+    held_rows: int             # held-out rows
+    worst_held: float          # K, worst on the held-out rows with the constants at 6 digits
+
+
+def fit_solute(solute: str) -> SoluteFit:
+    """The fit of PLAN[solute] (not ethanol): least squares on the rows marked used_in_fit."""
+    k_pub, wmax, n_high = PLAN[solute]
+    n_fit = (k_pub is None) + n_high  # constants fitted; 0: all rows are checks
+    data = list(rows(solute, wmax, "yes" if n_fit else "no"))
+    m = np.array([d[0] for d in data])
+    dT = np.array([d[1] for d in data])
+    fixed = [] if k_pub is None else [k_pub]
+    nu = PARTICLES.get(solute, 1)
+
+    def resid(p):
+        return np.array([depression(mi, fixed + list(p), nu=nu) for mi in m]) - dT
+
+    sol = least_squares(resid, np.zeros(n_fit)) if n_fit else None
+    p = sol.x if n_fit else np.array([])
+    consts = fixed + list(p)
+    r = resid(p)
+    cov, dof = None, 0
+    if n_fit:
+        # Standard uncertainties of the fitted constants (GUM C.3.4): covariance
+        # s^2 (J^T J)^-1 with s^2 = sum r^2 / (n - k), n - k degrees of freedom; the
+        # rows data/builtin_uncertainty.hpp carries.
+        dof = len(m) - n_fit
+        cov = np.linalg.inv(sol.jac.T @ sol.jac) * float(r @ r) / dof
+    top = max(100 * mi * MOLAR_MASS[solute] / (1 + mi * MOLAR_MASS[solute]) for mi in m)
+    held = list(rows(solute, wmax, "no")) if n_fit else []
+    dev_held = [depression(mh, [float("%.6g" % c) for c in consts], nu=nu) - dh for mh, dh in held]
+    return SoluteFit(consts, cov, dof, len(m), float(top), float(np.max(np.abs(r))), len(held),
+                     float(np.max(np.abs(dev_held))) if held else 0.0)
+
+
 if __name__ == "__main__":
 
     if "--propylene-glycol" in sys.argv:
@@ -308,34 +353,12 @@ if __name__ == "__main__":
                   f"(+{(~fit).sum()} held out) to {percent.max():.0f} wt%  max|dev|={np.max(np.abs(dev[fit])):.3f} K "
                   f"(held out {np.max(np.abs(dev[~fit])):.3f} K)")
             continue
-        k_pub, wmax, n_high = plan
-        n_fit = (k_pub is None) + n_high  # constants fitted; 0: all rows are checks
-        data = list(rows(solute, wmax, "yes" if n_fit else "no"))
-        m = np.array([d[0] for d in data])
-        dT = np.array([d[1] for d in data])
-        fixed = [] if k_pub is None else [k_pub]
-
-        nu = PARTICLES.get(solute, 1)
-
-        def resid(p):
-            return np.array([depression(mi, fixed + list(p), nu=nu) for mi in m]) - dT
-
-        sol = least_squares(resid, np.zeros(n_fit)) if n_fit else None
-        p = sol.x if n_fit else np.array([])
-        consts = fixed + list(p)
-        r = resid(p)
-        if n_fit and "--covariance" in sys.argv:
-            # Standard uncertainties of the fitted constants (GUM C.3.4): covariance
-            # s^2 (J^T J)^-1 with s^2 = sum r^2 / (n - k), n - k degrees of freedom; the
-            # rows data/builtin_uncertainty.hpp carries.
-            dof = len(m) - n_fit
-            cov = np.linalg.inv(sol.jac.T @ sol.jac) * float(r @ r) / dof
-            print(f"{solute:12s} covariance={[['%.6g' % c for c in row] for row in cov]} dof={dof}")
-        wtop = max(float(w) for w, _ in [(100 * mi * MOLAR_MASS[solute] / (1 + mi * MOLAR_MASS[solute]), 0) for mi in m])
-        held = list(rows(solute, wmax, "no")) if n_fit else []
-        dev_held = [depression(mh, [float("%.6g" % c) for c in consts], nu=nu) - dh for mh, dh in held]
-        print(f"{solute:12s} constants={['%.6g' % c for c in consts]} rows={len(m):2d} "
-              f"to {wtop:.0f} wt%  max|dev|={np.max(np.abs(r)):.3f} K"
-              + (f"  (+{len(held)} held out: max|dev|={np.max(np.abs(dev_held)):.3f} K)" if held else ""))
+        f = fit_solute(solute)
+        if f.covariance is not None and "--covariance" in sys.argv:
+            print(f"{solute:12s} covariance={[['%.6g' % c for c in row] for row in f.covariance]} "
+                  f"dof={f.degrees_of_freedom}")
+        print(f"{solute:12s} constants={['%.6g' % c for c in f.constants]} rows={f.rows:2d} "
+              f"to {f.top_percent:.0f} wt%  max|dev|={f.worst_fit:.3f} K"
+              + (f"  (+{f.held_rows} held out: max|dev|={f.worst_held:.3f} K)" if f.held_rows else ""))
     if ethanol is not None:
         report_ethanol(*ethanol)

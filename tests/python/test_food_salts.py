@@ -7,6 +7,7 @@ crc_concentrative), read from the public copy named in NOTES_reference_data.md.
 """
 from __future__ import annotations
 
+import sys
 from pathlib import Path
 
 import numpy as np
@@ -75,6 +76,40 @@ def test_potassium_acetate_water_activity_at_25c_meets_may_2011():
         may = cg.single_salt_activity("potassium_acetate", m, T=298.15).water_activity.iloc[0]
         ours = cg.water_activity(cg.Solution.from_mass_fractions({"potassium_acetate": w}), 298.15)
         assert ours == pytest.approx(may, abs=0.003), w
+
+
+def _fit_tool():
+    import importlib.util
+    path = Path(__file__).resolve().parents[2] / "tools" / "fit_crc_norrish.py"
+    spec = importlib.util.spec_from_file_location("fit_crc_norrish", path)
+    module = importlib.util.module_from_spec(spec)
+    sys.modules.setdefault("fit_crc_norrish", module)  # its dataclass looks itself up there
+    spec.loader.exec_module(module)
+    return module
+
+
+@pytest.mark.parametrize("solute", sorted(FIT_ROW_WORST) + ["potassium_acetate"])
+def test_constants_and_their_covariance_are_what_the_fit_tool_gives(solute):
+    # Provenance: rerunning tools/fit_crc_norrish.py's fit on the rows marked used_in_fit gives
+    # the record's K and K3 (builtin_solutes.inc, to their 6 printed digits), the worst fit-row
+    # deviation the held-out checks build on, and the covariance and degrees of freedom that
+    # data/builtin_uncertainty.hpp states (potassium acetate: fitted to a correlation, "not stated").
+    fit = _fit_tool().fit_solute(solute)
+    rec = cg.SoluteLibrary().find(solute)
+    fitted = [rec.norrish_k, rec.norrish_k3][:len(fit.constants)]
+    np.testing.assert_allclose(fitted, [float("%.6g" % c) for c in fit.constants], rtol=1e-12)
+    if solute == "potassium_acetate":
+        assert rec.uncertainty is None and fit.worst_fit <= 0.075 + 5e-4
+        return
+    assert fit.worst_fit <= FIT_ROW_WORST[solute] + 5e-4
+    u = rec.uncertainty
+    assert u["source"] == "colligate_fit_crc" and u["degrees_of_freedom"] == fit.degrees_of_freedom
+    assert u["names"] == ["norrish_k", "norrish_k3"][:len(fit.constants)]
+    np.testing.assert_allclose(u["covariance"], fit.covariance, rtol=1e-5)
+    # and it propagates: the freezing point of the salt at half its range carries a stated u
+    w = 0.5 * rec.max_mass_fraction
+    r = cg.freezing_point(cg.Solution.from_mass_fractions({solute: w}), with_uncertainty=True)
+    assert r.std > 0.0 and r.not_stated == [] and r.degrees_of_freedom == fit.degrees_of_freedom
 
 
 def test_sulfates_with_the_default_pitzer_set(crc_freezing):

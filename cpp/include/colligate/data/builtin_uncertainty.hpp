@@ -15,8 +15,9 @@
 ///   xylitol, erythritol) and the Pitzer parameters of the built-in sets are printed without
 ///   standard uncertainties of the constants (the Pitzer papers give the standard deviation
 ///   of the fitted osmotic coefficients, not a parameter covariance); ethanol's constants
-///   come from a minimax fit (no covariance); propylene glycol's from a fit to a correlation
-///   (Melinder 2010 via CoolProp), whose own uncertainty is not stated; the effective milk
+///   come from a minimax fit (no covariance); propylene glycol's and potassium acetate's from
+///   fits to correlations (Melinder 2010 via CoolProp), whose own uncertainty is not stated
+///   (the residuals about a smooth curve are misfit, not scatter); the effective milk
 ///   salts are a convention. These enter a propagation as exact and are listed as such.
 ///
 /// An entry applies only to the record as built in: a copy whose constants differ (a user's
@@ -53,6 +54,26 @@ inline const std::vector<builtin_uncertainty_row>& builtin_uncertainty_rows() {
       {"citric_acid", {"norrish_k"}, {1.75974}, {0.0605526}, 10, "colligate_fit_crc"},
       {"lactic_acid", {"norrish_k"}, {-2.942}, {0.142927}, 7, "colligate_fit_crc"},
       {"acetic_acid", {"norrish_k"}, {-1.22098}, {6.27766e-05}, 14, "colligate_fit_crc"},
+      // the food salts and phosphoric acid (effective Norrish solutes; K and K3 strongly
+      // correlated, r -0.97 to -0.99: propagate with the covariance, never the u alone)
+      {"sodium_acetate", {"norrish_k", "norrish_k3"}, {-13.2471, 908.675},
+       {7.22998, -417.355, -417.355, 24683.8}, 3, "colligate_fit_crc"},
+      {"trisodium_citrate", {"norrish_k", "norrish_k3"}, {-288.328, 12098.5},
+       {695.358, -45931.2, -45931.2, 3.13074e+06}, 6, "colligate_fit_crc"},
+      {"monosodium_phosphate", {"norrish_k", "norrish_k3"}, {-45.026, 971.655},
+       {9.07513, -661.282, -661.282, 49559.2}, 8, "colligate_fit_crc"},
+      {"monopotassium_phosphate", {"norrish_k", "norrish_k3"}, {-61.0641, 1873.7},
+       {16.4217, -1352.31, -1352.31, 114539}, 8, "colligate_fit_crc"},
+      {"dipotassium_phosphate", {"norrish_k", "norrish_k3"}, {-265.577, 19734.8},
+       {624.314, -84069.6, -84069.6, 1.16353e+07}, 6, "colligate_fit_crc"},
+      {"sodium_bicarbonate", {"norrish_k", "norrish_k3"}, {-59.5616, 2440.29},
+       {31.1737, -2774.34, -2774.34, 253439}, 4, "colligate_fit_crc"},
+      {"potassium_bicarbonate", {"norrish_k", "norrish_k3"}, {-38.4666, 728.404},
+       {6.15659, -237.944, -237.944, 9528.48}, 5, "colligate_fit_crc"},
+      {"sodium_carbonate", {"norrish_k", "norrish_k3"}, {-263.739, 15343.6},
+       {839.233, -83197, -83197, 8.4251e+06}, 2, "colligate_fit_crc"},
+      {"phosphoric_acid", {"norrish_k"}, {7.90033},
+       {0.0300643}, 10, "colligate_fit_crc"},
   };
   return rows;
 }
