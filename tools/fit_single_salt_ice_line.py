@@ -25,6 +25,7 @@ Run: python3 tools/fit_single_salt_ice_line.py [--with-cphi]
 from __future__ import annotations
 
 import argparse
+import math
 import pathlib
 import warnings
 
@@ -47,6 +48,7 @@ SALTS = {
     "sodium_bicarbonate": (1, -1, 1, 1),
     "potassium_bicarbonate": (1, -1, 1, 1),
     "sodium_carbonate": (1, -2, 2, 1),
+    "potassium_carbonate": (1, -2, 2, 1),
 }
 
 
@@ -99,6 +101,17 @@ def deviation(salt: str, params: dict, rows: pd.DataFrame) -> float:
     return float(np.max(np.abs(np.asarray(tf) - rows.freezing_point_K.to_numpy())))
 
 
+def window_low(salt: str, params: dict, fitted: pd.DataFrame) -> float:
+    """Lower end of the row's temperature window, K: the lowest fitted freezing point, or the
+    row's own freezing point at its top fitted molality where that is lower (so that the row
+    evaluated across its own data does not warn), rounded down to 0.1 mK."""
+    zc, za, nc, na = SALTS[salt]
+    at_top = cg._core.single_salt_closed_form_freezing_point(
+        zc, za, nc, na, params["beta0"], params["beta1"], params.get("cphi", 0.0),
+        [float(fitted.molality_mol_per_kg.max())])[0]
+    return math.floor(min(float(fitted.freezing_point_K.min()), float(at_top)) * 1e4 + 1e-6) / 1e4
+
+
 def main() -> int:
     ap = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
     ap.add_argument("--with-cphi", action="store_true", help="fit C-phi as well")
@@ -111,8 +124,7 @@ def main() -> int:
         print(f"{salt}: {r.status}, {len(fitted)} fit rows to {fitted.molality_mol_per_kg.max()} mol/kg, "
               f"{len(held)} held out; " + ", ".join(f"{k} = {v:.6g} +/- {r.stderr[k]:.2g}" for k, v in p.items()))
         print(f"    worst deviation: fit rows {deviation(salt, p, fitted):.4f} K, held-out rows "
-              f"{deviation(salt, p, held):.4f} K; lowest fitted freezing point "
-              f"{fitted.freezing_point_K.min():.2f} K; " + ("KEPT" if kept else "not kept: " + "; ".join(reasons)))
+              f"{deviation(salt, p, held):.4f} K; window from {window_low(salt, p, fitted):.4f} K; " + ("KEPT" if kept else "not kept: " + "; ".join(reasons)))
     return 0
 
 

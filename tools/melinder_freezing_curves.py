@@ -7,7 +7,7 @@ tests/python/test_published_magnitudes.py.
 
 Melinder, Properties of Secondary Working Fluids for Indirect Systems (IIR, 2010), evaluated
 the published freezing data of aqueous secondary coolants; CoolProp (INCOMP::MGL glycerol,
-MEA ethanol, MPG propylene glycol, MNA NaCl, MCA CaCl2, MKA potassium acetate) carries
+MEA ethanol, MPG propylene glycol, MNA NaCl, MCA CaCl2, MKA potassium acetate, MKC potassium carbonate) carries
 polynomial fits of those curves, T_freeze(w). The `used_in_fit` column says which rows colligate fitted constants to:
   * propylene glycol: K and K3 fitted at 5, 7.5, ..., 40 wt% (tools/fit_crc_norrish.py
     --propylene-glycol); the rows between (6.25, 8.75, ...) lie on the same fitted curve, so
@@ -21,6 +21,9 @@ polynomial fits of those curves, T_freeze(w). The `used_in_fit` column says whic
     (tools/fit_single_salt_ice_line.py); the rows between lie on the same fitted curve, held
     out but not independent of it. Rows below 5 wt% are not taken: the polynomial gives
     -0.027 C at zero concentration (its fit was made for coolant strengths, 10-45 wt%).
+  * potassium carbonate 1-10 wt%: not used in any fit (its Norrish record and single-salt
+    Pitzer row were fitted to the CRC rows to 10 wt%), so an independent check within the
+    range of those fits.
 
 Usage:  python tools/melinder_freezing_curves.py [--out PATH] [--check]
 """
@@ -54,6 +57,8 @@ def grid():
         out.append(("calcium_chloride", "MCA", float(p), "yes"))
     for p in range(5, 26):
         out.append(("potassium_acetate", "MKA", float(p), "yes" if p % 2 == 1 else "no"))
+    for p in range(1, 11):
+        out.append(("potassium_carbonate", "MKC", float(p), "no"))
     return out
 
 

@@ -8,6 +8,7 @@ crc_concentrative), read from the public copy named in NOTES_reference_data.md.
 from __future__ import annotations
 
 import sys
+import warnings
 from pathlib import Path
 
 import numpy as np
@@ -27,6 +28,7 @@ FIT_ROW_WORST = {
     "sodium_acetate": 0.022, "trisodium_citrate": 0.205, "monosodium_phosphate": 0.030,
     "monopotassium_phosphate": 0.034, "dipotassium_phosphate": 0.057,
     "sodium_bicarbonate": 0.026, "potassium_bicarbonate": 0.060, "sodium_carbonate": 0.062,
+    "potassium_carbonate": 0.079,
     "phosphoric_acid": 0.095,
 }
 
@@ -64,6 +66,30 @@ def test_potassium_acetate_held_out_melinder_rows():
     # beyond the fitted 25 wt%: computed and flagged
     with pytest.warns(cg.OutOfValidityRangeWarning, match="potassium_acetate|potassium acetate"):
         cg.freezing_point(cg.Solution.from_mass_fractions({"potassium acetate": 0.30}))
+
+
+def test_potassium_carbonate_against_melinder_not_used_in_its_fit():
+    # Melinder (2010), potassium carbonate freezing curve as CoolProp INCOMP::MKC carries it
+    # (tests/reference/melinder_freezing_curves.csv), 1-10 wt%: neither the effective Norrish
+    # record nor the single-salt Pitzer row was fitted to it (both to the CRC rows to 10 wt%).
+    # Limits (checks melinder_potassium_carbonate_norrish and _single_salt): each fit's worst
+    # deviation from the CRC rows (0.080 K, 0.010 K) plus the spread between the two sources
+    # where both give a row (|CRC - Melinder| up to 0.056 K, at 2 wt%), rounded up.
+    ref = Path(__file__).resolve().parents[1] / "reference"
+    mel = pd.read_csv(ref / "melinder_freezing_curves.csv", keep_default_na=False)
+    mel = mel[mel.solute == "potassium_carbonate"]
+    assert list(mel.mass_percent) == list(range(1, 11)) and set(mel.used_in_fit) == {"no"}
+    crc = pd.read_csv(ref / "crc_freezing_points.csv", keep_default_na=False)
+    crc = crc[crc.solute == "potassium_carbonate"].set_index("mass_percent")
+    spread = max(abs(-crc.depression_K[p] - t) for p, t in zip(mel.mass_percent, mel.freezing_point_C))
+    assert 0.05 < spread <= 0.056 + 5e-4
+    norrish = np.array([-depression("potassium_carbonate", p) for p in mel.mass_percent])
+    assert np.max(np.abs(norrish - mel.freezing_point_C.to_numpy())) <= 0.14
+    m = cg.single_salt_molality("potassium_carbonate", mel.mass_percent.to_numpy() / 100.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", cg.OutOfValidityRangeWarning)  # all within the row's window
+        pitzer = cg.single_salt_freezing_point("potassium_carbonate", m).freezing_point_K.to_numpy() - T0
+    assert np.max(np.abs(pitzer - mel.freezing_point_C.to_numpy())) <= 0.07
 
 
 def test_potassium_acetate_water_activity_at_25c_meets_may_2011():
@@ -128,6 +154,7 @@ def test_sulfates_with_the_default_pitzer_set(crc_freezing):
     ("sodium dihydrogen phosphate", "monosodium_phosphate"), ("K2HPO4", "dipotassium_phosphate"),
     ("Sodium Acetate", "sodium_acetate"), ("orthophosphoric acid", "phosphoric_acid"),
     ("potassium hydrogen carbonate", "potassium_bicarbonate"), ("Na2CO3", "sodium_carbonate"),
+    ("K2CO3", "potassium_carbonate"), ("E501", "potassium_carbonate"),
 ])
 def test_found_by_common_name_and_formula(name, solute_id):
     # 0.5 wt%: each name must give the record's own freezing point.

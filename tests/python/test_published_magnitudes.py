@@ -68,7 +68,7 @@ def test_fitted_constants_have_held_out_rows():
     # sodium carbonate (7, so 3 held out)
     food = {"sodium_acetate", "trisodium_citrate", "monosodium_phosphate",
             "monopotassium_phosphate", "dipotassium_phosphate", "sodium_bicarbonate",
-            "potassium_bicarbonate", "sodium_carbonate", "phosphoric_acid"}
+            "potassium_bicarbonate", "sodium_carbonate", "potassium_carbonate", "phosphoric_acid"}
     used = crc[crc.used_in_fit == "yes"]
     assert set(used.solute) == fitted | food
     for solute in fitted | food:

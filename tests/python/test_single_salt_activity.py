@@ -72,7 +72,8 @@ def test_parameter_table_names_its_source_and_range():
     assert (row.beta0, row.beta1, row.cphi) == (0.1382, 0.3317, -0.00496)
     ice = table[table.parameter_set == "colligate_ice_line_fit"]
     assert set(ice.index) == {"sodium_acetate", "potassium_acetate", "trisodium_citrate",
-                              "monosodium_phosphate", "dipotassium_phosphate", "potassium_bicarbonate"}
+                              "monosodium_phosphate", "dipotassium_phosphate", "potassium_bicarbonate",
+                              "potassium_carbonate"}
     assert set(ice.source) == {"colligate_fit_crc_pitzer", "colligate_fit_melinder_pitzer"}
     assert ice.loc["potassium_acetate"].source == "colligate_fit_melinder_pitzer"
     assert (ice.max_temperature_K == 273.15).all() and (ice.cphi == 0.0).all()
@@ -125,7 +126,7 @@ def test_freezing_points_vs_crc_held_out_rows():
     assert set(table.source_key) == {"crc_concentrative"} and set(table.used_in_fit) == {"no"}
     assert table.solute.value_counts().to_dict() == {
         "trisodium_citrate": 7, "sodium_acetate": 4, "monosodium_phosphate": 9, "dipotassium_phosphate": 7,
-        "potassium_bicarbonate": 6}
+        "potassium_bicarbonate": 6, "potassium_carbonate": 5}
     for (_, row), tol in zip(table.iterrows(), tolerance):
         with warnings.catch_warnings():
             warnings.simplefilter("error")  # no row beyond the fitted range
@@ -174,7 +175,12 @@ def test_ice_line_rows_are_what_the_tool_fits():
         assert r.params["beta0"] == pytest.approx(row.beta0, rel=1e-6)
         assert r.params["beta1"] == pytest.approx(row.beta1, rel=1e-6)
         assert row.max_molality == fitted.molality_mol_per_kg.max()
-        assert row.min_temperature_K == pytest.approx(fitted.freezing_point_K.min(), abs=1e-9)
+        # the window opens at the lowest fitted freezing point, or at the row's own at its top
+        # fitted molality where that is lower, so the row evaluated on its data never warns
+        assert row.min_temperature_K == pytest.approx(tool.window_low(salt, r.params, fitted), abs=1e-9)
+        with warnings.catch_warnings():
+            warnings.simplefilter("error", cg.OutOfValidityRangeWarning)
+            cg.single_salt_freezing_point(salt, fitted.molality_mol_per_kg.to_numpy())
     for salt in set(tool.SALTS) - set(ice.index):  # the salts the tool's rule does not keep
         r, _, _ = tool.fit_salt(salt)
         assert r.poorly_determined(), salt

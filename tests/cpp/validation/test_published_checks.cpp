@@ -121,7 +121,7 @@ TEST_CASE("fitted Norrish constants against held-out CRC rows", "[validation][he
   }
   for (const auto& r : read_reference(c.file))
     if (!held_out(r) && checked.count(r.at("solute"))) ++fit_rows[r.at("solute")];
-  CHECK(checked.size() == 15);  // six foods' constants and nine food salts and acids
+  CHECK(checked.size() == 16);  // six foods' constants and ten food salts and acids
   for (const auto& [solute, n] : checked) {
     INFO(solute);
     // the CRC table prints fewer rows for two salts: sodium acetate 9 in the fitted range
@@ -582,7 +582,7 @@ TEST_CASE("mean activity coefficients at 25 C of salts of food against the CRC t
 TEST_CASE("freezing points of salts of food by single-salt Pitzer rows fitted on the ice line",
           "[validation][pitzer][single_salt]") {
   // CRC Handbook 102nd ed. (2021), "Concentrative Properties of Aqueous Solutions", sodium
-  // acetate, sodium citrate (anhydrous molality), NaH2PO4, K2HPO4 and KHCO3, the rows within
+  // acetate, sodium citrate (anhydrous molality), NaH2PO4, K2HPO4, KHCO3 and K2CO3, the rows within
   // the fitted molalities not used in the fit
   // (tools/fit_single_salt_ice_line.py); limits of check crc_single_salt_ice_line.
   const auto& c = tolerances::find("crc_single_salt_ice_line");
@@ -602,7 +602,8 @@ TEST_CASE("freezing points of salts of food by single-salt Pitzer rows fitted on
   CHECK(checked == std::map<std::string, int>{{"sodium_acetate", 4}, {"trisodium_citrate", 7},
                                               {"monosodium_phosphate", 9},
                                               {"dipotassium_phosphate", 7},
-                                              {"potassium_bicarbonate", 6}});
+                                              {"potassium_bicarbonate", 6},
+                                              {"potassium_carbonate", 5}});
 }
 
 TEST_CASE("freezing points of potassium acetate as an effective Norrish solute",
@@ -645,6 +646,34 @@ TEST_CASE("freezing points of potassium acetate by its single-salt Pitzer row on
     ++n;
   }
   CHECK(n == 10);
+}
+
+TEST_CASE("potassium carbonate against Melinder (2010), not used in its fits",
+          "[validation][independent][food_salts]") {
+  // Melinder (2010), potassium carbonate, as CoolProp INCOMP::MKC carries her curve
+  // (tests/reference/melinder_freezing_curves.csv), 1-10 wt%. The effective Norrish record and
+  // the single-salt Pitzer row were both fitted to the CRC rows to 10 wt% only. Limits (checks
+  // melinder_potassium_carbonate_norrish and melinder_potassium_carbonate_single_salt): each
+  // fit's worst deviation from the CRC rows (0.080 K, 0.010 K) plus the spread between the two
+  // published sources where both give a row (|CRC - Melinder| up to 0.056 K, 2 wt%), rounded up.
+  const auto& norrish = tolerances::find("melinder_potassium_carbonate_norrish");
+  const auto& pitzer = tolerances::find("melinder_potassium_carbonate_single_salt");
+  int n = 0;
+  for (const auto& r : tolerances::rows(norrish)) {
+    REQUIRE(held_out(r));
+    const double w = num(r, "mass_percent") / 100.0;
+    INFO(w * 100.0 << " wt% [" << r.at("source_key") << ", not used in the fits]");
+    CHECK_THAT(-depression("potassium_carbonate", w),
+               Catch::Matchers::WithinAbs(num(r, norrish.published), tolerance(norrish, r)));
+    const auto f = models::single_salt::freezing_point(
+        "potassium_carbonate", models::single_salt::molality_from_mass_fraction("potassium_carbonate", w));
+    CHECK(f.reason.empty());
+    CHECK_THAT(f.temperature - constants::ice_point,
+               Catch::Matchers::WithinAbs(num(r, pitzer.published), tolerance(pitzer, r)));
+    ++n;
+  }
+  CHECK(n == 10);
+  CHECK(tolerances::rows(pitzer).size() == 10);
 }
 
 // --- 25 C osmotic coefficients from published isopiestic molalities (issue 12) -------------

@@ -72,6 +72,8 @@ inline const std::vector<builtin_uncertainty_row>& builtin_uncertainty_rows() {
        {6.15659, -237.944, -237.944, 9528.48}, 5, "colligate_fit_crc"},
       {"sodium_carbonate", {"norrish_k", "norrish_k3"}, {-263.739, 15343.6},
        {839.233, -83197, -83197, 8.4251e+06}, 2, "colligate_fit_crc"},
+      {"potassium_carbonate", {"norrish_k", "norrish_k3"}, {-130.279, 6513.13},
+       {232.492, -18033.4, -18033.4, 1.43543e+06}, 4, "colligate_fit_crc"},
       {"phosphoric_acid", {"norrish_k"}, {7.90033},
        {0.0300643}, 10, "colligate_fit_crc"},
   };

@@ -50,7 +50,10 @@ struct single_salt_parameters {
   double max_molality = 0.0;  ///< mol/kg, top of the data behind the fit
   std::string source;         ///< citation key (data/citation.hpp)
   std::string parameter_set = "may_2011";  ///< "may_2011" or "colligate_ice_line_fit"
-  double min_temperature = 297.65;  ///< K, window in which the row is used
+  /// K, window in which the row is used; for an ice-line row, the lowest fitted freezing
+  /// point or the row's own at max_molality where that is lower, rounded down to 0.1 mK
+  /// (tools/fit_single_salt_ice_line.py), so the row never warns on its own data
+  double min_temperature = 297.65;
   double max_temperature = 298.65;  ///< K
 };
 
@@ -122,12 +125,18 @@ inline const std::vector<single_salt_parameters>& single_salt_table() {
       {"potassium_acetate", "potassium acetate", "CH3COOK", 1, -1, 1, 1, 0.098142, 0.128072195,
        0.702098568, 0.0, 0.0, 2.0, 12.0, 3.396439173170848, "colligate_fit_melinder_pitzer",
        "colligate_ice_line_fit", 256.9223, 273.15},
+      // potassium carbonate (E501): 6 rows 0.036-0.804 mol/kg (0.5-10 wt%); beta0 0.1394 +/-
+      // 0.0038, beta1 1.131 +/- 0.066, r = -0.95 (May et al.'s 25 C values: 0.1305, 1.606).
+      // Beyond 10 wt% the CRC rows are not taken, as for its Norrish record.
+      {"potassium_carbonate", "potassium carbonate", "K2CO3", 1, -2, 2, 1, 0.138204,
+       0.139427207, 1.13110933, 0.0, 0.0, 2.0, 12.0, 0.804, "colligate_fit_crc_pitzer",
+       "colligate_ice_line_fit", 269.5767, 273.15},
       // trisodium citrate (anhydrous Na3C6H5O7, as the CRC molality column): 8 rows
       // 0.039-0.969 mol/kg; beta0 0.1765 +/- 0.0036, beta1 4.29 +/- 0.24. No Pitzer
       // parameters of it were found published.
       {"trisodium_citrate", "trisodium citrate", "Na3C6H5O7", 1, -3, 3, 1, 0.2580683, 0.176470501,
        4.29267699, 0.0, 0.0, 2.0, 12.0, 0.969, "colligate_fit_crc_pitzer", "colligate_ice_line_fit",
-       268.76, 273.15},
+       268.7467, 273.15},
       // NaH2PO4: 10 rows 0.042-0.875 mol/kg; beta0 -0.160 +/- 0.012, beta1 0.474 +/- 0.066.
       {"monosodium_phosphate", "monosodium phosphate", "NaH2PO4", 1, -1, 1, 1, 0.119976,
        -0.160413948, 0.473713956, 0.0, 0.0, 2.0, 12.0, 0.875, "colligate_fit_crc_pitzer",
@@ -135,11 +144,11 @@ inline const std::vector<single_salt_parameters>& single_salt_table() {
       // K2HPO4: 8 rows 0.029-0.466 mol/kg; beta0 0.074 +/- 0.016, beta1 0.41 +/- 0.14.
       {"dipotassium_phosphate", "dipotassium phosphate", "K2HPO4", 1, -2, 2, 1, 0.174174,
        0.0737923324, 0.408729300, 0.0, 0.0, 2.0, 12.0, 0.466, "colligate_fit_crc_pitzer",
-       "colligate_ice_line_fit", 271.33, 273.15},
+       "colligate_ice_line_fit", 271.3239, 273.15},
       // KHCO3: 7 rows 0.05-1.626 mol/kg; beta0 -0.0414 +/- 0.0016, beta1 -0.108 +/- 0.017.
       {"potassium_bicarbonate", "potassium bicarbonate", "KHCO3", 1, -1, 1, 1, 0.100114,
        -0.0414187618, -0.107866824, 0.0, 0.0, 2.0, 12.0, 1.626, "colligate_fit_crc_pitzer",
-       "colligate_ice_line_fit", 268.74, 273.15},
+       "colligate_ice_line_fit", 268.7392, 273.15},
   };
   return table;
 }
