@@ -53,6 +53,11 @@ out["ross_freezing_point_ns"] = best(lambda: cg.batch_freezing_point(rb, threads
 syrup = cg.Solution.from_mass_fractions({"sucrose": 0.2, "glucose": 0.05})
 temps = np.linspace(272.0, 243.15, 200)
 out["syrup_curve_200_points_us"] = best(lambda: cg.ice_fraction(syrup, temps)) * 1e6
+# salt paths from a fresh curve: eutectics of NaCl brines, seawater's whole path
+brines = [cg.Solution.from_mass_fractions({"NaCl": float(w)}) for w in np.linspace(0.01, 0.2, 20)]
+out["nacl_eutectic_us"] = best(lambda: [cg.eutectic(s) for s in brines]) / len(brines) * 1e6
+sea = cg.Solution.seawater(35.0)
+out["seawater_path_salts_us"] = best(lambda: cg.IceCurve(sea).salts) * 1e6
 print(json.dumps(out))
 '''
 

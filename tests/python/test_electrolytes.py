@@ -37,6 +37,28 @@ def test_nacl_eutectic_and_ice_curve_stop():
         cg.ice_fraction(s, e["temperature"] - 1.0, range_policy="raise")
 
 
+def test_potassium_sulfate_curve_stops_at_its_eutectic_whatever_is_asked_first():
+    # Ice + arcanite (K2SO4) eutectic about -1.5 C (from memory; tolerance 0.3 K). Held
+    # unprecipitated, a K2SO4 brine leaves the model's range long before the salt data's
+    # lowest temperature, where its saturation index falls again: the eutectic, the salts of
+    # the curve and the state below it must not depend on the temperature asked first.
+    s = cg.Solution.from_mass_fractions({"K2SO4": 0.02})
+    e = cg.eutectic(s)
+    assert e["found"] and e["phase"] == "arcanite"
+    assert e["temperature"] - 273.15 == pytest.approx(-1.5, abs=0.3)
+    for first in (272.0, 250.0, 230.0, 219.2):
+        curve = cg.IceCurve(s)
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            state = curve.at(first)
+        assert curve.eutectic()["temperature"] == pytest.approx(e["temperature"], abs=1e-6)
+        assert [x["name"] for x in curve.salts] == ["arcanite"]
+        if first < e["temperature"]:
+            assert state.state == "below_curve_end" and np.isnan(state.unfrozen_water)
+    with pytest.warns(cg.OutOfValidityRangeWarning, match="final eutectic"):
+        assert np.isnan(cg.ice_fraction(s, 250.0))
+
+
 def test_pitzer_bad_input_warns_and_raises():
     brine = cg.Solution.from_molalities({"NaCl": 1.0})
     with pytest.warns(cg.OutOfValidityRangeWarning, match="219.15-298.15 K"):

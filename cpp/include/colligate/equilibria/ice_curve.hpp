@@ -324,8 +324,16 @@ class ice_curve {
     if (onsets_.empty() && end_ != curve_end::saturated_before_ice) {
       liquid_state st;
       if (solve_ice_only(T, nullptr, st) && !(max_saturation(T, st, nullptr) > 0.0) &&
-          T >= lowest_salt_temperature)
-        return fill(r, st, {}, ln_aw_ice);
+          T >= lowest_salt_temperature) {
+        // Within the model's range the saturation index grows as the brine concentrates, so
+        // unsaturated at T means no salt above T. Outside it the index can fall again (see
+        // explore_first_onset): the path from the freezing point decides.
+        ice_curve_state liquid = r;
+        fill(liquid, st, {}, ln_aw_ice);
+        if (liquid.check.in_range()) return liquid;
+        if (start_salts()) explore(T);
+        if (onsets_.empty() && explored_to_ <= T) return liquid;
+      }
     }
     if (!start_salts()) return below_end(r);
     explore(T);
@@ -675,37 +683,54 @@ class ice_curve {
 
   // --- the path --------------------------------------------------------------------
 
-  /// Finds the first salt onset above `T_low` on the ice-only path (bisection on the
-  /// largest saturation index, assumed to grow as the brine concentrates).
+  /// Finds the first salt onset above `T_low` on the ice-only path. The saturation index
+  /// grows as the brine concentrates while the model holds; far outside its range it can
+  /// fall again (K2SO4 held unprecipitated at tens of mol/kg), and the ice-only solve can
+  /// fail. So the search walks down from the freezing point in steps that double (1, 2, 4,
+  /// ... K) to the first temperature that is saturated or unsolved, then bisects that step.
   void explore_first_onset(double T_low) {
     if (!onsets_.empty()) return;
     liquid_state st;
     const double lo_T = std::max(T_low, lowest_salt_temperature);
-    if (!solve_ice_only(lo_T, nullptr, st)) return;
-    const salt_phase* ph = nullptr;
-    if (!(max_saturation(lo_T, st, &ph) > 0.0)) {
-      explored_to_ = std::min(explored_to_, lo_T);
-      if (lo_T <= lowest_salt_temperature) {
+    const double fp_T = initial_freezing_point().temperature;
+    // saturated, or an unsolved temperature, which counts as the cold side (the bracket
+    // then closes on the last solved state)
+    auto saturated_or_unsolved = [&](double T) {
+      liquid_state sm;
+      return !solve_ice_only(T, nullptr, sm) || max_saturation(T, sm, nullptr) >= 0.0;
+    };
+    // The steps do not depend on T_low (the walk only stops sooner for a warmer T_low), so
+    // the onset found is the same whichever temperature was asked first.
+    double warm = fp_T, cold = fp_T;
+    bool found = false;
+    for (double step = 1.0; !found && cold > lo_T && cold > lowest_salt_temperature; step *= 2.0) {
+      warm = cold;
+      cold = std::max(fp_T - step, lowest_salt_temperature);
+      found = saturated_or_unsolved(cold);
+    }
+    if (!found) {
+      explored_to_ = std::min(explored_to_, cold);
+      if (cold <= lowest_salt_temperature) {
         end_temperature_ = lowest_salt_temperature;
         end_ = curve_end::salt_data_limit;
       }
       return;
     }
-    const auto b = bisect_boundary(
-        [&](double mid) {
-          liquid_state sm;
-          return solve_ice_only(mid, nullptr, sm) && max_saturation(mid, sm, nullptr) >= 0.0;
-        },
-        lo_T, initial_freezing_point().temperature, 1e-7, 60);
+    const auto b = bisect_boundary(saturated_or_unsolved, cold, warm, 1e-7, 60);
     double T_on = 0.5 * (b.lo + b.hi);
     const salt_phase* first = nullptr;
     if (!solve_ice_only(T_on, nullptr, st) || (max_saturation(T_on, st, &first), first == nullptr)) {
       // The midpoint fell where the ice-only solve fails (no salt is then named): take the
-      // bracket's cold end, where the solve held and a salt was saturated when tested.
+      // bracket's cold end, saturated where it is solved.
       T_on = b.lo;
       first = nullptr;
       if (!solve_ice_only(T_on, nullptr, st) || (max_saturation(T_on, st, &first), first == nullptr)) {
-        explored_to_ = std::min(explored_to_, lo_T);
+        // No salt saturates before the ice-only solve stops: the curve ends there, and
+        // at() says the equilibria stopped converging.
+        explored_to_ = std::min(explored_to_, b.hi);
+        end_temperature_ = b.hi;
+        end_ = curve_end::salt_data_limit;
+        solver_stopped_ = true;
         return;
       }
     }
