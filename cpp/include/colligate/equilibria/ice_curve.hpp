@@ -331,7 +331,8 @@ class ice_curve {
         ice_curve_state liquid = r;
         fill(liquid, st, {}, ln_aw_ice);
         if (liquid.check.in_range()) return liquid;
-        if (start_salts()) explore(T);
+        if (!start_salts()) return below_end(r);
+        explore(T);
         if (onsets_.empty() && explored_to_ <= T) return liquid;
       }
     }
