@@ -196,7 +196,7 @@ def _seawater_salt_onset_c(row) -> float:
 # Molality well above saturation at 25 C (NaCl saturates near 6.1, KCl near 4.8 mol/kg): the
 # equilibrium state is the saturated liquid whatever the excess (the same choice as
 # tests/cpp/equilibria/test_salt_equilibrium.cpp).
-ABOVE_SATURATION = {"NaCl": 8.0, "KCl": 6.5}
+ABOVE_SATURATION = {"NaCl": 8.0, "KCl": 6.5, "MgCl2": 7.0}
 
 
 def _saturated_water_activity(row) -> float:
@@ -210,14 +210,18 @@ def _saturated_water_activity(row) -> float:
     return state["water_activity"]
 
 
-def _nacl_solubility(row) -> float:
-    # Saturation molality of halite: the liquid left when an 8 mol/kg NaCl solution reaches
-    # equilibrium with the salt at the row's temperature (default parameter set).
-    cg = _cg()
-    with warnings.catch_warnings():
-        warnings.simplefilter("ignore", cg.SupersaturatedWarning)
-        state = cg.salt_equilibrium(cg.Solution.from_molalities({"NaCl": 8.0}), row.temperature_C + CELSIUS)
-    return (8.0 - state["precipitated_mol"]) / state["liquid_water_kg"]
+def _salt_solubility(salt: str) -> Callable:
+    """Saturation molality of one salt: the liquid left when a solution well above
+    saturation (ABOVE_SATURATION) reaches equilibrium with the salt at the row's temperature
+    (default parameter set)."""
+    def f(row) -> float:
+        cg = _cg()
+        m = ABOVE_SATURATION[salt]
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", cg.SupersaturatedWarning)
+            state = cg.salt_equilibrium(cg.Solution.from_molalities({salt: m}), row.temperature_C + CELSIUS)
+        return (m - state["precipitated_mol"]) / state["liquid_water_kg"]
+    return f
 
 
 def _sugar_solubility_g_per_100g(row) -> float:
@@ -348,7 +352,8 @@ QUANTITIES: dict[str, Quantity] = {
                                                             relative=True),
     "saturated_salt_water_activity": Quantity(_saturated_water_activity, "water_activity",
                                               "published a_w of the saturated solution", "salt", curve=False),
-    "nacl_solubility_mol_per_kg": Quantity(_nacl_solubility, "temperature_C", "temperature, C"),
+    "nacl_solubility_mol_per_kg": Quantity(_salt_solubility("NaCl"), "temperature_C", "temperature, C"),
+    "mgcl2_solubility_mol_per_kg": Quantity(_salt_solubility("MgCl2"), "temperature_C", "temperature, C"),
     "sugar_solubility_g_per_100g_water": Quantity(_sugar_solubility_g_per_100g, "temperature_c",
                                                   "temperature, C", "solute"),
     "propylene_glycol_freezing_point_F_from_volume_percent": Quantity(

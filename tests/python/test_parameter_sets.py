@@ -230,6 +230,36 @@ def test_solution_above_solubility_gives_the_saturated_brine(salt, phase, molali
     assert aw_harvie == pytest.approx(ref.water_activity, abs=tolerance)
 
 
+def test_saturated_magnesium_chloride_at_25c():
+    # Greenspan (1977): a_w of saturated MgCl2 at 25 C 0.3279 (tests/reference/
+    # greenspan_saturated_salts_25c.csv); tolerance 0.003, the limit of issue 12. The default
+    # set's bischofite K was fitted to a solubility table (0 and 20 C rows), not to a_w.
+    ref = pd.read_csv(REFERENCE / "greenspan_saturated_salts_25c.csv").set_index("salt").loc["MgCl2"]
+    s = cg.Solution.from_molalities({"MgCl2": 6.5})
+    with pytest.warns(cg.SupersaturatedWarning, match="bischofite"):
+        aw = cg.water_activity(s, 298.15)
+    assert aw == pytest.approx(ref.water_activity, abs=0.003)
+    # the metastable liquid is drier, and says so only when asked for
+    assert _quiet(cg.water_activity, s, 298.15, saturation="metastable") < aw - 0.02  # warns: above 5.9
+    # a MgCl2 solution above saturation reports where bischofite begins to crystallise
+    state = _quiet(cg.salt_equilibrium, s, 298.15)
+    assert state["phase"] == "bischofite" and state["supersaturated"]
+
+
+def test_mgcl2_solubility_against_the_rows_held_out_of_its_fit():
+    # tests/reference/mgcl2_solubility.csv (chemister.ru compiled table, g per 100 g water
+    # printed to 0.1, 0.0105 mol/kg a step). The default set's bischofite K was fitted to the
+    # 0 and 20 C rows (tools/fit_default_set.py); 10 and 25 C are held out: within 0.02
+    # mol/kg (two printed steps), the fitted rows within 0.005.
+    table = pd.read_csv(REFERENCE / "mgcl2_solubility.csv")
+    table = table[table.temperature_C <= 25]
+    assert set(table.source_key) == {"chemister_mgcl2_solubility"}
+    for _, r in table.iterrows():
+        m = _saturation_molality("MgCl2", r.temperature_C + 273.15)
+        limit = 0.005 if r.used_in_fit == "yes" else 0.02
+        assert m == pytest.approx(r.molality_mol_per_kg, abs=limit), r.temperature_C
+
+
 def _saturation_molality(salt, T, parameter_set=None):
     state = _quiet(cg.salt_equilibrium, cg.Solution.from_molalities({salt: 8.0}), T,
                    parameter_set=parameter_set)

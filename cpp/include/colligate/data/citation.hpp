@@ -130,6 +130,11 @@ inline const std::vector<citation>& citations() {
        "various temperatures", "saltinstitute.org (salt-101/chemical-physical-properties)", "",
        "table of mass per cent NaCl in the saturated solution, -21.11 to 108.7 C; read in a "
        "public copy of the page (tuticorin-salt.blogspot.com, 2013)"},
+      {"chemister_mgcl2_solubility", "chemister.ru database", 2026,
+       "Properties of substance: magnesium chloride; solubility in water, g/100 g of water, "
+       "0-200 C", "chemister.ru (Chemdatabase, substance id 642)", "",
+       "compiled solubility table (its own references not read), read in a public copy of the "
+       "page; saturated phase at 25 C MgCl2.6H2O (bischofite) as the page states"},
       {"colligate_icefit", "colligate developers", 2026,
        "Low-temperature curvature of the NaCl and CaCl2 Pitzer parameters of Spencer et al. "
        "(1990), fitted to the evaluated ice lines of Melinder (2010)",

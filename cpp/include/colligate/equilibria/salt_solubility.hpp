@@ -111,6 +111,13 @@ inline const std::vector<salt_phase>& salt_phases() {
       {"magnesium chloride dodecahydrate", "MgCl2.12H2O", {{"Mg+2", 1}, {"Cl-", 2}}, 12,
        {6251.417981, 18.27412717, 610125.588, -4799.728491, -54142200.5, -0.014127812},
        "spencer_1990"},
+      // The hydrates of concentrated MgCl2 brines above -17 C (octahydrate) and -3.4 C
+      // (bischofite, the salt of a saturated MgCl2 solution at room temperature); the
+      // default set carries the shift of bischofite's K that goes with its MgCl2 activities.
+      {"magnesium chloride octahydrate", "MgCl2.8H2O", {{"Mg+2", 1}, {"Cl-", 2}}, 8,
+       {989.331411, 0.28201417, -27059.8088, -395.438891, 0, 0}, "spencer_1990"},
+      {"bischofite", "MgCl2.6H2O", {{"Mg+2", 1}, {"Cl-", 2}}, 6,
+       {326.68721, 0.05106637, -10563.0802, -121.990076, 0, 0}, "spencer_1990"},
       {"mirabilite", "Na2SO4.10H2O", {{"Na+", 2}, {"SO4-2", 1}}, 10,
        {-20.12422, 0.07613508, 0, 0, 0, -4.26568E-05}, "marion_farren_1999"},
       {"meridianiite", "MgSO4.11H2O", {{"Mg+2", 1}, {"SO4-2", 1}}, 11,
